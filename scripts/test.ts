@@ -1,0 +1,81 @@
+// `npm test`: a throwaway PostgreSQL cluster and mail catcher, the client build, then every suite.
+// The cluster is stopped and its folder removed whatever the outcome; the last line is "N passed, N failed".
+import { spawn, spawnSync } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { clusterFor, databaseUrl, ensureDatabase, initCluster, startCluster, stopCluster } from './lib/postgres.ts';
+import { freePort } from './lib/free-port.ts';
+import { projectRoot } from './lib/local-env.ts';
+
+process.chdir(projectRoot);
+const vitestArgs = process.argv.slice(2);
+const workDir = fs.mkdtempSync(path.join(os.tmpdir(), 'patchwise-test-'));
+fs.chmodSync(workDir, 0o755);
+const cluster = clusterFor(path.join(workDir, 'postgres'), await freePort());
+let catcher: { close(): Promise<void> } | null = null;
+
+function cleanUp() {
+  try {
+    stopCluster(cluster);
+  } finally {
+    fs.rmSync(workDir, { recursive: true, force: true });
+  }
+}
+
+function summaryFrom(file: string) {
+  if (!fs.existsSync(file)) return null;
+  const report = JSON.parse(fs.readFileSync(file, 'utf8')) as { numPassedTests: number; numFailedTests: number; numTotalTestSuites: number; testResults: Array<{ status: string; message?: string; name: string }> };
+  // A file that fails to load counts as a failure even though none of its tests ran.
+  const brokenFiles = report.testResults.filter((r) => r.status === 'failed' && r.message && !r.message.includes('Test failed')).length;
+  return { passed: report.numPassedTests, failed: report.numFailedTests, brokenFiles };
+}
+
+let exitCode = 1;
+try {
+  initCluster(cluster);
+  startCluster(cluster);
+  await ensureDatabase(cluster, 'patchwise_test');
+  const smtpPort = await freePort();
+  const env = {
+    ...process.env,
+    NODE_ENV: 'test',
+    DATABASE_URL: databaseUrl(cluster, 'patchwise_test'),
+    SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
+    SMTP_PORT: String(smtpPort),
+    UPLOAD_DIR: path.join(workDir, 'uploads'),
+    CLIENT_DIR: path.join(projectRoot, 'dist'),
+    SESSION_SECRET: 'patchwise-test-secret-not-for-production',
+    PATCHWISE_TEST_TMP: workDir,
+  };
+  Object.assign(process.env, env);
+
+  const migrate = spawnSync('node', ['--import', 'tsx', 'scripts/migrate.ts'], { env, stdio: 'inherit' });
+  if (migrate.status !== 0) throw new Error('Migrations failed.');
+
+  const { startMailCatcher } = await import('../server/mail/catcher.ts');
+  catcher = await startMailCatcher({ port: smtpPort, databaseUrl: env.DATABASE_URL });
+
+  console.log('Building the client…');
+  const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { env: { ...env, NODE_ENV: 'production' }, stdio: 'inherit' });
+  if (build.status !== 0) throw new Error('The client build failed.');
+
+  const reportFile = path.join(workDir, 'vitest-report.json');
+  const vitest = spawn('npx', ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`, ...vitestArgs], { env, stdio: 'inherit' });
+  const vitestCode: number = await new Promise((resolve) => vitest.on('exit', (code) => resolve(code ?? 1)));
+  const summary = summaryFrom(reportFile);
+  const failed = (summary?.failed ?? 0) + (summary?.brokenFiles ?? 0) + (summary ? 0 : 1);
+  exitCode = vitestCode === 0 && failed === 0 ? 0 : 1;
+  await catcher.close();
+  catcher = null;
+  cleanUp();
+  console.log(`${summary?.passed ?? 0} passed, ${Math.max(failed, exitCode)} failed`);
+} catch (error) {
+  console.error((error as Error).message);
+  await catcher?.close().catch(() => {});
+  cleanUp();
+  console.log('0 passed, 1 failed');
+  exitCode = 1;
+}
+process.exit(exitCode);
+

@@ -1,0 +1,82 @@
+// Builds the Express app (exported for supertest); server/index.ts only listens.
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import fs from 'node:fs';
+import path from 'node:path';
+import pg from 'pg';
+import { config } from './config.ts';
+import { passport } from './auth/passport.ts';
+import { sessionMiddleware } from './auth/session.ts';
+import { csrfProtection } from './auth/csrf.ts';
+import { errorHandler, notFound } from './errors.ts';
+import { authRouter } from './routes/auth.ts';
+import { usersRouter } from './routes/users.ts';
+import { farmsRouter } from './routes/farms.ts';
+import { fieldsRouter } from './routes/fields.ts';
+import { pestsRouter } from './routes/pests.ts';
+import { mailboxRouter } from './routes/mailbox.ts';
+import { configRouter } from './routes/config.ts';
+
+function tileOrigin(tileUrl: string) {
+  try {
+    return new URL(tileUrl.replace(/\{[a-z]\}/g, 'a')).origin;
+  } catch {
+    return null;
+  }
+}
+
+export interface AppOptions {
+  /** Serve the built client from this folder (skipped when it does not exist). */
+  clientDir?: string;
+}
+
+export function createApp(options: AppOptions = {}): Express {
+  const app = express();
+  app.set('trust proxy', 'loopback');
+  app.disable('x-powered-by');
+
+  const tiles = tileOrigin(config.tileUrl);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'img-src': ["'self'", 'data:', 'blob:', ...(tiles ? [tiles] : [])],
+          'connect-src': ["'self'"],
+          'frame-src': ["'self'"],
+          'upgrade-insecure-requests': config.isProduction ? [] : null,
+        },
+      },
+      strictTransportSecurity: config.isProduction,
+    }),
+  );
+
+  const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 5 });
+  sessionPool.on('error', () => {});
+  app.use('/api', express.json({ limit: '6mb' }));
+  app.use('/api', sessionMiddleware(sessionPool));
+  app.use('/api', passport.session());
+  app.use('/api', (req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  app.use('/api', csrfProtection);
+
+  app.use('/api/auth', authRouter);
+  app.use('/api/config', configRouter);
+  app.use('/api/users', usersRouter);
+  app.use('/api/farms', farmsRouter);
+  app.use('/api/fields', fieldsRouter);
+  app.use('/api/pests', pestsRouter);
+  app.use('/api/mailbox', mailboxRouter);
+
+  app.use('/api', (_req, _res, next) => next(notFound('That API route')));
+
+  const clientDir = options.clientDir ?? config.clientDir;
+  if (fs.existsSync(path.join(clientDir, 'index.html'))) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile(path.join(clientDir, 'index.html')));
+  }
+
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,56 @@
+import passport from 'passport';
+import { Strategy as LocalStrategy } from 'passport-local';
+import { User } from '../models/user.ts';
+import { decoyPasswordHash, verifyPassword } from './passwords.ts';
+import type { Role } from '../../shared/schemas/roles.ts';
+
+export interface Actor {
+  id: string;
+  organisationId: string;
+  role: Role;
+  name: string;
+  email: string;
+}
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
+    interface User extends Actor {}
+  }
+}
+
+export const actorOf = (user: User): Actor => ({
+  id: user.id,
+  organisationId: user.organisationId,
+  role: user.role,
+  name: user.name,
+  email: user.email,
+});
+
+passport.use(
+  new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, async (email, password, done) => {
+    try {
+      const user = await User.findOne({ where: { email: email.trim().toLowerCase() } });
+      const ok = user ? await verifyPassword(user.passwordHash, password) : await verifyPassword(await decoyPasswordHash(), `${password}x`);
+      if (!user || !ok || !user.active) return done(null, false);
+      return done(null, actorOf(user));
+    } catch (error) {
+      return done(error);
+    }
+  }),
+);
+
+passport.serializeUser((actor, done) => done(null, actor.id));
+
+// Reload the user on every request so a deactivated account or a changed role takes effect at once.
+passport.deserializeUser(async (id: string, done) => {
+  try {
+    const user = await User.findByPk(id);
+    done(null, user && user.active ? actorOf(user) : false);
+  } catch (error) {
+    done(error);
+  }
+});
+
+export { passport };

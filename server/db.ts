@@ -1,0 +1,14 @@
+import { Sequelize } from 'sequelize';
+import pg from 'pg';
+import { config } from './config.ts';
+
+// Return bigint counts as numbers and numeric columns (thresholds, areas) as JS numbers.
+pg.types.setTypeParser(20, (v) => Number(v));
+pg.types.setTypeParser(1700, (v) => Number(v));
+
+export const sequelize = new Sequelize(config.databaseUrl, {
+  dialect: 'postgres',
+  logging: false,
+  define: { underscored: true, timestamps: true },
+  pool: { max: 10, idle: 10_000 },
+});

@@ -1,0 +1,66 @@
+import type { ErrorRequestHandler } from 'express';
+import { ZodError } from 'zod';
+import { BoundaryError } from '../shared/boundary/boundary-faults.ts';
+
+/** The one error type the API throws: an HTTP status and a message written for the person using it. */
+export class AppError extends Error {
+  constructor(
+    public readonly status: number,
+    public readonly code: string,
+    message: string,
+    public readonly fields?: Record<string, string>,
+  ) {
+    super(message);
+    this.name = 'AppError';
+  }
+}
+
+export const notFound = (what: string) => new AppError(404, 'not_found', `${what} was not found.`);
+export const forbidden = (message = 'Your role does not allow this.') => new AppError(403, 'forbidden', message);
+export const unauthorised = () => new AppError(401, 'unauthorised', 'Sign in to continue.');
+export const badRequest = (message: string, fields?: Record<string, string>) => new AppError(400, 'invalid', message, fields);
+export const conflict = (message: string) => new AppError(409, 'conflict', message);
+
+export function fromZod(error: ZodError): AppError {
+  const fields: Record<string, string> = {};
+  for (const issue of error.issues) {
+    const key = issue.path.join('.') || '_';
+    fields[key] ??= issue.message;
+  }
+  const first = error.issues[0];
+  return new AppError(400, 'invalid', first?.message ?? 'The request is not valid.', fields);
+}
+
+// Postgres errors that come from the database's own constraints, phrased for users.
+function fromDatabase(error: { name?: string; parent?: { code?: string; constraint?: string } }): AppError | null {
+  const code = error.parent?.code;
+  if (code === '23505') return conflict('That name or e-mail address is already in use.');
+  if (code === '23503') return badRequest('A linked record does not exist or is still in use.');
+  if (code === '23514') return badRequest('A value breaks one of the rules for this record.');
+  if (code === '22P02') return badRequest('An identifier in the request is not valid.');
+  return null;
+}
+
+function isDatabaseUnavailable(error: { name?: string; parent?: { code?: string }; code?: string }) {
+  return (
+    error.name === 'SequelizeConnectionError' ||
+    error.name === 'SequelizeConnectionRefusedError' ||
+    error.name === 'SequelizeConnectionAcquireTimeoutError' ||
+    error.parent?.code === '57P01' ||
+    error.code === 'ECONNREFUSED'
+  );
+}
+
+export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
+  let error: AppError;
+  if (err instanceof AppError) error = err;
+  else if (err instanceof ZodError) error = fromZod(err);
+  else if (err instanceof BoundaryError) error = new AppError(400, `boundary_${err.fault.code}`, err.message, { boundary: err.message });
+  else if (err?.type === 'entity.too.large') error = new AppError(413, 'too_large', 'The request body is too large.');
+  else if (err?.type === 'entity.parse.failed') error = badRequest('The request body is not valid JSON.');
+  else if (err?.code === 'EBADCSRFTOKEN' || err?.code === 'invalid_csrf') error = new AppError(403, 'csrf', 'This form has expired: reload the page and try again.');
+  else if (isDatabaseUnavailable(err)) error = new AppError(503, 'unavailable', 'Patchwise cannot reach its database right now; try again in a minute.');
+  else error = fromDatabase(err) ?? new AppError(500, 'internal', 'Something went wrong on our side; the team has been told.');
+  if (error.status >= 500 && error.code === 'internal') console.error(err);
+  res.status(error.status).json({ error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) } });
+};

@@ -1,0 +1,25 @@
+// The PostgreSQL-backed job queue (pg-boss): web and worker processes on any number of machines share it.
+import PgBoss from 'pg-boss';
+import { config } from '../config.ts';
+
+let boss: PgBoss | null = null;
+let starting: Promise<PgBoss> | null = null;
+
+export function queue(): Promise<PgBoss> {
+  if (boss) return Promise.resolve(boss);
+  starting ??= (async () => {
+    const instance = new PgBoss({ connectionString: config.databaseUrl, schema: 'pgboss', max: 5 });
+    instance.on('error', (error) => console.error('job queue error:', error.message));
+    await instance.start();
+    boss = instance;
+    return instance;
+  })();
+  return starting;
+}
+
+export async function stopQueue() {
+  const instance = boss ?? (starting ? await starting.catch(() => null) : null);
+  boss = null;
+  starting = null;
+  if (instance) await instance.stop({ graceful: true, wait: true, timeout: 10_000 });
+}

@@ -1,0 +1,27 @@
+import { DOMParser } from '@xmldom/xmldom';
+import type { MultiPolygon } from 'geojson';
+import { QueryTypes } from 'sequelize';
+import { sequelize } from '../db.ts';
+import { boundaryFromGeoJson, parseBoundaryText } from '../../shared/boundary/parse-boundary.ts';
+import { validateBoundary } from '../../shared/boundary/validate-boundary.ts';
+import { fault } from '../../shared/boundary/boundary-faults.ts';
+
+/** Reads a boundary from a GeoJSON value or a file's text and checks it, in code and then in PostGIS. */
+export async function readBoundary(input: { boundary?: unknown; boundaryFile?: string }): Promise<MultiPolygon> {
+  let boundary: MultiPolygon;
+  if (input.boundaryFile !== undefined) boundary = parseBoundaryText(input.boundaryFile, DOMParser as never);
+  else if (input.boundary !== undefined) boundary = boundaryFromGeoJson(input.boundary);
+  else throw fault('not-polygon', 'Add a boundary: upload a GeoJSON or KML file, or draw it on the map.');
+  // Keep longitude and latitude only: heights in a KML file are not part of a field's outline.
+  boundary = { type: 'MultiPolygon', coordinates: boundary.coordinates.map((p) => p.map((r) => r.map(([x, y]) => [x, y]))) };
+  validateBoundary(boundary);
+  const [check] = await sequelize.query<{ valid: boolean; reason: string }>(
+    `SELECT ST_IsValid(g) AS valid, ST_IsValidReason(g) AS reason FROM (SELECT ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326) AS g) s`,
+    { replacements: { geojson: JSON.stringify(boundary) }, type: QueryTypes.SELECT },
+  );
+  if (!check.valid) {
+    // Faults turf's kinks check cannot see: a hole outside its shell, parts that overlap, and the like.
+    throw fault('self-intersecting', `The boundary is not a valid polygon (${check.reason}); check that holes lie inside the outline and parts do not overlap.`);
+  }
+  return boundary;
+}

@@ -1,0 +1,51 @@
+import { sequelize } from '../db.ts';
+import { Pest } from '../models/pest.ts';
+import type { Actor } from '../auth/passport.ts';
+import type { PestInput } from '../../shared/schemas/pests.ts';
+import { notFound } from '../errors.ts';
+import { recordAudit } from './audit.ts';
+
+const present = (p: Pest) => ({
+  id: p.id,
+  name: p.name,
+  kind: p.kind,
+  countUnit: p.countUnit,
+  actionThreshold: p.actionThreshold,
+  thresholdBasis: p.thresholdBasis,
+  thresholdNote: p.thresholdNote,
+  thresholdSource: p.thresholdSource,
+  active: p.active,
+});
+export type PestView = ReturnType<typeof present>;
+
+export async function listPests(actor: Actor, options: { includeInactive?: boolean } = {}) {
+  const pests = await Pest.findAll({
+    where: { organisationId: actor.organisationId, ...(options.includeInactive ? {} : { active: true }) },
+    order: [['name', 'ASC']],
+  });
+  return pests.map(present);
+}
+
+export async function findPest(actor: Actor, id: string) {
+  const pest = await Pest.findOne({ where: { id, organisationId: actor.organisationId } });
+  if (!pest) throw notFound('That pest');
+  return pest;
+}
+
+export async function createPest(actor: Actor, input: PestInput) {
+  return sequelize.transaction(async (transaction) => {
+    const pest = await Pest.create({ ...input, organisationId: actor.organisationId }, { transaction });
+    await recordAudit(actor, 'create', 'pest', pest.id, input, transaction);
+    return present(pest);
+  });
+}
+
+export async function updatePest(actor: Actor, id: string, input: Partial<PestInput>) {
+  const pest = await findPest(actor, id);
+  return sequelize.transaction(async (transaction) => {
+    const before = present(pest);
+    await pest.update(input, { transaction });
+    await recordAudit(actor, 'update', 'pest', id, { before, after: input }, transaction);
+    return present(pest);
+  });
+}

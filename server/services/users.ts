@@ -1,0 +1,89 @@
+import type { z } from 'zod';
+import { sequelize } from '../db.ts';
+import { User } from '../models/user.ts';
+import { Organisation } from '../models/organisation.ts';
+import type { Actor } from '../auth/passport.ts';
+import type { inviteUserSchema, updateUserSchema } from '../../shared/schemas/users.ts';
+import { AppError, badRequest, conflict, notFound } from '../errors.ts';
+import { recordAudit } from './audit.ts';
+import { consumeToken, issueToken } from './user-tokens.ts';
+import { sendInvitation, sendPasswordReset } from './account-mail.ts';
+import { hashPassword } from '../auth/passwords.ts';
+
+export async function listUsers(actor: Actor) {
+  const users = await User.findAll({ where: { organisationId: actor.organisationId }, order: [['name', 'ASC']] });
+  return users.map((u) => u.toPublic());
+}
+
+async function findOwnUser(actor: Actor, id: string) {
+  const user = await User.findOne({ where: { id, organisationId: actor.organisationId } });
+  if (!user) throw notFound('That user');
+  return user;
+}
+
+export async function inviteUser(actor: Actor, input: z.infer<typeof inviteUserSchema>) {
+  if (await User.findOne({ where: { email: input.email } })) {
+    throw conflict(`${input.email} already has a Patchwise account.`);
+  }
+  const organisation = await Organisation.findByPk(actor.organisationId);
+  const { user, token } = await sequelize.transaction(async (transaction) => {
+    const user = await User.create({ organisationId: actor.organisationId, name: input.name, email: input.email, role: input.role, passwordHash: null }, { transaction });
+    const token = await issueToken(user.id, 'invite', transaction);
+    await recordAudit(actor, 'invite', 'user', user.id, { email: input.email, role: input.role }, transaction);
+    return { user, token };
+  });
+  try {
+    await sendInvitation(user, actor.name, organisation?.name ?? 'your advisory business', token);
+  } catch {
+    throw new AppError(502, 'mail_failed', `${user.email} was added, but the invitation e-mail could not be sent; use "Send invitation again".`);
+  }
+  return user.toPublic();
+}
+
+export async function resendInvitation(actor: Actor, id: string) {
+  const user = await findOwnUser(actor, id);
+  if (user.passwordHash) throw badRequest(`${user.name} has already set a password; they can use "Forgot password" instead.`);
+  const organisation = await Organisation.findByPk(actor.organisationId);
+  const token = await issueToken(user.id, 'invite');
+  await sendInvitation(user, actor.name, organisation?.name ?? 'your advisory business', token);
+  return user.toPublic();
+}
+
+export async function updateUser(actor: Actor, id: string, input: z.infer<typeof updateUserSchema>) {
+  const user = await findOwnUser(actor, id);
+  if (user.id === actor.id && (input.role !== undefined && input.role !== user.role || input.active === false)) {
+    throw badRequest('You cannot change your own role or deactivate yourself; ask another admin.');
+  }
+  const before = { name: user.name, role: user.role, active: user.active };
+  await sequelize.transaction(async (transaction) => {
+    await user.update(input, { transaction });
+    if (input.active === false) {
+      // Signing the user out everywhere: their sessions are dropped with the deactivation.
+      await sequelize.query(`DELETE FROM session WHERE sess->'passport'->>'user' = :id`, { replacements: { id: user.id }, transaction });
+    }
+    await recordAudit(actor, 'update', 'user', user.id, { before, after: input }, transaction);
+  });
+  return user.toPublic();
+}
+
+/** Sets a password from an invitation or reset link; the link then stops working. */
+export async function setPasswordWithToken(token: string, password: string) {
+  const passwordHash = await hashPassword(password);
+  return sequelize.transaction(async (transaction) => {
+    const userId = await consumeToken(token, transaction);
+    if (!userId) throw new AppError(400, 'link_expired', 'This link has expired or was already used; ask for a new one.');
+    const user = await User.findByPk(userId, { transaction });
+    if (!user || !user.active) throw new AppError(400, 'link_expired', 'This link has expired or was already used; ask for a new one.');
+    await user.update({ passwordHash }, { transaction });
+    await recordAudit({ id: user.id, organisationId: user.organisationId }, 'set-password', 'user', user.id, {}, transaction);
+    return user;
+  });
+}
+
+/** Sends a reset link when the address is known and active; answers the same way either way. */
+export async function requestPasswordReset(email: string) {
+  const user = await User.findOne({ where: { email } });
+  if (!user || !user.active) return;
+  const token = await issueToken(user.id, 'reset');
+  await sendPasswordReset(user, token).catch((error) => console.error('password reset mail failed', error));
+}

@@ -1,0 +1,62 @@
+import { area as turfArea, kinks as turfKinks, polygon as turfPolygon } from '@turf/turf';
+import type { MultiPolygon, Position } from 'geojson';
+import { fault } from './boundary-faults.ts';
+import { SQUARE_METRES_PER_HECTARE } from '../units/area.ts';
+
+// Plausible field sizes: below 0.05 ha is a garden plot or a drawing slip, above 5,000 ha is a region.
+export const MIN_FIELD_M2 = 0.05 * SQUARE_METRES_PER_HECTARE;
+export const MAX_FIELD_M2 = 5000 * SQUARE_METRES_PER_HECTARE;
+
+const samePosition = (a: Position, b: Position) => a[0] === b[0] && a[1] === b[1];
+
+function checkRing(ring: Position[], where: string) {
+  if (!Array.isArray(ring) || ring.length < 4) {
+    throw fault('ring-too-short', `${where} has fewer than 4 positions; a closed ring needs at least 3 corners plus the first corner repeated.`);
+  }
+  for (const position of ring) {
+    if (!Array.isArray(position) || position.length < 2 || !position.slice(0, 2).every((v) => typeof v === 'number' && Number.isFinite(v))) {
+      throw fault('unparseable', `${where} has a position that is not a pair of numbers.`);
+    }
+  }
+  if (!samePosition(ring[0], ring[ring.length - 1])) {
+    throw fault('ring-not-closed', `${where} is not closed: its last position must repeat its first (${ring[0].join(', ')}).`);
+  }
+}
+
+function checkRange(positions: Position[]) {
+  const outOfRange = positions.find(([x, y]) => Math.abs(x) > 180 || Math.abs(y) > 90);
+  if (!outOfRange) return;
+  const looksSwapped = positions.every(([x, y]) => Math.abs(x) <= 90 && Math.abs(y) <= 180);
+  if (looksSwapped) {
+    throw fault(
+      'swapped-coordinates',
+      `Coordinates look swapped: GeoJSON lists longitude first, then latitude, but (${outOfRange[0]}, ${outOfRange[1]}) has a latitude beyond ±90°. Swap each pair and upload again.`,
+    );
+  }
+  throw fault('out-of-range', `Position (${outOfRange[0]}, ${outOfRange[1]}) is outside WGS 84: longitude must be within ±180° and latitude within ±90°.`);
+}
+
+/** Checks a MultiPolygon in WGS 84 and returns its area in m² on the sphere (turf), throwing a BoundaryError for each fault. */
+export function validateBoundary(boundary: MultiPolygon): { areaM2: number } {
+  if (boundary.coordinates.length === 0) throw fault('not-polygon', 'The boundary holds no polygon.');
+  boundary.coordinates.forEach((polygon, p) => {
+    polygon.forEach((ring, r) => checkRing(ring, `${r === 0 ? 'The outer ring' : `Hole ${r}`} of polygon ${p + 1}`));
+  });
+  const positions = boundary.coordinates.flat(2);
+  checkRange(positions);
+  boundary.coordinates.forEach((polygon, p) => {
+    const crossings = turfKinks(turfPolygon(polygon));
+    if (crossings.features.length > 0) {
+      const [x, y] = crossings.features[0].geometry.coordinates;
+      throw fault('self-intersecting', `Polygon ${p + 1} crosses itself near (${x.toFixed(6)}, ${y.toFixed(6)}); redraw the boundary so its edges do not cross.`);
+    }
+  });
+  const areaM2 = turfArea(boundary);
+  if (areaM2 < MIN_FIELD_M2) {
+    throw fault('area-too-small', `The boundary covers ${(areaM2 / SQUARE_METRES_PER_HECTARE).toFixed(3)} ha, under the 0.05 ha a field needs; check that it is drawn at the right place and scale.`);
+  }
+  if (areaM2 > MAX_FIELD_M2) {
+    throw fault('area-too-large', `The boundary covers ${Math.round(areaM2 / SQUARE_METRES_PER_HECTARE).toLocaleString('en')} ha, over the 5,000 ha a field can have; check that it outlines one field.`);
+  }
+  return { areaM2 };
+}

@@ -1,0 +1,20 @@
+import { z } from 'zod';
+import { emailSchema } from './auth.ts';
+import { personNameSchema } from './users.ts';
+
+export const farmContactSchema = z.object({
+  name: personNameSchema,
+  email: emailSchema,
+});
+
+export const farmSchema = z.object({
+  name: z.string({ error: 'Enter the farm name.' }).trim().min(1, { error: 'Enter the farm name.' }).max(120),
+  contacts: z
+    .array(farmContactSchema)
+    .max(20, { error: 'A farm can have at most 20 grower contacts.' })
+    .refine((list) => new Set(list.map((c) => c.email)).size === list.length, {
+      error: 'Each grower contact needs a different e-mail address.',
+    })
+    .default([]),
+});
+export type FarmInput = z.infer<typeof farmSchema>;

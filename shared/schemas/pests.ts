@@ -1,0 +1,31 @@
+import { z } from 'zod';
+
+export const pestKinds = ['insect', 'disease', 'weed'] as const;
+export type PestKind = (typeof pestKinds)[number];
+/** Whether the action threshold applies to the mean count per stop or to the share of stops infested. */
+export const thresholdBases = ['mean', 'incidence'] as const;
+export type ThresholdBasis = (typeof thresholdBases)[number];
+
+const pestFields = {
+  name: z.string({ error: 'Enter the pest name.' }).trim().min(1, { error: 'Enter the pest name.' }).max(120),
+  kind: z.enum(pestKinds, { error: 'Choose insect, disease or weed.' }),
+  countUnit: z.string({ error: 'Enter the count unit, for example "aphids per plant".' }).trim().min(1, { error: 'Enter the count unit, for example "aphids per plant".' }).max(120),
+  actionThreshold: z.coerce.number({ error: 'Enter the action threshold as a number.' }).min(0, { error: 'The action threshold cannot be negative.' }).max(1_000_000),
+  thresholdBasis: z.enum(thresholdBases),
+  thresholdNote: z.string().trim().max(1000),
+  thresholdSource: z.string({ error: 'Say where the threshold comes from.' }).trim().min(3, { error: 'Say where the threshold comes from (publication, extension service, year).' }).max(500),
+  active: z.boolean(),
+};
+
+export const pestSchema = z.object({
+  ...pestFields,
+  thresholdBasis: pestFields.thresholdBasis.default('mean'),
+  thresholdNote: pestFields.thresholdNote.default(''),
+  active: pestFields.active.default(true),
+});
+export type PestInput = z.infer<typeof pestSchema>;
+// No defaults here: a partial update must not reset what it does not mention.
+export const pestUpdateSchema = z
+  .object(pestFields)
+  .partial()
+  .refine((v) => Object.keys(v).length > 0, { error: 'Change at least one detail of the pest.' });

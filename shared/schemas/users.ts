@@ -1,0 +1,23 @@
+import { z } from 'zod';
+import { emailSchema } from './auth.ts';
+import { roleSchema } from './roles.ts';
+
+export const personNameSchema = z.string({ error: 'Enter a name.' }).trim().min(1, { error: 'Enter a name.' }).max(120);
+
+export const inviteUserSchema = z.object({
+  name: personNameSchema,
+  email: emailSchema,
+  role: roleSchema,
+});
+
+export const updateUserSchema = z
+  .object({
+    name: personNameSchema.optional(),
+    role: roleSchema.optional(),
+    active: z.boolean().optional(),
+  })
+  .refine((v) => Object.keys(v).length > 0, { error: 'Change at least one of name, role or active.' });
+
+export const assignmentSchema = z.object({
+  userId: z.uuid({ error: 'Choose a user.' }),
+});
