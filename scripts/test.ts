@@ -47,6 +47,8 @@ try {
     CLIENT_DIR: path.join(projectRoot, 'dist'),
     SESSION_SECRET: 'patchwise-test-secret-not-for-production',
     PATCHWISE_TEST_TMP: workDir,
+    // Nothing listens on port 9: maps in the browser tests show how they behave with no tile server.
+    TILE_URL: 'http://127.0.0.1:9/{z}/{x}/{y}.png',
   };
   Object.assign(process.env, env);
 
