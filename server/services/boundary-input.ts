@@ -6,6 +6,15 @@ import { boundaryFromGeoJson, parseBoundaryText } from '../../shared/boundary/pa
 import { validateBoundary } from '../../shared/boundary/validate-boundary.ts';
 import { fault } from '../../shared/boundary/boundary-faults.ts';
 
+// Faults turf's kinks check cannot see, found by PostGIS: a hole outside its shell, parts that overlap, and the like.
+function postgisFault({ reason, x, y }: { reason: string | null; x: number | null; y: number | null }) {
+  const near = x !== null && y !== null ? ` near (${x.toFixed(6)}, ${y.toFixed(6)})` : '';
+  if (/hole lies outside shell/i.test(reason ?? '')) {
+    return fault('hole-outside-shell', `A hole in the boundary lies outside its outer ring${near}; a hole must sit inside the outline, so remove it or redraw it inside.`);
+  }
+  return fault('self-intersecting', `The boundary is not a valid polygon (${reason ?? 'unknown reason'}${near}); check that holes lie inside the outline and parts do not overlap.`);
+}
+
 /** Reads a boundary from a GeoJSON value or a file's text and checks it, in code and then in PostGIS. */
 export async function readBoundary(input: { boundary?: unknown; boundaryFile?: string }): Promise<MultiPolygon> {
   let boundary: MultiPolygon;
@@ -15,13 +24,11 @@ export async function readBoundary(input: { boundary?: unknown; boundaryFile?: s
   // Keep longitude and latitude only: heights in a KML file are not part of a field's outline.
   boundary = { type: 'MultiPolygon', coordinates: boundary.coordinates.map((p) => p.map((r) => r.map(([x, y]) => [x, y]))) };
   validateBoundary(boundary);
-  const [check] = await sequelize.query<{ valid: boolean; reason: string }>(
-    `SELECT ST_IsValid(g) AS valid, ST_IsValidReason(g) AS reason FROM (SELECT ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326) AS g) s`,
+  const [check] = await sequelize.query<{ valid: boolean; reason: string | null; x: number | null; y: number | null }>(
+    `SELECT d.valid, d.reason, ST_X(d.location) AS x, ST_Y(d.location) AS y
+       FROM ST_IsValidDetail(ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326)) d`,
     { replacements: { geojson: JSON.stringify(boundary) }, type: QueryTypes.SELECT },
   );
-  if (!check.valid) {
-    // Faults turf's kinks check cannot see: a hole outside its shell, parts that overlap, and the like.
-    throw fault('self-intersecting', `The boundary is not a valid polygon (${check.reason}); check that holes lie inside the outline and parts do not overlap.`);
-  }
+  if (!check.valid) throw postgisFault(check);
   return boundary;
 }
