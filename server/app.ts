@@ -16,6 +16,9 @@ import { fieldsRouter } from './routes/fields.ts';
 import { pestsRouter } from './routes/pests.ts';
 import { mailboxRouter } from './routes/mailbox.ts';
 import { configRouter } from './routes/config.ts';
+import { checksRouter } from './routes/checks.ts';
+import { fieldInsightsRouter } from './routes/field-insights.ts';
+import { advisersRouter } from './routes/advisers.ts';
 
 function tileOrigin(tileUrl: string) {
   try {
@@ -66,6 +69,9 @@ export function createApp(options: AppOptions = {}): Express {
   app.use('/api/users', usersRouter);
   app.use('/api/farms', farmsRouter);
   app.use('/api/fields', fieldsRouter);
+  app.use('/api/fields', fieldInsightsRouter);
+  app.use('/api/checks', checksRouter);
+  app.use('/api/advisers', advisersRouter);
   app.use('/api/pests', pestsRouter);
   app.use('/api/mailbox', mailboxRouter);
 

@@ -1,2 +1,4 @@
 // Imports each worker module so it registers itself with defineWorker(); add new workers here.
-export const workerModules = [] as const;
+import './check-worker.ts';
+
+export const workerModules = ['check-worker'] as const;

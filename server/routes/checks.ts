@@ -1,0 +1,44 @@
+import { Router } from 'express';
+import { z, type ZodError } from 'zod';
+import { requireRole, actor } from '../middleware/access.ts';
+import { parse } from '../middleware/validate.ts';
+import { AppError, fromZod } from '../errors.ts';
+import { checkRequestSchema, sensitivityRequestSchema, type CheckRequest } from '../../shared/schemas/checks.ts';
+import { getCheck, requestCheck } from '../services/checks.ts';
+import { sensitivityStrip } from '../services/sensitivity.ts';
+
+// Scouts never see checks; growers see only what a zone notice shows them, so both are refused here.
+export const checksRouter = Router();
+const idParam = z.object({ id: z.uuid({ error: 'That pattern check id is not valid.' }) });
+
+/** The engine's own option messages, led by the option's name so the adviser knows which one to fix. */
+function optionError(error: ZodError): AppError {
+  const base = fromZod(error);
+  const issue = error.issues[0];
+  if (issue?.path[0] !== 'options') return base;
+  const named = issue.path.slice(1).join('.');
+  const message =
+    issue.code === 'unrecognized_keys'
+      ? `${issue.keys.map((k) => `"${k}"`).join(', ')} ${issue.keys.length === 1 ? 'is not a check option' : 'are not check options'}; remove ${issue.keys.length === 1 ? 'it' : 'them'}.`
+      : `Option "${named || 'options'}": ${issue.message}`;
+  return new AppError(400, 'invalid_option', message, base.fields);
+}
+
+function parseCheckRequest(body: unknown, schema = checkRequestSchema): CheckRequest {
+  const result = schema.safeParse(body);
+  if (!result.success) throw optionError(result.error);
+  return result.data;
+}
+
+checksRouter.post('/', requireRole('adviser', 'admin'), async (req, res) => {
+  const outcome = await requestCheck(actor(req), parseCheckRequest(req.body));
+  res.status(outcome.httpStatus).json({ check: outcome.check });
+});
+
+checksRouter.post('/sensitivity', requireRole('adviser', 'admin'), async (req, res) => {
+  res.json(await sensitivityStrip(actor(req), parseCheckRequest(req.body, sensitivityRequestSchema)));
+});
+
+checksRouter.get('/:id', requireRole('adviser', 'admin'), async (req, res) => {
+  res.json({ check: await getCheck(actor(req), parse(idParam, req.params).id) });
+});

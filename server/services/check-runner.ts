@@ -1,0 +1,163 @@
+// Builds the engine's inputs from the database and runs one stored pattern check through the engine.
+// Every figure comes from shared/analysis; this module only reads, hashes and stores.
+import crypto from 'node:crypto';
+import { QueryTypes } from 'sequelize';
+import type { Feature, FeatureCollection, MultiPolygon, Point } from 'geojson';
+import { sequelize } from '../db.ts';
+import { Field } from '../models/field.ts';
+import { PatternCheck } from '../models/pattern-check.ts';
+import { analyse, planSimulations, type AnalysisResult } from '../../shared/analysis/analyse.ts';
+import type { AnalysisOptions } from '../../shared/analysis/options.ts';
+import { createMonteCarloPool, type MonteCarloPool } from '../../shared/analysis/parallel/monte-carlo-pool.ts';
+
+export interface StoredSighting {
+  id: string;
+  lon: number;
+  lat: number;
+  count: number | null;
+  /** UTC, microseconds, so an edit always changes the hash. */
+  updatedAt: string;
+}
+
+export interface SightingWindow {
+  fieldId: string;
+  pestId: string;
+  from?: string | null;
+  to?: string | null;
+}
+
+export type SightingProperties = { id: string; count?: number };
+
+const sightingColumns = `s.id, ST_X(s.position) AS lon, ST_Y(s.position) AS lat, s.count,
+  to_char(s.updated_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"') AS "updatedAt"`;
+
+/** The placed, not-deleted sightings of a pest in a field whose walk falls in the window, empty stops included, by id. */
+export async function sightingsInWindow(window: SightingWindow): Promise<StoredSighting[]> {
+  return sequelize.query<StoredSighting>(
+    `SELECT ${sightingColumns}
+       FROM sightings s JOIN walks w ON w.id = s.walk_id
+      WHERE s.field_id = :fieldId AND s.pest_id = :pestId AND s.deleted_at IS NULL AND s.status = 'placed'
+        AND (CAST(:from AS date) IS NULL OR w.walked_on >= CAST(:from AS date))
+        AND (CAST(:to AS date) IS NULL OR w.walked_on <= CAST(:to AS date))
+      ORDER BY s.id`,
+    { replacements: { fieldId: window.fieldId, pestId: window.pestId, from: window.from ?? null, to: window.to ?? null }, type: QueryTypes.SELECT },
+  );
+}
+
+/** The exact sightings a stored check names, as they are now (deleted or unplaced ones drop out). */
+export async function sightingsByIds(ids: string[]): Promise<StoredSighting[]> {
+  if (ids.length === 0) return [];
+  return sequelize.query<StoredSighting>(
+    `SELECT ${sightingColumns} FROM sightings s
+      WHERE s.id = ANY(CAST(:ids AS uuid[])) AND s.deleted_at IS NULL AND s.status = 'placed' ORDER BY s.id`,
+    { replacements: { ids: `{${ids.join(',')}}` }, type: QueryTypes.SELECT },
+  );
+}
+
+const sha256 = (text: string) => crypto.createHash('sha256').update(text).digest('hex');
+
+/** sha256 over the sorted sightings' id, position, count and last edit, one line each. */
+export function sightingsHash(sightings: StoredSighting[]): string {
+  const lines = [...sightings]
+    .sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0))
+    .map((s) => `${s.id}|${s.lon}|${s.lat}|${s.count ?? ''}|${s.updatedAt}`);
+  return sha256(lines.join('\n'));
+}
+
+/** JSON with object keys sorted at every level, so equal options always hash alike. */
+export function canonicalJson(value: unknown): string {
+  if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`;
+  if (value && typeof value === 'object') {
+    const entries = Object.entries(value as Record<string, unknown>)
+      .filter(([, v]) => v !== undefined)
+      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`;
+  }
+  return JSON.stringify(value);
+}
+
+export const optionsHash = (options: AnalysisOptions) => sha256(canonicalJson(options));
+
+/** The sightings as the engine reads them: a FeatureCollection of Points with id and count (when counted). */
+export function sightingsCollection(sightings: StoredSighting[]): FeatureCollection<Point, SightingProperties> {
+  return {
+    type: 'FeatureCollection',
+    features: sightings.map(
+      (s): Feature<Point, SightingProperties> => ({
+        type: 'Feature',
+        geometry: { type: 'Point', coordinates: [s.lon, s.lat] },
+        properties: s.count === null ? { id: s.id } : { id: s.id, count: s.count },
+      }),
+    ),
+  };
+}
+
+export async function fieldBoundary(fieldId: string): Promise<MultiPolygon> {
+  const field = await Field.findByPk(fieldId, { attributes: ['id', 'boundary'] });
+  if (!field) throw new Error(`Field ${fieldId} no longer exists.`);
+  return { type: 'MultiPolygon', coordinates: field.boundary.coordinates };
+}
+
+/** Checks up to this much work (simulations × sightings) run inside the request; heavier ones go to the queue. */
+export const INLINE_WORK_LIMIT = 200_000;
+
+export const checkWork = (options: AnalysisOptions, sightings: number) => options.simulations * Math.max(sightings, 1);
+
+let pool: MonteCarloPool | null = null;
+
+/** Stops the simulation threads (tests and shutdown); the next heavy check starts them again. */
+export async function closeSimulationPool() {
+  const running = pool;
+  pool = null;
+  await running?.close();
+}
+
+/**
+ * Runs the engine: small checks with plain analyse(), heavy ones with their simulations on worker threads
+ * (same figures, the engine guarantees it). Progress follows the simulation plans as they finish.
+ */
+export async function runAnalysis(
+  boundary: MultiPolygon,
+  sightings: FeatureCollection<Point, SightingProperties>,
+  options: AnalysisOptions,
+  onProgress: (share: number) => Promise<void> = async () => {},
+): Promise<AnalysisResult> {
+  if (checkWork(options, sightings.features.length) <= INLINE_WORK_LIMIT) return analyse(boundary, sightings, options);
+  const plans = planSimulations(boundary, sightings, options);
+  pool ??= createMonteCarloPool();
+  // Ripley's envelope costs several times the nearest-neighbour simulations, hence the uneven shares.
+  const nearest = plans.nearestNeighbour ? await pool.run(plans.nearestNeighbour) : null;
+  await onProgress(0.25);
+  const ripley = plans.ripley ? await pool.run(plans.ripley) : null;
+  await onProgress(0.85);
+  return analyse(boundary, sightings, options, { meanNearestDistances: nearest?.meanNearestDistances, ripleyL: ripley?.ripleyL });
+}
+
+/** Progress writes are throttled: a check reports at most every 5 %. */
+function progressWriter(checkId: string) {
+  let last = 0;
+  return async (share: number) => {
+    if (share - last < 0.05 && share < 1) return;
+    last = share;
+    await PatternCheck.update({ progress: Math.min(0.99, Math.max(0, share)) }, { where: { id: checkId, status: 'running' } });
+  };
+}
+
+/** Runs one stored check (queued or running) to done or failed. Safe to call twice: a finished check is left alone. */
+export async function runStoredCheck(checkId: string): Promise<void> {
+  const check = await PatternCheck.findByPk(checkId);
+  if (!check || check.status === 'done' || check.status === 'failed') return;
+  await check.update({ status: 'running', progress: 0 });
+  try {
+    const sightings = await sightingsByIds(check.sightingIds);
+    // The check names an exact set of sightings; if any was edited or removed since, its hash no longer holds.
+    if (sightings.length !== check.sightingIds.length || sightingsHash(sightings) !== check.sightingsHash) {
+      throw new Error('The sightings changed after this check was queued; run the check again to include the changes.');
+    }
+    const boundary = await fieldBoundary(check.fieldId);
+    const result = await runAnalysis(boundary, sightingsCollection(sightings), check.options as AnalysisOptions, progressWriter(check.id));
+    await check.update({ status: 'done', progress: 1, result: JSON.parse(JSON.stringify(result)), error: null, finishedAt: new Date() });
+  } catch (error) {
+    await check.update({ status: 'failed', error: (error as Error).message || 'The check failed.', finishedAt: new Date() });
+  }
+}

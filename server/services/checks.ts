@@ -1,0 +1,159 @@
+// Pattern checks: run one (or find the identical stored one), fetch one, list a field's checks.
+import { Op, QueryTypes } from 'sequelize';
+import { sequelize } from '../db.ts';
+import { PatternCheck } from '../models/pattern-check.ts';
+import { Pest } from '../models/pest.ts';
+import { User } from '../models/user.ts';
+import type { Actor } from '../auth/passport.ts';
+import { badRequest, notFound } from '../errors.ts';
+import { findVisibleField } from './fields.ts';
+import { findPest } from './pests.ts';
+import { recordAudit } from './audit.ts';
+import { checkWork, INLINE_WORK_LIMIT, optionsHash, runStoredCheck, sightingsHash, sightingsInWindow } from './check-runner.ts';
+import { enqueueCheck } from '../jobs/check-worker.ts';
+import { ENGINE_VERSION } from '../../shared/analysis/version.ts';
+import type { AnalysisOptions } from '../../shared/analysis/options.ts';
+import type { CheckRequest, CheckSummary, CheckView, Spread } from '../../shared/schemas/checks.ts';
+
+const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
+
+async function peopleById(ids: string[]) {
+  const users = await User.findAll({ where: { id: { [Op.in]: [...new Set(ids)] } }, attributes: ['id', 'name'] });
+  return new Map(users.map((u) => [u.id, { id: u.id, name: u.name }]));
+}
+
+function presentCheck(check: PatternCheck, people: Map<string, { id: string; name: string }>, reused?: boolean): CheckView {
+  return {
+    id: check.id,
+    fieldId: check.fieldId,
+    pestId: check.pestId,
+    from: check.windowFrom,
+    to: check.windowTo,
+    options: check.options as AnalysisOptions,
+    sightingIds: check.sightingIds,
+    sightingsHash: check.sightingsHash,
+    engineVersion: check.engineVersion,
+    status: check.status,
+    progress: check.progress,
+    result: check.result ?? null,
+    error: check.error ?? null,
+    createdBy: people.get(check.createdBy) ?? { id: check.createdBy, name: '' },
+    createdAt: iso(check.createdAt)!,
+    finishedAt: iso(check.finishedAt ?? null),
+    ...(reused !== undefined ? { reused } : {}),
+  };
+}
+
+const present = async (check: PatternCheck, reused?: boolean) => presentCheck(check, await peopleById([check.createdBy]), reused);
+
+/** The planar option is for files already in metres; sightings in the database are always longitude/latitude. */
+function assertGeographic(options: AnalysisOptions) {
+  if (options.planar) throw badRequest('Option planar: stored sightings are longitude/latitude, so a field check cannot use planar coordinates.', { 'options.planar': 'Leave planar off for field checks.' });
+}
+
+export interface CheckOutcome {
+  check: CheckView;
+  /** 200 stored, 201 computed now, 202 queued. */
+  httpStatus: 200 | 201 | 202;
+}
+
+/** Finds the stored check with exactly these inputs, or stores a new one and runs it (inline or queued). */
+export async function requestCheck(actor: Actor, request: CheckRequest): Promise<CheckOutcome> {
+  assertGeographic(request.options);
+  await findVisibleField(actor, request.fieldId);
+  await findPest(actor, request.pestId);
+  const sightings = await sightingsInWindow(request);
+  const key = {
+    fieldId: request.fieldId,
+    pestId: request.pestId,
+    windowFrom: request.from ?? null,
+    windowTo: request.to ?? null,
+    optionsHash: optionsHash(request.options),
+    sightingsHash: sightingsHash(sightings),
+    engineVersion: ENGINE_VERSION,
+  };
+
+  const stored = await PatternCheck.findOne({ where: key });
+  if (stored && stored.status !== 'failed') return { check: await present(stored, true), httpStatus: 200 };
+
+  let check: PatternCheck;
+  if (stored) {
+    // A failed check is tried again under the same id rather than answering with the old failure.
+    check = await stored.update({ status: 'queued', progress: 0, error: null, finishedAt: null, createdBy: actor.id });
+  } else {
+    const [inserted] = await sequelize.query<{ id: string }>(
+      `INSERT INTO pattern_checks (organisation_id, field_id, pest_id, window_from, window_to, options, options_hash, sighting_ids, sightings_hash, engine_version, created_by)
+       VALUES (:org, :fieldId, :pestId, :windowFrom, :windowTo, CAST(:options AS jsonb), :optionsHash, CAST(:sightingIds AS uuid[]), :sightingsHash, :engineVersion, :createdBy)
+       ON CONFLICT DO NOTHING RETURNING id`,
+      {
+        replacements: { ...key, org: actor.organisationId, options: JSON.stringify(request.options), sightingIds: `{${sightings.map((s) => s.id).join(',')}}`, createdBy: actor.id },
+        type: QueryTypes.SELECT,
+      },
+    );
+    // Two identical requests at once: the second finds the first's row.
+    if (!inserted) return { check: await present((await PatternCheck.findOne({ where: key }))!, true), httpStatus: 200 };
+    check = (await PatternCheck.findByPk(inserted.id))!;
+    await recordAudit(actor, 'run', 'pattern-check', check.id, { fieldId: key.fieldId, pestId: key.pestId, sightings: sightings.length });
+  }
+
+  if (checkWork(request.options, sightings.length) <= INLINE_WORK_LIMIT) {
+    await runStoredCheck(check.id);
+    return { check: await present((await check.reload())!, false), httpStatus: 201 };
+  }
+  await enqueueCheck(check.id);
+  return { check: await present(check, false), httpStatus: 202 };
+}
+
+/** One check of the actor's organisation (another organisation's id simply is not found). */
+export async function getCheck(actor: Actor, id: string): Promise<CheckView> {
+  const check = await PatternCheck.findOne({ where: { id, organisationId: actor.organisationId } });
+  if (!check) throw notFound('That pattern check');
+  return present(check);
+}
+
+type SpreadOf = { spread?: { verdict?: Spread }; n?: number };
+
+export async function summarise(checks: PatternCheck[]): Promise<CheckSummary[]> {
+  const people = await peopleById(checks.map((c) => c.createdBy));
+  const pests = await Pest.findAll({ where: { id: { [Op.in]: [...new Set(checks.map((c) => c.pestId))] } }, attributes: ['id', 'name'] });
+  const pestNames = new Map(pests.map((p) => [p.id, p.name]));
+  return checks.map((check) => {
+    const result = check.result as SpreadOf | null;
+    return {
+      id: check.id,
+      fieldId: check.fieldId,
+      pestId: check.pestId,
+      pestName: pestNames.get(check.pestId) ?? '',
+      from: check.windowFrom,
+      to: check.windowTo,
+      status: check.status,
+      progress: check.progress,
+      verdict: result?.spread?.verdict ?? null,
+      n: result?.n ?? null,
+      engineVersion: check.engineVersion,
+      createdBy: people.get(check.createdBy) ?? { id: check.createdBy, name: '' },
+      createdAt: iso(check.createdAt)!,
+      finishedAt: iso(check.finishedAt ?? null),
+    };
+  });
+}
+
+// Summaries leave the (large) result out of the query: only the verdict and n are read from it.
+const summaryAttributes = ['id', 'fieldId', 'pestId', 'windowFrom', 'windowTo', 'status', 'progress', 'engineVersion', 'createdBy', 'createdAt', 'finishedAt'] as const;
+
+export async function fieldCheckSummaries(fieldId: string, pestId?: string): Promise<CheckSummary[]> {
+  const checks = await PatternCheck.findAll({
+    where: { fieldId, ...(pestId ? { pestId } : {}) },
+    attributes: [
+      ...summaryAttributes,
+      [sequelize.literal(`jsonb_build_object('n', result->'n', 'spread', jsonb_build_object('verdict', result->'spread'->'verdict'))`), 'result'],
+    ],
+    order: [['createdAt', 'DESC']],
+  });
+  return summarise(checks);
+}
+
+export async function listFieldChecks(actor: Actor, fieldId: string, pestId?: string): Promise<CheckSummary[]> {
+  await findVisibleField(actor, fieldId);
+  return fieldCheckSummaries(fieldId, pestId);
+}

@@ -1,0 +1,169 @@
+// The pattern-check API's contract: request schemas (zod) and response types, shared by the server and the
+// adviser's screens. Check options are the engine's own schema, so the API accepts exactly what the engine does.
+import { z } from 'zod';
+import { analysisOptionsSchema } from '../analysis/options.ts';
+import type { ThresholdStatus } from '../thresholds/threshold-status.ts';
+
+export const checkStatuses = ['queued', 'running', 'done', 'failed'] as const;
+export type CheckStatus = (typeof checkStatuses)[number];
+
+const isoDate = (label: string) =>
+  z
+    .string({ error: `Enter the ${label} date as YYYY-MM-DD.` })
+    .regex(/^\d{4}-\d{2}-\d{2}$/, { error: `Enter the ${label} date as YYYY-MM-DD.` })
+    .refine((v) => new Date(`${v}T00:00:00Z`).toISOString().startsWith(v), { error: `The ${label} date is not a real calendar date.` });
+
+const windowFields = {
+  fieldId: z.uuid({ error: 'Choose the field to check.' }),
+  pestId: z.uuid({ error: 'Choose the pest to check.' }),
+  from: isoDate('from').optional(),
+  to: isoDate('to').optional(),
+  // prefault: an absent options object still goes through the engine's defaults.
+  options: analysisOptionsSchema.prefault({}),
+};
+
+const windowInOrder = (v: { from?: string; to?: string }) => !v.from || !v.to || v.from <= v.to;
+const windowMessage = { error: 'The window’s from date must not be after its to date.', path: ['to'] };
+
+export const checkRequestSchema = z.object(windowFields).strict().refine(windowInOrder, windowMessage);
+export type CheckRequest = z.output<typeof checkRequestSchema>;
+export type CheckRequestInput = z.input<typeof checkRequestSchema>;
+
+/** Sensitivity runs fewer simulations by default so the strip comes back quickly. */
+export const SENSITIVITY_SIMULATIONS = 199;
+export const sensitivityRequestSchema = checkRequestSchema;
+
+export const fieldChecksQuerySchema = z.object({ pestId: z.uuid({ error: 'That pest id is not valid.' }).optional() });
+export const thresholdStatusQuerySchema = z.object({
+  pestId: z.uuid({ error: 'That pest id is not valid.' }).optional(),
+  walkId: z.uuid({ error: 'That walk id is not valid.' }).optional(),
+});
+export const fieldHistoryQuerySchema = z.object({ pestId: z.uuid({ error: 'That pest id is not valid.' }).optional() });
+
+export interface PersonRef {
+  id: string;
+  name: string;
+}
+
+export type Spread = 'clustered' | 'random' | 'regular' | 'too-few';
+
+export interface CheckView {
+  id: string;
+  fieldId: string;
+  pestId: string;
+  from: string | null;
+  to: string | null;
+  options: z.output<typeof analysisOptionsSchema>;
+  sightingIds: string[];
+  sightingsHash: string;
+  engineVersion: string;
+  status: CheckStatus;
+  progress: number;
+  /** The engine's result, exactly as analyse() returned it. */
+  result: Record<string, unknown> | null;
+  error: string | null;
+  createdBy: PersonRef;
+  createdAt: string;
+  finishedAt: string | null;
+  /** True when an identical stored check answered instead of a new computation. */
+  reused?: boolean;
+}
+
+export interface CheckSummary {
+  id: string;
+  fieldId: string;
+  pestId: string;
+  pestName: string;
+  from: string | null;
+  to: string | null;
+  status: CheckStatus;
+  progress: number;
+  verdict: Spread | null;
+  n: number | null;
+  engineVersion: string;
+  createdBy: PersonRef;
+  createdAt: string;
+  finishedAt: string | null;
+}
+
+export interface CheckResponse {
+  check: CheckView;
+}
+export interface FieldChecksResponse {
+  checks: CheckSummary[];
+}
+
+export interface SensitivityRow {
+  cellSizeM: number | null;
+  /** The cell side as a multiple of the default side (0.5, 1, 2). */
+  cellSizeFactor: number;
+  areaBasis: 'boundary' | 'bbox' | 'hull';
+  /** null when the engine could not run this variant (see error). */
+  verdict: Spread | null;
+  /** Clark–Evans figures on this area basis. */
+  R: number | null;
+  z: number | null;
+  pValue: number | null;
+  /** The figures the verdict rests on: Donnelly-corrected R and the Monte Carlo p. */
+  donnellyR: number | null;
+  monteCarloPValue: number | null;
+  chiSquare: number | null;
+  quadratPValue: number | null;
+  error?: string;
+}
+export interface SensitivityResponse {
+  simulations: number;
+  rows: SensitivityRow[];
+}
+
+export interface WalkThresholdStatus extends ThresholdStatus {
+  walkId: string;
+  walkedOn: string;
+  pestId: string;
+  pestName: string;
+  countUnit: string;
+}
+export interface ThresholdStatusResponse {
+  statuses: WalkThresholdStatus[];
+}
+
+export interface WalkPestFigures {
+  pestId: string;
+  pestName: string;
+  /** Sightings with the pest found (count above 0, or present without a count). */
+  sightings: number;
+  /** Every stop for this pest, empty ones included. */
+  stops: number;
+  meanCount: number | null;
+}
+export interface HistoryWalk {
+  walkId: string;
+  walkedOn: string;
+  scout: PersonRef;
+  pests: WalkPestFigures[];
+}
+export interface FieldHistoryResponse {
+  walks: HistoryWalk[];
+  checks: CheckSummary[];
+}
+
+export interface AttentionField {
+  fieldId: string;
+  fieldName: string;
+  farmName: string;
+  pestId: string;
+  pestName: string;
+  reason: 'clustered-above-threshold' | 'not-yet-checked';
+  /** A sentence for the adviser. */
+  message: string;
+  checkId: string | null;
+  meanPerStop: number | null;
+  actionThreshold: number;
+  thresholdSource: string;
+  newSightings: number;
+}
+export interface AttentionResponse {
+  clusteredAboveThreshold: AttentionField[];
+  notYetChecked: AttentionField[];
+  unacknowledgedNotices: never[];
+}
