@@ -1,13 +1,13 @@
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import './index.css';
-
-function Placeholder() {
-  return <main className="p-6 font-sans"><h1 className="text-2xl font-semibold text-field-700">Patchwise</h1></main>;
-}
+import { AppProvider } from './app/provider.tsx';
+import { AppRouter } from './app/router.tsx';
 
 createRoot(document.getElementById('root')!).render(
   <StrictMode>
-    <Placeholder />
+    <AppProvider>
+      <AppRouter />
+    </AppProvider>
   </StrictMode>,
 );

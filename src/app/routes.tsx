@@ -1,0 +1,53 @@
+// Every signed-in page, with the roles that may open it and its label in the top bar.
+// To add a page: append one entry here (lazy-load it if it pulls in the map or charts).
+import type { ComponentType } from 'react';
+import type { Role } from '@shared/schemas/roles.ts';
+import { lazyPage } from './lazy-page.ts';
+
+export interface AppRoute {
+  path: string;
+  roles: readonly Role[];
+  Page: ComponentType;
+  /** Shown in the top bar's navigation for these roles when set. */
+  nav?: string;
+}
+
+const everyone: readonly Role[] = ['admin', 'adviser', 'scout', 'grower'];
+
+// --- Each role's home page, at "/" ---
+export const homes: Record<Role, { nav: string; Page: ComponentType }> = {
+  admin: { nav: 'Overview', Page: lazyPage(() => import('./routes/admin-home.tsx'), 'AdminHome') },
+  adviser: { nav: 'Fields', Page: lazyPage(() => import('../features/fields/components/fields-home.tsx'), 'AdviserFieldsHome') },
+  scout: { nav: 'My fields', Page: lazyPage(() => import('../features/fields/components/fields-home.tsx'), 'ScoutFieldsHome') },
+  grower: { nav: 'My farms', Page: lazyPage(() => import('../features/fields/components/my-farms-page.tsx'), 'MyFarmsPage') },
+};
+
+export const appRoutes: AppRoute[] = [
+  // --- Any signed-in role (the server decides which fields each one may open) ---
+  { path: 'fields/:fieldId', roles: everyone, Page: lazyPage(() => import('../features/fields/components/field-page.tsx'), 'FieldPage') },
+
+  // --- Admin ---
+  { path: 'admin/users', roles: ['admin'], nav: 'Users', Page: lazyPage(() => import('../features/admin/components/users-page.tsx'), 'UsersPage') },
+  { path: 'admin/farms', roles: ['admin'], nav: 'Farms', Page: lazyPage(() => import('../features/admin/components/farms-page.tsx'), 'FarmsPage') },
+  { path: 'admin/farms/:farmId', roles: ['admin'], Page: lazyPage(() => import('./routes/admin-farm-page.tsx'), 'AdminFarmPage') },
+  { path: 'admin/farms/:farmId/fields/new', roles: ['admin'], Page: lazyPage(() => import('./routes/new-field-page.tsx'), 'NewFieldPage') },
+  { path: 'admin/fields/:fieldId/edit', roles: ['admin'], Page: lazyPage(() => import('./routes/edit-field-page.tsx'), 'EditFieldPage') },
+  { path: 'admin/pests', roles: ['admin'], nav: 'Pest library', Page: lazyPage(() => import('../features/admin/components/pests-page.tsx'), 'PestsPage') },
+  { path: 'admin/mailbox', roles: ['admin'], nav: 'Mailbox', Page: lazyPage(() => import('../features/admin/components/mailbox-page.tsx'), 'MailboxPage') },
+  { path: 'admin/mailbox/:messageId', roles: ['admin'], Page: lazyPage(() => import('../features/admin/components/mailbox-page.tsx'), 'MailboxPage') },
+
+  // --- Adviser ---
+
+  // --- Scout ---
+  { path: 'scout', roles: ['scout'], nav: 'Walk a field', Page: lazyPage(() => import('../features/walks/components/my-fields-page.tsx'), 'MyFieldsPage') },
+  { path: 'scout/upload', roles: ['scout'], nav: 'Just upload', Page: lazyPage(() => import('../features/walks/components/just-upload-page.tsx'), 'JustUploadPage') },
+  { path: 'scout/fields/:fieldId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/field-walks-page.tsx'), 'FieldWalksPage') },
+  { path: 'scout/walks/:walkId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/walk-page.tsx'), 'WalkPage') },
+  { path: 'scout/walks/:walkId/pin/:sightingId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/pin-photo-page.tsx'), 'PinPhotoPage') },
+
+  // --- Grower ---
+];
+
+export function navFor(role: Role): Array<{ to: string; label: string }> {
+  return [{ to: '/', label: homes[role].nav }, ...appRoutes.filter((r) => r.nav && r.roles.includes(role)).map((r) => ({ to: `/${r.path}`, label: r.nav! }))];
+}

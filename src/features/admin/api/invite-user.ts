@@ -1,0 +1,14 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { z } from 'zod';
+import { api } from '../../../lib/api-client.ts';
+import type { inviteUserSchema } from '@shared/schemas/users.ts';
+import type { User } from '../../../types/api.ts';
+
+export type InviteUserInput = z.infer<typeof inviteUserSchema>;
+
+export const inviteUser = (input: InviteUserInput) => api<{ user: User }>('/api/users', { method: 'POST', body: input }).then((r) => r.user);
+
+export function useInviteUser() {
+  const queryClient = useQueryClient();
+  return useMutation({ mutationFn: inviteUser, onSettled: () => queryClient.invalidateQueries({ queryKey: ['users'] }) });
+}

@@ -1,0 +1,20 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api, setCsrfToken } from '../../../lib/api-client.ts';
+import { meQueryKey } from '../../../lib/query-client.ts';
+import type { User } from '../../../types/api.ts';
+
+export const signIn = (input: { email: string; password: string }) =>
+  api<{ user: User; csrfToken: string }>('/api/auth/sign-in', { method: 'POST', body: input });
+
+export function useSignIn() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: signIn,
+    onSuccess: ({ user, csrfToken }) => {
+      // The session id changed at sign-in, and the CSRF token with it.
+      setCsrfToken(csrfToken);
+      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== meQueryKey[0] });
+      queryClient.setQueryData(meQueryKey, { user });
+    },
+  });
+}

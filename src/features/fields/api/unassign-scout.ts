@@ -1,0 +1,14 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client.ts';
+
+export const unassignScout = ({ fieldId, userId }: { fieldId: string; userId: string }) =>
+  api<void>(`/api/fields/${fieldId}/scouts/${userId}`, { method: 'DELETE' });
+
+export function useUnassignScout() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: unassignScout,
+    onSuccess: (_r, { fieldId }) =>
+      Promise.all([queryClient.invalidateQueries({ queryKey: ['fields', 'detail', fieldId] }), queryClient.invalidateQueries({ queryKey: ['fields', 'list'] })]),
+  });
+}

@@ -1,0 +1,81 @@
+// The adviser's and the scout's home: the fields they work on, as a dense table at a desk
+// and as large cards on a phone.
+import { Link } from 'react-router';
+import { createColumnHelper } from '@tanstack/react-table';
+import { PageFrame } from '../../../components/page-frame.tsx';
+import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
+import { TableFrame } from '../../../components/table-frame.tsx';
+import { AreaText } from '../../../components/area-text.tsx';
+import type { Field } from '../../../types/api.ts';
+import { useFields } from '../api/get-fields.ts';
+
+const column = createColumnHelper<Field>();
+const columns = [
+  column.accessor('name', {
+    header: 'Field',
+    cell: (info) => (
+      <Link to={`/fields/${info.row.original.id}`} className="font-medium text-field-700 underline-offset-2 hover:underline">
+        {info.getValue()}
+      </Link>
+    ),
+  }),
+  column.accessor('farmName', { header: 'Farm' }),
+  column.accessor('crop', { header: 'Crop' }),
+  column.accessor('season', { header: 'Season' }),
+  column.accessor('areaM2', { header: 'Area', cell: (info) => <AreaText m2={info.getValue()} className="whitespace-nowrap" /> }),
+];
+
+export function AdviserFieldsHome() {
+  const fields = useFields();
+  return (
+    <PageFrame title="Fields" eyebrow="Every field of your advisory business" wide>
+      {fields.isPending ? (
+        <LoadingState label="Loading fields…" />
+      ) : fields.isError ? (
+        <ErrorState error={fields.error} onRetry={() => fields.refetch()} />
+      ) : fields.data.length === 0 ? (
+        <EmptyState title="No fields yet">An admin adds farms and their field boundaries; they appear here as soon as they are saved.</EmptyState>
+      ) : (
+        <TableFrame caption="Fields" columns={columns} rows={fields.data} rowId={(f) => f.id} initialSort={[{ id: 'farmName', desc: false }]} />
+      )}
+    </PageFrame>
+  );
+}
+
+export function FieldCard({ field }: { field: Field }) {
+  return (
+    <li>
+      <Link
+        to={`/fields/${field.id}`}
+        className="block min-h-16 rounded-xl bg-white p-4 shadow-sm ring-1 ring-soil-300/60 hover:ring-field-500 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600 active:bg-field-50"
+      >
+        <span className="block text-lg font-semibold text-field-900">{field.name}</span>
+        <span className="mt-0.5 block text-sm text-soil-700">
+          {field.farmName} · {field.crop} {field.season}
+        </span>
+        <AreaText m2={field.areaM2} className="mt-1 block text-sm" />
+      </Link>
+    </li>
+  );
+}
+
+export function ScoutFieldsHome() {
+  const fields = useFields();
+  return (
+    <PageFrame title="My fields" eyebrow="Fields assigned to you">
+      {fields.isPending ? (
+        <LoadingState label="Loading your fields…" />
+      ) : fields.isError ? (
+        <ErrorState error={fields.error} onRetry={() => fields.refetch()} />
+      ) : fields.data.length === 0 ? (
+        <EmptyState title="No fields assigned yet">Ask your admin or adviser to assign you to the fields you walk.</EmptyState>
+      ) : (
+        <ul className="grid gap-3 sm:grid-cols-2">
+          {fields.data.map((field) => (
+            <FieldCard key={field.id} field={field} />
+          ))}
+        </ul>
+      )}
+    </PageFrame>
+  );
+}
