@@ -1,0 +1,82 @@
+// One of the scout's fields: start (or carry on with) today's walk, or open an earlier one.
+import { useNavigate, useParams } from 'react-router';
+import { useQuery } from '@tanstack/react-query';
+import { Link } from 'react-router';
+import { PageFrame, Panel } from '../../../components/page-frame.tsx';
+import { Button, ButtonLink } from '../../../components/button.tsx';
+import { FormMessage } from '../../../components/form-field.tsx';
+import { AreaText } from '../../../components/area-text.tsx';
+import { ErrorState, LoadingState, EmptyState } from '../../../components/query-states.tsx';
+import { errorMessage } from '../../../lib/form-errors.ts';
+import { useSignedInUser } from '../../../lib/auth.ts';
+import { fieldQueryOptions } from '../../fields/api/get-field.ts';
+import { useWalks } from '../api/get-walks.ts';
+import { useCreateWalk } from '../api/create-walk.ts';
+import { scoutPaths } from '../paths.ts';
+import { walkDate } from './walk-header.tsx';
+
+/** Today's date on the phone's own calendar, as YYYY-MM-DD. */
+export function localToday() {
+  const now = new Date();
+  return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
+}
+
+export function FieldWalksPage() {
+  const { fieldId = '' } = useParams();
+  const me = useSignedInUser();
+  const navigate = useNavigate();
+  const field = useQuery(fieldQueryOptions(fieldId));
+  const walks = useWalks(fieldId);
+  const createWalk = useCreateWalk();
+  const today = localToday();
+
+  if (field.isPending) return <PageFrame title="Field"><LoadingState /></PageFrame>;
+  if (field.isError) return <PageFrame title="Field"><ErrorState error={field.error} onRetry={() => field.refetch()} /></PageFrame>;
+
+  const todays = walks.data?.walks.find((w) => w.walkedOn === today && w.scoutId === me.id);
+  const start = () => createWalk.mutate({ fieldId, walkedOn: today }, { onSuccess: ({ walk }) => navigate(scoutPaths.walk(walk.id)) });
+
+  return (
+    <PageFrame title={field.data.name} eyebrow={`${field.data.farmName} · ${field.data.crop} ${field.data.season}`}>
+      <Panel>
+        <p className="mb-3 text-soil-700">
+          <AreaText m2={field.data.areaM2} />
+        </p>
+        {todays ? (
+          <ButtonLink to={scoutPaths.walk(todays.id)} size="lg" className="w-full min-h-14 text-lg">
+            Carry on with today’s walk
+          </ButtonLink>
+        ) : (
+          <Button size="lg" className="w-full min-h-14 text-lg" onClick={start} busy={createWalk.isPending} disabled={walks.isPending}>
+            Start a walk for today
+          </Button>
+        )}
+        {createWalk.isError && <div className="mt-2"><FormMessage>{errorMessage(createWalk.error)}</FormMessage></div>}
+      </Panel>
+
+      <Panel title="Walks on this field">
+        {walks.isPending && <LoadingState />}
+        {walks.isError && <ErrorState error={walks.error} onRetry={() => walks.refetch()} />}
+        {walks.data && walks.data.walks.length === 0 && <EmptyState title="No walks yet">Start one above when you are at the field.</EmptyState>}
+        {walks.data && walks.data.walks.length > 0 && (
+          <ul className="divide-y divide-straw-200">
+            {walks.data.walks.map((w) => (
+              <li key={w.id}>
+                <Link to={scoutPaths.walk(w.id)} className="flex min-h-14 items-center justify-between gap-3 py-3 hover:bg-field-50">
+                  <span>
+                    <span className="block font-semibold text-soil-900">{walkDate(w.walkedOn)}</span>
+                    <span className="block text-sm text-soil-700">{w.scoutName}</span>
+                  </span>
+                  <span className="text-right text-sm text-soil-700">
+                    {w.sightingCount} {w.sightingCount === 1 ? 'sighting' : 'sightings'}
+                    <span className="block">{w.stopCount} empty {w.stopCount === 1 ? 'stop' : 'stops'}</span>
+                  </span>
+                </Link>
+              </li>
+            ))}
+          </ul>
+        )}
+      </Panel>
+    </PageFrame>
+  );
+}

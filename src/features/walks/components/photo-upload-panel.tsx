@@ -1,0 +1,41 @@
+// Add photos, see each one travel, send them; the pest and batch count come from the page.
+import { Button } from '../../../components/button.tsx';
+import { FormMessage } from '../../../components/form-field.tsx';
+import { usePhotoUploads, type UploadTarget } from '../hooks/use-photo-uploads.ts';
+import { PhotoPicker } from './photo-picker.tsx';
+import { UploadList } from './upload-list.tsx';
+
+export function PhotoUploadPanel({ target, pestId, count }: { target: UploadTarget; pestId: string; count: string }) {
+  const uploads = usePhotoUploads(target);
+  const batch = { pestId, count };
+  const ready = uploads.entries.filter((e) => e.state === 'ready').length;
+  const sent = uploads.entries.filter((e) => e.state === 'sent').length;
+  const countInvalid = count.trim() !== '' && !(Number(count) >= 0);
+
+  return (
+    <div className="space-y-3">
+      <PhotoPicker onFiles={uploads.addFiles} />
+      <UploadList
+        entries={uploads.entries}
+        canRetry={(id) => uploads.hasFile(id) && !!uploads.entries.find((e) => e.clientId === id)?.error?.retryable}
+        onRetry={(id) => void uploads.retry(id, batch)}
+        onRemove={uploads.removeEntry}
+        onCount={uploads.setCount}
+        batchCount={count}
+        linkToWalk={!target.walkId}
+      />
+      {ready > 0 && !pestId && <FormMessage>Choose the pest before sending these photos.</FormMessage>}
+      {countInvalid && <FormMessage>The count must be a number of zero or more.</FormMessage>}
+      {ready > 0 && (
+        <Button size="lg" className="w-full min-h-14 text-lg" disabled={!pestId || countInvalid} onClick={() => void uploads.send(batch)}>
+          Send {ready} {ready === 1 ? 'photo' : 'photos'}
+        </Button>
+      )}
+      {sent > 0 && !uploads.busy && (
+        <Button variant="quiet" size="lg" className="w-full" onClick={uploads.clearFinished}>
+          Clear the {sent} sent {sent === 1 ? 'photo' : 'photos'} from this list
+        </Button>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,30 @@
+import type { UploadEntry } from '../hooks/upload-store.ts';
+import { UploadRow } from './upload-row.tsx';
+
+export function UploadList({ entries, canRetry, onRetry, onRemove, onCount, batchCount, linkToWalk }: {
+  entries: UploadEntry[];
+  canRetry: (clientId: string) => boolean;
+  onRetry: (clientId: string) => void;
+  onRemove: (clientId: string) => void;
+  onCount: (clientId: string, count: string) => void;
+  batchCount: string;
+  linkToWalk: boolean;
+}) {
+  if (!entries.length) return null;
+  return (
+    <ul className="space-y-2" aria-label="Photos in this batch">
+      {entries.map((entry) => (
+        <UploadRow
+          key={entry.clientId}
+          entry={entry}
+          canRetry={canRetry(entry.clientId)}
+          onRetry={() => onRetry(entry.clientId)}
+          onRemove={() => onRemove(entry.clientId)}
+          onCount={(count) => onCount(entry.clientId, count)}
+          batchCount={batchCount}
+          linkToWalk={linkToWalk}
+        />
+      ))}
+    </ul>
+  );
+}

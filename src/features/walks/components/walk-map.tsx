@@ -1,0 +1,25 @@
+// The walk on the field: found sightings sized by count, empty stops as rings, and what still needs a pin.
+import type { SightingView } from '@shared/schemas/sightings.ts';
+import type { Field } from '../../../types/api.ts';
+import { MapFrame } from '../../../components/map-frame.tsx';
+import { SightingMarkers } from '../../sightings/components/sighting-markers.tsx';
+
+export function WalkMap({ field, sightings }: { field: Field; sightings: SightingView[] }) {
+  const placed = sightings.filter((s) => s.position);
+  return (
+    <div className="space-y-2">
+      <MapFrame boundaries={[{ id: field.id, geometry: field.boundary, label: field.name }]} label={`Map of ${field.name} with this walk’s sightings`} className="h-80">
+        <SightingMarkers sightings={placed} />
+      </MapFrame>
+      <p className="flex flex-wrap items-center gap-x-4 gap-y-1 text-sm text-soil-700">
+        <span className="inline-flex items-center gap-1.5">
+          <span aria-hidden="true" className="inline-block h-3.5 w-3.5 rounded-full bg-patch-500 ring-2 ring-patch-700" /> found (larger = higher count)
+        </span>
+        <span className="inline-flex items-center gap-1.5">
+          <span aria-hidden="true" className="inline-block h-3.5 w-3.5 rounded-full ring-[3px] ring-soil-800" /> nothing found
+        </span>
+        <span>{placed.length} on the map</span>
+      </p>
+    </div>
+  );
+}

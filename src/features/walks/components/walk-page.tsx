@@ -1,0 +1,70 @@
+// The scout's walk: tag and send photos, record empty stops, and see the walk on its field.
+import { useParams } from 'react-router';
+import { PageFrame, Panel } from '../../../components/page-frame.tsx';
+import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
+import { useQuery } from '@tanstack/react-query';
+import { fieldQueryOptions } from '../../fields/api/get-field.ts';
+import { usePests } from '../../admin/api/get-pests.ts';
+import { SightingList } from '../../sightings/components/sighting-list.tsx';
+import { useWalk } from '../api/get-walk.ts';
+import { useBatchTags } from '../hooks/use-batch-tags.ts';
+import { scoutPaths } from '../paths.ts';
+import { EmptyStopButton } from './empty-stop-button.tsx';
+import { PestCountPicker } from './pest-count-picker.tsx';
+import { PhotoUploadPanel } from './photo-upload-panel.tsx';
+import { WalkHeader, walkDate } from './walk-header.tsx';
+import { WalkMap } from './walk-map.tsx';
+
+export function WalkPage() {
+  const { walkId = '' } = useParams();
+  const walk = useWalk(walkId);
+  const fieldId = walk.data?.walk.fieldId ?? '';
+  const field = useQuery({ ...fieldQueryOptions(fieldId), enabled: !!walk.data });
+  const pests = usePests(false);
+  const tags = useBatchTags();
+
+  if (walk.isPending) return <PageFrame title="Walk"><LoadingState label="Loading the walk…" /></PageFrame>;
+  if (walk.isError) return <PageFrame title="Walk"><ErrorState error={walk.error} onRetry={() => walk.refetch()} /></PageFrame>;
+
+  const { walk: info, sightings } = walk.data;
+  const pestList = pests.data ?? [];
+  const pest = pestList.find((p) => p.id === tags.pestId);
+  const needsPin = sightings.filter((s) => s.status === 'needs-pin');
+
+  return (
+    <PageFrame title={info.fieldName} eyebrow={`Walk · ${walkDate(info.walkedOn)}`}>
+      <Panel>
+        <WalkHeader walk={info} farmName={field.data?.farmName} />
+      </Panel>
+
+      <Panel title="Photos and stops">
+        <div className="space-y-4">
+          {pests.isError ? <ErrorState error={pests.error} title="The pest library could not be loaded" onRetry={() => pests.refetch()} /> : (
+            <PestCountPicker pests={pestList} pestId={pest ? tags.pestId : ''} count={tags.count} onPest={tags.setPestId} onCount={tags.setCount} />
+          )}
+          <PhotoUploadPanel target={{ walkId: info.id, fieldId: info.fieldId }} pestId={pest ? tags.pestId : ''} count={tags.count} />
+          <EmptyStopButton walkId={info.id} pestId={pest ? tags.pestId : ''} pestName={pest?.name} />
+        </div>
+      </Panel>
+
+      {needsPin.length > 0 && (
+        <Panel title={`Needs a pin (${needsPin.length})`} className="ring-2 ring-straw-400">
+          <p className="mb-2 text-sm text-soil-700">These photos carry no usable position. Tap “Pin it” and show where each was taken.</p>
+          <SightingList sightings={needsPin} pinHref={(s) => scoutPaths.pin(info.id, s.id)} />
+        </Panel>
+      )}
+
+      <Panel title="Map">
+        {field.data ? <WalkMap field={field.data} sightings={sightings} /> : field.isError ? <ErrorState error={field.error} onRetry={() => field.refetch()} /> : <LoadingState label="Loading the field…" />}
+      </Panel>
+
+      <Panel title={`Sightings (${sightings.length})`}>
+        {sightings.length ? (
+          <SightingList sightings={sightings} pinHref={(s) => scoutPaths.pin(info.id, s.id)} />
+        ) : (
+          <p className="text-soil-700">Nothing yet: send photos or record a stop where you found nothing.</p>
+        )}
+      </Panel>
+    </PageFrame>
+  );
+}

@@ -1,0 +1,54 @@
+// The phone's position through the browser's geolocation, with its accuracy and a plain sentence when it fails.
+import { useCallback, useState } from 'react';
+
+export interface PhonePosition {
+  lon: number;
+  lat: number;
+  accuracyM: number;
+}
+
+type Status = { kind: 'idle' } | { kind: 'locating' } | { kind: 'found'; position: PhonePosition } | { kind: 'failed'; message: string };
+
+const LOCATE_TIMEOUT_MS = 20_000;
+
+function explain(error: GeolocationPositionError) {
+  if (error.code === error.PERMISSION_DENIED) {
+    return window.isSecureContext
+      ? 'Patchwise may not read this phone’s location. Allow location for this site in the browser settings, then tap again.'
+      : 'The browser only shares location with a secure (https) address. Open Patchwise through its https address and tap again.';
+  }
+  if (error.code === error.TIMEOUT) return 'The phone did not find its position within 20 seconds. Step into the open, away from buildings, and tap again.';
+  return 'The phone could not work out its position. Check that location is switched on, then tap again.';
+}
+
+/** Asks for one fresh, high-accuracy fix each time `locate` is called. */
+export function useCurrentPosition() {
+  const [status, setStatus] = useState<Status>({ kind: 'idle' });
+
+  const locate = useCallback(
+    () =>
+      new Promise<PhonePosition | null>((resolve) => {
+        if (!('geolocation' in navigator)) {
+          setStatus({ kind: 'failed', message: 'This browser cannot share the phone’s location; record the stop from another browser.' });
+          resolve(null);
+          return;
+        }
+        setStatus({ kind: 'locating' });
+        navigator.geolocation.getCurrentPosition(
+          ({ coords }) => {
+            const position = { lon: coords.longitude, lat: coords.latitude, accuracyM: coords.accuracy };
+            setStatus({ kind: 'found', position });
+            resolve(position);
+          },
+          (error) => {
+            setStatus({ kind: 'failed', message: explain(error) });
+            resolve(null);
+          },
+          { enableHighAccuracy: true, timeout: LOCATE_TIMEOUT_MS, maximumAge: 0 },
+        );
+      }),
+    [],
+  );
+
+  return { status, locate };
+}
