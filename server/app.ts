@@ -16,6 +16,9 @@ import { fieldsRouter } from './routes/fields.ts';
 import { pestsRouter } from './routes/pests.ts';
 import { mailboxRouter } from './routes/mailbox.ts';
 import { configRouter } from './routes/config.ts';
+import { walksRouter } from './routes/walks.ts';
+import { sightingsRouter } from './routes/sightings.ts';
+import { photosRouter } from './routes/photos.ts';
 import { checksRouter } from './routes/checks.ts';
 import { fieldInsightsRouter } from './routes/field-insights.ts';
 import { advisersRouter } from './routes/advisers.ts';
@@ -74,6 +77,9 @@ export function createApp(options: AppOptions = {}): Express {
   app.use('/api/advisers', advisersRouter);
   app.use('/api/pests', pestsRouter);
   app.use('/api/mailbox', mailboxRouter);
+  app.use('/api/walks', walksRouter);
+  app.use('/api/sightings', sightingsRouter);
+  app.use('/api/photos', photosRouter);
 
   app.use('/api', (_req, _res, next) => next(notFound('That API route')));
 

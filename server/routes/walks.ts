@@ -1,0 +1,31 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { requireSignedIn, actor } from '../middleware/access.ts';
+import { parse } from '../middleware/validate.ts';
+import { walkCreateSchema, walkListQuerySchema, walkStopSchema, walkUpdateSchema } from '../../shared/schemas/walks.ts';
+import { createWalk, getWalk, listWalks, updateWalk } from '../services/walks.ts';
+import { recordEmptyStop } from '../services/sightings.ts';
+
+export const walksRouter = Router();
+const idParam = z.object({ id: z.uuid({ error: 'That walk id is not valid.' }) });
+
+walksRouter.get('/', requireSignedIn, async (req, res) => {
+  res.json({ walks: await listWalks(actor(req), parse(walkListQuerySchema, req.query)) });
+});
+
+walksRouter.post('/', requireSignedIn, async (req, res) => {
+  const { walk, created } = await createWalk(actor(req), parse(walkCreateSchema, req.body));
+  res.status(created ? 201 : 200).json({ walk });
+});
+
+walksRouter.get('/:id', requireSignedIn, async (req, res) => {
+  res.json(await getWalk(actor(req), parse(idParam, req.params).id));
+});
+
+walksRouter.patch('/:id', requireSignedIn, async (req, res) => {
+  res.json({ walk: await updateWalk(actor(req), parse(idParam, req.params).id, parse(walkUpdateSchema, req.body)) });
+});
+
+walksRouter.post('/:id/stops', requireSignedIn, async (req, res) => {
+  res.status(201).json({ sighting: await recordEmptyStop(actor(req), parse(idParam, req.params).id, parse(walkStopSchema, req.body)) });
+});
