@@ -21,9 +21,10 @@ export async function readBoundary(input: { boundary?: unknown; boundaryFile?: s
   if (input.boundaryFile !== undefined) boundary = parseBoundaryText(input.boundaryFile, DOMParser as never);
   else if (input.boundary !== undefined) boundary = boundaryFromGeoJson(input.boundary);
   else throw fault('not-polygon', 'Add a boundary: upload a GeoJSON or KML file, or draw it on the map.');
+  // Checked before anything walks the coordinates, so a badly nested file gets a message rather than a crash.
+  validateBoundary(boundary);
   // Keep longitude and latitude only: heights in a KML file are not part of a field's outline.
   boundary = { type: 'MultiPolygon', coordinates: boundary.coordinates.map((p) => p.map((r) => r.map(([x, y]) => [x, y]))) };
-  validateBoundary(boundary);
   const [check] = await sequelize.query<{ valid: boolean; reason: string | null; x: number | null; y: number | null }>(
     `SELECT d.valid, d.reason, ST_X(d.location) AS x, ST_Y(d.location) AS y
        FROM ST_IsValidDetail(ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326)) d`,

@@ -10,6 +10,10 @@ export const MAX_FIELD_M2 = 5000 * SQUARE_METRES_PER_HECTARE;
 const samePosition = (a: Position, b: Position) => a[0] === b[0] && a[1] === b[1];
 
 function checkRing(ring: Position[], where: string) {
+  // The usual hand-editing slip: a Polygon's coordinates written as one ring instead of a list of rings.
+  if (Array.isArray(ring) && ring.length > 0 && ring.every((v) => typeof v === 'number')) {
+    throw fault('unparseable', `${where} is a single position, not a list of positions: a Polygon's coordinates are a list of rings, each a list of [longitude, latitude] pairs; check the brackets.`);
+  }
   if (!Array.isArray(ring) || ring.length < 4) {
     throw fault('ring-too-short', `${where} has fewer than 4 positions; a closed ring needs at least 3 corners plus the first corner repeated.`);
   }
@@ -40,6 +44,7 @@ function checkRange(positions: Position[]) {
 export function validateBoundary(boundary: MultiPolygon): { areaM2: number } {
   if (boundary.coordinates.length === 0) throw fault('not-polygon', 'The boundary holds no polygon.');
   boundary.coordinates.forEach((polygon, p) => {
+    if (!Array.isArray(polygon)) throw fault('unparseable', `Polygon ${p + 1} is not a list of rings; check the brackets of the coordinates.`);
     polygon.forEach((ring, r) => checkRing(ring, `${r === 0 ? 'The outer ring' : `Hole ${r}`} of polygon ${p + 1}`));
   });
   const positions = boundary.coordinates.flat(2);
