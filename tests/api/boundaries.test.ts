@@ -63,6 +63,8 @@ const faults: Array<[string, string, { boundary?: unknown; boundaryFile?: string
   ['latitude and longitude given the wrong way round', 'swapped-coordinates', { boundary: { type: 'Polygon', coordinates: [ring.map(([x, y]) => [y, x])] } }, /look swapped/],
   ['a boundary of 20 m × 20 m (0.04 ha)', 'area-too-small', { boundary: utmRectangle(lon, lat, 20, 20) }, /under the 0\.05 ha/],
   ['a boundary of 1° × 1° (about 900,000 ha)', 'area-too-large', { boundary: degreeRectangle(-94, 42, 1, 1) }, /over the 5,000 ha/],
+  ['a Polygon written with one level of brackets too few', 'unparseable', { boundary: { type: 'Polygon', coordinates: ring } }, /check the brackets/],
+  ['a MultiPolygon whose parts are not lists of rings', 'unparseable', { boundary: { type: 'MultiPolygon', coordinates: [1, 2] } }, /not a list of rings/],
   ['a file of plain text', 'unparseable', { boundaryFile: 'north field, about 10 ha, by the creek' }, /could not be read/],
   ['a truncated GeoJSON file', 'unparseable', { boundaryFile: JSON.stringify({ type: 'Polygon', coordinates: [ring] }).slice(0, 40) }, /could not be read/],
   ['a broken KML file', 'unparseable', { boundaryFile: kmlPlacemark(ring).slice(0, 200) }, /KML file could not be read/],
@@ -85,6 +87,11 @@ describe('boundary faults', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/Add a boundary/);
     expect(stored).toBe(0);
+  });
+
+  it('keeps longitude and latitude only when positions carry a height', async () => {
+    const res = await admin.post('/api/fields', fieldBody({ boundary: { type: 'Polygon', coordinates: [ring.map(([x, y]) => [x, y, 312])] } })).expect(201);
+    expect(res.body.field.boundary.coordinates[0][0].every((p: number[]) => p.length === 2)).toBe(true);
   });
 
   it('refuses two parts that overlap each other (PostGIS validity) and stores nothing', async () => {
