@@ -7,6 +7,7 @@ import { sequelize } from '../db.ts';
 import { Field } from '../models/field.ts';
 import { PatternCheck } from '../models/pattern-check.ts';
 import { analyse, planSimulations, type AnalysisResult } from '../../shared/analysis/analyse.ts';
+import { AnalysisInputError } from '../../shared/analysis/errors.ts';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
 import { createMonteCarloPool, type MonteCarloPool } from '../../shared/analysis/parallel/monte-carlo-pool.ts';
 
@@ -143,10 +144,13 @@ function progressWriter(checkId: string) {
   };
 }
 
-/** Runs one stored check (queued or running) to done or failed. Safe to call twice: a finished check is left alone. */
-export async function runStoredCheck(checkId: string): Promise<void> {
+/**
+ * Runs one stored check (queued or running) to done or failed. Safe to call twice: a finished check is left
+ * alone. Returns the engine's input error, if any, so a request can answer it as a 400.
+ */
+export async function runStoredCheck(checkId: string): Promise<AnalysisInputError | null> {
   const check = await PatternCheck.findByPk(checkId);
-  if (!check || check.status === 'done' || check.status === 'failed') return;
+  if (!check || check.status === 'done' || check.status === 'failed') return null;
   await check.update({ status: 'running', progress: 0 });
   try {
     const sightings = await sightingsByIds(check.sightingIds);
@@ -157,7 +161,9 @@ export async function runStoredCheck(checkId: string): Promise<void> {
     const boundary = await fieldBoundary(check.fieldId);
     const result = await runAnalysis(boundary, sightingsCollection(sightings), check.options as AnalysisOptions, progressWriter(check.id));
     await check.update({ status: 'done', progress: 1, result: JSON.parse(JSON.stringify(result)), error: null, finishedAt: new Date() });
+    return null;
   } catch (error) {
     await check.update({ status: 'failed', error: (error as Error).message || 'The check failed.', finishedAt: new Date() });
+    return error instanceof AnalysisInputError ? error : null;
   }
 }

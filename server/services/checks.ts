@@ -51,6 +51,11 @@ function assertGeographic(options: AnalysisOptions) {
   if (options.planar) throw badRequest('Option planar: stored sightings are longitude/latitude, so a field check cannot use planar coordinates.', { 'options.planar': 'Leave planar off for field checks.' });
 }
 
+/** A queued or running check untouched this long lost its worker (a process stopped mid-run); run it again. */
+const STALE_AFTER_MS = 30 * 60 * 1000;
+const isStale = (check: PatternCheck) =>
+  (check.status === 'queued' || check.status === 'running') && Date.now() - new Date(check.updatedAt).getTime() > STALE_AFTER_MS;
+
 export interface CheckOutcome {
   check: CheckView;
   /** 200 stored, 201 computed now, 202 queued. */
@@ -74,11 +79,11 @@ export async function requestCheck(actor: Actor, request: CheckRequest): Promise
   };
 
   const stored = await PatternCheck.findOne({ where: key });
-  if (stored && stored.status !== 'failed') return { check: await present(stored, true), httpStatus: 200 };
+  if (stored && stored.status !== 'failed' && !isStale(stored)) return { check: await present(stored, true), httpStatus: 200 };
 
   let check: PatternCheck;
   if (stored) {
-    // A failed check is tried again under the same id rather than answering with the old failure.
+    // A failed (or abandoned) check is tried again under the same id rather than answering with the old failure.
     check = await stored.update({ status: 'queued', progress: 0, error: null, finishedAt: null, createdBy: actor.id });
   } else {
     const [inserted] = await sequelize.query<{ id: string }>(
@@ -97,7 +102,12 @@ export async function requestCheck(actor: Actor, request: CheckRequest): Promise
   }
 
   if (checkWork(request.options, sightings.length) <= INLINE_WORK_LIMIT) {
-    await runStoredCheck(check.id);
+    const inputError = await runStoredCheck(check.id);
+    if (inputError) {
+      // Input the engine cannot analyse (e.g. a zero area basis) is the adviser's to fix: answer it, keep no row.
+      await PatternCheck.destroy({ where: { id: check.id } });
+      throw badRequest(inputError.message);
+    }
     return { check: await present((await check.reload())!, false), httpStatus: 201 };
   }
   await enqueueCheck(check.id);

@@ -143,6 +143,14 @@ describe('running a pattern check', () => {
     expect(basis.status).toBe(400);
     expect(basis.body.error.message).toMatch(/areaBasis.*boundary, bbox, hull or custom/);
 
+    // The engine's own refusal (a bounding rectangle of one sighting has no area) comes back as a 400, not a stored failure.
+    const lone = await makeScoutedField(org, scatteredStops(32, 1));
+    const zeroArea = await adviser.post('/api/checks', { fieldId: lone.field.id, pestId: lone.pest.id, options: { areaBasis: 'bbox' } });
+    expect(zeroArea.status).toBe(400);
+    expect(zeroArea.body.error.message).toMatch(/bbox area is zero/);
+    const [{ n }] = await sequelize.query<{ n: number }>('SELECT count(*) AS n FROM pattern_checks WHERE field_id = :id', { replacements: { id: lone.field.id }, type: QueryTypes.SELECT });
+    expect(n).toBe(0);
+
     const window = await adviser.post('/api/checks', { fieldId: field.id, pestId: pest.id, from: '2026-08-01', to: '2026-07-01' });
     expect(window.status).toBe(400);
     expect(window.body.error.fields.to).toMatch(/from date/);
