@@ -1,4 +1,5 @@
 // Kernel density estimate of sightings per hectare on a grid clipped to the field.
+import { AnalysisInputError } from './errors.ts';
 import { isInsideField, type PlanarField } from './field-geometry.ts';
 
 export type Kernel = 'quartic' | 'gaussian';
@@ -32,6 +33,8 @@ export interface DensityResult {
 
 const M2_PER_HA = 10_000;
 const GAUSSIAN_REACH = 4;
+/** Upper bound on the density grid, to keep a result within memory and a sensible JSON size. */
+export const MAX_DENSITY_CELLS = 4_000_000;
 
 /**
  * Default bandwidth: Silverman's normal-reference rule for two dimensions, σ·n^(−1/6) with σ the mean
@@ -49,7 +52,8 @@ export function defaultBandwidthM(field: PlanarField, xy: Float64Array, kernel: 
   const gaussian = sigma * n ** (-1 / 6);
   const h = kernel === 'quartic' ? Math.sqrt(8) * gaussian : gaussian;
   const cap = Math.min(field.maxX - field.minX, field.maxY - field.minY) / 4;
-  return Math.max(Math.min(h, cap), 1e-3);
+  // One sighting (or all at one spot) has no spread: fall back to the cap.
+  return h > 0 ? Math.min(h, cap) : cap;
 }
 
 /** min(standard deviation, interquartile range / 1.349): Silverman's (1986, eq. 3.30) guard against long tails. */
@@ -75,7 +79,7 @@ function robustSpread(values: Float64Array): number {
 /** Default grid: about 20,000 cells over the field's bounding box, and at least four cells per bandwidth. */
 export function defaultDensityCellSizeM(field: PlanarField, bandwidthM: number): number {
   const boxArea = (field.maxX - field.minX) * (field.maxY - field.minY);
-  return Math.min(Math.max(Math.sqrt(boxArea / 20_000), 0.5), bandwidthM / 4);
+  return Math.max(Math.min(Math.max(Math.sqrt(boxArea / 20_000), 0.5), bandwidthM / 4), Math.sqrt(boxArea / MAX_DENSITY_CELLS));
 }
 
 /** Quartic (biweight) kernel 3/(πh²)·(1 − d²/h²)² for d < h, or Gaussian 1/(2πh²)·exp(−d²/2h²) (Silverman 1986). */
@@ -100,6 +104,10 @@ export function densitySurface(field: PlanarField, xy: Float64Array, options: De
   const originY = field.minY;
   const cols = Math.max(1, Math.ceil((field.maxX - field.minX) / cell));
   const rows = Math.max(1, Math.ceil((field.maxY - field.minY) / cell));
+  if (cols * rows > MAX_DENSITY_CELLS) {
+    const smallest = Math.sqrt(((field.maxX - field.minX) * (field.maxY - field.minY)) / MAX_DENSITY_CELLS);
+    throw new AnalysisInputError(`A density cell of ${cell} m gives ${cols * rows} cells; use at least ${Math.ceil(smallest * 100) / 100} m.`);
+  }
   const inside = new Uint8Array(cols * rows);
   for (let row = 0; row < rows; row++) {
     const y = originY + (row + 0.5) * cell;

@@ -1,7 +1,11 @@
 // Quadrat count test of spread over square (or NX × NY) cells clipped to the field.
 import { cellAreasInsideField, type GridSpec } from './cell-clipping.ts';
 import { chiSquareUpper } from './distributions.ts';
+import { AnalysisInputError } from './errors.ts';
 import type { PlanarField } from './field-geometry.ts';
+
+/** Upper bound on quadrat cells: beyond it the test has no meaning and the result no sensible size. */
+export const MAX_QUADRAT_CELLS = 1_000_000;
 
 export type SliverRule = 'merge' | 'keep' | 'drop';
 
@@ -76,6 +80,9 @@ export function quadratTest(field: PlanarField, xy: Float64Array, fieldAreaM2: n
   const grid = quadratGrid(field, n, fieldAreaM2, options);
   const { cols, rows, cellWidth, cellHeight } = grid;
   const cellCount = cols * rows;
+  if (cellCount > MAX_QUADRAT_CELLS) {
+    throw new AnalysisInputError(`The quadrat grid would have ${cellCount} cells; choose larger cells (at most ${MAX_QUADRAT_CELLS} cells).`);
+  }
   const areas = cellAreasInsideField(field, grid);
   const counts = new Float64Array(cellCount);
   const totals = options.counts ? new Float64Array(cellCount) : null;

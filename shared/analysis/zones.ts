@@ -69,9 +69,12 @@ export function zonesFromRectangles(field: PlanarField, rects: Rect[], options: 
     mask = new Uint8Array(cols * rows);
     const reach = Math.floor(marginM / step);
     const offsets: number[] = [];
-    for (let dy = -reach; dy <= reach; dy++) {
-      const dx = Math.floor(Math.sqrt(Math.max(0, (marginM / step) ** 2 - dy * dy)));
-      offsets.push(dy, dx);
+    // A cell joins when its centre lies within the margin of a core cell's square (not just its centre).
+    const r = marginM / step;
+    for (let dy = -reach - 1; dy <= reach + 1; dy++) {
+      const gap = Math.max(Math.abs(dy) - 0.5, 0);
+      if (gap > r) continue;
+      offsets.push(dy, Math.floor(0.5 + Math.sqrt(r * r - gap * gap)));
     }
     for (let row = 0; row < rows; row++) {
       for (let col = 0; col < cols; col++) {

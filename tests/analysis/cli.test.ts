@@ -1,0 +1,59 @@
+// The command-line entry on fixture files: good input prints the result JSON, bad input exits 2 with one sentence.
+import { spawnSync } from 'node:child_process';
+import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+
+const root = fileURLToPath(new URL('../..', import.meta.url));
+const fixture = (name: string) => `tests/fixtures/analysis/${name}`;
+
+function analyze(...args: string[]) {
+  const run = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/analyze.ts', ...args], { cwd: root, encoding: 'utf8' });
+  return { status: run.status, stdout: run.stdout, stderr: run.stderr.trim() };
+}
+
+function expectOneSentence(stderr: string, pattern: RegExp) {
+  expect(stderr.split('\n')).toHaveLength(1);
+  expect(stderr).toMatch(/\.$/);
+  expect(stderr).toMatch(pattern);
+}
+
+describe('npm run analyze', () => {
+  it('reproduces the lattice fixture figures (expected values and sources side by side in the fixture)', () => {
+    const run = analyze('--boundary', fixture('lattice-field.geojson'), '--sightings', fixture('lattice-sightings.geojson'), '--planar', '--simulations', '19');
+    expect(run.status).toBe(0);
+    const result = JSON.parse(run.stdout);
+    const expected = JSON.parse(readFileSync(`${root}${fixture('lattice-expected.json')}`, 'utf8')) as Record<string, { value: number }>;
+    for (const [path, { value }] of Object.entries(expected)) {
+      const actual = path.split('.').reduce((node, key) => node[key], result);
+      expect(actual).toBeCloseTo(value, 6);
+    }
+    expect(result.crs).toBe('planar');
+  });
+
+  it('reports sightings outside the boundary, leaves them out and says how many', () => {
+    const run = analyze('--boundary', fixture('field.geojson'), '--sightings', fixture('sightings-one-outside.geojson'), '--simulations', '19');
+    expect(run.status).toBe(0);
+    expect(run.stderr).toBe('1 sighting outside the boundary was left out.');
+    expect(JSON.parse(run.stdout).excluded).toEqual({ count: 1, ids: ['OUT1'] });
+  });
+
+  const bad: Array<[string, string[], RegExp]> = [
+    ['an unreadable file', ['--boundary', fixture('missing.geojson'), '--sightings', fixture('sightings.geojson')], /Cannot read the boundary file/],
+    ['a file that is not GeoJSON', ['--boundary', fixture('not-geojson.geojson'), '--sightings', fixture('sightings.geojson')], /is not GeoJSON/],
+    ['a boundary with no polygon', ['--boundary', fixture('no-polygon.geojson'), '--sightings', fixture('sightings.geojson')], /no Polygon or MultiPolygon/],
+    ['fewer than 2 points', ['--boundary', fixture('field.geojson'), '--sightings', fixture('sightings-single.geojson')], /fewer than 2/i],
+    ['a negative option', ['--boundary', fixture('field.geojson'), '--sightings', fixture('sightings.geojson'), '--bandwidth', '-5'], /bandwidth must be more than 0/],
+    ['an absurd option', ['--boundary', fixture('field.geojson'), '--sightings', fixture('sightings.geojson'), '--simulations', '5000000'], /Simulations must be at most/],
+    ['a malformed grid', ['--boundary', fixture('field.geojson'), '--sightings', fixture('sightings.geojson'), '--grid', 'five'], /--grid must look like/],
+    ['metres without --planar', ['--boundary', fixture('lattice-field.geojson'), '--sightings', fixture('lattice-sightings.geojson')], /--planar/],
+  ];
+  for (const [name, args, message] of bad) {
+    it(`exits 2 with one clear sentence for ${name}`, () => {
+      const run = analyze(...args);
+      expect(run.status).toBe(2);
+      expect(run.stdout).toBe('');
+      expectOneSentence(run.stderr, message);
+    });
+  }
+});
