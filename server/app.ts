@@ -16,6 +16,10 @@ import { fieldsRouter } from './routes/fields.ts';
 import { pestsRouter } from './routes/pests.ts';
 import { mailboxRouter } from './routes/mailbox.ts';
 import { configRouter } from './routes/config.ts';
+import { zoneSetsRouter } from './routes/zone-sets.ts';
+import { noticesRouter } from './routes/notices.ts';
+import { noticeLinksRouter } from './routes/notice-links.ts';
+import { growerRouter } from './routes/grower.ts';
 import { walksRouter } from './routes/walks.ts';
 import { sightingsRouter } from './routes/sightings.ts';
 import { photosRouter } from './routes/photos.ts';
@@ -65,7 +69,10 @@ export function createApp(options: AppOptions = {}): Express {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
-  app.use('/api', csrfProtection);
+  // The one public POST: a grower acknowledging a notice from the e-mailed link, without a session. Exempt from
+  // CSRF only because the unguessable token in the path is itself the credential (a forged request cannot know it).
+  const noticeAcknowledgement = /^\/notice-links\/[^/]+\/acknowledge$/;
+  app.use('/api', (req, res, next) => (req.method === 'POST' && noticeAcknowledgement.test(req.path) ? next() : csrfProtection(req, res, next)));
 
   app.use('/api/auth', authRouter);
   app.use('/api/config', configRouter);
@@ -77,6 +84,10 @@ export function createApp(options: AppOptions = {}): Express {
   app.use('/api/advisers', advisersRouter);
   app.use('/api/pests', pestsRouter);
   app.use('/api/mailbox', mailboxRouter);
+  app.use('/api', zoneSetsRouter);
+  app.use('/api/notices', noticesRouter);
+  app.use('/api/notice-links', noticeLinksRouter);
+  app.use('/api/grower', growerRouter);
   app.use('/api/walks', walksRouter);
   app.use('/api/sightings', sightingsRouter);
   app.use('/api/photos', photosRouter);

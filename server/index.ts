@@ -3,6 +3,7 @@ import { assertSafeForProduction, config } from './config.ts';
 import { startWorkers } from './jobs/workers.ts';
 import { stopQueue } from './jobs/queue.ts';
 import './jobs/all-workers.ts';
+import { closeSimulationPool } from './services/check-runner.ts';
 
 /** Starts the HTTP server and, unless WORKERS=off, the background workers in the same process. */
 export async function startServer(options: { port?: number; host?: string } = {}) {
@@ -17,6 +18,8 @@ export async function startServer(options: { port?: number; host?: string } = {}
     close: async () => {
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await stopQueue();
+      // Idle simulation worker threads would otherwise keep the process alive.
+      await closeSimulationPool();
     },
   };
 }

@@ -48,7 +48,7 @@ export const pestLibrarySeed: PestInput[] = [
     kind: 'weed',
     countUnit: 'plants per square metre',
     actionThreshold: 1,
-    thresholdBasis: 'incidence',
+    thresholdBasis: 'mean',
     thresholdNote: 'Treat before plants reach 6–10 inches tall. The per-area figure of 1 is our starting point (recalled from memory, not from the source); adjust it to local guidance.',
     thresholdSource: 'University of Wisconsin pest bulletin (height rule); count figure recalled from memory',
     active: true,

@@ -5,6 +5,7 @@ import type { Actor } from '../auth/passport.ts';
 import { thresholdStatus } from '../../shared/thresholds/threshold-status.ts';
 import type { ThresholdBasis } from '../../shared/schemas/pests.ts';
 import type { AttentionField, AttentionResponse } from '../../shared/schemas/checks.ts';
+import { listUnacknowledgedNotices } from './notices.ts';
 
 interface LatestCheckRow {
   checkId: string;
@@ -118,7 +119,7 @@ export async function fieldsNeedingAttention(actor: Actor): Promise<AttentionRes
     thresholdSource: row.thresholdSource,
     newSightings: row.newSightings,
   }));
-  // The zone-notice feature fills this with notices the grower has not yet acknowledged.
-  const unacknowledgedNotices: never[] = [];
+  // Sent notices that no grower has acknowledged yet.
+  const unacknowledgedNotices = await listUnacknowledgedNotices(actor);
   return { clusteredAboveThreshold, notYetChecked, unacknowledgedNotices };
 }

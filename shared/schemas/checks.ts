@@ -3,6 +3,7 @@
 import { z } from 'zod';
 import { analysisOptionsSchema } from '../analysis/options.ts';
 import type { ThresholdStatus } from '../thresholds/threshold-status.ts';
+import type { UnacknowledgedNotice } from './notices.ts';
 
 export const checkStatuses = ['queued', 'running', 'done', 'failed'] as const;
 export type CheckStatus = (typeof checkStatuses)[number];
@@ -165,5 +166,5 @@ export interface AttentionField {
 export interface AttentionResponse {
   clusteredAboveThreshold: AttentionField[];
   notYetChecked: AttentionField[];
-  unacknowledgedNotices: never[];
+  unacknowledgedNotices: UnacknowledgedNotice[];
 }

@@ -1,0 +1,49 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { requireRole, actor } from '../middleware/access.ts';
+import { parse } from '../middleware/validate.ts';
+import { noticeCreateSchema } from '../../shared/schemas/notices.ts';
+import { createNotice, getNotice, listNotices, noticeMaterial, revokeRecipient, sendNotice } from '../services/notices.ts';
+import { composeNoticeMail, PREVIEW_LINK } from '../services/notice-mail.ts';
+import { renderNoticeMap } from '../services/notice-map.ts';
+
+/** The adviser's zone notices: draft, preview, send, follow each copy, withdraw a link. */
+export const noticesRouter = Router();
+const idParam = z.object({ id: z.uuid({ error: 'That notice id is not valid.' }) });
+const recipientParam = idParam.extend({ rid: z.uuid({ error: 'That recipient id is not valid.' }) });
+const listQuery = z.object({ fieldId: z.uuid({ error: 'That field id is not valid.' }).optional() });
+
+noticesRouter.use(requireRole('admin', 'adviser'));
+
+noticesRouter.get('/', async (req, res) => {
+  res.json({ notices: await listNotices(actor(req), parse(listQuery, req.query)) });
+});
+
+noticesRouter.post('/', async (req, res) => {
+  res.status(201).json({ notice: await createNotice(actor(req), parse(noticeCreateSchema, req.body)) });
+});
+
+noticesRouter.get('/:id', async (req, res) => {
+  res.json({ notice: await getNotice(actor(req), parse(idParam, req.params).id) });
+});
+
+noticesRouter.get('/:id/preview', async (req, res) => {
+  const notice = await getNotice(actor(req), parse(idParam, req.params).id);
+  const { subject, html, text } = composeNoticeMail(await noticeMaterial(notice.id), PREVIEW_LINK);
+  res.json({ subject, html, text, mapPath: `/api/notices/${notice.id}/map.png` });
+});
+
+noticesRouter.get('/:id/map.png', async (req, res) => {
+  const notice = await getNotice(actor(req), parse(idParam, req.params).id);
+  const material = await noticeMaterial(notice.id);
+  res.type('png').send(renderNoticeMap({ boundary: material.boundary, zones: material.zones, sightings: material.sightings }));
+});
+
+noticesRouter.post('/:id/send', async (req, res) => {
+  res.status(202).json({ notice: await sendNotice(actor(req), parse(idParam, req.params).id) });
+});
+
+noticesRouter.post('/:id/recipients/:rid/revoke', async (req, res) => {
+  const { id, rid } = parse(recipientParam, req.params);
+  res.json({ notice: await revokeRecipient(actor(req), id, rid) });
+});

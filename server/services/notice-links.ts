@@ -1,0 +1,95 @@
+// The grower's link to one notice: "<recipient id>.<random secret>". Only a sha256 of the whole token is
+// stored; the raw token exists in the e-mailed link alone. The recipient id lets a wrong secret be refused
+// without scanning, and ties the token to its own copy of its own notice.
+import crypto from 'node:crypto';
+import { QueryTypes, type Transaction } from 'sequelize';
+import { sequelize } from '../db.ts';
+import { AppError } from '../errors.ts';
+import { Notice } from '../models/notice.ts';
+import { noticeMaterial } from './notices.ts';
+import { renderNoticeMap } from './notice-map.ts';
+import type { NoticeLinkResponse } from '../../shared/schemas/notices.ts';
+
+/** Common practice for such links: long enough for a season's re-scout, short enough to go stale. */
+export const NOTICE_LINK_DAYS = 60;
+
+const sha256 = (text: string) => crypto.createHash('sha256').update(text).digest('hex');
+const TOKEN_SHAPE = /^([0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12})\.([A-Za-z0-9_-]{43})$/;
+
+export const linkRefused = () =>
+  new AppError(404, 'notice_link_not_found', 'This notice link is not valid: it may have expired or been withdrawn. Ask your adviser to send the notice again.');
+
+/** A fresh token for a recipient (replacing any earlier one); returns the raw token for the e-mail. */
+export async function issueNoticeToken(recipientId: string, transaction?: Transaction): Promise<string> {
+  const token = `${recipientId}.${crypto.randomBytes(32).toString('base64url')}`;
+  await sequelize.query(
+    `UPDATE notice_recipients SET token_hash = :hash, token_expires_at = now() + make_interval(days => :days), updated_at = now() WHERE id = :id`,
+    { replacements: { hash: sha256(token), days: NOTICE_LINK_DAYS, id: recipientId }, transaction },
+  );
+  return token;
+}
+
+export interface LinkedCopy {
+  recipientId: string;
+  noticeId: string;
+  contactName: string;
+  openedAt: Date | null;
+  acknowledgedAt: Date | null;
+}
+
+/** The recipient copy a token opens; expired, revoked, tampered and mismatched tokens all get the same 404. */
+export async function resolveNoticeToken(token: string): Promise<LinkedCopy> {
+  const shape = TOKEN_SHAPE.exec(token);
+  if (!shape) throw linkRefused();
+  const [row] = await sequelize.query<{ id: string; notice_id: string; contact_name: string; token_hash: string | null; opened_at: Date | null; acknowledged_at: Date | null }>(
+    `SELECT id, notice_id, contact_name, token_hash, opened_at, acknowledged_at FROM notice_recipients
+      WHERE id = :id AND revoked_at IS NULL AND token_expires_at > now()`,
+    { replacements: { id: shape[1] }, type: QueryTypes.SELECT },
+  );
+  if (!row?.token_hash) throw linkRefused();
+  const given = Buffer.from(sha256(token), 'hex');
+  if (!crypto.timingSafeEqual(given, Buffer.from(row.token_hash, 'hex'))) throw linkRefused();
+  return { recipientId: row.id, noticeId: row.notice_id, contactName: row.contact_name, openedAt: row.opened_at, acknowledgedAt: row.acknowledged_at };
+}
+
+/** Records the first opening of the notice page; later openings change nothing. */
+export async function markOpened(recipientId: string) {
+  await sequelize.query(`UPDATE notice_recipients SET opened_at = now(), updated_at = now() WHERE id = :id AND opened_at IS NULL`, { replacements: { id: recipientId } });
+}
+
+/** Records the acknowledgement once; a second one answers with the first one's time. */
+export async function acknowledge(recipientId: string): Promise<{ acknowledgedAt: Date; alreadyAcknowledged: boolean }> {
+  const updated = await sequelize.query<{ acknowledged_at: Date }>(
+    `UPDATE notice_recipients SET acknowledged_at = now(), opened_at = COALESCE(opened_at, now()), updated_at = now()
+      WHERE id = :id AND acknowledged_at IS NULL RETURNING acknowledged_at`,
+    { replacements: { id: recipientId }, type: QueryTypes.SELECT },
+  );
+  if (updated.length) return { acknowledgedAt: updated[0].acknowledged_at, alreadyAcknowledged: false };
+  const [row] = await sequelize.query<{ acknowledged_at: Date }>('SELECT acknowledged_at FROM notice_recipients WHERE id = :id', { replacements: { id: recipientId }, type: QueryTypes.SELECT });
+  return { acknowledgedAt: row.acknowledged_at, alreadyAcknowledged: true };
+}
+
+/** What the notice page shows for a token, marking the first opening. */
+export async function noticeForLink(token: string): Promise<NoticeLinkResponse['notice']> {
+  const copy = await resolveNoticeToken(token);
+  await markOpened(copy.recipientId);
+  const material = await noticeMaterial(copy.noticeId);
+  const notice = await Notice.findByPk(copy.noticeId);
+  const acknowledgedAt = copy.acknowledgedAt;
+  return {
+    ...material.content,
+    sentAt: notice?.sentAt ? notice.sentAt.toISOString() : null,
+    recipientName: copy.contactName,
+    acknowledgedAt: acknowledgedAt ? acknowledgedAt.toISOString() : null,
+    zonesGeoJson: material.zonesGeoJson,
+    boundary: material.boundary,
+    mapPath: `/api/notice-links/${token}/map.png`,
+  };
+}
+
+/** The notice's map for a token (does not count as an opening: mail programs fetch images by themselves). */
+export async function mapForLink(token: string): Promise<Buffer> {
+  const copy = await resolveNoticeToken(token);
+  const material = await noticeMaterial(copy.noticeId);
+  return renderNoticeMap({ boundary: material.boundary, zones: material.zones, sightings: material.sightings });
+}

@@ -1,0 +1,166 @@
+// The zone-notice e-mail: composed from the notice's material (HTML and plain text, inline map, GeoJSON
+// attachment) and delivered once per copy, with the Message-ID fixed when the copy was queued.
+import { QueryTypes } from 'sequelize';
+import type Mail from 'nodemailer/lib/mailer';
+import { sequelize } from '../db.ts';
+import { config } from '../config.ts';
+import { mailTransport } from '../mail/transport.ts';
+import { escapeHtml } from './escape-html.ts';
+import { issueNoticeToken } from './notice-links.ts';
+import { renderNoticeMap } from './notice-map.ts';
+import { noticeMaterial, refreshNoticeStatus, type NoticeMaterial } from './notices.ts';
+import type { NoticeContent } from '../../shared/schemas/notices.ts';
+
+export const MAP_CID = 'notice-map@patchwise';
+export const PREVIEW_LINK = `${config.publicUrl}/n/(each grower's own link)`;
+
+const ha = (m2: number) => (m2 / 10_000).toFixed(2);
+const ac = (m2: number) => (m2 / 4046.8564224).toFixed(2);
+const percent = (share: number) => `${(share * 100).toFixed(1)} %`;
+const longDate = (iso: string) => new Date(`${iso}T12:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+
+export const noticeSubject = (c: NoticeContent) => `Treatment zones for ${c.pestName} in ${c.fieldName}, ${c.farmName}`;
+
+function walkDatesText(c: NoticeContent) {
+  return c.walkDates.length ? c.walkDates.map(longDate).join(', ') : 'no walk recorded';
+}
+
+export function noticeText(c: NoticeContent, link: string): string {
+  const rows = c.zones.map((z) => `  ${z.label}: ${ha(z.areaM2)} ha (${ac(z.areaM2)} ac), ${percent(z.shareOfField)} of the field, ${z.sightingsInside} sighting${z.sightingsInside === 1 ? '' : 's'}`);
+  return [
+    `Zone notice from ${c.organisationName}`,
+    '',
+    `Farm: ${c.farmName}`,
+    `Field: ${c.fieldName} (${ha(c.fieldAreaM2)} ha, ${ac(c.fieldAreaM2)} ac)`,
+    `Pest: ${c.pestName}`,
+    `Walk dates: ${walkDatesText(c)}`,
+    '',
+    'WHAT THE SIGHTINGS SHOW',
+    c.verdict.headline,
+    ...c.verdict.figures.map((f) => `- ${f}`),
+    '',
+    'TREATMENT ZONES',
+    ...rows,
+    `  Total to treat: ${ha(c.totalTreatedM2)} ha (${ac(c.totalTreatedM2)} ac); ${percent(c.untreatedShare)} of the field is left untreated.`,
+    '',
+    `RECOMMENDATION (${c.adviserName})`,
+    c.recommendation,
+    ...(c.rescoutOn ? [`Re-scout on: ${longDate(c.rescoutOn)}`] : []),
+    '',
+    'BEFORE ANY TREATMENT',
+    ...c.cautions.map((caution) => `- ${caution}`),
+    '',
+    `See the map, the zones and acknowledge this notice: ${link}`,
+    'The zones are attached as zones.geojson for a sprayer or mapping program.',
+  ].join('\n');
+}
+
+export function noticeHtml(c: NoticeContent, link: string, mapSrc = `cid:${MAP_CID}`): string {
+  const e = escapeHtml;
+  const cell = 'style="padding:4px 8px;border-bottom:1px solid #ebdcb4;text-align:left"';
+  const num = 'style="padding:4px 8px;border-bottom:1px solid #ebdcb4;text-align:right"';
+  const rows = c.zones
+    .map((z) => `<tr><td ${cell}>${e(z.label)}</td><td ${num}>${ha(z.areaM2)}</td><td ${num}>${ac(z.areaM2)}</td><td ${num}>${percent(z.shareOfField)}</td><td ${num}>${z.sightingsInside}</td></tr>`)
+    .join('');
+  const paragraphs = (text: string) => text.split(/\n{2,}/).map((p) => `<p style="margin:0 0 8px">${e(p).replace(/\n/g, '<br>')}</p>`).join('');
+  return `<!doctype html>
+<html lang="en"><head><meta charset="utf-8"><title>${e(noticeSubject(c))}</title></head>
+<body style="margin:0;padding:16px;background:#fbf8f0;color:#241e19;font-family:'Work Sans',Arial,sans-serif;font-size:15px;line-height:1.45">
+<div style="max-width:720px;margin:0 auto">
+<h1 style="font-size:20px;color:#2f5d3a;margin:0 0 12px">${e(c.pestName)} treatment zones: ${e(c.fieldName)}, ${e(c.farmName)}</h1>
+<table role="presentation" style="border-collapse:collapse;margin-bottom:12px">
+<tr><th ${cell}>Farm</th><td ${cell}>${e(c.farmName)}</td></tr>
+<tr><th ${cell}>Field</th><td ${cell}>${e(c.fieldName)} (${ha(c.fieldAreaM2)} ha, ${ac(c.fieldAreaM2)} ac)</td></tr>
+<tr><th ${cell}>Pest</th><td ${cell}>${e(c.pestName)}</td></tr>
+<tr><th ${cell}>Walk dates</th><td ${cell}>${e(walkDatesText(c))}</td></tr>
+</table>
+<h2 style="font-size:17px;color:#2f5d3a">What the sightings show</h2>
+<p style="margin:0 0 6px"><strong>${e(c.verdict.headline)}</strong></p>
+<ul style="margin:0 0 12px;padding-left:20px">${c.verdict.figures.map((f) => `<li>${e(f)}</li>`).join('')}</ul>
+<img src="${e(mapSrc)}" alt="Map of ${e(c.fieldName)} with the treatment zones and sightings" width="640" style="max-width:100%;height:auto;border:1px solid #ebdcb4">
+<h2 style="font-size:17px;color:#2f5d3a">Treatment zones</h2>
+<table style="border-collapse:collapse;margin-bottom:6px">
+<thead><tr><th ${cell}>Zone</th><th ${num}>ha</th><th ${num}>ac</th><th ${num}>Share of field</th><th ${num}>Sightings</th></tr></thead>
+<tbody>${rows}</tbody>
+</table>
+<p style="margin:0 0 12px">Total to treat: ${ha(c.totalTreatedM2)} ha (${ac(c.totalTreatedM2)} ac); ${percent(c.untreatedShare)} of the field is left untreated.</p>
+<h2 style="font-size:17px;color:#2f5d3a">Recommendation from ${e(c.adviserName)}</h2>
+${paragraphs(c.recommendation)}
+${c.rescoutOn ? `<p style="margin:0 0 12px"><strong>Re-scout on:</strong> ${e(longDate(c.rescoutOn))}</p>` : ''}
+<h2 style="font-size:17px;color:#9a3f14">Before any treatment</h2>
+<ul style="margin:0 0 12px;padding-left:20px">${c.cautions.map((caution) => `<li>${e(caution)}</li>`).join('')}</ul>
+<p style="margin:16px 0"><a href="${e(link)}" style="background:#2f5d3a;color:#ffffff;padding:10px 16px;text-decoration:none;border-radius:4px">Open the notice and acknowledge it</a></p>
+<p style="margin:0;font-size:13px;color:#5f5142">Link: ${e(link)}<br>The zones are attached as zones.geojson for a sprayer or mapping program. Sent by ${e(c.organisationName)}.</p>
+</div></body></html>`;
+}
+
+/** The message for one copy (or for the preview, with the placeholder link). */
+export function composeNoticeMail(material: NoticeMaterial, link: string): { subject: string; html: string; text: string; attachments: Mail.Attachment[] } {
+  const map = renderNoticeMap({ boundary: material.boundary, zones: material.zones, sightings: material.sightings });
+  return {
+    subject: noticeSubject(material.content),
+    html: noticeHtml(material.content, link),
+    text: noticeText(material.content, link),
+    attachments: [
+      { filename: 'map.png', content: map, contentType: 'image/png', cid: MAP_CID, contentDisposition: 'inline' },
+      { filename: 'zones.geojson', content: JSON.stringify(material.zonesGeoJson, null, 1), contentType: 'application/geo+json' },
+    ],
+  };
+}
+
+/** A copy whose 'sending' mark is older than this is taken to have died mid-send and may be claimed again. */
+const STALE_SENDING_MINUTES = 15;
+
+/**
+ * Sends one copy of a notice, at most once per SMTP acceptance:
+ * 1. claim the copy in one statement (not yet accepted, not revoked, not being sent right now) and count the attempt;
+ * 2. issue its link token and compose the message with the Message-ID fixed at queue time;
+ * 3. hand it to SMTP; on acceptance record smtp_accepted_at in the very next statement.
+ * The one window left: if the process dies after the SMTP server accepts and before that statement commits,
+ * the claim goes stale and a later retry sends again — with the same Message-ID, so mail systems that
+ * de-duplicate by Message-ID still show one message. Nothing else can send a second copy.
+ */
+export async function deliverNoticeCopy(recipientId: string): Promise<'sent' | 'skipped'> {
+  const [claim] = await sequelize.query<{ notice_id: string; email: string; contact_name: string; message_id: string; attempts: number }>(
+    `UPDATE notice_recipients SET status = 'sending', attempts = attempts + 1, updated_at = now()
+      WHERE id = :id AND smtp_accepted_at IS NULL AND revoked_at IS NULL
+        AND (status <> 'sending' OR updated_at < now() - make_interval(mins => :stale))
+      RETURNING notice_id, email, contact_name, message_id, attempts`,
+    { replacements: { id: recipientId, stale: STALE_SENDING_MINUTES }, type: QueryTypes.SELECT },
+  );
+  if (!claim) {
+    await markWithdrawnIfRevoked(recipientId);
+    return 'skipped';
+  }
+  try {
+    const token = await issueNoticeToken(recipientId);
+    const mail = composeNoticeMail(await noticeMaterial(claim.notice_id), `${config.publicUrl}/n/${token}`);
+    await mailTransport().sendMail({
+      from: config.mailFrom,
+      to: { name: claim.contact_name, address: claim.email },
+      messageId: claim.message_id,
+      ...mail,
+    });
+    // The single statement after SMTP acceptance (see above).
+    await sequelize.query(`UPDATE notice_recipients SET status = 'sent', smtp_accepted_at = now(), last_error = NULL, updated_at = now() WHERE id = :id`, { replacements: { id: recipientId } });
+  } catch (error) {
+    const reason = (error as Error).message || 'The mail server did not accept the message.';
+    await sequelize.query(`UPDATE notice_recipients SET status = 'failed', last_error = :reason, updated_at = now() WHERE id = :id AND smtp_accepted_at IS NULL`, {
+      replacements: { id: recipientId, reason: `Attempt ${claim.attempts}: ${reason}`.slice(0, 1000) },
+    });
+    await refreshNoticeStatus(claim.notice_id);
+    throw error;
+  }
+  await refreshNoticeStatus(claim.notice_id);
+  return 'sent';
+}
+
+/** A copy withdrawn before it went out is failed with that reason, so the notice's status can settle. */
+async function markWithdrawnIfRevoked(recipientId: string) {
+  const [row] = await sequelize.query<{ notice_id: string }>(
+    `UPDATE notice_recipients SET status = 'failed', last_error = 'The link was withdrawn before the message went out.', updated_at = now()
+      WHERE id = :id AND revoked_at IS NOT NULL AND smtp_accepted_at IS NULL AND status <> 'failed' RETURNING notice_id`,
+    { replacements: { id: recipientId }, type: QueryTypes.SELECT },
+  );
+  if (row) await refreshNoticeStatus(row.notice_id);
+}

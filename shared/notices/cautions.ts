@@ -1,0 +1,9 @@
+// The cautions every zone notice carries, in the e-mail and on the notice page alike.
+export const NOTICE_CAUTIONS = [
+  'Read and follow the product label before any treatment: the label is the legal document.',
+  'Observe the re-entry interval and the pre-harvest interval stated on the label.',
+  'Have the treatment applied by a licensed or certified applicator wherever the law requires one.',
+  'Keep buffers to water, wells and other sensitive areas, as the label and local rules set them.',
+  'Local regulations and local extension guidance prevail over this notice.',
+  'This notice is advice, not a prescription: the decision to treat, and how, stays with you.',
+] as const;

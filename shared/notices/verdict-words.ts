@@ -1,0 +1,62 @@
+// The spread verdict and its key figures in plain words, from a stored check result (the engine's own figures).
+import { formatP } from '../analysis/spread.ts';
+
+type Spread = 'clustered' | 'random' | 'regular' | 'too-few';
+
+interface StoredResult {
+  n?: number;
+  area?: { boundaryM2?: number };
+  spread?: { verdict?: Spread; alpha?: number; minSightings?: number; decidedBy?: 'monte-carlo' | 'donnelly' | null };
+  nearestNeighbour?: {
+    R: number;
+    z: number;
+    pValue: number;
+    donnelly?: { R: number; z: number; pValue: number };
+    monteCarlo?: { simulations: number; pValue: number | null };
+  } | null;
+  quadrat?: { chiSquare: number; df: number; pValue: number; varianceToMean: number | null } | null;
+  coverage?: { warnings?: string[] } | null;
+}
+
+/** A signed number with a true minus sign, as printed figures use. */
+export const signed = (value: number, digits = 2) => (value < 0 ? `−${Math.abs(value).toFixed(digits)}` : value.toFixed(digits));
+
+const reading: Record<Spread, string> = {
+  clustered: 'Clustered: sightings are closer together than chance would place them',
+  regular: 'Regular: sightings are spaced more evenly than chance would place them',
+  random: 'Random: the spacing of the sightings is what chance alone would give',
+  'too-few': 'Too few sightings to tell a pattern',
+};
+
+export interface VerdictWords {
+  spread: Spread | null;
+  headline: string;
+  figures: string[];
+}
+
+/** Headline and figure sentences for the e-mail and the notice page; null result means zones drawn without a check. */
+export function verdictInWords(result: unknown): VerdictWords {
+  const r = (result ?? null) as StoredResult | null;
+  if (!r?.spread?.verdict) {
+    return { spread: null, headline: 'No pattern check is attached: the adviser drew these zones from the field visit.', figures: [] };
+  }
+  const verdict = r.spread.verdict;
+  const nn = r.nearestNeighbour;
+  const figures: string[] = [];
+  if (typeof r.n === 'number') figures.push(`${r.n} sighting${r.n === 1 ? '' : 's'} inside the field.`);
+  if (verdict === 'too-few' || !nn) {
+    return { spread: verdict, headline: `${reading['too-few']} (a check needs at least ${r.spread.minSightings ?? 10} sightings).`, figures };
+  }
+  const monteCarlo = r.spread.decidedBy === 'monte-carlo' && nn.monteCarlo?.pValue != null;
+  const p = monteCarlo ? (nn.monteCarlo!.pValue as number) : (nn.donnelly?.pValue ?? nn.pValue);
+  const pText = monteCarlo ? `${formatP(p)} against ${nn.monteCarlo!.simulations} random patterns inside the field` : formatP(p);
+  const headline = `${reading[verdict]} (Clark–Evans R = ${nn.R.toFixed(2)}, z = ${signed(nn.z, 1)}, ${pText}).`;
+  if (nn.donnelly) figures.push(`With Donnelly’s edge correction for the field boundary, R = ${nn.donnelly.R.toFixed(2)} (z = ${signed(nn.donnelly.z, 1)}, ${formatP(nn.donnelly.pValue)}); R below 1 means closer together than chance, above 1 more evenly spaced.`);
+  if (r.quadrat && r.quadrat.df > 0) {
+    const vmr = r.quadrat.varianceToMean;
+    figures.push(`Quadrat count test: χ² = ${r.quadrat.chiSquare.toFixed(1)} on ${r.quadrat.df} degrees of freedom (${formatP(r.quadrat.pValue)})${vmr === null ? '' : `, variance-to-mean ratio ${vmr.toFixed(2)}`}.`);
+  }
+  if (typeof r.spread.alpha === 'number') figures.push(`Significance level α = ${r.spread.alpha}.`);
+  for (const warning of r.coverage?.warnings ?? []) figures.push(warning);
+  return { spread: verdict, headline, figures };
+}

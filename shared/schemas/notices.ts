@@ -1,0 +1,147 @@
+// The zone-notice API's contract: requests (zod) and the answers' types, for the adviser, grower and notice page.
+import { z } from 'zod';
+import type { FeatureCollection, MultiPolygon } from 'geojson';
+
+export const noticeStatuses = ['draft', 'sending', 'sent', 'partly-failed'] as const;
+export type NoticeStatus = (typeof noticeStatuses)[number];
+export const deliveryStatuses = ['queued', 'sending', 'sent', 'failed'] as const;
+export type DeliveryStatus = (typeof deliveryStatuses)[number];
+/** What the adviser sees per recipient: delivery first, then the grower's reading. */
+export type RecipientState = DeliveryStatus | 'opened' | 'acknowledged';
+
+const isoDate = z
+  .string({ error: 'Enter the re-scout date as YYYY-MM-DD.' })
+  .regex(/^\d{4}-\d{2}-\d{2}$/, { error: 'Enter the re-scout date as YYYY-MM-DD.' })
+  .refine((v) => new Date(`${v}T00:00:00Z`).toISOString().startsWith(v), { error: 'The re-scout date is not a real calendar date.' });
+
+export const noticeCreateSchema = z
+  .object({
+    fieldId: z.uuid({ error: 'Choose the field for this notice.' }),
+    zoneSetId: z.uuid({ error: 'Choose the accepted zones for this notice.' }),
+    checkId: z.uuid({ error: 'That check id is not valid.' }).optional(),
+    recommendation: z
+      .string({ error: 'Write the recommendation: what to do, where and when to re-scout.' })
+      .trim()
+      .min(10, 'Write the recommendation in at least a sentence: what to do, where and when to re-scout.')
+      .max(5000, 'The recommendation can have at most 5,000 characters.'),
+    rescoutOn: isoDate.optional(),
+  })
+  .strict();
+export type NoticeCreateRequest = z.output<typeof noticeCreateSchema>;
+
+export interface RecipientView {
+  id: string;
+  name: string;
+  email: string;
+  state: RecipientState;
+  delivery: DeliveryStatus;
+  attempts: number;
+  lastError: string | null;
+  smtpAcceptedAt: string | null;
+  openedAt: string | null;
+  acknowledgedAt: string | null;
+  revokedAt: string | null;
+  linkExpiresAt: string | null;
+}
+
+export interface NoticeView {
+  id: string;
+  fieldId: string;
+  fieldName: string;
+  farmId: string;
+  farmName: string;
+  pestId: string;
+  pestName: string;
+  zoneSetId: string;
+  zoneSetVersion: number;
+  checkId: string | null;
+  recommendation: string;
+  rescoutOn: string | null;
+  status: NoticeStatus;
+  createdBy: { id: string; name: string };
+  createdAt: string;
+  sentAt: string | null;
+  recipients: RecipientView[];
+}
+export interface NoticeResponse {
+  notice: NoticeView;
+}
+export interface NoticePreviewResponse {
+  subject: string;
+  html: string;
+  text: string;
+  /** The map image that the e-mail carries inline (cid:notice-map); the HTML refers to it by cid. */
+  mapPath: string;
+}
+
+export interface NoticeZoneRow {
+  label: string;
+  areaM2: number;
+  areaHa: number;
+  areaAc: number;
+  shareOfField: number;
+  sightingsInside: number;
+}
+
+/** Everything the notice page (/n/:token) and the e-mail show, built once on the server. */
+export interface NoticeContent {
+  farmName: string;
+  fieldName: string;
+  fieldAreaM2: number;
+  pestName: string;
+  /** YYYY-MM-DD, oldest first. */
+  walkDates: string[];
+  verdict: { spread: 'clustered' | 'random' | 'regular' | 'too-few' | null; headline: string; figures: string[] };
+  zones: NoticeZoneRow[];
+  totalTreatedM2: number;
+  untreatedShare: number;
+  recommendation: string;
+  rescoutOn: string | null;
+  adviserName: string;
+  organisationName: string;
+  cautions: readonly string[];
+}
+
+export interface NoticeLinkResponse {
+  notice: NoticeContent & {
+    sentAt: string | null;
+    recipientName: string;
+    acknowledgedAt: string | null;
+    /** RFC 7946 FeatureCollection; each feature's properties hold its zone-table row. */
+    zonesGeoJson: FeatureCollection<MultiPolygon, NoticeZoneRow>;
+    boundary: MultiPolygon;
+    mapPath: string;
+  };
+}
+export interface AcknowledgeResponse {
+  acknowledgedAt: string;
+  alreadyAcknowledged: boolean;
+}
+
+export interface GrowerNoticeSummary {
+  id: string;
+  farmName: string;
+  fieldName: string;
+  pestName: string;
+  sentAt: string | null;
+  status: NoticeStatus;
+  zoneCount: number;
+  totalTreatedM2: number;
+  /** This grower's own copy, when the grower is one of the farm's contacts (matched by e-mail). */
+  myCopy: { state: RecipientState; openedAt: string | null; acknowledgedAt: string | null } | null;
+}
+export interface GrowerNoticesResponse {
+  notices: GrowerNoticeSummary[];
+}
+
+export interface UnacknowledgedNotice {
+  noticeId: string;
+  fieldId: string;
+  fieldName: string;
+  farmName: string;
+  pestName: string;
+  sentAt: string;
+  daysSinceSent: number;
+  recipientsWaiting: number;
+  message: string;
+}
