@@ -1,6 +1,8 @@
 // What an admin does day to day: farms and their grower contacts, fields, scouts and growers, the pest
 // library and users, each change written to the audit log.
 import { describe, expect, it } from 'vitest';
+import { QueryTypes } from 'sequelize';
+import { sequelize } from '../../server/db.ts';
 import { signedIn } from '../helpers/http.ts';
 import { makeOrganisation } from '../helpers/org.ts';
 import { auditLog, createFarm, createField, createPest, fieldCount } from '../helpers/farm-records.ts';
@@ -201,6 +203,8 @@ describe('users: role change and deactivation', () => {
     await adviser.get('/api/farms').expect(401);
     expect((await adviser.get('/api/auth/me').expect(200)).body.user).toBeNull();
     await expect(signedIn(org.users.adviser.email)).rejects.toThrow(/401/);
+    const sessions = await sequelize.query(`SELECT sid FROM session WHERE sess->'passport'->>'user' = :id`, { replacements: { id: org.users.adviser.id }, type: QueryTypes.SELECT });
+    expect(sessions).toEqual([]);
     const listed = (await admin.get('/api/users').expect(200)).body.users.find((u: { id: string }) => u.id === org.users.adviser.id);
     expect(listed.active).toBe(false);
   });
