@@ -42,7 +42,7 @@ function regenerate(req: Request) {
   return new Promise<void>((resolve, reject) => req.session.regenerate((err) => (err ? reject(err) : resolve())));
 }
 function logIn(req: Request, actor: Actor) {
-  return new Promise<void>((resolve, reject) => req.login(actor, { keepSessionInfo: false }, (err) => (err ? reject(err) : resolve())));
+  return new Promise<void>((resolve, reject) => req.login(actor, (err) => (err ? reject(err) : resolve())));
 }
 
 authRouter.post('/sign-in', signInLimiter, async (req, res, next) => {
