@@ -1,6 +1,6 @@
 // A dense, sortable table for desk work: header buttons sort by keyboard or mouse, rows stay compact.
 import { useState } from 'react';
-import { flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type ColumnDef, type SortingState } from '@tanstack/react-table';
+import { flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type ColumnDef, type SortingState, type Table } from '@tanstack/react-table';
 
 export function TableFrame<Row>({
   caption,
@@ -26,8 +26,16 @@ export function TableFrame<Row>({
     getCoreRowModel: getCoreRowModel(),
     getSortedRowModel: getSortedRowModel(),
   });
+  return <TableGrid caption={caption} table={table} />;
+}
+
+/**
+ * The table's markup for any TanStack table instance, so a page that adds filters, pages or selection
+ * to its own `useReactTable` still renders the same dense, keyboard-sortable table.
+ */
+export function TableGrid<Row>({ caption, table, rowClassName }: { caption: string; table: Table<Row>; rowClassName?: (row: Row) => string }) {
   return (
-    <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-soil-300/60">
+    <div className="relative overflow-x-auto rounded-lg bg-white ring-1 ring-soil-300/60">
       <table className="min-w-full text-left text-sm">
         <caption className="sr-only">{caption}</caption>
         <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
@@ -56,7 +64,7 @@ export function TableFrame<Row>({
         </thead>
         <tbody className="divide-y divide-straw-200">
           {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="hover:bg-field-50/60">
+            <tr key={row.id} className={`hover:bg-field-50/60 ${rowClassName?.(row.original) ?? ''}`}>
               {row.getVisibleCells().map((cell) => (
                 <td key={cell.id} className="px-3 py-2 align-top">
                   {flexRender(cell.column.columnDef.cell, cell.getContext())}

@@ -13,7 +13,7 @@ export function MailboxPage() {
   return (
     <PageFrame title="Mailbox" eyebrow="Messages caught by the local mail server" wide actions={<Button variant="secondary" onClick={() => messages.refetch()} busy={messages.isFetching}>Check for new mail</Button>}>
       <div className="grid gap-5 lg:grid-cols-[22rem_1fr]">
-        <Panel className={openId ? 'hidden lg:block' : ''}>
+        <Panel className={openId ? 'hidden self-start lg:block' : 'self-start'}>
           {messages.isPending ? (
             <LoadingState label="Loading messages…" />
           ) : messages.isError ? (

@@ -61,6 +61,8 @@ export function FieldForm({ farmId, field, onSaved }: { farmId: string; field?: 
     const checked = field ? checkForm(fieldUpdateSchema, body) : checkForm(fieldCreateSchema, { ...body, farmId });
     const found: FieldErrors = checked.ok ? {} : checked.errors;
     if (!field && !('boundaryFile' in body) && !('boundary' in body)) found.boundary = 'Upload a boundary file or draw the boundary on the map.';
+    // The browser already found the boundary's fault: say it beside the map instead of asking the server.
+    if (preview && !preview.ok) found.boundary = preview.message;
     if (Object.keys(found).length || !checked.ok) return setErrors(found);
     setErrors({});
     const options = { onSuccess: onSaved, onError: (error: Error) => setErrors(serverFieldErrors(error)) };
@@ -110,15 +112,14 @@ export function FieldForm({ farmId, field, onSaved }: { farmId: string; field?: 
           <p className="text-sm text-soil-700">Use the polygon or rectangle tool at the map's top left; drag corners to adjust, or cut holes for ponds and yards.</p>
         )}
 
-        {preview && (preview.ok ? (
+        {preview?.ok && (
           <p className="text-sm text-field-800" role="status">
             {source === 'file' ? `${file?.name}: ` : 'Drawn boundary: '}
             <AreaText m2={preview.areaM2} />
           </p>
-        ) : (
-          <FormMessage>{preview.message}</FormMessage>
-        ))}
-        {boundaryError && <FormMessage>{boundaryError}</FormMessage>}
+        )}
+        {preview && !preview.ok && <FormMessage>{preview.message}</FormMessage>}
+        {boundaryError && boundaryError !== (preview && !preview.ok ? preview.message : '') && <FormMessage>{boundaryError}</FormMessage>}
 
         <MapFrame
           key={source}
