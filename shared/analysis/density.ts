@@ -1,6 +1,6 @@
 // Kernel density estimate of sightings per hectare on a grid clipped to the field.
 import { AnalysisInputError } from './errors.ts';
-import { isInsideField, type PlanarField } from './field-geometry.ts';
+import { distanceToBoundary, isInsideField, type PlanarField } from './field-geometry.ts';
 
 export type Kernel = 'quartic' | 'gaussian';
 
@@ -157,7 +157,8 @@ export function densitySurface(field: PlanarField, xy: Float64Array, options: De
   };
   for (let i = 0; i < n; i++) {
     let weight = 1;
-    if (edgeCorrection) {
+    // A kernel wholly inside the field keeps its full unit mass; only sightings near the edge need measuring.
+    if (edgeCorrection && distanceToBoundary(field, xy[i * 2], xy[i * 2 + 1]) < reach) {
       const mass = spread(i, 0, false);
       weight = mass > 0 ? 1 / mass : 0;
     }

@@ -10,11 +10,13 @@ const TWO_PI = 2 * Math.PI;
  * so no sorting and no point-in-polygon test is needed unless the circle crosses no edge at all.
  * Module-level scratch arrays keep the hot loop allocation-free (each worker thread has its own).
  */
-export function circleShareInside(field: PlanarField, cx: number, cy: number, r: number): number {
+export function circleShareInside(field: PlanarField, cx: number, cy: number, r: number, nearEdges?: Int32Array, nearCount = 0): number {
   const edges = field.edges;
   const r2 = r * r;
   let crossings = 0;
-  for (let k = 0, end = field.edgeCount * 4; k < end; k += 4) {
+  const total = nearEdges ? nearCount : field.edgeCount;
+  for (let e = 0; e < total; e++) {
+    const k = (nearEdges ? nearEdges[e] : e) * 4;
     const fx = edges[k] - cx;
     const fy = edges[k + 1] - cy;
     const gx = edges[k + 2] - cx;
@@ -59,6 +61,28 @@ export function circleShareInside(field: PlanarField, cx: number, cy: number, r:
   }
   if (inside < 0) inside += TWO_PI;
   return inside / TWO_PI;
+}
+
+/** Indices of the edges that come within r of (x, y), written to out; returns how many. */
+export function edgesWithin(field: PlanarField, x: number, y: number, r: number, out: Int32Array): number {
+  const edges = field.edges;
+  const r2 = r * r;
+  let count = 0;
+  for (let e = 0; e < field.edgeCount; e++) {
+    const k = e * 4;
+    const ax = edges[k];
+    const ay = edges[k + 1];
+    const dx = edges[k + 2] - ax;
+    const dy = edges[k + 3] - ay;
+    const len2 = dx * dx + dy * dy;
+    let t = len2 > 0 ? ((x - ax) * dx + (y - ay) * dy) / len2 : 0;
+    if (t < 0) t = 0;
+    else if (t > 1) t = 1;
+    const ex = ax + t * dx - x;
+    const ey = ay + t * dy - y;
+    if (ex * ex + ey * ey <= r2) out[count++] = e;
+  }
+  return count;
 }
 
 let scratchX = new Float64Array(64);

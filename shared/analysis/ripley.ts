@@ -1,5 +1,5 @@
 // Ripley's K and L functions with a polygon edge correction.
-import { circleShareInside } from './edge-correction.ts';
+import { circleShareInside, edgesWithin } from './edge-correction.ts';
 import { distanceToBoundary, type PlanarField } from './field-geometry.ts';
 
 export type RipleyCorrection = 'isotropic' | 'border';
@@ -144,14 +144,17 @@ function circleShareLookup(field: PlanarField, xy: Float64Array, toBoundary: Flo
   const stride = TABLE_NODES + 1;
   const table = new Float64Array(n * stride);
   const step = new Float64Array(n);
+  // Only edges within rMax of a point can meet its circles; finding them once serves all its radii.
+  const near = new Int32Array(field.edgeCount);
   for (let i = 0; i < n; i++) {
     const span = rMax - toBoundary[i];
     table[i * stride] = 1;
     if (span <= 0) continue;
     step[i] = Math.sqrt(span) / TABLE_NODES;
+    const nearCount = edgesWithin(field, xy[i * 2], xy[i * 2 + 1], rMax, near);
     for (let m = 1; m <= TABLE_NODES; m++) {
       const u = m * step[i];
-      table[i * stride + m] = circleShareInside(field, xy[i * 2], xy[i * 2 + 1], toBoundary[i] + u * u);
+      table[i * stride + m] = circleShareInside(field, xy[i * 2], xy[i * 2 + 1], toBoundary[i] + u * u, near, nearCount);
     }
   }
   return (i, d) => {

@@ -12,7 +12,7 @@ interface ChunkRequest {
 parentPort?.on('message', (request: ChunkRequest) => {
   try {
     const chunk = runSimulationChunk(request.plan, request.start, request.end);
-    parentPort?.postMessage({ id: request.id, chunk }, [chunk.meanNearestDistances.buffer, chunk.ripleyL.buffer]);
+    parentPort?.postMessage({ id: request.id, chunk }, [chunk.meanNearestDistances.buffer as ArrayBuffer, chunk.ripleyL.buffer as ArrayBuffer]);
   } catch (error) {
     parentPort?.postMessage({ id: request.id, error: error instanceof Error ? error.message : String(error) });
   }
