@@ -233,15 +233,20 @@ export async function sendNotice(actor: Actor, id: string) {
 
 /** Recomputes a notice's overall status from its copies: sending while any copy may still go out. */
 export async function refreshNoticeStatus(noticeId: string) {
-  const rows = await NoticeRecipient.findAll({ where: { noticeId }, attributes: ['status', 'attempts', 'revokedAt'] });
-  if (rows.length === 0) return;
-  const totalAttempts = noticeRetryPolicy.retryLimit + 1;
-  const pending = (s: DeliveryStatus, attempts: number) => s === 'queued' || s === 'sending' || (s === 'failed' && attempts < totalAttempts);
-  let status: NoticeStatus;
-  if (rows.every((r) => r.status === 'sent')) status = 'sent';
-  else if (rows.some((r) => !r.revokedAt && pending(r.status, r.attempts))) status = 'sending';
-  else status = 'partly-failed';
-  await Notice.update({ status }, { where: { id: noticeId } });
+  // The notice row is locked first, so two copies finishing at once cannot write their verdicts out of order.
+  await sequelize.transaction(async (transaction) => {
+    const locked = await Notice.findByPk(noticeId, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!locked) return;
+    const rows = await NoticeRecipient.findAll({ where: { noticeId }, attributes: ['status', 'attempts', 'revokedAt'], transaction });
+    if (rows.length === 0) return;
+    const totalAttempts = noticeRetryPolicy.retryLimit + 1;
+    const pending = (s: DeliveryStatus, attempts: number) => s === 'queued' || s === 'sending' || (s === 'failed' && attempts < totalAttempts);
+    let status: NoticeStatus;
+    if (rows.every((r) => r.status === 'sent')) status = 'sent';
+    else if (rows.some((r) => !r.revokedAt && pending(r.status, r.attempts))) status = 'sending';
+    else status = 'partly-failed';
+    if (locked.status !== status) await locked.update({ status }, { transaction });
+  });
 }
 
 /** Withdraws one copy's link; an unsent copy is not sent. */
