@@ -3,6 +3,14 @@
 // (degrees, minutes, seconds) with GPSLatitudeRef 'N'/'S' and GPSLongitudeRef 'E'/'W' carrying the sign.
 import { Jimp } from 'jimp';
 import piexif from 'piexifjs';
+import fs from 'node:fs';
+import path from 'node:path';
+import { QueryTypes } from 'sequelize';
+import { sequelize } from '../../server/db.ts';
+import { signedIn, type Client } from './http.ts';
+import { makeOrganisation, type TestOrganisation } from './org.ts';
+import { createFarm, createField, createPest } from './farm-records.ts';
+import { degreeRectangle } from './boundary-shapes.ts';
 
 // OffsetTimeOriginal (0x9011) arrived in EXIF 2.31, after piexifjs's tag table was written; add it here.
 const piexifTags = (piexif as unknown as { TAGS: Record<string, Record<number, { name: string; type: string }>> }).TAGS;
@@ -12,11 +20,13 @@ export type Rational = [number, number];
 
 /** Degrees as DMS rationals: whole degrees, whole minutes, seconds with `secondsDenominator` precision. */
 export function toDmsRationals(decimalDegrees: number, secondsDenominator = 10_000): [Rational, Rational, Rational] {
-  const abs = Math.abs(decimalDegrees);
-  const degrees = Math.floor(abs);
-  const minutesFull = (abs - degrees) * 60;
-  const minutes = Math.floor(minutesFull);
-  const seconds = Math.round((minutesFull - minutes) * 60 * secondsDenominator);
+  // Work in whole units of the smallest step so rounding carries into minutes and degrees (never 60″).
+  const steps = Math.round(Math.abs(decimalDegrees) * 3600 * secondsDenominator);
+  const perMinute = 60 * secondsDenominator;
+  const perDegree = 60 * perMinute;
+  const degrees = Math.floor(steps / perDegree);
+  const minutes = Math.floor((steps % perDegree) / perMinute);
+  const seconds = steps % perMinute;
   return [[degrees, 1], [minutes, 1], [seconds, secondsDenominator]];
 }
 
@@ -133,3 +143,68 @@ export function app1Exif(jpeg: Buffer): Buffer | null {
   }
   return null;
 }
+
+// Upload-side helpers for API tests: a field in the southern/western hemisphere with an assigned scout,
+// multipart uploads like the scout's phone makes, and counts of what the database and disk hold.
+export interface UploadPhoto {
+  bytes: Buffer;
+  name?: string;
+}
+
+/** POST /api/photos as multipart/form-data, the way the scout's screen sends it. */
+export function uploadPhotos(client: Client, photos: UploadPhoto[], fields: Record<string, string | number | undefined>) {
+  let req = client.agent.post('/api/photos').set('x-csrf-token', client.csrf);
+  for (const [key, value] of Object.entries(fields)) if (value !== undefined) req = req.field(key, String(value));
+  photos.forEach((p, i) => {
+    req = req.attach('photos', p.bytes, { filename: p.name ?? `photo-${i}.jpg`, contentType: 'image/jpeg' });
+  });
+  return req;
+}
+
+export async function rowCounts(organisationId: string) {
+  const [row] = await sequelize.query<{ photos: number; sightings: number; walks: number }>(
+    `SELECT (SELECT count(*)::int FROM photos WHERE organisation_id = :org) AS photos,
+            (SELECT count(*)::int FROM sightings WHERE organisation_id = :org) AS sightings,
+            (SELECT count(*)::int FROM walks WHERE organisation_id = :org) AS walks`,
+    { replacements: { org: organisationId }, type: QueryTypes.SELECT },
+  );
+  return row;
+}
+
+/** Every file anywhere under the upload folder (relative paths), sorted. */
+export function uploadedFiles(): string[] {
+  const root = process.env.UPLOAD_DIR ?? path.resolve('uploads');
+  if (!fs.existsSync(root)) return [];
+  return (fs.readdirSync(root, { recursive: true, withFileTypes: true }) as fs.Dirent[])
+    .filter((e) => e.isFile())
+    .map((e) => path.relative(root, path.join(e.parentPath ?? (e as unknown as { path: string }).path, e.name)))
+    .sort();
+}
+
+/** A field near (−34.6, −58.9): south of the equator and west of Greenwich, so both signs are negative. */
+export const SOUTH_WEST_ORIGIN = { lon: -58.905, lat: -34.605 } as const;
+
+export interface ScoutingSetUp {
+  org: TestOrganisation;
+  admin: Client;
+  scout: Client;
+  field: { id: string; name: string };
+  otherField: { id: string; name: string };
+  pest: { id: string; name: string };
+}
+
+/** An organisation with two fields side by side (about 900 m × 1100 m each); the scout is assigned to the first only. */
+export async function scoutingSetUp(): Promise<ScoutingSetUp> {
+  const org = await makeOrganisation('Upload');
+  const admin = await signedIn(org.users.admin.email);
+  const farm = await createFarm(admin);
+  const field = await createField(admin, farm.id, degreeRectangle(SOUTH_WEST_ORIGIN.lon, SOUTH_WEST_ORIGIN.lat, 0.01, 0.01));
+  const otherField = await createField(admin, farm.id, degreeRectangle(SOUTH_WEST_ORIGIN.lon + 0.02, SOUTH_WEST_ORIGIN.lat, 0.01, 0.01));
+  await admin.post(`/api/fields/${field.id}/scouts`, { userId: org.users.scout.id }).expect(204);
+  const pest = await createPest(admin);
+  const scout = await signedIn(org.users.scout.email);
+  return { org, admin, scout, field, otherField, pest };
+}
+
+/** A point inside the first field, as fractions of its width and height. */
+export const insideField = (fx = 0.5, fy = 0.5) => ({ lon: SOUTH_WEST_ORIGIN.lon + 0.01 * fx, lat: SOUTH_WEST_ORIGIN.lat + 0.01 * fy });
