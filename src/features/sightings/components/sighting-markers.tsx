@@ -20,10 +20,12 @@ export function SightingMarkers({ sightings }: { sightings: SightingView[] }) {
             key={s.id}
             center={[s.position.lat, s.position.lon]}
             radius={s.isEmptyStop ? 7 : markerRadius(s.count)}
+            // Leaflet reads className only when the path is made, so it goes in as an option, not a style.
+            className={s.isEmptyStop ? 'sighting-marker empty-stop' : 'sighting-marker'}
             pathOptions={
               s.isEmptyStop
-                ? { color: soil[800], weight: 3, fill: false, className: 'sighting-marker empty-stop' }
-                : { color: patch[700], weight: 2, fillColor: patch[500], fillOpacity: 0.85, className: 'sighting-marker' }
+                ? { color: soil[800], weight: 3, fill: false }
+                : { color: patch[700], weight: 2, fillColor: patch[500], fillOpacity: 0.85 }
             }
           >
             <Tooltip>{s.isEmptyStop ? `Nothing found (${s.pestName})` : `${s.pestName}: ${s.count ?? 'no count'}`}</Tooltip>

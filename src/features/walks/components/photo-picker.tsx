@@ -10,16 +10,16 @@ export function PhotoPicker({ onFiles, disabled }: { onFiles: (files: File[]) =>
     event.target.value = '';
   }
 
-  const look = buttonClass('primary', 'lg', 'w-full min-h-14 cursor-pointer text-lg');
+  const look = buttonClass('primary', 'lg', 'w-full min-h-14 cursor-pointer px-3 text-lg');
   return (
     <div className="grid grid-cols-2 gap-3">
       <label className={`${look} ${disabled ? 'pointer-events-none opacity-50' : ''}`}>
         <input type="file" accept="image/*" multiple capture="environment" className="sr-only" onChange={take} disabled={disabled} data-testid="camera-input" />
-        Take photos
+        Camera
       </label>
-      <label className={`${buttonClass('secondary', 'lg', 'w-full min-h-14 cursor-pointer text-lg')} ${disabled ? 'pointer-events-none opacity-50' : ''}`}>
+      <label className={`${buttonClass('secondary', 'lg', 'w-full min-h-14 cursor-pointer px-3 text-lg')} ${disabled ? 'pointer-events-none opacity-50' : ''}`}>
         <input type="file" accept="image/*" multiple className="sr-only" onChange={take} disabled={disabled} data-testid="gallery-input" />
-        Choose photos
+        From gallery
       </label>
     </div>
   );

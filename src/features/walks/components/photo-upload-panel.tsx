@@ -5,7 +5,15 @@ import { usePhotoUploads, type UploadTarget } from '../hooks/use-photo-uploads.t
 import { PhotoPicker } from './photo-picker.tsx';
 import { UploadList } from './upload-list.tsx';
 
-export function PhotoUploadPanel({ target, pestId, count }: { target: UploadTarget; pestId: string; count: string }) {
+const nonePinned: ReadonlySet<string> = new Set();
+
+export function PhotoUploadPanel({ target, pestId, count, pinnedIds = nonePinned }: {
+  target: UploadTarget;
+  pestId: string;
+  count: string;
+  /** Sightings of this walk that now have a position, so a "needs a pin" line can say it is done. */
+  pinnedIds?: ReadonlySet<string>;
+}) {
   const uploads = usePhotoUploads(target);
   const batch = { pestId, count };
   const ready = uploads.entries.filter((e) => e.state === 'ready').length;
@@ -17,6 +25,7 @@ export function PhotoUploadPanel({ target, pestId, count }: { target: UploadTarg
       <PhotoPicker onFiles={uploads.addFiles} />
       <UploadList
         entries={uploads.entries}
+        pinnedIds={pinnedIds}
         canRetry={(id) => uploads.hasFile(id) && !!uploads.entries.find((e) => e.clientId === id)?.error?.retryable}
         onRetry={(id) => void uploads.retry(id, batch)}
         onRemove={uploads.removeEntry}

@@ -1,8 +1,9 @@
 import type { UploadEntry } from '../hooks/upload-store.ts';
 import { UploadRow } from './upload-row.tsx';
 
-export function UploadList({ entries, canRetry, onRetry, onRemove, onCount, batchCount, linkToWalk }: {
+export function UploadList({ entries, pinnedIds, canRetry, onRetry, onRemove, onCount, batchCount, linkToWalk }: {
   entries: UploadEntry[];
+  pinnedIds: ReadonlySet<string>;
   canRetry: (clientId: string) => boolean;
   onRetry: (clientId: string) => void;
   onRemove: (clientId: string) => void;
@@ -17,6 +18,7 @@ export function UploadList({ entries, canRetry, onRetry, onRemove, onCount, batc
         <UploadRow
           key={entry.clientId}
           entry={entry}
+          pinned={!!entry.outcome?.sightingId && entry.outcome.outcome === 'needs-pin' && pinnedIds.has(entry.outcome.sightingId)}
           canRetry={canRetry(entry.clientId)}
           onRetry={() => onRetry(entry.clientId)}
           onRemove={() => onRemove(entry.clientId)}

@@ -14,7 +14,8 @@ const tone = {
   neutral: 'border-soil-300 bg-white text-soil-900',
 };
 
-function headline(outcome: PhotoOutcome) {
+function headline(outcome: PhotoOutcome, pinned: boolean) {
+  if (pinned) return { text: `Pinned by hand in ${outcome.fieldName ?? 'the field'}`, look: tone.good };
   switch (outcome.outcome) {
     case 'placed':
       return { text: `Placed in ${outcome.fieldName ?? 'the field'}`, look: tone.good };
@@ -29,8 +30,10 @@ function headline(outcome: PhotoOutcome) {
   }
 }
 
-export function UploadRow({ entry, canRetry, onRetry, onRemove, onCount, batchCount, linkToWalk }: {
+export function UploadRow({ entry, pinned, canRetry, onRetry, onRemove, onCount, batchCount, linkToWalk }: {
   entry: UploadEntry;
+  /** A needs-a-pin photo that has been pinned since it was sent. */
+  pinned: boolean;
   canRetry: boolean;
   onRetry: () => void;
   onRemove: () => void;
@@ -40,7 +43,7 @@ export function UploadRow({ entry, canRetry, onRetry, onRemove, onCount, batchCo
   linkToWalk: boolean;
 }) {
   const { outcome, error } = entry;
-  const shown = outcome ? headline(outcome) : error ? { text: 'Not sent', look: tone.bad } : { text: entry.state === 'sending' ? 'Sending…' : 'Ready to send', look: tone.neutral };
+  const shown = outcome ? headline(outcome, pinned) : error ? { text: 'Not sent', look: tone.bad } : { text: entry.state === 'sending' ? 'Sending…' : 'Ready to send', look: tone.neutral };
   return (
     <li className={`rounded-lg border-l-8 p-3 shadow-sm ring-1 ring-soil-300/60 ${shown.look}`} data-upload-state={entry.state} data-outcome={outcome?.outcome ?? ''}>
       <div className="flex items-start justify-between gap-2">
@@ -55,7 +58,7 @@ export function UploadRow({ entry, canRetry, onRetry, onRemove, onCount, batchCo
         )}
       </div>
 
-      {(entry.state === 'sending' || entry.state === 'ready') && (
+      {entry.state === 'sending' && (
         <progress className="mt-2 h-3 w-full overflow-hidden rounded-full accent-field-700" max={1} value={entry.progress} aria-label={`Upload of ${entry.fileName}`} />
       )}
 
@@ -75,7 +78,7 @@ export function UploadRow({ entry, canRetry, onRetry, onRemove, onCount, batchCo
         </label>
       )}
 
-      {outcome && outcome.outcome !== 'placed' && <p className="mt-1 text-sm">{outcome.message}</p>}
+      {outcome && outcome.outcome !== 'placed' && !pinned && <p className="mt-1 text-sm">{outcome.message}</p>}
       {outcome?.outcome === 'outside' && outcome.nearestField && (
         <p className="mt-1 text-sm font-medium">
           Nearest field: {outcome.nearestField.name}, {metres.format(outcome.nearestField.distanceM)} m away.
@@ -84,7 +87,7 @@ export function UploadRow({ entry, canRetry, onRetry, onRemove, onCount, batchCo
       {error && <p className="mt-1 text-sm font-medium">{error.message}</p>}
 
       <div className="mt-2 flex flex-wrap gap-2 empty:hidden">
-        {outcome?.outcome === 'needs-pin' && outcome.walkId && outcome.sightingId && (
+        {outcome?.outcome === 'needs-pin' && !pinned && outcome.walkId && outcome.sightingId && (
           <Link to={scoutPaths.pin(outcome.walkId, outcome.sightingId)} className={buttonClass('primary', 'lg')}>
             Pin it on the map
           </Link>

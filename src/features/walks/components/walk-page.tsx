@@ -30,6 +30,7 @@ export function WalkPage() {
   const pestList = pests.data ?? [];
   const pest = pestList.find((p) => p.id === tags.pestId);
   const needsPin = sightings.filter((s) => s.status === 'needs-pin');
+  const placedIds = new Set(sightings.filter((s) => s.status === 'placed').map((s) => s.id));
 
   return (
     <PageFrame title={info.fieldName} eyebrow={`Walk · ${walkDate(info.walkedOn)}`}>
@@ -42,7 +43,7 @@ export function WalkPage() {
           {pests.isError ? <ErrorState error={pests.error} title="The pest library could not be loaded" onRetry={() => pests.refetch()} /> : (
             <PestCountPicker pests={pestList} pestId={pest ? tags.pestId : ''} count={tags.count} onPest={tags.setPestId} onCount={tags.setCount} />
           )}
-          <PhotoUploadPanel target={{ walkId: info.id, fieldId: info.fieldId }} pestId={pest ? tags.pestId : ''} count={tags.count} />
+          <PhotoUploadPanel target={{ walkId: info.id, fieldId: info.fieldId }} pestId={pest ? tags.pestId : ''} count={tags.count} pinnedIds={placedIds} />
           <EmptyStopButton walkId={info.id} pestId={pest ? tags.pestId : ''} pestName={pest?.name} />
         </div>
       </Panel>
