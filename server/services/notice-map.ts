@@ -72,7 +72,7 @@ ${sightings.join('\n')}
 <circle cx="${PAD + 150}" cy="${legendY - 3}" r="4" fill="${colours.sighting}"/><text x="${PAD + 160}" y="${legendY + 2}">Sighting</text>
 <rect x="${PAD + 240}" y="${legendY - 10}" width="14" height="14" fill="${colours.field}" stroke="${colours.fieldEdge}" stroke-width="2"/><text x="${PAD + 260}" y="${legendY + 2}">Field boundary</text>
 <line x1="${WIDTH - PAD - barPx}" y1="${legendY}" x2="${WIDTH - PAD}" y2="${legendY}" stroke="${colours.text}" stroke-width="3"/><text x="${WIDTH - PAD - barPx / 2}" y="${legendY - 8}" text-anchor="middle">${barM >= 1000 ? `${barM / 1000} km` : `${barM} m`}</text>
-<text x="${WIDTH - PAD}" y="${legendY + 18}" text-anchor="end" font-size="11">North is up</text>
+<text x="${WIDTH - PAD}" y="${legendY + 18}" text-anchor="end" font-size="11">Grid north up (UTM)</text>
 </g>
 </svg>`;
 }

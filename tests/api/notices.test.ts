@@ -4,7 +4,7 @@
 import net from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { simpleParser, type ParsedMail } from 'mailparser';
+import { simpleParser, type Attachment, type ParsedMail } from 'mailparser';
 import { Jimp } from 'jimp';
 import { area as turfArea } from '@turf/turf';
 import { QueryTypes } from 'sequelize';
@@ -164,7 +164,7 @@ describe('zone notice e-mail', () => {
   });
 
   it('attaches the zones as RFC 7946 GeoJSON whose areas match the stored ones', async () => {
-    const attachment = delivered.messages[0].mail[0].attachments.find((a) => a.filename === 'zones.geojson');
+    const attachment = delivered.messages[0].mail[0].attachments.find((a: Attachment) => a.filename === 'zones.geojson');
     expect(attachment).toBeDefined();
     const collection = JSON.parse(attachment!.content.toString('utf8'));
     expect(collection.type).toBe('FeatureCollection');
@@ -188,7 +188,7 @@ describe('zone notice e-mail', () => {
 
   it('carries an inline map PNG that decodes and shows the field, its zones and the boundary', async () => {
     const mail = delivered.messages[0].mail[0];
-    const map = mail.attachments.find((a) => a.contentType === 'image/png');
+    const map = mail.attachments.find((a: Attachment) => a.contentType === 'image/png');
     expect(map?.cid).toBeTruthy();
     expect(mail.html).toContain(`src="cid:${map!.cid}"`);
     const image = await Jimp.read(map!.content);
