@@ -186,4 +186,43 @@ describe('scout on a phone', () => {
       await context.close();
     }
   });
+
+  it('records an empty stop at the phone’s position, and says plainly when location is refused', async () => {
+    const admin = await signedIn(org.users.admin.email);
+    const farm = await createFarm(admin);
+    const meadow = await createField(admin, farm.id, boundary, { name: 'Creek Meadow' });
+    await admin.post(`/api/fields/${meadow.id}/scouts`, { userId: org.users.scout.id }).expect(204);
+
+    const context = await phone();
+    try {
+      const page = await signInAsScout(context);
+      await page.goto(`${baseUrl}/scout/fields/${meadow.id}`);
+      await page.getByRole('button', { name: 'Start a walk for today' }).tap();
+      await page.waitForURL(/\/scout\/walks\/[0-9a-f-]{36}$/);
+      const walkId = page.url().split('/').at(-1)!;
+      await page.getByLabel('Pest').selectOption(pest.id);
+
+      // No permission granted yet: the browser refuses, and the scout is told what to do.
+      await page.getByRole('button', { name: 'Nothing found here' }).tap();
+      await expect.poll(() => page.getByText('Allow location for this site').count(), settle).toBe(1);
+
+      await context.grantPermissions(['geolocation'], { origin: baseUrl });
+      await context.setGeolocation({ longitude: insideB.lon, latitude: insideB.lat, accuracy: 6 });
+      await page.getByRole('button', { name: 'Nothing found here' }).tap();
+      await expect.poll(() => page.getByText(/Stop recorded: .* within ±6 m/).count(), settle).toBe(1);
+      const walkMap = page.getByRole('region', { name: /with this walk’s sightings/ });
+      await expect.poll(() => walkMap.locator('path.sighting-marker.empty-stop').count(), settle).toBe(1);
+      await shot(page, '7-stop');
+
+      const scout = await signedIn(org.users.scout.email);
+      const detail = (await scout.get(`/api/walks/${walkId}`).expect(200)).body as { sightings: Array<{ isEmptyStop: boolean; count: number | null; positionSource: string; accuracyM: number | null; position: { lon: number; lat: number } }> };
+      expect(detail.sightings).toHaveLength(1);
+      const [stop] = detail.sightings;
+      expect(stop).toMatchObject({ isEmptyStop: true, count: 0, positionSource: 'device', accuracyM: 6 });
+      expect(stop.position.lon).toBeCloseTo(insideB.lon, 9);
+      expect(stop.position.lat).toBeCloseTo(insideB.lat, 9);
+    } finally {
+      await context.close();
+    }
+  });
 });

@@ -13,7 +13,7 @@ export function UploadList({ entries, pinnedIds, canRetry, onRetry, onRemove, on
 }) {
   if (!entries.length) return null;
   return (
-    <ul className="space-y-2" aria-label="Photos in this batch">
+    <ul className="space-y-2" aria-label="Photos in this batch" aria-live="polite">
       {entries.map((entry) => (
         <UploadRow
           key={entry.clientId}

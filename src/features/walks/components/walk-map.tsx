@@ -3,12 +3,14 @@ import type { SightingView } from '@shared/schemas/sightings.ts';
 import type { Field } from '../../../types/api.ts';
 import { MapFrame } from '../../../components/map-frame.tsx';
 import { SightingMarkers } from '../../sightings/components/sighting-markers.tsx';
+import { WalkRouteLine } from '../../sightings/components/walk-route-line.tsx';
 
 export function WalkMap({ field, sightings }: { field: Field; sightings: SightingView[] }) {
   const placed = sightings.filter((s) => s.position);
   return (
     <div className="space-y-2">
       <MapFrame boundaries={[{ id: field.id, geometry: field.boundary, label: field.name }]} label={`Map of ${field.name} with this walk’s sightings`} className="h-80">
+        <WalkRouteLine sightings={placed} />
         <SightingMarkers sightings={placed} />
       </MapFrame>
       <p className="flex flex-wrap items-center gap-x-4 gap-y-1 text-sm text-soil-700">
@@ -17,6 +19,9 @@ export function WalkMap({ field, sightings }: { field: Field; sightings: Sightin
         </span>
         <span className="inline-flex items-center gap-1.5">
           <span aria-hidden="true" className="inline-block h-3.5 w-3.5 rounded-full ring-[3px] ring-soil-800" /> nothing found
+        </span>
+        <span className="inline-flex items-center gap-1.5">
+          <span aria-hidden="true" className="inline-block w-5 border-t-2 border-dashed border-soil-700" /> route, in the order recorded
         </span>
         <span>{placed.length} on the map</span>
       </p>
