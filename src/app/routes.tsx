@@ -19,7 +19,7 @@ export const homes: Record<Role, { nav: string; Page: ComponentType }> = {
   admin: { nav: 'Overview', Page: lazyPage(() => import('./routes/admin-home.tsx'), 'AdminHome') },
   adviser: { nav: 'Fields', Page: lazyPage(() => import('../features/fields/components/fields-home.tsx'), 'AdviserFieldsHome') },
   scout: { nav: 'My fields', Page: lazyPage(() => import('../features/fields/components/fields-home.tsx'), 'ScoutFieldsHome') },
-  grower: { nav: 'My farms', Page: lazyPage(() => import('../features/fields/components/my-farms-page.tsx'), 'MyFarmsPage') },
+  grower: { nav: 'My farms', Page: lazyPage(() => import('../features/grower/components/grower-home.tsx'), 'GrowerHome') },
 };
 
 export const appRoutes: AppRoute[] = [
@@ -44,6 +44,11 @@ export const appRoutes: AppRoute[] = [
   { path: 'scout/fields/:fieldId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/field-walks-page.tsx'), 'FieldWalksPage') },
   { path: 'scout/walks/:walkId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/walk-page.tsx'), 'WalkPage') },
   { path: 'scout/walks/:walkId/pin/:sightingId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/pin-photo-page.tsx'), 'PinPhotoPage') },
+
+  // --- Treatment zones and zone notices (advisers and admins) ---
+  { path: 'fields/:fieldId/zones', roles: ['admin', 'adviser'], Page: lazyPage(() => import('../features/zones/components/zone-editor-page.tsx'), 'ZoneEditorPage') },
+  { path: 'fields/:fieldId/notices/new', roles: ['admin', 'adviser'], Page: lazyPage(() => import('../features/notices/components/compose-notice-page.tsx'), 'ComposeNoticePage') },
+  { path: 'notices/:noticeId', roles: ['admin', 'adviser'], Page: lazyPage(() => import('../features/notices/components/notice-page.tsx'), 'NoticePage') },
 
   // --- Grower ---
 ];

@@ -1,0 +1,17 @@
+// Queues one copy per grower contact (or the copies that failed, on a re-send).
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client.ts';
+import type { NoticeResponse } from '@shared/schemas/notices.ts';
+
+export const sendNotice = (id: string) => api<NoticeResponse>(`/api/notices/${id}/send`, { method: 'POST' }).then((r) => r.notice);
+
+export function useSendNotice() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: sendNotice,
+    onSuccess: (notice) => {
+      queryClient.setQueryData(['notices', 'detail', notice.id], notice);
+      return queryClient.invalidateQueries({ queryKey: ['notices', 'list'] });
+    },
+  });
+}

@@ -1,0 +1,33 @@
+// The notice page's map: the field boundary and the zones as vector layers (useful with no tiles). On paper the
+// server's own map image stands in, since a live map prints unreliably.
+import { GeoJSON, Tooltip } from 'react-leaflet';
+import type { MultiPolygon } from 'geojson';
+import { MapFrame } from '../../../components/map-frame.tsx';
+import type { LinkedNotice } from '../api/get-notice-link.ts';
+
+const zoneStyle = { color: '#9a3f14', weight: 2, fillColor: '#f08a4b', fillOpacity: 0.45 };
+
+export function NoticeLinkMap({ notice, boundary }: { notice: LinkedNotice; boundary: MultiPolygon }) {
+  return (
+    <figure>
+      <div className="print:hidden">
+        <MapFrame boundaries={[{ id: 'field', geometry: boundary, label: notice.fieldName }]} label={`Map of ${notice.fieldName} with the treatment zones`} className="h-80 sm:h-[26rem]">
+          {notice.zonesGeoJson.features.map((zone) => (
+            <GeoJSON key={zone.properties.label} data={zone} style={zoneStyle}>
+              <Tooltip sticky>{zone.properties.label}</Tooltip>
+            </GeoJSON>
+          ))}
+        </MapFrame>
+      </div>
+      <img src={notice.mapPath} alt={`Map of ${notice.fieldName} with the treatment zones and sightings`} className="hidden w-full max-w-xl border border-soil-300 print:block" />
+      <figcaption className="mt-2 flex flex-wrap items-center gap-x-4 gap-y-1 text-sm text-soil-700">
+        <span className="inline-flex items-center gap-1.5">
+          <span aria-hidden="true" className="inline-block h-3 w-5 rounded-sm border-2 border-field-700 bg-field-300/40" /> Field boundary
+        </span>
+        <span className="inline-flex items-center gap-1.5">
+          <span aria-hidden="true" className="inline-block h-3 w-5 rounded-sm border-2 border-patch-700 bg-patch-400/60" /> Treatment zone
+        </span>
+      </figcaption>
+    </figure>
+  );
+}

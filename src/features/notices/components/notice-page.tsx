@@ -1,0 +1,75 @@
+// The adviser's view of one notice: a draft previews and sends; a sent notice shows each copy's status,
+// refreshing by itself while any copy is still on its way.
+import { Link, useParams } from 'react-router';
+import { PageFrame, Panel } from '../../../components/page-frame.tsx';
+import { Button } from '../../../components/button.tsx';
+import { FormMessage } from '../../../components/form-field.tsx';
+import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
+import { errorMessage } from '../../../lib/form-errors.ts';
+import { isStillSending, useNotice } from '../api/get-notice.ts';
+import { useSendNotice } from '../api/send-notice.ts';
+import { NoticePreview } from './notice-preview.tsx';
+import { RecipientsTable } from './recipients-table.tsx';
+
+const statusWords = { draft: 'Draft, not sent', sending: 'Sending', sent: 'Sent to every contact', 'partly-failed': 'Some copies failed' } as const;
+
+export function NoticePage() {
+  const { noticeId = '' } = useParams();
+  const notice = useNotice(noticeId);
+  const send = useSendNotice();
+  if (notice.isPending) return <PageFrame title="Zone notice"><LoadingState label="Loading the notice…" /></PageFrame>;
+  if (notice.isError) return <PageFrame title="Zone notice"><ErrorState error={notice.error} onRetry={() => notice.refetch()} /></PageFrame>;
+  const n = notice.data;
+  const failed = n.recipients.filter((r) => r.delivery === 'failed' && !r.revokedAt);
+
+  return (
+    <PageFrame
+      title={`Zone notice · ${n.fieldName}`}
+      eyebrow={
+        <>
+          {n.farmName} · <Link className="hover:underline" to={`/fields/${n.fieldId}/zones${n.checkId ? `?checkId=${n.checkId}` : ''}`}>{n.pestName}, zones version {n.zoneSetVersion}</Link>
+        </>
+      }
+      wide
+    >
+      <Panel title="Status" actions={<span className="rounded-full bg-straw-100 px-3 py-1 text-sm font-medium text-soil-800" data-testid="notice-status">{statusWords[n.status]}</span>}>
+        {n.status === 'draft' ? (
+          <div className="space-y-3">
+            <p className="text-sm text-soil-700">Check the preview below, then send one e-mail to each grower contact of {n.farmName}. Each copy carries its own link to the notice page.</p>
+            <Button onClick={() => send.mutate(n.id)} busy={send.isPending}>Send the notice</Button>
+          </div>
+        ) : (
+          <div className="space-y-3">
+            <p className="text-sm text-soil-700">
+              Sent {n.sentAt ? new Date(n.sentAt).toLocaleString() : ''} by {n.createdBy.name}.
+              {isStillSending(n) && <span role="status"> Copies are still going out; this page updates by itself.</span>}
+            </p>
+            <RecipientsTable notice={n} />
+            {failed.length > 0 && n.status === 'partly-failed' && (
+              <Button variant="secondary" onClick={() => send.mutate(n.id)} busy={send.isPending}>
+                Send the {failed.length} failed cop{failed.length === 1 ? 'y' : 'ies'} again
+              </Button>
+            )}
+          </div>
+        )}
+        {send.isError && <div className="mt-3"><FormMessage>{errorMessage(send.error)}</FormMessage></div>}
+      </Panel>
+
+      <Panel title="Recommendation">
+        <p className="whitespace-pre-wrap text-soil-900">{n.recommendation}</p>
+        {n.rescoutOn && <p className="mt-2 text-sm text-soil-700">Re-scout on {new Date(`${n.rescoutOn}T12:00:00`).toLocaleDateString(undefined, { dateStyle: 'long' })}.</p>}
+      </Panel>
+
+      {n.status === 'draft' ? (
+        <Panel title="Preview">
+          <NoticePreview noticeId={n.id} />
+        </Panel>
+      ) : (
+        <details className="rounded-lg bg-white p-4 shadow-sm ring-1 ring-soil-300/60">
+          <summary className="cursor-pointer font-semibold text-field-900">The e-mail as sent</summary>
+          <div className="mt-3"><NoticePreview noticeId={n.id} /></div>
+        </details>
+      )}
+    </PageFrame>
+  );
+}

@@ -1,0 +1,13 @@
+// A field's accepted zone versions, newest first as the server lists them.
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client.ts';
+import type { ZoneSetListResponse } from '@shared/schemas/zones.ts';
+
+export type ZoneSetSummary = ZoneSetListResponse['zoneSets'][number];
+
+export const getZoneSets = (fieldId: string) => api<ZoneSetListResponse>(`/api/fields/${fieldId}/zone-sets`).then((r) => r.zoneSets);
+export const zoneSetsQueryOptions = (fieldId: string) => queryOptions({ queryKey: ['zone-sets', 'list', fieldId], queryFn: () => getZoneSets(fieldId) });
+export const useZoneSets = (fieldId: string) => useQuery(zoneSetsQueryOptions(fieldId));
+
+/** Where a version downloads as a file (the server names it). */
+export const zoneSetExportUrl = (zoneSetId: string, format: 'geojson' | 'kml') => `/api/zone-sets/${zoneSetId}/export.${format}`;

@@ -1,0 +1,185 @@
+// The adviser's zone editor: the engine's proposal from a check, tuned by threshold and margin, edited or
+// drawn by hand on the map, then accepted as the field's next stored version.
+import { useCallback, useEffect, useMemo, useState } from 'react';
+import { Link, useParams, useSearchParams } from 'react-router';
+import { CircleMarker } from 'react-leaflet';
+import type { ZoneProposalRequest } from '@shared/schemas/zones.ts';
+import { PageFrame, Panel } from '../../../components/page-frame.tsx';
+import { MapFrame } from '../../../components/map-frame.tsx';
+import { AreaText } from '../../../components/area-text.tsx';
+import { Button, ButtonLink } from '../../../components/button.tsx';
+import { FormMessage, SelectField } from '../../../components/form-field.tsx';
+import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
+import { errorMessage } from '../../../lib/form-errors.ts';
+import { useZoneField } from '../api/get-zone-field.ts';
+import { useZoneCheck } from '../api/get-zone-check.ts';
+import { useZonePests } from '../api/get-zone-pests.ts';
+import { useZoneSightings } from '../api/get-zone-sightings.ts';
+import { useZoneProposal } from '../api/propose-zones.ts';
+import { useCreateZoneSet } from '../api/create-zone-set.ts';
+import { ProposalControls } from './proposal-controls.tsx';
+import { ZoneEditLayer, type ZoneEditHandlers } from './zone-edit-layer.tsx';
+import { ZoneTable } from './zone-table.tsx';
+import { ZoneVersionsPanel } from './zone-versions-panel.tsx';
+import { newZoneKey, nextZoneLabel, treatedAreaM2, zoneFigures, zonesForAcceptance, zonesFromProposal, type SightingPoint, type WorkingZone } from './working-zones.ts';
+
+const percent = new Intl.NumberFormat('en', { style: 'percent', maximumFractionDigits: 1 });
+
+export function ZoneEditorPage() {
+  const { fieldId = '' } = useParams();
+  const [search] = useSearchParams();
+  const checkId = search.get('checkId');
+  const field = useZoneField(fieldId);
+  const check = useZoneCheck(checkId);
+  const pests = useZonePests();
+  const [chosenPestId, setChosenPestId] = useState('');
+  const pestId = check.data?.pestId ?? (checkId ? null : chosenPestId || null);
+  const pest = pests.data?.find((p) => p.id === pestId) ?? null;
+  const sightings = useZoneSightings(fieldId, pestId);
+
+  const [request, setRequest] = useState<ZoneProposalRequest>({ source: 'density' });
+  const onRequest = useCallback((next: ZoneProposalRequest) => setRequest(next), []);
+  const checkDone = check.data?.status === 'done';
+  const proposal = useZoneProposal(checkDone ? checkId : null, request);
+
+  const [zones, setZones] = useState<WorkingZone[]>([]);
+  const [revision, setRevision] = useState(0);
+  const replaceZones = useCallback((next: WorkingZone[]) => {
+    setZones(next);
+    setRevision((r) => r + 1);
+  }, []);
+  // Each new proposal starts the editing again from the engine's zones.
+  useEffect(() => {
+    if (proposal.data && !proposal.isPlaceholderData) replaceZones(zonesFromProposal(proposal.data));
+  }, [proposal.data, proposal.isPlaceholderData, replaceZones]);
+
+  const handlers = useMemo<ZoneEditHandlers>(
+    () => ({
+      onReshape: (key, geometry) => setZones((all) => all.map((z) => (z.key === key ? { ...z, geometry, origin: z.origin === 'drawn' ? 'drawn' : 'edited', proposed: undefined } : z))),
+      onRemove: (key) => setZones((all) => all.filter((z) => z.key !== key)),
+      onDraw: (geometry) =>
+        setZones((all) => {
+          setRevision((r) => r + 1);
+          return [...all, { key: newZoneKey(), label: nextZoneLabel(all), geometry, origin: 'drawn' }];
+        }),
+    }),
+    [],
+  );
+
+  // Sightings where the pest was found: those of the check, or all on the field for zones drawn without one.
+  const points = useMemo<SightingPoint[]>(() => {
+    const inCheck = check.data ? new Set(check.data.sightingIds) : null;
+    return (sightings.data ?? [])
+      .filter((s) => s.position && s.count !== 0 && (!inCheck || inCheck.has(s.id)))
+      .map((s) => [s.position!.lon, s.position!.lat]);
+  }, [sightings.data, check.data]);
+
+  const accept = useCreateZoneSet();
+  const fieldAreaM2 = field.data?.areaM2 ?? 0;
+  const rows = zones.map((zone) => ({ zone, figures: zoneFigures(zone, fieldAreaM2, points) }));
+  const treated = treatedAreaM2(zones, rows.map((r) => r.figures));
+
+  if (field.isPending || (checkId && check.isPending)) return <PageFrame title="Treatment zones"><LoadingState label="Loading the field and its check…" /></PageFrame>;
+  if (field.isError) return <PageFrame title="Treatment zones"><ErrorState error={field.error} onRetry={() => field.refetch()} /></PageFrame>;
+  if (check.isError) return <PageFrame title="Treatment zones"><ErrorState error={check.error} onRetry={() => check.refetch()} /></PageFrame>;
+
+  const f = field.data;
+  const onAccept = () => {
+    if (!pestId) return;
+    accept.mutate({ fieldId, pestId, ...(checkId ? { checkId } : {}), zones: zonesForAcceptance(zones) });
+  };
+
+  return (
+    <PageFrame
+      title={`Treatment zones · ${f.name}`}
+      eyebrow={
+        <>
+          <Link to={`/fields/${f.id}`} className="hover:underline">{f.farmName} · {f.name}</Link>
+          {pest && <> · {pest.name}</>}
+        </>
+      }
+      wide
+    >
+      <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_24rem]">
+        <div className="space-y-3">
+          <MapFrame boundaries={[{ id: f.id, geometry: f.boundary, label: f.name }]} label={`Treatment zones on ${f.name}`} className="h-[26rem] sm:h-[34rem]">
+            {points.map(([lon, lat], i) => (
+              <CircleMarker key={i} center={[lat, lon]} radius={3.5} pmIgnore interactive={false} pathOptions={{ color: '#241e19', weight: 1, fillColor: '#352d25', fillOpacity: 0.9 }} />
+            ))}
+            <ZoneEditLayer zones={zones} revision={revision} handlers={handlers} />
+          </MapFrame>
+          <p className="text-sm text-soil-600">
+            Use the tools on the map: draw a polygon or rectangle for a zone by hand, switch on vertex editing to move a zone’s corners, drag a zone, or remove one. Dots are sightings where the pest was found.
+          </p>
+        </div>
+
+        <div className="space-y-5">
+          {checkId ? (
+            <Panel title="Proposal from the check">
+              {check.data?.status !== 'done' ? (
+                <FormMessage>This check has not finished ({check.data?.status}); zones can be proposed once its result is in.</FormMessage>
+              ) : (
+                <div className="space-y-3">
+                  <ProposalControls proposal={proposal.data} countUnit={pest?.countUnit ?? null} onChange={onRequest} />
+                  {proposal.isFetching && <p role="status" className="text-sm text-soil-600">Updating the proposal…</p>}
+                  {proposal.isError && <FormMessage>{errorMessage(proposal.error)}</FormMessage>}
+                  {proposal.data && <p className="text-sm text-soil-700">{proposal.data.note} Changing these starts again from the new proposal.</p>}
+                </div>
+              )}
+            </Panel>
+          ) : (
+            <Panel title="Zones drawn by hand">
+              <SelectField label="Pest" value={chosenPestId} onChange={(e) => setChosenPestId(e.target.value)} hint="The pest these zones are for.">
+                <option value="">Choose a pest…</option>
+                {(pests.data ?? []).filter((p) => p.active).map((p) => (
+                  <option key={p.id} value={p.id}>{p.name}</option>
+                ))}
+              </SelectField>
+            </Panel>
+          )}
+
+          <Panel title="Treated area">
+            <dl className="grid grid-cols-2 gap-3 text-sm">
+              <div>
+                <dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Total treated</dt>
+                <dd className="mt-0.5 text-base text-soil-900" data-testid="total-treated"><AreaText m2={treated} /></dd>
+              </div>
+              <div>
+                <dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Left untreated</dt>
+                <dd className="mt-0.5 text-base text-soil-900">{fieldAreaM2 > 0 ? percent.format(Math.max(0, 1 - treated / fieldAreaM2)) : '—'} of the field</dd>
+              </div>
+            </dl>
+            {rows.some((r) => !r.figures.fromEngine) && <p className="mt-2 text-xs text-patch-700">Edited and hand-drawn zones are measured in the browser; the stored version is measured again on the server when you accept.</p>}
+            <div className="mt-4 space-y-2">
+              <Button onClick={onAccept} busy={accept.isPending} disabled={zones.length === 0 || !pestId}>
+                Accept zones
+              </Button>
+              {accept.isError && <FormMessage>{errorMessage(accept.error)}</FormMessage>}
+              {accept.isSuccess && (
+                <FormMessage tone="success">
+                  Stored as version {accept.data.zoneSet.version} ({accept.data.zoneSet.zones.length} zone{accept.data.zoneSet.zones.length === 1 ? '' : 's'}, <AreaText m2={accept.data.zoneSet.totalTreatedM2} /> treated).
+                  {accept.data.adjustments?.map((a) => <span key={a} className="block">{a}</span>)}
+                </FormMessage>
+              )}
+              {accept.isSuccess && (
+                <ButtonLink to={`/fields/${fieldId}/notices/new?zoneSetId=${accept.data.zoneSet.id}${checkId ? `&checkId=${checkId}` : ''}`}>Write the notice</ButtonLink>
+              )}
+            </div>
+          </Panel>
+        </div>
+      </div>
+
+      <Panel title="Zones">
+        {zones.length === 0 ? (
+          <EmptyState title="No zones yet">
+            {checkId ? 'Nothing in this field is above the threshold; lower it, or draw a zone by hand on the map.' : 'Choose the pest, then draw a zone on the map.'}
+          </EmptyState>
+        ) : (
+          <ZoneTable rows={rows} onDelete={(key) => replaceZones(zones.filter((z) => z.key !== key))} />
+        )}
+      </Panel>
+
+      <ZoneVersionsPanel fieldId={fieldId} pestId={pestId} />
+    </PageFrame>
+  );
+}
