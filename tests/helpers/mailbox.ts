@@ -27,3 +27,10 @@ export function linkToken(message: ParsedMail): string {
   if (!match) throw new Error('no token link in the message');
   return match[1];
 }
+
+/** The token of a zone notice link (`/n/<recipient id>.<random>`). */
+export function noticeLinkToken(message: ParsedMail): string {
+  const match = /\/n\/([0-9a-f-]{36}\.[A-Za-z0-9_-]{43})/.exec(message.text ?? '');
+  if (!match) throw new Error('no notice link in the message');
+  return match[1];
+}
