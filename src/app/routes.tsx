@@ -17,7 +17,7 @@ const everyone: readonly Role[] = ['admin', 'adviser', 'scout', 'grower'];
 // --- Each role's home page, at "/" ---
 export const homes: Record<Role, { nav: string; Page: ComponentType }> = {
   admin: { nav: 'Overview', Page: lazyPage(() => import('./routes/admin-home.tsx'), 'AdminHome') },
-  adviser: { nav: 'Fields', Page: lazyPage(() => import('../features/fields/components/fields-home.tsx'), 'AdviserFieldsHome') },
+  adviser: { nav: 'Attention', Page: lazyPage(() => import('../features/advisers/components/adviser-home.tsx'), 'AdviserHome') },
   scout: { nav: 'My fields', Page: lazyPage(() => import('../features/fields/components/fields-home.tsx'), 'ScoutFieldsHome') },
   grower: { nav: 'My farms', Page: lazyPage(() => import('../features/grower/components/grower-home.tsx'), 'GrowerHome') },
 };
@@ -36,7 +36,9 @@ export const appRoutes: AppRoute[] = [
   { path: 'admin/mailbox', roles: ['admin'], nav: 'Mailbox', Page: lazyPage(() => import('../features/admin/components/mailbox-page.tsx'), 'MailboxPage') },
   { path: 'admin/mailbox/:messageId', roles: ['admin'], Page: lazyPage(() => import('../features/admin/components/mailbox-page.tsx'), 'MailboxPage') },
 
-  // --- Adviser ---
+  // --- Adviser (admins may open these too) ---
+  { path: 'fields', roles: ['adviser'], nav: 'Fields', Page: lazyPage(() => import('../features/fields/components/fields-home.tsx'), 'AdviserFieldsHome') },
+  { path: 'fields/:fieldId/review', roles: ['adviser', 'admin'], Page: lazyPage(() => import('../features/checks/components/field-review-page.tsx'), 'FieldReviewPage') },
 
   // --- Scout ---
   { path: 'scout', roles: ['scout'], nav: 'Walk a field', Page: lazyPage(() => import('../features/walks/components/my-fields-page.tsx'), 'MyFieldsPage') },

@@ -1,0 +1,95 @@
+// The adviser's home: what needs attention now — clustered pests above their threshold, sightings not yet
+// checked, notices the grower has not acknowledged — each with a link straight to the field's review.
+import type { ReactNode } from 'react';
+import { Link } from 'react-router';
+import type { AttentionField } from '@shared/schemas/checks.ts';
+import { PageFrame, Panel } from '../../../components/page-frame.tsx';
+import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
+import { useAttention } from '../api/get-attention.ts';
+
+const reviewLink = (a: { fieldId: string; pestId?: string; checkId?: string | null }) => {
+  const search = new URLSearchParams();
+  if (a.pestId) search.set('pest', a.pestId);
+  if (a.checkId) search.set('check', a.checkId);
+  return `/fields/${a.fieldId}/review${search.size ? `?${search}` : ''}`;
+};
+
+function Section({ title, count, tone, children, empty }: { title: string; count: number; tone: string; children: ReactNode; empty: string }) {
+  return (
+    <Panel
+      title={
+        <span className="flex items-center gap-2">
+          {title}
+          <span className={`rounded-full px-2 py-0.5 text-xs font-semibold ${tone}`}>{count}</span>
+        </span>
+      }
+    >
+      {count === 0 ? <p className="text-sm text-soil-600">{empty}</p> : <ul className="divide-y divide-straw-200">{children}</ul>}
+    </Panel>
+  );
+}
+
+function FieldRow({ item, action }: { item: AttentionField; action: string }) {
+  return (
+    <li className="flex flex-wrap items-start justify-between gap-x-4 gap-y-1 py-2.5" data-attention={item.reason}>
+      <div className="min-w-0">
+        <p className="font-medium text-soil-900">
+          {item.fieldName} <span className="font-normal text-soil-600">· {item.farmName}</span> <span className="text-patch-700">· {item.pestName}</span>
+        </p>
+        <p className="text-sm text-soil-700">{item.message}</p>
+        <p className="text-xs text-soil-500">
+          Threshold {item.actionThreshold} — {item.thresholdSource}
+        </p>
+      </div>
+      <Link to={reviewLink(item)} className="shrink-0 rounded-md bg-field-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-field-600">
+        {action}
+      </Link>
+    </li>
+  );
+}
+
+export function AdviserHome() {
+  const attention = useAttention();
+  return (
+    <PageFrame title="Needs your attention" eyebrow="Fields across your advisory business" actions={<Link to="/fields" className="text-sm font-medium text-field-700 underline-offset-2 hover:underline">All fields</Link>} wide>
+      {attention.isPending ? (
+        <LoadingState label="Looking for fields that need you…" />
+      ) : attention.isError ? (
+        <ErrorState error={attention.error} onRetry={() => attention.refetch()} />
+      ) : attention.data.clusteredAboveThreshold.length + attention.data.notYetChecked.length + attention.data.unacknowledgedNotices.length === 0 ? (
+        <EmptyState title="Nothing needs you right now">Every field’s sightings are checked, no patchy pest is above its threshold and every notice is acknowledged.</EmptyState>
+      ) : (
+        <div className="grid gap-5 xl:grid-cols-2">
+          <Section title="Patchy and above threshold" count={attention.data.clusteredAboveThreshold.length} tone="bg-patch-600 text-white" empty="No clustered pest is above its action threshold.">
+            {attention.data.clusteredAboveThreshold.map((item) => (
+              <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action="Review zones" />
+            ))}
+          </Section>
+          <Section title="Sightings not yet checked" count={attention.data.notYetChecked.length} tone="bg-straw-300 text-soil-900" empty="Every field’s latest sightings have been checked.">
+            {attention.data.notYetChecked.map((item) => (
+              <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action="Run a check" />
+            ))}
+          </Section>
+          <Section title="Notices not acknowledged" count={attention.data.unacknowledgedNotices.length} tone="bg-field-100 text-field-900" empty="Every notice sent has been acknowledged.">
+            {attention.data.unacknowledgedNotices.map((n) => (
+              <li key={n.noticeId} className="flex flex-wrap items-start justify-between gap-x-4 gap-y-1 py-2.5" data-attention="unacknowledged-notice">
+                <div>
+                  <p className="font-medium text-soil-900">
+                    {n.fieldName} <span className="font-normal text-soil-600">· {n.farmName}</span> <span className="text-patch-700">· {n.pestName}</span>
+                  </p>
+                  <p className="text-sm text-soil-700">{n.message}</p>
+                  <p className="text-xs text-soil-500">
+                    Sent {n.daysSinceSent} day{n.daysSinceSent === 1 ? '' : 's'} ago · {n.recipientsWaiting} recipient{n.recipientsWaiting === 1 ? '' : 's'} waiting
+                  </p>
+                </div>
+                <Link to={reviewLink({ fieldId: n.fieldId })} className="shrink-0 rounded-md px-3 py-1.5 text-sm font-medium text-field-800 ring-1 ring-inset ring-soil-300 hover:bg-straw-100">
+                  Open field
+                </Link>
+              </li>
+            ))}
+          </Section>
+        </div>
+      )}
+    </PageFrame>
+  );
+}

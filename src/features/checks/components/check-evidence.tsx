@@ -1,0 +1,26 @@
+// Every figure behind the verdict, grouped by test, each with its plain-words reading.
+import type { AnalysisResult } from '@shared/analysis/analyse.ts';
+import { Panel } from '../../../components/page-frame.tsx';
+import { NearestNeighbourFigures } from './nearest-neighbour-figures.tsx';
+import { QuadratFigures } from './quadrat-figures.tsx';
+import { LFunctionChart } from './l-function-chart.tsx';
+import { CountsFigures, CoverageFigures } from './counts-figures.tsx';
+import { ZonesFigures } from './zones-figures.tsx';
+
+export function CheckEvidence({ result }: { result: AnalysisResult }) {
+  const alpha = result.spread.alpha;
+  return (
+    <Panel title="The evidence">
+      <div className="grid gap-x-8 gap-y-6 xl:grid-cols-2">
+        <NearestNeighbourFigures result={result} />
+        <div className="space-y-6">
+          <LFunctionChart ripley={result.ripley} />
+          <QuadratFigures quadrat={result.quadrat} alpha={alpha} />
+        </div>
+        <CountsFigures counts={result.counts} alpha={alpha} />
+        <CoverageFigures coverage={result.coverage} />
+        <ZonesFigures result={result} />
+      </div>
+    </Panel>
+  );
+}

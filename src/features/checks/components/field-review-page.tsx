@@ -1,0 +1,119 @@
+// The adviser's field review: map, sightings, the pattern check with its evidence, its robustness,
+// the threshold status and the season — for one field, pest and date window (kept in the address).
+import { lazy, Suspense, useCallback, useEffect, useMemo, useState } from 'react';
+import { Link, useParams, useSearchParams } from 'react-router';
+import type { AnalysisResult } from '@shared/analysis/analyse.ts';
+import type { CheckView } from '@shared/schemas/checks.ts';
+import { PageFrame, Panel } from '../../../components/page-frame.tsx';
+import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
+import { AreaText } from '../../../components/area-text.tsx';
+import { useField } from '../api/get-field.ts';
+import { usePests } from '../api/get-pests.ts';
+import { useFieldSightings } from '../api/get-field-sightings.ts';
+import { useCheck } from '../api/get-check.ts';
+import { CheckPanel } from './check-panel.tsx';
+import { CheckEvidence } from './check-evidence.tsx';
+import { defaultDraft, optionsFromDraft, type CheckOptionsDraft } from './check-options-form.tsx';
+import { ReviewToolbar, type ReviewWindow } from './review-toolbar.tsx';
+import { SensitivityStrip } from './sensitivity-strip.tsx';
+import { ThresholdStatusPanel } from './threshold-status-panel.tsx';
+import { FieldHistoryPanel } from './field-history-panel.tsx';
+import { SightingsTable } from './sightings-table.tsx';
+import type { TableFilters } from './sightings-table-filters.tsx';
+
+// Leaflet and the map layers load on their own, so the table and figures do not wait for them.
+const ReviewMap = lazy(async () => ({ default: (await import('./review-map.tsx')).ReviewMap }));
+
+export function reviewPath(fieldId: string, params: { pest?: string; from?: string | null; to?: string | null; check?: string } = {}) {
+  const search = new URLSearchParams();
+  for (const [key, value] of Object.entries(params)) if (value) search.set(key, value);
+  const text = search.toString();
+  return `/fields/${fieldId}/review${text ? `?${text}` : ''}`;
+}
+
+export function FieldReviewPage() {
+  const { fieldId = '' } = useParams();
+  const [params, setParams] = useSearchParams();
+  const field = useField(fieldId);
+  const pests = usePests(false);
+  const from = params.get('from') ?? undefined;
+  const to = params.get('to') ?? undefined;
+  const checkId = params.get('check');
+  const sightings = useFieldSightings({ fieldId, from, to });
+  const check = useCheck(checkId);
+  const [draft, setDraft] = useState<CheckOptionsDraft>(defaultDraft);
+  const [selectedId, setSelectedId] = useState<string | null>(null);
+
+  // Without a chosen pest, review the one with the most found sightings here.
+  const pestId = useMemo(() => {
+    const chosen = params.get('pest');
+    if (chosen) return chosen;
+    if (check.data) return check.data.pestId;
+    const tally = new Map<string, number>();
+    for (const s of sightings.data ?? []) if (!s.isEmptyStop) tally.set(s.pestId, (tally.get(s.pestId) ?? 0) + 1);
+    return [...tally.entries()].sort((a, b) => b[1] - a[1])[0]?.[0];
+  }, [params, check.data, sightings.data]);
+
+  const [tableFilters, setTableFilters] = useState<TableFilters>({});
+  useEffect(() => setTableFilters((f) => ({ ...f, pestId })), [pestId]);
+
+  const changeWindow = (next: ReviewWindow) => setParams(new URLSearchParams(Object.entries({ pest: next.pestId, from: next.from, to: next.to }).filter((e): e is [string, string] => Boolean(e[1]))));
+  const openCheck = useCallback((opened: CheckView) => setParams((p) => { p.set('check', opened.id); return p; }), [setParams]);
+
+  const pestSightings = useMemo(() => (sightings.data ?? []).filter((s) => s.pestId === pestId), [sightings.data, pestId]);
+  const window = pestId ? { fieldId, pestId, from, to } : null;
+  const built = optionsFromDraft(draft);
+  const request = window && built.ok ? { ...window, options: { ...built.options } } : null;
+  const result = check.data?.status === 'done' && check.data.result && check.data.pestId === pestId ? (check.data.result as unknown as AnalysisResult) : null;
+
+  if (field.isPending || pests.isPending) return <PageFrame title="Field review"><LoadingState label="Loading the field…" /></PageFrame>;
+  if (field.isError) return <PageFrame title="Field review"><ErrorState error={field.error} onRetry={() => field.refetch()} /></PageFrame>;
+  if (pests.isError) return <PageFrame title="Field review"><ErrorState error={pests.error} onRetry={() => pests.refetch()} /></PageFrame>;
+
+  const f = field.data;
+  const pestName = pests.data.find((p) => p.id === pestId)?.name ?? 'this pest';
+  const found = pestSightings.filter((s) => !s.isEmptyStop).length;
+  const summary = sightings.isPending ? 'Loading sightings…' : `${found} sightings of ${pestName}, ${pestSightings.length - found} empty stops`;
+
+  return (
+    <PageFrame
+      title={`${f.name} — review`}
+      eyebrow={
+        <>
+          {f.farmName} · {f.crop} {f.season} · <AreaText m2={f.areaM2} />
+        </>
+      }
+      actions={<Link to={`/fields/${f.id}`} className="text-sm font-medium text-field-700 underline-offset-2 hover:underline">Field details</Link>}
+      wide
+    >
+      <ReviewToolbar pests={pests.data} window={{ pestId, from, to }} onChange={changeWindow} summary={summary} />
+      <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_27rem]">
+        <Panel>
+          {sightings.isError ? (
+            <ErrorState error={sightings.error} onRetry={() => sightings.refetch()} />
+          ) : (
+            <Suspense fallback={<div className="flex h-[40rem] items-center justify-center rounded-lg bg-straw-100"><LoadingState label="Loading the map…" /></div>}>
+              <ReviewMap field={f} sightings={pestSightings} result={result} selectedId={selectedId} onSelect={setSelectedId} />
+            </Suspense>
+          )}
+        </Panel>
+        <CheckPanel window={window} draft={draft} onDraftChange={setDraft} check={check} onCheckOpened={openCheck} />
+      </div>
+      {result && <CheckEvidence result={result} />}
+      <SensitivityStrip key={`${pestId}-${from}-${to}`} request={request} />
+      <ThresholdStatusPanel fieldId={fieldId} pestId={pestId} />
+      <Panel title="Sightings">
+        {sightings.isPending ? (
+          <LoadingState label="Loading sightings…" />
+        ) : sightings.isError ? (
+          <ErrorState error={sightings.error} onRetry={() => sightings.refetch()} />
+        ) : sightings.data.length === 0 ? (
+          <EmptyState title="No sightings in this window">Scouts’ photos and empty stops appear here as soon as they are uploaded.</EmptyState>
+        ) : (
+          <SightingsTable fieldId={fieldId} fieldName={f.name} sightings={sightings.data} pests={pests.data} filters={tableFilters} onFiltersChange={setTableFilters} selectedId={selectedId} onShowOnMap={setSelectedId} />
+        )}
+      </Panel>
+      <FieldHistoryPanel fieldId={fieldId} pestId={pestId} reviewHref={(c) => reviewPath(fieldId, { pest: c.pestId, from: c.from, to: c.to, check: c.id })} />
+    </PageFrame>
+  );
+}

@@ -1,0 +1,72 @@
+// Filters for the review table; the choices come from the sightings themselves, so none leads nowhere.
+import { useMemo } from 'react';
+import type { SightingView } from '@shared/schemas/sightings.ts';
+import type { Pest } from '../../../types/api.ts';
+
+export interface TableFilters {
+  pestId?: string;
+  scoutId?: string;
+  walkId?: string;
+  from?: string;
+  to?: string;
+}
+
+const controlClass = 'block w-full rounded border-0 bg-white px-2 py-1 text-sm ring-1 ring-inset ring-soil-300 focus:ring-2 focus:ring-field-600';
+
+export function SightingsTableFilters({ sightings, pests, filters, onChange }: { sightings: SightingView[]; pests: Pest[]; filters: TableFilters; onChange: (filters: TableFilters) => void }) {
+  const choices = useMemo(() => {
+    const scouts = new Map<string, string>();
+    const walks = new Map<string, string>();
+    const pestNames = new Map<string, string>(pests.map((p) => [p.id, p.name]));
+    const pestIds = new Set<string>();
+    for (const s of sightings) {
+      scouts.set(s.scoutId, s.scoutName);
+      walks.set(s.walkId, `${s.walkedOn} · ${s.scoutName}`);
+      pestIds.add(s.pestId);
+      if (!pestNames.has(s.pestId)) pestNames.set(s.pestId, s.pestName);
+    }
+    const sorted = (m: Map<string, string>) => [...m.entries()].sort((a, b) => a[1].localeCompare(b[1]));
+    return { scouts: sorted(scouts), walks: sorted(walks).reverse(), pests: [...pestIds].map((id) => [id, pestNames.get(id)!] as const).sort((a, b) => a[1].localeCompare(b[1])) };
+  }, [sightings, pests]);
+  const set = (key: keyof TableFilters, value: string) => onChange({ ...filters, [key]: value || undefined });
+  return (
+    <fieldset className="grid grid-cols-2 gap-2 sm:grid-cols-5">
+      <legend className="sr-only">Filter sightings</legend>
+      <label className="text-xs font-medium text-soil-700">
+        Pest
+        <select className={controlClass} value={filters.pestId ?? ''} onChange={(e) => set('pestId', e.target.value)}>
+          <option value="">Every pest</option>
+          {choices.pests.map(([id, name]) => (
+            <option key={id} value={id}>{name}</option>
+          ))}
+        </select>
+      </label>
+      <label className="text-xs font-medium text-soil-700">
+        Scout
+        <select className={controlClass} value={filters.scoutId ?? ''} onChange={(e) => set('scoutId', e.target.value)}>
+          <option value="">Every scout</option>
+          {choices.scouts.map(([id, name]) => (
+            <option key={id} value={id}>{name}</option>
+          ))}
+        </select>
+      </label>
+      <label className="text-xs font-medium text-soil-700">
+        Walk
+        <select className={controlClass} value={filters.walkId ?? ''} onChange={(e) => set('walkId', e.target.value)}>
+          <option value="">Every walk</option>
+          {choices.walks.map(([id, name]) => (
+            <option key={id} value={id}>{name}</option>
+          ))}
+        </select>
+      </label>
+      <label className="text-xs font-medium text-soil-700">
+        Walked from
+        <input type="date" className={controlClass} value={filters.from ?? ''} onChange={(e) => set('from', e.target.value)} />
+      </label>
+      <label className="text-xs font-medium text-soil-700">
+        Walked to
+        <input type="date" className={controlClass} value={filters.to ?? ''} onChange={(e) => set('to', e.target.value)} />
+      </label>
+    </fieldset>
+  );
+}

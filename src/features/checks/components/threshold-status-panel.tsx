@@ -1,0 +1,79 @@
+// Each walk against the pest's action threshold: above, below or too close to call, with the mean, its
+// interval, the threshold and its source; the share of stops infested where the rule is about incidence.
+import type { WalkThresholdStatus } from '@shared/schemas/checks.ts';
+import { Panel } from '../../../components/page-frame.tsx';
+import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
+import { useThresholdStatus } from '../api/get-threshold-status.ts';
+import { fixed, percent } from '../utils/figures.ts';
+
+const statusText = { above: 'Above threshold', below: 'Below threshold', 'too-close': 'Too close to call — scout again' } as const;
+const statusTone = { above: 'bg-patch-600 text-white', below: 'bg-field-100 text-field-900', 'too-close': 'bg-straw-200 text-soil-900' } as const;
+
+function Figures({ s }: { s: WalkThresholdStatus }) {
+  if (s.thresholdBasis === 'incidence') {
+    return (
+      <>
+        <td className="px-2 py-1.5 text-right tabular-nums">{percent(s.shareInfested)} <span className="text-soil-500">({s.infestedStops}/{s.stops})</span></td>
+        <td className="px-2 py-1.5 tabular-nums">{s.shareInterval ? `${percent(s.shareInterval.low)}–${percent(s.shareInterval.high)}` : '—'}</td>
+        <td className="px-2 py-1.5 text-right tabular-nums">{percent(s.actionThreshold)} infested</td>
+      </>
+    );
+  }
+  return (
+    <>
+      <td className="px-2 py-1.5 text-right tabular-nums">{fixed(s.meanPerStop)} <span className="text-soil-500">({s.countedStops} stops)</span></td>
+      <td className="px-2 py-1.5 tabular-nums">{s.meanInterval ? `${fixed(s.meanInterval.low)}–${fixed(s.meanInterval.high)}` : '—'}</td>
+      <td className="px-2 py-1.5 text-right tabular-nums">{fixed(s.actionThreshold)} {s.countUnit}</td>
+    </>
+  );
+}
+
+export function ThresholdStatusPanel({ fieldId, pestId }: { fieldId: string; pestId?: string }) {
+  const statuses = useThresholdStatus(fieldId, pestId);
+  return (
+    <Panel title="Against the action threshold">
+      {statuses.isPending ? (
+        <LoadingState label="Loading threshold status…" />
+      ) : statuses.isError ? (
+        <ErrorState error={statuses.error} onRetry={() => statuses.refetch()} />
+      ) : statuses.data.length === 0 ? (
+        <EmptyState title="No walks for this pest yet">Each walk appears here once its stops are recorded.</EmptyState>
+      ) : (
+        <div className="overflow-x-auto">
+          <table className="w-full text-left text-sm">
+            <caption className="sr-only">Threshold status per walk and pest</caption>
+            <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
+              <tr>
+                <th scope="col" className="px-2 py-1.5">Walk</th>
+                <th scope="col" className="px-2 py-1.5">Pest</th>
+                <th scope="col" className="px-2 py-1.5">Status</th>
+                <th scope="col" className="px-2 py-1.5 text-right">Mean / share</th>
+                <th scope="col" className="px-2 py-1.5">95 % interval</th>
+                <th scope="col" className="px-2 py-1.5 text-right">Threshold</th>
+              </tr>
+            </thead>
+            <tbody className="divide-y divide-straw-200">
+              {statuses.data.map((s) => (
+                <tr key={`${s.walkId}-${s.pestId}`} data-threshold-status={s.status}>
+                  <td className="whitespace-nowrap px-2 py-1.5">{s.walkedOn}</td>
+                  <td className="px-2 py-1.5">{s.pestName}</td>
+                  <td className="px-2 py-1.5">
+                    <span className={`inline-block whitespace-nowrap rounded px-1.5 py-0.5 text-xs font-semibold ${statusTone[s.status]}`}>{statusText[s.status]}</span>
+                  </td>
+                  <Figures s={s} />
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          <ul className="mt-2 space-y-1 text-xs text-soil-700">
+            {statuses.data.map((s) => (
+              <li key={`${s.walkId}-${s.pestId}`}>
+                <span className="font-medium">{s.walkedOn}:</span> {s.sentence}
+              </li>
+            ))}
+          </ul>
+        </div>
+      )}
+    </Panel>
+  );
+}

@@ -1,0 +1,42 @@
+// The spread verdict in words, with the engine's own sentences behind it; never a bare label.
+import type { AnalysisResult } from '@shared/analysis/analyse.ts';
+import type { CheckView } from '@shared/schemas/checks.ts';
+import { areaBasisLabels, dateTime, spreadLabels } from '../utils/figures.ts';
+
+const tone: Record<AnalysisResult['spread']['verdict'], string> = {
+  clustered: 'bg-patch-600 text-white',
+  random: 'bg-field-100 text-field-900 ring-1 ring-inset ring-field-300',
+  regular: 'bg-straw-200 text-soil-900 ring-1 ring-inset ring-straw-400',
+  'too-few': 'bg-soil-300/40 text-soil-800 ring-1 ring-inset ring-soil-300',
+};
+
+const meaning: Record<AnalysisResult['spread']['verdict'], string> = {
+  clustered: 'The pest is patchy: spot treatment of the patches is worth considering.',
+  random: 'No pattern beyond chance: the pest is scattered across the field.',
+  regular: 'More even than chance: the pest is spread everywhere, not in patches.',
+  'too-few': 'Too few sightings to tell a patch from chance: scout again before deciding.',
+};
+
+export function VerdictSummary({ check, result }: { check: CheckView; result: AnalysisResult }) {
+  const { spread } = result;
+  return (
+    <div className="space-y-2" data-verdict={spread.verdict}>
+      <div className="flex flex-wrap items-center gap-3">
+        <p className={`rounded-md px-3 py-1.5 text-lg font-semibold ${tone[spread.verdict]}`} aria-label={`Spread: ${spreadLabels[spread.verdict]}`}>
+          {spreadLabels[spread.verdict]}
+        </p>
+        <p className="text-sm text-soil-800">{meaning[spread.verdict]}</p>
+      </div>
+      <p className="text-xs text-soil-600">
+        At α = {spread.alpha}, on the {areaBasisLabels[result.area.basis].toLowerCase()};{' '}
+        {spread.decidedBy === 'monte-carlo' ? 'decided by the Monte Carlo p inside the boundary' : spread.decidedBy === 'donnelly' ? 'decided by the edge-corrected normal p' : `the check needs at least ${spread.minSightings} sightings`}. Check run by {check.createdBy.name}, {dateTime(check.createdAt)}; engine {result.engineVersion}, {result.crs}
+        {check.reused ? ' · stored result (same sightings and options)' : ''}.
+      </p>
+      <ul className="list-disc space-y-1 pl-5 text-sm text-soil-800">
+        {spread.reasons.map((reason) => (
+          <li key={reason}>{reason}</li>
+        ))}
+      </ul>
+    </div>
+  );
+}
