@@ -134,28 +134,32 @@ export async function fillIn(template: string, world: AccessWorld): Promise<stri
   let out = template;
   for (const match of template.matchAll(/\{(\w+)\}/g)) {
     const name = match[1];
-    const value = name in world.makers ? await world.makers[name]() : world.ids[name as keyof AccessIds];
+    const value = name in world.makers ? await world.makers[name]() : (world.ids as unknown as Record<string, string | undefined>)[name];
     if (value === undefined) throw new Error(`the access matrix has no id named {${name}}`);
     out = out.replace(match[0], value);
   }
   return out;
 }
 
-async function fillInBody(body: object | undefined, world: AccessWorld): Promise<object | undefined> {
+async function fillInBody(body: AccessRow['body'], world: AccessWorld): Promise<object | undefined> {
   if (body === undefined) return undefined;
-  return JSON.parse(await fillIn(JSON.stringify(body), world));
+  const template = typeof body === 'function' ? body(world) : body;
+  return JSON.parse(await fillIn(JSON.stringify(template), world));
 }
 
 export interface AccessRow {
   method: Method;
   path: string;
   expected: Expected;
-  body?: object;
+  /** A JSON body, or one built from the world (for bodies that carry whole records, such as proposed zones). */
+  body?: object | ((world: AccessWorld) => object);
   note?: string;
+  /** Sends the request itself, for bodies that are not JSON (a multipart photo upload). */
+  send?: (client: Client, url: string, world: AccessWorld) => Promise<{ status: number }>;
 }
 
 /** One line of the table: `row('DELETE', '/api/fields/{newField}', adminOnly(204))`. */
-export const row = (method: Method, path: string, expected: Expected, body?: object, note?: string): AccessRow => ({ method, path, expected, body, note });
+export const row = (method: Method, path: string, expected: Expected, body?: AccessRow['body'], note?: string): AccessRow => ({ method, path, expected, body, note });
 
 /** A route only an admin may use; `foreign` is what another organisation's admin gets (404 when the path names a home id). */
 export const adminOnly = (ok: number, foreign = 404): Expected => ({ anonymous: 401, admin: ok, adviser: 403, scout: 403, grower: 403, otherAdmin: foreign });
@@ -172,8 +176,42 @@ export async function statusesFor(entry: AccessRow, world: AccessWorld): Promise
     const url = await fillIn(entry.path, world);
     const body = await fillInBody(entry.body, world);
     const method = entry.method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete';
-    const res = method === 'get' || method === 'delete' ? await client[method](url) : await client[method](url, body);
+    const res = entry.send
+      ? await entry.send(client, url, world)
+      : method === 'get' || method === 'delete'
+        ? await client[method](url)
+        : await client[method](url, body);
     actual[caller] = res.status;
   }
   return Object.fromEntries(callers.map((c) => [c, actual[c]])) as Expected;
+}
+
+/** Every METHOD + path the app routes under /api, read from Express 5's router stack (mount paths from layer.rawPath). */
+export function listApiRoutes(app: { router: { stack: unknown[] } }): Array<{ method: Method; path: string }> {
+  type Layer = { route?: { path: string; methods: Record<string, boolean> }; handle?: { stack?: Layer[] }; rawPath?: unknown };
+  const found: Array<{ method: Method; path: string }> = [];
+  const walk = (stack: Layer[], prefix: string) => {
+    for (const layer of stack) {
+      if (layer.route) {
+        for (const method of Object.keys(layer.route.methods).filter((m) => m !== '_all')) {
+          found.push({ method: method.toUpperCase() as Method, path: `${prefix}${layer.route.path}` });
+        }
+      } else if (layer.handle?.stack) {
+        if (typeof layer.rawPath !== 'string') throw new Error('a router is mounted on a pattern the route list cannot read; mount it on a plain path');
+        walk(layer.handle.stack, `${prefix}${layer.rawPath === '/' ? '' : layer.rawPath}`);
+      }
+    }
+  };
+  walk(app.router.stack as Layer[], '');
+  return found.filter((r) => r.path.startsWith('/api/'));
+}
+
+/** Whether a row's path (with `{id}` placeholders and perhaps a query) is an instance of a route template (`:id`). */
+export function rowMatchesRoute(rowPath: string, template: string) {
+  const concrete = rowPath.split('?')[0].replace(/\{\w+\}/g, 'X');
+  const pattern = template
+    .split(/(:\w+)/)
+    .map((part) => (part.startsWith(':') ? '[^/]+' : part.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')))
+    .join('');
+  return new RegExp(`^${pattern}$`).test(concrete);
 }
