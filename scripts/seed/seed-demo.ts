@@ -11,6 +11,7 @@ import { Pest } from '../../server/models/pest.ts';
 import { hashPassword } from '../../server/auth/passwords.ts';
 import { DEMO_PASSWORD, demoFarms, demoFields, demoOrganisationName, demoUsers } from './demo-scenario.ts';
 import { pestLibrarySeed } from './pest-library.ts';
+import { seedPhotos } from './seed-photos.ts';
 
 export interface DemoIds {
   organisationId: string;
@@ -57,6 +58,8 @@ export async function seedDemo(): Promise<{ created: boolean; ids: DemoIds }> {
     }
     return { organisationId, users, farms, fields, pests };
   });
+  // Photos go through the upload service (files, walks, sightings) after the scenario's rows are committed.
+  await seedPhotos(ids);
   return { created: true, ids };
 }
 
