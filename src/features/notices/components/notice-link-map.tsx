@@ -1,5 +1,5 @@
 // The notice page's map: the field boundary and the zones as vector layers (useful with no tiles). On paper the
-// server's own map image stands in, since a live map prints unreliably.
+// server's own map image (with its own legend) stands in, since a live map prints unreliably.
 import { GeoJSON, Tooltip } from 'react-leaflet';
 import type { MultiPolygon } from 'geojson';
 import { MapFrame } from '../../../components/map-frame.tsx';
@@ -20,7 +20,7 @@ export function NoticeLinkMap({ notice, boundary }: { notice: LinkedNotice; boun
         </MapFrame>
       </div>
       <img src={notice.mapPath} alt={`Map of ${notice.fieldName} with the treatment zones and sightings`} className="hidden w-full max-w-xl border border-soil-300 print:block" />
-      <figcaption className="mt-2 flex flex-wrap items-center gap-x-4 gap-y-1 text-sm text-soil-700">
+      <figcaption className="mt-2 print:hidden flex flex-wrap items-center gap-x-4 gap-y-1 text-sm text-soil-700">
         <span className="inline-flex items-center gap-1.5">
           <span aria-hidden="true" className="inline-block h-3 w-5 rounded-sm border-2 border-field-700 bg-field-300/40" /> Field boundary
         </span>

@@ -1,0 +1,166 @@
+// The loop from a clustered pest to the grower, in the browser: the adviser accepts the proposed zones and
+// sends a notice, the mailbox shows it, the grower opens the e-mailed link and acknowledges, and the
+// adviser's status page then says "acknowledged".
+import fs from 'node:fs';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { area as turfArea } from '@turf/turf';
+import type { FeatureCollection, MultiPolygon } from 'geojson';
+import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
+import { signedIn, type Client } from '../helpers/http.ts';
+import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
+import { waitForMessage } from '../helpers/mailbox.ts';
+import { addContacts, linkGrower, makeCheckedField, type ScoutedCheck } from '../helpers/zones.ts';
+import { NOTICE_CAUTIONS } from '../../shared/notices/cautions.ts';
+
+// International acre (international yard and pound agreement, 1959): 1 ac = 4046.8564224 m²; 1 ha = 10 000 m².
+const M2_PER_ACRE = 4046.8564224;
+const M2_PER_HA = 10_000;
+
+let server: TestServer;
+let browser: Browser;
+let org: TestOrganisation;
+let adviser: Client;
+let scouted: ScoutedCheck;
+// The grower contact is the grower's own account, so the signed-in grower sees their own copy's state.
+let contact: { name: string; email: string };
+const shots = process.env.PATCHWISE_SCREENSHOTS;
+
+async function shot(page: Page, name: string) {
+  if (!shots) return;
+  fs.mkdirSync(shots, { recursive: true });
+  await page.screenshot({ path: path.join(shots, `${name}.png`), fullPage: true });
+}
+
+async function signIn(page: Page, email: string) {
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail address').fill(email);
+  await page.getByLabel('Password').fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  // Every signed-in page has the sign-out button (a grower's single page has no navigation bar).
+  await page.getByRole('button', { name: 'Sign out' }).waitFor();
+}
+
+const number = (text: string | null) => Number((text ?? '').replace(/[^\d.]/g, ''));
+
+beforeAll(async () => {
+  [server, browser, org] = await Promise.all([startTestServer({ workers: true }), launchBrowser(), makeOrganisation('Zone notice')]);
+  adviser = await signedIn(org.users.adviser.email);
+  scouted = await makeCheckedField(org, adviser, { fieldName: 'Long meadow' });
+  contact = { name: org.users.grower.name, email: org.users.grower.email };
+  await addContacts(scouted.field.farmId, [contact]);
+  await linkGrower(scouted.field.farmId, org.users.grower.id);
+});
+
+afterAll(async () => {
+  await browser?.close();
+  // Stops the job queue and the simulation pool with the web server.
+  await server?.close();
+});
+
+describe('zone notice in the browser', () => {
+  it('goes from accepted zones to a sent notice that the grower acknowledges and the adviser sees acknowledged', async () => {
+    const adviserPage = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    await signIn(adviserPage, org.users.adviser.email);
+
+    // Zone editor: the engine's proposal from the clustered check.
+    await adviserPage.goto(`${server.url}/fields/${scouted.field.id}/zones?checkId=${scouted.checkId}`);
+    await adviserPage.getByRole('heading', { name: /Treatment zones · Long meadow/ }).waitFor();
+    const zoneRows = adviserPage.getByRole('table', { name: 'Treatment zones being edited' }).locator('tbody tr');
+    await zoneRows.first().waitFor();
+    expect(await zoneRows.count()).toBeGreaterThanOrEqual(1);
+    // Zones are drawn as vector paths on the map beside the boundary.
+    expect(await adviserPage.locator('.leaflet-overlay-pane svg path').count()).toBeGreaterThanOrEqual(2);
+    // Each row's hectares and acres agree through the international acre.
+    const firstCells = zoneRows.first().locator('td');
+    const ha = number(await firstCells.nth(1).textContent());
+    const ac = number(await firstCells.nth(2).textContent());
+    expect(ha).toBeGreaterThan(0);
+    expect(ac).toBeCloseTo((ha * M2_PER_HA) / M2_PER_ACRE, 1);
+    await shot(adviserPage, '1-zone-editor');
+
+    await adviserPage.getByRole('button', { name: 'Accept zones' }).click();
+    await adviserPage.getByText(/Stored as version 1/).waitFor();
+    await adviserPage.getByRole('list', { name: 'Zone versions' }).getByRole('link', { name: 'GeoJSON' }).waitFor();
+
+    // Compose, preview and send.
+    await adviserPage.getByRole('link', { name: 'Write the notice' }).first().click();
+    await adviserPage.getByLabel('Recommendation').fill('Spot-treat zones 1 and 2 only, following the product label; leave the rest of the field untreated. Re-scout the whole field in seven days.');
+    await adviserPage.getByLabel('Re-scout on').fill('2026-07-12');
+    await adviserPage.getByRole('button', { name: 'Save and preview' }).click();
+    await adviserPage.getByTestId('preview-subject').waitFor();
+    const preview = adviserPage.frameLocator('iframe[title^="Preview"]');
+    await preview.getByText(NOTICE_CAUTIONS[0]).waitFor();
+    await shot(adviserPage, '2-notice-preview');
+    await adviserPage.getByRole('button', { name: 'Send the notice' }).click();
+    const state = adviserPage.locator(`tr[data-recipient="${contact.email}"] [data-testid="recipient-state"]`);
+    await state.getByText(/^(queued|sending|sent)$/).waitFor();
+
+    // The admin's mailbox lists the message to the grower contact.
+    const [message] = await waitForMessage(contact.email, 1, 20_000);
+    const adminPage = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signIn(adminPage, org.users.admin.email);
+    await adminPage.goto(`${server.url}/admin/mailbox`);
+    const listed = adminPage.getByRole('list', { name: 'Messages' }).getByRole('link').filter({ hasText: `To ${contact.email}` });
+    await listed.waitFor();
+    expect(await listed.textContent()).toContain(message.subject ?? '');
+    await listed.click();
+    await adminPage.getByRole('heading', { name: message.subject ?? '' }).waitFor();
+    await shot(adminPage, '3-mailbox');
+
+    // The grower opens the link from the message, signed out.
+    const link = /https?:\/\/\S+\/n\/[A-Za-z0-9._-]+/.exec(message.text ?? '')?.[0];
+    expect(link, 'notice link in the text part').toBeTruthy();
+    const growerContext = await browser.newContext({ viewport: { width: 900, height: 1000 } });
+    const growerPage = await growerContext.newPage();
+    // The link carries the configured public address; the test server listens on a port of its own.
+    await growerPage.goto(`${server.url}${new URL(link!).pathname}`);
+    await growerPage.getByRole('heading', { level: 1, name: /on Long meadow/ }).waitFor();
+    for (const caution of NOTICE_CAUTIONS) await growerPage.getByText(caution).waitFor();
+    await growerPage.getByText(/Spot-treat zones 1 and 2 only/).waitFor();
+
+    // The zone table's hectares match turf's area of the GeoJSON attachment (turf 7 `area`, spherical; the
+    // server measures on the ellipsoid, so the two agree to well under 1 %).
+    const attachment = message.attachments.find((a) => a.filename?.endsWith('.geojson'));
+    expect(attachment, 'GeoJSON attachment').toBeTruthy();
+    const zones = JSON.parse(attachment!.content.toString('utf8')) as FeatureCollection<MultiPolygon>;
+    const tableRows = growerPage.getByRole('table', { name: 'Treatment zones' }).locator('tbody tr');
+    expect(await tableRows.count()).toBe(zones.features.length);
+    for (const [i, zone] of zones.features.entries()) {
+      const shownHa = number(await tableRows.nth(i).locator('td').nth(0).textContent());
+      expect(Math.abs(shownHa - turfArea(zone) / M2_PER_HA)).toBeLessThanOrEqual(Math.max(0.01, (turfArea(zone) / M2_PER_HA) * 0.01));
+    }
+    await shot(growerPage, '4-notice-page');
+    await growerPage.emulateMedia({ media: 'print' });
+    expect(await growerPage.getByRole('button', { name: 'Acknowledge' }).isVisible()).toBe(false);
+    await shot(growerPage, '5-notice-page-print');
+    await growerPage.emulateMedia({ media: 'screen' });
+
+    await growerPage.getByRole('button', { name: 'Acknowledge' }).click();
+    await growerPage.getByText(/Acknowledged on/).waitFor();
+    // A second acknowledgement (a reload and the page's own state) changes nothing.
+    await growerPage.reload();
+    await growerPage.getByText(/Acknowledged on/).waitFor();
+    expect(await growerPage.getByRole('button', { name: 'Acknowledge' }).count()).toBe(0);
+    await shot(growerPage, '6-acknowledged');
+
+    // The adviser's status page now says acknowledged.
+    await adviserPage.reload();
+    await state.getByText('acknowledged', { exact: true }).waitFor();
+    await shot(adviserPage, '7-notice-status');
+
+    // The grower, signed in, sees the notice among their farm's notices with its state.
+    const growerHome = await browser.newPage({ viewport: { width: 900, height: 900 } });
+    await signIn(growerHome, org.users.grower.email);
+    await growerHome.getByRole('list', { name: 'Zone notices' }).getByText(/Acknowledged/).waitFor();
+    await shot(growerHome, '8-grower-home');
+  }, 180_000);
+
+  it('shows a calm explanation instead of a notice for a link that does not open one', async () => {
+    const page = await browser.newPage();
+    await page.goto(`${server.url}/n/00000000-0000-4000-8000-000000000000.${'x'.repeat(43)}`);
+    await page.getByRole('heading', { name: 'This notice link does not open a notice' }).waitFor();
+    expect(await page.getByRole('button', { name: 'Acknowledge' }).count()).toBe(0);
+  });
+});
