@@ -41,14 +41,17 @@ function fromDatabase(error: { name?: string; parent?: { code?: string; constrai
   return null;
 }
 
-function isDatabaseUnavailable(error: { name?: string; parent?: { code?: string }; code?: string }) {
-  return (
-    error.name === 'SequelizeConnectionError' ||
-    error.name === 'SequelizeConnectionRefusedError' ||
-    error.name === 'SequelizeConnectionAcquireTimeoutError' ||
-    error.parent?.code === '57P01' ||
-    error.code === 'ECONNREFUSED'
-  );
+// SQLSTATE classes 08 (connection exception) and 57P (operator intervention: shutdown, crash, starting up),
+// and the socket errors pg raises itself; checked on the error, Sequelize's `parent` and the session store's own.
+const UNAVAILABLE_CODES = new Set(['57P01', '57P02', '57P03', '08000', '08001', '08003', '08004', '08006', 'ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ETIMEDOUT']);
+type MaybeDbError = { name?: string; code?: string; message?: string; parent?: MaybeDbError; original?: MaybeDbError };
+
+function isDatabaseUnavailable(error: MaybeDbError | undefined, depth = 0): boolean {
+  if (!error || depth > 3) return false;
+  if (error.name?.startsWith('SequelizeConnection')) return true;
+  if (error.code && UNAVAILABLE_CODES.has(error.code)) return true;
+  if (/^Connection terminated|connection timeout|Client has encountered a connection error/i.test(error.message ?? '')) return true;
+  return isDatabaseUnavailable(error.parent, depth + 1) || isDatabaseUnavailable(error.original, depth + 1);
 }
 
 export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
@@ -56,7 +59,7 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
   if (err instanceof AppError) error = err;
   else if (err instanceof ZodError) error = fromZod(err);
   else if (err instanceof BoundaryError) error = new AppError(400, `boundary_${err.fault.code}`, err.message, { boundary: err.message });
-  else if (err?.type === 'entity.too.large') error = new AppError(413, 'too_large', 'The request body is too large.');
+  else if (err?.type === 'entity.too.large') error = new AppError(413, 'too_large', `The request body is larger than the ${Math.round((err.limit ?? 0) / 1_048_576) || 6} MB limit; send less at a time.`);
   else if (err?.type === 'entity.parse.failed') error = badRequest('The request body is not valid JSON.');
   else if (err?.code === 'EBADCSRFTOKEN' || err?.code === 'invalid_csrf') error = new AppError(403, 'csrf', 'This form has expired: reload the page and try again.');
   else if (isDatabaseUnavailable(err)) error = new AppError(503, 'unavailable', 'Patchwise cannot reach its database right now; try again in a minute.');

@@ -13,7 +13,9 @@ usersRouter.get('/', requireRole('admin', 'adviser'), async (req, res) => {
 });
 
 usersRouter.post('/', requireRole('admin'), async (req, res) => {
-  res.status(201).json({ user: await inviteUser(actor(req), parse(inviteUserSchema, req.body)) });
+  const outcome = await inviteUser(actor(req), parse(inviteUserSchema, req.body));
+  // 202: accepted without a new user (the address is taken elsewhere, which the answer must not say).
+  res.status(outcome.user ? 201 : 202).json(outcome);
 });
 
 usersRouter.patch('/:id', requireRole('admin'), async (req, res) => {

@@ -21,3 +21,13 @@ export async function sendPasswordReset(to: { name: string; email: string }, tok
     html: `<p>Hello ${escapeHtml(to.name)},</p><p>Someone asked to reset the password of this Patchwise account. If it was you, <a href="${escapeHtml(link)}">choose a new password</a> (the link works once and expires in 1 hour).</p><p>If it was not you, ignore this message; your password stays as it is.</p>`,
   });
 }
+
+/** To the owner of an address another organisation tried to invite: who asked, and how to join them. */
+export async function sendInvitationDeclined(to: { name: string; email: string }, invitedBy: string, organisationName: string) {
+  await mailTransport().sendMail({
+    to: { name: to.name, address: to.email },
+    subject: `${organisationName} tried to invite you to Patchwise`,
+    text: `Hello ${to.name},\n\n${invitedBy} of ${organisationName} tried to invite this address to Patchwise. It already belongs to your Patchwise account, and an account belongs to one advisory business, so no second account was made and ${organisationName} was not told that this address is in use.\n\nTo work with ${organisationName} as well, give them another e-mail address of yours to invite. If you did not expect this, ignore this message.\n`,
+    html: `<p>Hello ${escapeHtml(to.name)},</p><p>${escapeHtml(invitedBy)} of ${escapeHtml(organisationName)} tried to invite this address to Patchwise. It already belongs to your Patchwise account, and an account belongs to one advisory business, so no second account was made and ${escapeHtml(organisationName)} was not told that this address is in use.</p><p>To work with ${escapeHtml(organisationName)} as well, give them another e-mail address of yours to invite. If you did not expect this, ignore this message.</p>`,
+  });
+}

@@ -7,7 +7,7 @@ import type { inviteUserSchema, updateUserSchema } from '../../shared/schemas/us
 import { AppError, badRequest, conflict, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { consumeToken, issueToken } from './user-tokens.ts';
-import { sendInvitation, sendPasswordReset } from './account-mail.ts';
+import { sendInvitation, sendInvitationDeclined, sendPasswordReset } from './account-mail.ts';
 import { hashPassword } from '../auth/passwords.ts';
 
 export async function listUsers(actor: Actor) {
@@ -21,11 +21,30 @@ async function findOwnUser(actor: Actor, id: string) {
   return user;
 }
 
-export async function inviteUser(actor: Actor, input: z.infer<typeof inviteUserSchema>) {
-  if (await User.findOne({ where: { email: input.email } })) {
-    throw conflict(`${input.email} already has a Patchwise account.`);
-  }
+/** What an invitation led to: a new pending user, or (for an address already taken elsewhere) only a letter to its owner. */
+export type InvitationOutcome = { user: ReturnType<User['toPublic']> } | { user: null; message: string };
+
+/**
+ * Invites a person by e-mail. An address that is already one of the admin's own users is refused plainly (the
+ * admin can see their own users anyway). An address that belongs to another organisation must not be revealed:
+ * any refusal naming it ("already has an account", "cannot invite that address; ask for another") tells one
+ * advisory business who works with another. So that case is answered as accepted, with no account created, and
+ * the address's owner is told by e-mail who tried to invite them and how to join (with another address). What
+ * remains observable is only that no pending user appears in the admin's list; hiding that too would need
+ * invitations kept apart from accounts (accounts are one per address, since sign-in is by address alone).
+ */
+export async function inviteUser(actor: Actor, input: z.infer<typeof inviteUserSchema>): Promise<InvitationOutcome> {
+  const existing = await User.findOne({ where: { email: input.email } });
   const organisation = await Organisation.findByPk(actor.organisationId);
+  const organisationName = organisation?.name ?? 'your advisory business';
+  if (existing && existing.organisationId === actor.organisationId) {
+    throw conflict(`${input.email} is already one of your users; use "Send invitation again" on their row if they have not set a password yet.`);
+  }
+  if (existing) {
+    await recordAudit(actor, 'invite-declined', 'user', null, { role: input.role });
+    void sendInvitationDeclined(existing, actor.name, organisationName).catch((error) => console.error('declined-invitation mail failed', error));
+    return { user: null, message: invitationAcceptedMessage(input.email) };
+  }
   const { user, token } = await sequelize.transaction(async (transaction) => {
     const user = await User.create({ organisationId: actor.organisationId, name: input.name, email: input.email, role: input.role, passwordHash: null }, { transaction });
     const token = await issueToken(user.id, 'invite', transaction);
@@ -33,12 +52,14 @@ export async function inviteUser(actor: Actor, input: z.infer<typeof inviteUserS
     return { user, token };
   });
   try {
-    await sendInvitation(user, actor.name, organisation?.name ?? 'your advisory business', token);
+    await sendInvitation(user, actor.name, organisationName, token);
   } catch {
     throw new AppError(502, 'mail_failed', `${user.email} was added, but the invitation e-mail could not be sent; use "Send invitation again".`);
   }
-  return user.toPublic();
+  return { user: user.toPublic() };
 }
+
+export const invitationAcceptedMessage = (email: string) => `An invitation is on its way to ${email}.`;
 
 export async function resendInvitation(actor: Actor, id: string) {
   const user = await findOwnUser(actor, id);

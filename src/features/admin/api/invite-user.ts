@@ -6,7 +6,8 @@ import type { User } from '../../../types/api.ts';
 
 export type InviteUserInput = z.infer<typeof inviteUserSchema>;
 
-export const inviteUser = (input: InviteUserInput) => api<{ user: User }>('/api/users', { method: 'POST', body: input }).then((r) => r.user);
+// `user` is null when the address is taken in another organisation: the server accepts without saying so.
+export const inviteUser = (input: InviteUserInput) => api<{ user: User | null }>('/api/users', { method: 'POST', body: input }).then((r) => r.user);
 
 export function useInviteUser() {
   const queryClient = useQueryClient();

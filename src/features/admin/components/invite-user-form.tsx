@@ -23,7 +23,7 @@ export function InviteUserForm() {
     setSentTo(null);
     invite.mutate(checked.value, {
       onSuccess: (user) => {
-        setSentTo(user.email);
+        setSentTo(user?.email ?? checked.value.email);
         setValues(blank);
       },
       onError: (error) => setErrors(serverFieldErrors(error)),
