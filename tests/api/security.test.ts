@@ -286,4 +286,3 @@ describe('oversized bodies', () => {
     expect(await tableCounts()).toEqual(before);
   });
 });
-});
