@@ -121,6 +121,9 @@ describe('scout on a phone', () => {
       expect(await list.filter({ hasText: 'pinned by hand' }).count()).toBe(1);
       expect(await list.filter({ hasText: 'from photo GPS' }).count()).toBe(2);
       await expect.poll(() => rows.nth(2).textContent(), settle).toContain('Pinned by hand in North Forty');
+      // The thumbnails arrive from the background job; the walk asks again until they are there.
+      const loadedThumbnails = () => list.locator('img').evaluateAll((imgs) => imgs.filter((i) => (i as HTMLImageElement).complete && (i as HTMLImageElement).naturalWidth > 0).length);
+      await expect.poll(loadedThumbnails, { timeout: 60_000, interval: 500 }).toBe(3);
       await shot(page, '5-walk');
 
       // What the server stored: the pinned one lies inside the field (turf as the outside judge).
@@ -221,6 +224,35 @@ describe('scout on a phone', () => {
       expect(stop).toMatchObject({ isEmptyStop: true, count: 0, positionSource: 'device', accuracyM: 6 });
       expect(stop.position.lon).toBeCloseTo(insideB.lon, 9);
       expect(stop.position.lat).toBeCloseTo(insideB.lat, 9);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('just uploads: Patchwise finds the field and the day’s walk from the photo’s GPS', async () => {
+    const admin = await signedIn(org.users.admin.email);
+    const farm = await createFarm(admin);
+    // A field of its own, east of the others, so the photo's position can only mean this one.
+    const eastCorner = { lon: TEST_FIELD_CORNER.lon + 0.02, lat: TEST_FIELD_CORNER.lat };
+    const east = await createField(admin, farm.id, rectangleBoundary(eastCorner), { name: 'East Quarter' });
+    await admin.post(`/api/fields/${east.id}/scouts`, { userId: org.users.scout.id }).expect(204);
+    const photo = { name: 'found-it.jpg', mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: { lon: eastCorner.lon + 0.002, lat: eastCorner.lat + 0.001 }, markSeed: 66 }) };
+
+    const context = await phone();
+    try {
+      const page = await signInAsScout(context);
+      await page.getByRole('link', { name: 'Just upload' }).tap();
+      await page.getByLabel('Pest').selectOption(pest.id);
+      await page.getByTestId('gallery-input').setInputFiles([photo]);
+      await page.getByRole('button', { name: 'Send 1 photo' }).tap();
+      await expect.poll(() => uploadRows(page).first().textContent(), settle).toContain('Placed in East Quarter');
+      await shot(page, '8-just-upload');
+
+      await page.getByRole('link', { name: 'Open the walk' }).tap();
+      await page.waitForURL(/\/scout\/walks\/[0-9a-f-]{36}$/);
+      await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent(), settle).toBe('East Quarter');
+      const list = page.getByRole('list', { name: 'Sightings on this walk' }).getByRole('listitem');
+      await expect.poll(() => list.count(), settle).toBe(1);
     } finally {
       await context.close();
     }
