@@ -80,6 +80,26 @@ describe('zone notice in the browser', () => {
     expect(ac).toBeCloseTo((ha * M2_PER_HA) / M2_PER_ACRE, 1);
     await shot(adviserPage, '1-zone-editor');
 
+    // A wider margin gives a new proposal with more treated area (each zone is buffered further).
+    const total = adviserPage.getByTestId('total-treated').locator('[data-unit="ha"]');
+    const before = number(await total.textContent());
+    await adviserPage.getByLabel('Margin (m)').fill('25');
+    await adviserPage.waitForFunction((old) => Number(document.querySelector('[data-testid="total-treated"] [data-unit="ha"]')?.textContent?.replace(/[^\d.]/g, '')) > old, before);
+    expect(number(await total.textContent())).toBeGreaterThan(before);
+    const proposed = await zoneRows.count();
+
+    // A zone drawn by hand in the empty north-west corner of the field joins the table, and deleting it there removes it.
+    const field = (await adviserPage.locator('.leaflet-overlay-pane svg path').first().boundingBox())!;
+    await adviserPage.locator('[title="Draw Rectangle"]').click();
+    await adviserPage.mouse.click(field.x + field.width * 0.08, field.y + field.height * 0.1);
+    await adviserPage.mouse.click(field.x + field.width * 0.3, field.y + field.height * 0.3);
+    await adviserPage.getByRole('cell', { name: /Drawn by hand/ }).waitFor();
+    expect(await zoneRows.count()).toBe(proposed + 1);
+    await shot(adviserPage, '1b-zone-drawn');
+    await adviserPage.getByRole('button', { name: `Delete Zone ${proposed + 1}` }).click();
+    await adviserPage.getByRole('cell', { name: /Drawn by hand/ }).waitFor({ state: 'detached' });
+    expect(await zoneRows.count()).toBe(proposed);
+
     await adviserPage.getByRole('button', { name: 'Accept zones' }).click();
     await adviserPage.getByText(/Stored as version 1/).waitFor();
     await adviserPage.getByRole('list', { name: 'Zone versions' }).getByRole('link', { name: 'GeoJSON' }).waitFor();
