@@ -59,7 +59,7 @@ export function AdviserHome() {
       ) : attention.data.clusteredAboveThreshold.length + attention.data.notYetChecked.length + attention.data.unacknowledgedNotices.length === 0 ? (
         <EmptyState title="Nothing needs you right now">Every field’s sightings are checked, no patchy pest is above its threshold and every notice is acknowledged.</EmptyState>
       ) : (
-        <div className="grid gap-5 xl:grid-cols-2">
+        <div className="grid items-start gap-5 xl:grid-cols-2">
           <Section title="Patchy and above threshold" count={attention.data.clusteredAboveThreshold.length} tone="bg-patch-600 text-white" empty="No clustered pest is above its action threshold.">
             {attention.data.clusteredAboveThreshold.map((item) => (
               <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action="Review zones" />
