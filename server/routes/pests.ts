@@ -7,7 +7,7 @@ import { createPest, listPests, updatePest } from '../services/pests.ts';
 
 export const pestsRouter = Router();
 const idParam = z.object({ id: z.uuid({ error: 'That pest id is not valid.' }) });
-const listQuery = z.object({ includeInactive: z.enum(['true', 'false']).optional() });
+const listQuery = z.object({ includeInactive: z.enum(['true', 'false'], { error: 'Set includeInactive to true or false.' }).optional() });
 
 pestsRouter.get('/', requireSignedIn, async (req, res) => {
   const { includeInactive } = parse(listQuery, req.query);

@@ -257,7 +257,7 @@ describe('injection through filters', () => {
     ['/api/fields?farmId=%27%3B%20DELETE%20FROM%20fields%3B--', /farm id is not valid/],
     ['/api/walks?fieldId=%27%20UNION%20SELECT%20password_hash%20FROM%20users--', /field id is not valid/],
     ['/api/notices?fieldId=1%20OR%201%3D1', /field id is not valid/],
-    ['/api/pests?includeInactive=true%27%20OR%20%27a%27%3D%27a', /./],
+    ['/api/pests?includeInactive=true%27%20OR%20%27a%27%3D%27a', /includeInactive to true or false/],
     ['/api/fields/{field}/checks?pestId=%27%20OR%20%27%27%3D%27', /pest/i],
   ] as const;
 
