@@ -8,7 +8,9 @@ let starting: Promise<PgBoss> | null = null;
 export function queue(): Promise<PgBoss> {
   if (boss) return Promise.resolve(boss);
   starting ??= (async () => {
-    const instance = new PgBoss({ connectionString: config.databaseUrl, schema: 'pgboss', max: 5 });
+    // Maintenance (which retries jobs whose worker died) every 2 minutes, pg-boss's default; fault tests set it shorter.
+    const maintenanceIntervalSeconds = Number(process.env.JOB_MAINTENANCE_SECONDS) || 120;
+    const instance = new PgBoss({ connectionString: config.databaseUrl, schema: 'pgboss', max: 5, maintenanceIntervalSeconds });
     instance.on('error', (error) => console.error('job queue error:', error.message));
     await instance.start();
     boss = instance;
