@@ -41,7 +41,7 @@ export const appRoutes: AppRoute[] = [
   { path: 'fields/:fieldId/review', roles: ['adviser', 'admin'], Page: lazyPage(() => import('../features/checks/components/field-review-page.tsx'), 'FieldReviewPage') },
 
   // --- Scout ---
-  { path: 'scout', roles: ['scout'], nav: 'Walk a field', Page: lazyPage(() => import('../features/walks/components/my-fields-page.tsx'), 'MyFieldsPage') },
+  { path: 'scout/fields', roles: ['scout'], nav: 'Walk a field', Page: lazyPage(() => import('../features/walks/components/my-fields-page.tsx'), 'MyFieldsPage') },
   { path: 'scout/upload', roles: ['scout'], nav: 'Just upload', Page: lazyPage(() => import('../features/walks/components/just-upload-page.tsx'), 'JustUploadPage') },
   { path: 'scout/fields/:fieldId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/field-walks-page.tsx'), 'FieldWalksPage') },
   { path: 'scout/walks/:walkId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/walk-page.tsx'), 'WalkPage') },

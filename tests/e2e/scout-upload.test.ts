@@ -11,6 +11,7 @@ import { createFarm, createField, createPest } from '../helpers/farm-records.ts'
 import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { makeJpeg } from '../helpers/photos.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
+import { findingsTable, seriousViolations } from '../helpers/accessibility.ts';
 
 const boundary = rectangleBoundary();
 // Two points well inside the rectangle, away from its middle where the scout will tap.
@@ -98,6 +99,8 @@ describe('scout on a phone', () => {
       expect(await rows.evaluateAll((items) => items.map((i) => i.getAttribute('data-outcome')))).toEqual(['placed', 'placed', 'needs-pin']);
       await expect.poll(() => rows.nth(0).textContent(), settle).toContain('Placed in North Forty');
       await shot(page, '3-sent');
+      // axe-core (Deque) finds nothing serious on the walk page with its outcomes showing.
+      expect(findingsTable(await seriousViolations(page))).toBe('(none)');
 
       await page.getByRole('link', { name: 'Pin it on the map' }).tap();
       const pinMap = page.getByRole('region', { name: /tap where the photo was taken/ });
@@ -109,6 +112,7 @@ describe('scout on a phone', () => {
       await mapArea.tap({ position: { x: box.width / 2, y: box.height / 2 } });
       await expect.poll(() => pinMap.locator('path.pin-choice').count(), settle).toBe(1);
       await shot(page, '4-pin');
+      expect(findingsTable(await seriousViolations(page))).toBe('(none)');
       await page.getByRole('button', { name: 'Confirm this place' }).tap();
 
       await page.waitForURL(new RegExp(`/scout/walks/${walkId}$`));

@@ -1,6 +1,6 @@
 // Where the scout's screens live; one place, so links and the router agree.
 export const scoutPaths = {
-  myFields: '/scout',
+  myFields: '/scout/fields',
   justUpload: '/scout/upload',
   field: (fieldId: string) => `/scout/fields/${fieldId}`,
   walk: (walkId: string) => `/scout/walks/${walkId}`,

@@ -1,10 +1,8 @@
 // Upload without choosing a field: Patchwise finds each photo's field and that day's walk from its GPS.
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
-import { ButtonLink } from '../../../components/button.tsx';
 import { ErrorState } from '../../../components/query-states.tsx';
 import { usePests } from '../../admin/api/get-pests.ts';
 import { useBatchTags } from '../hooks/use-batch-tags.ts';
-import { scoutPaths } from '../paths.ts';
 import { PestCountPicker } from './pest-count-picker.tsx';
 import { PhotoUploadPanel } from './photo-upload-panel.tsx';
 
@@ -14,7 +12,7 @@ export function JustUploadPage() {
   const pestList = pests.data ?? [];
   const pestId = pestList.some((p) => p.id === tags.pestId) ? tags.pestId : '';
   return (
-    <PageFrame title="Just upload" actions={<ButtonLink to={scoutPaths.myFields} variant="secondary" size="lg">My fields</ButtonLink>}>
+    <PageFrame title="Just upload">
       <Panel>
         <p className="mb-4 text-soil-700">Each photo goes to the field it was taken in, into your walk there for that day. Photos without a position ask for a pin.</p>
         <div className="space-y-4">
