@@ -31,7 +31,12 @@ export function FieldPage() {
     <PageFrame
       title={f.name}
       eyebrow={user.role === 'admin' ? <Link to={`/admin/farms/${f.farmId}`} className="hover:underline">{f.farmName}</Link> : f.farmName}
-      actions={user.role === 'admin' && <ButtonLink to={`/admin/fields/${f.id}/edit`} variant="secondary">Edit field</ButtonLink>}
+      actions={
+        <>
+          {(user.role === 'adviser' || user.role === 'admin') && <ButtonLink to={`/fields/${f.id}/review`}>Review sightings</ButtonLink>}
+          {user.role === 'admin' && <ButtonLink to={`/admin/fields/${f.id}/edit`} variant="secondary">Edit field</ButtonLink>}
+        </>
+      }
       wide
     >
       <div className="grid gap-5 lg:grid-cols-[1fr_18rem]">

@@ -23,6 +23,15 @@ const columns = [
   column.accessor('crop', { header: 'Crop' }),
   column.accessor('season', { header: 'Season' }),
   column.accessor('areaM2', { header: 'Area', cell: (info) => <AreaText m2={info.getValue()} className="whitespace-nowrap" /> }),
+  column.display({
+    id: 'review',
+    header: 'Review',
+    cell: (info) => (
+      <Link to={`/fields/${info.row.original.id}/review`} className="font-medium text-field-700 underline underline-offset-2">
+        Review sightings
+      </Link>
+    ),
+  }),
 ];
 
 export function AdviserFieldsHome() {
