@@ -10,6 +10,8 @@ export interface MailCatcher {
 
 export async function startMailCatcher(options: { port: number; databaseUrl: string; host?: string }): Promise<MailCatcher> {
   const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 2 });
+  // An idle connection dropped by a database restart must not bring the catcher (and `npm test`) down; the next message reconnects.
+  pool.on('error', (error) => console.error('mail catcher database connection lost:', error.message));
   const server = new SMTPServer({
     authOptional: true,
     disabledCommands: ['STARTTLS'],
