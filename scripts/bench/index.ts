@@ -1,7 +1,7 @@
 // Benchmark runner: `npm run bench`. Each module exports run(): Promise<BenchTable>; a failing module is skipped.
 import type { BenchTable } from './table.ts';
 
-const modules = ['./engine.ts', './review.ts'];
+const modules = ['./engine.ts', './review.ts', './ingest.ts'];
 
 function printTable(table: BenchTable): void {
   console.log(`\n${table.title}`);
