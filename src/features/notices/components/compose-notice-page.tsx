@@ -11,6 +11,7 @@ import { checkForm, errorMessage, serverFieldErrors, type FieldErrors } from '..
 import { useNoticeZoneSet } from '../api/get-notice-zone-set.ts';
 import { useCreateNotice } from '../api/create-notice.ts';
 import { NoticeZoneTable } from './notice-zone-table.tsx';
+import { FieldNoticesPanel } from './field-notices-panel.tsx';
 
 export function ComposeNoticePage() {
   const { fieldId = '' } = useParams();
@@ -68,6 +69,7 @@ export function ComposeNoticePage() {
           <NoticeZoneTable zones={z.zones} totalTreatedM2={z.totalTreatedM2} untreatedShare={z.untreatedShare} />
         </Panel>
       </div>
+      <FieldNoticesPanel fieldId={fieldId} />
     </PageFrame>
   );
 }

@@ -1,6 +1,6 @@
 // The adviser's zone editor: the engine's proposal from a check, tuned by threshold and margin, edited or
 // drawn by hand on the map, then accepted as the field's next stored version.
-import { useCallback, useEffect, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router';
 import { CircleMarker } from 'react-leaflet';
 import type { ZoneProposalRequest } from '@shared/schemas/zones.ts';
@@ -44,6 +44,9 @@ export function ZoneEditorPage() {
 
   const [zones, setZones] = useState<WorkingZone[]>([]);
   const [revision, setRevision] = useState(0);
+  // The map's handlers are made once; they read the zones of the latest render through this ref.
+  const zonesNow = useRef(zones);
+  zonesNow.current = zones;
   const replaceZones = useCallback((next: WorkingZone[]) => {
     setZones(next);
     setRevision((r) => r + 1);
@@ -57,13 +60,12 @@ export function ZoneEditorPage() {
     () => ({
       onReshape: (key, geometry) => setZones((all) => all.map((z) => (z.key === key ? { ...z, geometry, origin: z.origin === 'drawn' ? 'drawn' : 'edited', proposed: undefined } : z))),
       onRemove: (key) => setZones((all) => all.filter((z) => z.key !== key)),
-      onDraw: (geometry) =>
-        setZones((all) => {
-          setRevision((r) => r + 1);
-          return [...all, { key: newZoneKey(), label: nextZoneLabel(all), geometry, origin: 'drawn' }];
-        }),
+      onDraw: (geometry) => {
+        const all = zonesNow.current;
+        replaceZones([...all, { key: newZoneKey(), label: nextZoneLabel(all), geometry, origin: 'drawn' }]);
+      },
     }),
-    [],
+    [replaceZones],
   );
 
   // Sightings where the pest was found: those of the check, or all on the field for zones drawn without one.
