@@ -44,7 +44,8 @@ try {
     SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
     SMTP_PORT: String(smtpPort),
     UPLOAD_DIR: path.join(workDir, 'uploads'),
-    CLIENT_DIR: path.join(projectRoot, 'dist'),
+    // Each run builds its own client, so two runs at once never serve each other's half-written build.
+    CLIENT_DIR: path.join(workDir, 'dist'),
     SESSION_SECRET: 'patchwise-test-secret-not-for-production',
     PATCHWISE_TEST_TMP: workDir,
     // Nothing listens on port 9: maps in the browser tests show how they behave with no tile server.
@@ -59,7 +60,7 @@ try {
   catcher = await startMailCatcher({ port: smtpPort, databaseUrl: env.DATABASE_URL });
 
   console.log('Building the client…');
-  const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { env: { ...env, NODE_ENV: 'production' }, stdio: 'inherit' });
+  const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn', '--outDir', env.CLIENT_DIR, '--emptyOutDir'], { env: { ...env, NODE_ENV: 'production' }, stdio: 'inherit' });
   if (build.status !== 0) throw new Error('The client build failed.');
 
   const reportFile = path.join(workDir, 'vitest-report.json');

@@ -18,7 +18,7 @@ const everyone: readonly Role[] = ['admin', 'adviser', 'scout', 'grower'];
 export const homes: Record<Role, { nav: string; Page: ComponentType }> = {
   admin: { nav: 'Overview', Page: lazyPage(() => import('./routes/admin-home.tsx'), 'AdminHome') },
   adviser: { nav: 'Attention', Page: lazyPage(() => import('../features/advisers/components/adviser-home.tsx'), 'AdviserHome') },
-  scout: { nav: 'My fields', Page: lazyPage(() => import('../features/fields/components/fields-home.tsx'), 'ScoutFieldsHome') },
+  scout: { nav: 'Walk a field', Page: lazyPage(() => import('../features/walks/components/my-fields-page.tsx'), 'MyFieldsPage') },
   grower: { nav: 'My farms', Page: lazyPage(() => import('../features/grower/components/grower-home.tsx'), 'GrowerHome') },
 };
 
@@ -41,7 +41,7 @@ export const appRoutes: AppRoute[] = [
   { path: 'fields/:fieldId/review', roles: ['adviser', 'admin'], Page: lazyPage(() => import('../features/checks/components/field-review-page.tsx'), 'FieldReviewPage') },
 
   // --- Scout ---
-  { path: 'scout/fields', roles: ['scout'], nav: 'Walk a field', Page: lazyPage(() => import('../features/walks/components/my-fields-page.tsx'), 'MyFieldsPage') },
+  { path: 'scout/fields', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/my-fields-page.tsx'), 'MyFieldsPage') },
   { path: 'scout/upload', roles: ['scout'], nav: 'Just upload', Page: lazyPage(() => import('../features/walks/components/just-upload-page.tsx'), 'JustUploadPage') },
   { path: 'scout/fields/:fieldId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/field-walks-page.tsx'), 'FieldWalksPage') },
   { path: 'scout/walks/:walkId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/walk-page.tsx'), 'WalkPage') },

@@ -1,5 +1,4 @@
-// The adviser's and the scout's home: the fields they work on, as a dense table at a desk
-// and as large cards on a phone.
+// The adviser's fields table, and the large field card the farm pages use on a phone.
 import { Link } from 'react-router';
 import { createColumnHelper } from '@tanstack/react-table';
 import { PageFrame } from '../../../components/page-frame.tsx';
@@ -65,26 +64,5 @@ export function FieldCard({ field }: { field: Field }) {
         <AreaText m2={field.areaM2} className="mt-1 block text-sm" />
       </Link>
     </li>
-  );
-}
-
-export function ScoutFieldsHome() {
-  const fields = useFields();
-  return (
-    <PageFrame title="My fields" eyebrow="Fields assigned to you">
-      {fields.isPending ? (
-        <LoadingState label="Loading your fields…" />
-      ) : fields.isError ? (
-        <ErrorState error={fields.error} onRetry={() => fields.refetch()} />
-      ) : fields.data.length === 0 ? (
-        <EmptyState title="No fields assigned yet">Ask your admin or adviser to assign you to the fields you walk.</EmptyState>
-      ) : (
-        <ul className="grid gap-3 sm:grid-cols-2">
-          {fields.data.map((field) => (
-            <FieldCard key={field.id} field={field} />
-          ))}
-        </ul>
-      )}
-    </PageFrame>
   );
 }
