@@ -1,4 +1,8 @@
-// Benchmark runner: `npm run bench`. Each module exports run(): Promise<BenchTable>; a failing module is skipped.
+// Benchmark runner: `npm run bench` (all) or `npm run bench -- engine review` (some).
+// Each module exports run(): Promise<BenchTable>; a failing module is skipped. Every module runs in a
+// child process of its own, because server modules read DATABASE_URL once, on first import.
+import { spawnSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
 import type { BenchTable } from './table.ts';
 
 const modules = ['./engine.ts', './review.ts', './ingest.ts'];
@@ -18,11 +22,22 @@ function printTable(table: BenchTable): void {
   for (const row of table.rows) console.log(line(columns.map((column) => cell(row[column]))));
 }
 
-for (const specifier of modules) {
+async function runInThisProcess(specifier: string) {
   try {
     const module = (await import(specifier)) as { run: () => Promise<BenchTable> };
     printTable(await module.run());
   } catch (error) {
     console.log(`\nSkipped ${specifier}: ${error instanceof Error ? error.message : String(error)}`);
   }
+}
+
+const [, , childFlag, childModule, ...wanted] = process.argv;
+if (childFlag === '--one') {
+  await runInThisProcess(childModule);
+  process.exit(0);
+}
+const names = [childFlag, childModule, ...wanted].filter(Boolean);
+const chosen = names.length ? modules.filter((m) => names.some((n) => m.includes(n))) : modules;
+for (const specifier of chosen) {
+  spawnSync(process.execPath, ['--import', 'tsx', fileURLToPath(import.meta.url), '--one', specifier], { stdio: 'inherit' });
 }
