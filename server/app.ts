@@ -1,6 +1,7 @@
 // Builds the Express app (exported for supertest); server/index.ts only listens.
 import express, { type Express } from 'express';
 import helmet from 'helmet';
+import compression from 'compression';
 import fs from 'node:fs';
 import path from 'node:path';
 import pg from 'pg';
@@ -59,6 +60,9 @@ export function createApp(options: AppOptions = {}): Express {
       strictTransportSecurity: config.isProduction,
     }),
   );
+
+  // Check results and sightings lists run to megabytes of JSON; gzip shrinks them about tenfold.
+  app.use(compression());
 
   const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 5 });
   sessionPool.on('error', () => {});
