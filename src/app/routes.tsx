@@ -42,7 +42,7 @@ export const appRoutes: AppRoute[] = [
 
   // --- Scout ---
   { path: 'scout/fields', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/my-fields-page.tsx'), 'MyFieldsPage') },
-  { path: 'scout/upload', roles: ['scout'], nav: 'Just upload', Page: lazyPage(() => import('../features/walks/components/just-upload-page.tsx'), 'JustUploadPage') },
+  { path: 'scout/upload', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/just-upload-page.tsx'), 'JustUploadPage') },
   { path: 'scout/fields/:fieldId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/field-walks-page.tsx'), 'FieldWalksPage') },
   { path: 'scout/walks/:walkId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/walk-page.tsx'), 'WalkPage') },
   { path: 'scout/walks/:walkId/pin/:sightingId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/pin-photo-page.tsx'), 'PinPhotoPage') },
