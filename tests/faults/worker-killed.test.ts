@@ -1,6 +1,5 @@
 // A worker killed with SIGKILL in the middle of a thumbnail job: pg-boss hands the job out again once it expires,
 // another worker finishes it, and the photo ends with exactly one thumbnail file.
-import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -9,39 +8,13 @@ import { QueryTypes } from 'sequelize';
 import { sequelize } from '../../server/db.ts';
 import { stopQueue } from '../../server/jobs/queue.ts';
 import { makeJpeg, scoutingSetUp, uploadedFiles, uploadPhotos } from '../helpers/photos.ts';
-
-const fixture = path.resolve('tests/faults/fixtures/thumbnail-worker.ts');
-const children: ChildProcess[] = [];
+import { killHard, reapChildren, startFixture, until } from './fixtures/child-processes.ts';
 
 function startWorker(hang: 'before' | 'after' | null, marker: string) {
-  const child = spawn(process.execPath, ['--import', 'tsx', fixture], {
-    env: { ...process.env, FAULT_HANG: hang ?? '', FAULT_MARKER: marker, THUMBNAIL_THREADS: '0', JOB_MAINTENANCE_SECONDS: '1' },
-    stdio: ['ignore', 'inherit', 'inherit'],
-  });
-  children.push(child);
-  return child;
+  return startFixture('thumbnail-worker.ts', { FAULT_HANG: hang ?? '', FAULT_MARKER: marker, THUMBNAIL_THREADS: '0', JOB_MAINTENANCE_SECONDS: '1' });
 }
 
-async function until<T>(what: string, probe: () => Promise<T | null | undefined | false> | T | null | undefined | false, timeoutMs = 90_000): Promise<T> {
-  const started = Date.now();
-  for (;;) {
-    const value = await probe();
-    if (value) return value;
-    if (Date.now() - started > timeoutMs) throw new Error(`gave up waiting for ${what}`);
-    await new Promise((r) => setTimeout(r, 250));
-  }
-}
-
-const killed = (child: ChildProcess) => new Promise<void>((resolve) => (child.exitCode !== null || child.signalCode ? resolve() : child.once('exit', () => resolve())));
-
-afterEach(async () => {
-  for (const child of children.splice(0)) {
-    if (child.exitCode === null && !child.signalCode) {
-      child.kill('SIGKILL');
-      await killed(child);
-    }
-  }
-});
+afterEach(reapChildren);
 
 afterAll(async () => {
   await stopQueue();
@@ -56,8 +29,7 @@ describe('a thumbnail worker killed mid-job', () => {
 
     const first = startWorker(hang, marker);
     const jobId = await until('the first worker to take the job', () => fs.existsSync(marker) && fs.readFileSync(marker, 'utf8'));
-    first.kill('SIGKILL');
-    await killed(first);
+    await killHard(first);
     // Stands in for the 5 minutes after which pg-boss gives up on a silent worker.
     await sequelize.query(`UPDATE pgboss.job SET expire_in = interval '1 second' WHERE id = :jobId`, { replacements: { jobId } });
 
