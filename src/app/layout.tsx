@@ -39,7 +39,7 @@ export function AppLayout() {
             </button>
           </div>
         </div>
-        {links.length > 1 && (
+        {links.length > 0 && (
           <nav aria-label="Main" className="mx-auto max-w-7xl overflow-x-auto px-2 sm:px-4">
             <ul className="flex gap-1">
               {links.map((link) => (
