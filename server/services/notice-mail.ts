@@ -130,6 +130,13 @@ export async function deliverNoticeCopy(recipientId: string): Promise<'sent' | '
   );
   if (!claim) {
     await markWithdrawnIfRevoked(recipientId);
+    // A fresh claim by another attempt may still die; fail this job so the queue retries it later,
+    // instead of completing it and leaving the copy in 'sending' for good.
+    const [inFlight] = await sequelize.query<{ id: string }>(
+      `SELECT id FROM notice_recipients WHERE id = :id AND status = 'sending' AND smtp_accepted_at IS NULL AND revoked_at IS NULL`,
+      { replacements: { id: recipientId }, type: QueryTypes.SELECT },
+    );
+    if (inFlight) throw new Error('Another attempt is sending this copy right now; the queue will try again later.');
     return 'skipped';
   }
   try {
