@@ -7,7 +7,7 @@ import { LFunctionChart } from './l-function-chart.tsx';
 import { CountsFigures, CoverageFigures } from './counts-figures.tsx';
 import { ZonesFigures } from './zones-figures.tsx';
 
-export function CheckEvidence({ result }: { result: AnalysisResult }) {
+export function CheckEvidence({ result, zoneEditorPath }: { result: AnalysisResult; zoneEditorPath: string }) {
   const alpha = result.spread.alpha;
   return (
     <Panel title="The evidence">
@@ -19,7 +19,7 @@ export function CheckEvidence({ result }: { result: AnalysisResult }) {
         </div>
         <CountsFigures counts={result.counts} alpha={alpha} />
         <CoverageFigures coverage={result.coverage} />
-        <ZonesFigures result={result} />
+        <ZonesFigures result={result} zoneEditorPath={zoneEditorPath} />
       </div>
     </Panel>
   );

@@ -99,7 +99,7 @@ export function FieldReviewPage() {
         </Panel>
         <CheckPanel window={window} draft={draft} onDraftChange={setDraft} check={check} onCheckOpened={openCheck} />
       </div>
-      {result && <CheckEvidence result={result} />}
+      {result && check.data && <CheckEvidence result={result} zoneEditorPath={`/fields/${f.id}/zones?checkId=${check.data.id}`} />}
       <SensitivityStrip key={`${pestId}-${from}-${to}`} request={request} />
       <ThresholdStatusPanel fieldId={fieldId} pestId={pestId} />
       <Panel title="Sightings">

@@ -2,8 +2,9 @@
 import type { AnalysisResult } from '@shared/analysis/analyse.ts';
 import { fixed, metres, percent } from '../utils/figures.ts';
 import { Figure, FigureList, SectionTitle } from './figure-list.tsx';
+import { ButtonLink } from '../../../components/button.tsx';
 
-export function ZonesFigures({ result }: { result: AnalysisResult }) {
+export function ZonesFigures({ result, zoneEditorPath }: { result: AnalysisResult; zoneEditorPath: string }) {
   const { density, zones } = result;
   return (
     <section aria-labelledby="zones-title">
@@ -46,6 +47,11 @@ export function ZonesFigures({ result }: { result: AnalysisResult }) {
           </tbody>
         </table>
       )}
+      <div className="mt-3">
+        <ButtonLink to={zoneEditorPath} variant="secondary" size="sm">
+          {zones.features.length > 0 ? 'Edit and accept these zones' : 'Draw treatment zones by hand'}
+        </ButtonLink>
+      </div>
     </section>
   );
 }
