@@ -8,7 +8,7 @@ import { EmptyState, ErrorState, LoadingState } from '../../../components/query-
 import { TableFrame } from '../../../components/table-frame.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
 import type { Pest } from '../../../types/api.ts';
-import { usePests } from '../api/get-pests.ts';
+import { usePests } from '../../../lib/api/get-pests.ts';
 import { useUpdatePest } from '../api/update-pest.ts';
 import { PestForm } from './pest-form.tsx';
 import { ThresholdText } from './threshold-text.tsx';

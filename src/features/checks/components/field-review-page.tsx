@@ -8,7 +8,7 @@ import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { AreaText } from '../../../components/area-text.tsx';
 import { useField } from '../api/get-field.ts';
-import { usePests } from '../api/get-pests.ts';
+import { usePests } from '../../../lib/api/get-pests.ts';
 import { useFieldSightings } from '../api/get-field-sightings.ts';
 import { useCheck } from '../api/get-check.ts';
 import { CheckPanel } from './check-panel.tsx';

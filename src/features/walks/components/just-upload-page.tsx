@@ -1,7 +1,7 @@
 // Upload without choosing a field: Patchwise finds each photo's field and that day's walk from its GPS.
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { ErrorState } from '../../../components/query-states.tsx';
-import { usePests } from '../../admin/api/get-pests.ts';
+import { usePests } from '../../../lib/api/get-pests.ts';
 import { useBatchTags } from '../hooks/use-batch-tags.ts';
 import { PestCountPicker } from './pest-count-picker.tsx';
 import { PhotoUploadPanel } from './photo-upload-panel.tsx';

@@ -4,7 +4,7 @@ import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { useQuery } from '@tanstack/react-query';
 import { fieldQueryOptions } from '../../fields/api/get-field.ts';
-import { usePests } from '../../admin/api/get-pests.ts';
+import { usePests } from '../../../lib/api/get-pests.ts';
 import { SightingList } from '../../sightings/components/sighting-list.tsx';
 import { useWalk } from '../api/get-walk.ts';
 import { useBatchTags } from '../hooks/use-batch-tags.ts';
