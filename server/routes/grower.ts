@@ -1,10 +1,28 @@
 import { Router } from 'express';
+import { z } from 'zod';
 import { requireRole, actor } from '../middleware/access.ts';
+import { parse } from '../middleware/validate.ts';
 import { listGrowerNotices } from '../services/notices.ts';
+import { acknowledgeGrowerNotice, growerNoticeMap, growerNoticePage } from '../services/grower-notices.ts';
 
 /** What a signed-in grower sees of the notices: those for their own farms, with their own copy's state. */
 export const growerRouter = Router();
+const idParam = z.object({ id: z.uuid({ error: 'That notice id is not valid.' }) });
 
-growerRouter.get('/notices', requireRole('grower'), async (req, res) => {
+growerRouter.use(requireRole('grower'));
+
+growerRouter.get('/notices', async (req, res) => {
   res.json({ notices: await listGrowerNotices(actor(req)) });
+});
+
+growerRouter.get('/notices/:id', async (req, res) => {
+  res.json({ notice: await growerNoticePage(actor(req), parse(idParam, req.params).id) });
+});
+
+growerRouter.get('/notices/:id/map.png', async (req, res) => {
+  res.type('png').send(await growerNoticeMap(actor(req), parse(idParam, req.params).id));
+});
+
+growerRouter.post('/notices/:id/acknowledge', async (req, res) => {
+  res.json(await acknowledgeGrowerNotice(actor(req), parse(idParam, req.params).id));
 });

@@ -69,27 +69,36 @@ export async function acknowledge(recipientId: string): Promise<{ acknowledgedAt
   return { acknowledgedAt: row.acknowledged_at, alreadyAcknowledged: true };
 }
 
+/** What the notice page shows of one notice to one reader: the copy's contact, or a signed-in grower of the farm. */
+export async function noticePageContent(noticeId: string, reader: { name: string; acknowledgedAt: Date | null }, mapPath: string): Promise<NoticeLinkResponse['notice']> {
+  const material = await noticeMaterial(noticeId);
+  const notice = await Notice.findByPk(noticeId);
+  return {
+    ...material.content,
+    sentAt: notice?.sentAt ? notice.sentAt.toISOString() : null,
+    recipientName: reader.name,
+    acknowledgedAt: reader.acknowledgedAt ? reader.acknowledgedAt.toISOString() : null,
+    zonesGeoJson: material.zonesGeoJson,
+    boundary: material.boundary,
+    mapPath,
+  };
+}
+
 /** What the notice page shows for a token, marking the first opening. */
 export async function noticeForLink(token: string): Promise<NoticeLinkResponse['notice']> {
   const copy = await resolveNoticeToken(token);
   await markOpened(copy.recipientId);
-  const material = await noticeMaterial(copy.noticeId);
-  const notice = await Notice.findByPk(copy.noticeId);
-  const acknowledgedAt = copy.acknowledgedAt;
-  return {
-    ...material.content,
-    sentAt: notice?.sentAt ? notice.sentAt.toISOString() : null,
-    recipientName: copy.contactName,
-    acknowledgedAt: acknowledgedAt ? acknowledgedAt.toISOString() : null,
-    zonesGeoJson: material.zonesGeoJson,
-    boundary: material.boundary,
-    mapPath: `/api/notice-links/${token}/map.png`,
-  };
+  return noticePageContent(copy.noticeId, { name: copy.contactName, acknowledgedAt: copy.acknowledgedAt }, `/api/notice-links/${token}/map.png`);
+}
+
+/** A notice's map image, as the e-mail and the notice page carry it. */
+export async function noticeMapImage(noticeId: string): Promise<Buffer> {
+  const material = await noticeMaterial(noticeId);
+  return renderNoticeMap({ boundary: material.boundary, zones: material.zones, sightings: material.sightings });
 }
 
 /** The notice's map for a token (does not count as an opening: mail programs fetch images by themselves). */
 export async function mapForLink(token: string): Promise<Buffer> {
   const copy = await resolveNoticeToken(token);
-  const material = await noticeMaterial(copy.noticeId);
-  return renderNoticeMap({ boundary: material.boundary, zones: material.zones, sightings: material.sightings });
+  return noticeMapImage(copy.noticeId);
 }

@@ -63,6 +63,8 @@ const deskOnly = (ok: number, foreign = 404): Expected => ({ anonymous: 401, adm
 const deskAndGrower = (ok: number): Expected => ({ ...deskOnly(ok), grower: ok });
 /** Everyone who records sightings: desk roles and the assigned scout; growers are refused. */
 const recorders = (ok: number, foreign = 404): Expected => ({ anonymous: 401, admin: ok, adviser: ok, scout: ok, grower: 403, otherAdmin: foreign });
+/** The signed-in grower's own views; every other role is refused by role. */
+const growerOnly = (ok: number): Expected => ({ anonymous: 401, admin: 403, adviser: 403, scout: 403, grower: ok, otherAdmin: 403 });
 
 const scouting = (w: unknown) => w as ScoutingWorld;
 const aSentence = 'Spot-spray the patch by the creek within five days, then re-scout.';
@@ -125,5 +127,8 @@ export const scoutingRoutes: AccessRow[] = [
   row('POST', '/api/notice-links/{noticeToken}/acknowledge', everyone(200)),
   row('GET', '/api/notice-links/{recipient}.not-the-secret', everyone(404)),
 
-  row('GET', '/api/grower/notices', { anonymous: 401, admin: 403, adviser: 403, scout: 403, grower: 200, otherAdmin: 403 }),
+  row('GET', '/api/grower/notices', growerOnly(200)),
+  row('GET', '/api/grower/notices/{notice}', growerOnly(200), undefined, "the notice's farm is linked to the grower"),
+  row('GET', '/api/grower/notices/{notice}/map.png', growerOnly(200)),
+  row('POST', '/api/grower/notices/{notice}/acknowledge', growerOnly(409), undefined, "the grower's address is not among the notice's copies, so there is no copy of theirs to acknowledge"),
 ];

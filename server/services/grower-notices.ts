@@ -1,0 +1,48 @@
+// A signed-in grower's own zone notices: those sent about farms linked to their account (farm_growers), opened
+// without the e-mailed token. Their own copy is the notice_recipients row that carries their e-mail address.
+import { QueryTypes } from 'sequelize';
+import { sequelize } from '../db.ts';
+import type { Actor } from '../auth/passport.ts';
+import { AppError, notFound } from '../errors.ts';
+import { NoticeRecipient } from '../models/notice-recipient.ts';
+import { acknowledge, markOpened, noticeMapImage, noticePageContent } from './notice-links.ts';
+import type { AcknowledgeResponse, NoticeLinkResponse } from '../../shared/schemas/notices.ts';
+
+/** The sent notice, when it is about a farm linked to this grower; any other id (another farm, another organisation, a draft) is not found. */
+async function findGrowerNotice(actor: Actor, noticeId: string) {
+  const [row] = await sequelize.query<{ id: string }>(
+    `SELECT n.id FROM notices n JOIN fields f ON f.id = n.field_id
+       JOIN farm_growers g ON g.farm_id = f.farm_id AND g.user_id = :userId
+      WHERE n.id = :noticeId AND n.organisation_id = :org AND n.status <> 'draft'`,
+    { replacements: { userId: actor.id, org: actor.organisationId, noticeId }, type: QueryTypes.SELECT },
+  );
+  if (!row) throw notFound('That notice');
+  const copy = await NoticeRecipient.findOne({ where: { noticeId: row.id, email: actor.email.toLowerCase() } });
+  return { noticeId: row.id, copy };
+}
+
+/** The notice page's content for the grower; opening it counts as opening their own copy, when they have one. */
+export async function growerNoticePage(actor: Actor, noticeId: string): Promise<NoticeLinkResponse['notice']> {
+  const { copy } = await findGrowerNotice(actor, noticeId);
+  if (copy) await markOpened(copy.id);
+  return noticePageContent(
+    noticeId,
+    { name: copy?.contactName ?? actor.name, acknowledgedAt: copy?.acknowledgedAt ?? null },
+    `/api/grower/notices/${noticeId}/map.png`,
+  );
+}
+
+export async function growerNoticeMap(actor: Actor, noticeId: string): Promise<Buffer> {
+  await findGrowerNotice(actor, noticeId);
+  return noticeMapImage(noticeId);
+}
+
+/** Acknowledges the grower's own copy (once; a second time answers with the first time). */
+export async function acknowledgeGrowerNotice(actor: Actor, noticeId: string): Promise<AcknowledgeResponse> {
+  const { copy } = await findGrowerNotice(actor, noticeId);
+  if (!copy) {
+    throw new AppError(409, 'not_a_recipient', `This notice was addressed to the farm's contacts, not to ${actor.email}; one of them acknowledges it from their own copy.`);
+  }
+  const { acknowledgedAt, alreadyAcknowledged } = await acknowledge(copy.id);
+  return { acknowledgedAt: acknowledgedAt.toISOString(), alreadyAcknowledged };
+}
