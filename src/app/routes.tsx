@@ -53,6 +53,7 @@ export const appRoutes: AppRoute[] = [
   { path: 'notices/:noticeId', roles: ['admin', 'adviser'], Page: lazyPage(() => import('../features/notices/components/notice-page.tsx'), 'NoticePage') },
 
   // --- Grower ---
+  { path: 'grower/notices/:noticeId', roles: ['grower'], Page: lazyPage(() => import('../features/grower/components/grower-notice-page.tsx'), 'GrowerNoticePage') },
 ];
 
 export function navFor(role: Role): Array<{ to: string; label: string }> {

@@ -175,6 +175,15 @@ describe('zone notice in the browser', () => {
     await signIn(growerHome, org.users.grower.email);
     await growerHome.getByRole('list', { name: 'Zone notices' }).getByText(/Acknowledged/).waitFor();
     await shot(growerHome, '8-grower-home');
+    // …and opens it from there, no token needed: the same notice, already acknowledged through the link.
+    await growerHome.getByRole('list', { name: 'Zone notices' }).getByRole('link', { name: /on Long meadow/ }).click();
+    await growerHome.waitForURL(/\/grower\/notices\/[0-9a-f-]{36}$/);
+    await growerHome.getByRole('heading', { level: 1, name: /on Long meadow/ }).waitFor();
+    await growerHome.getByText(/Spot-treat zones 1 and 2 only/).waitFor();
+    await growerHome.getByText(NOTICE_CAUTIONS[0]).waitFor();
+    await growerHome.getByText(/Acknowledged on/).waitFor();
+    expect(await growerHome.getByRole('table', { name: 'Treatment zones' }).locator('tbody tr').count()).toBe(zones.features.length);
+    await shot(growerHome, '9-grower-notice');
   }, 180_000);
 
   it('shows a calm explanation instead of a notice for a link that does not open one', async () => {

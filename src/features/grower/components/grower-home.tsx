@@ -23,7 +23,9 @@ function NoticeRow({ notice }: { notice: GrowerNoticeSummary }) {
   return (
     <li className="flex flex-wrap items-baseline justify-between gap-2 py-3">
       <div>
-        <p className="font-medium text-soil-900">{notice.pestName} on {notice.fieldName}</p>
+        <Link to={`/grower/notices/${notice.id}`} className="inline-flex min-h-10 items-center font-medium text-field-800 underline-offset-2 hover:underline focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600">
+          {notice.pestName} on {notice.fieldName}
+        </Link>
         <p className="text-sm text-soil-700">
           {notice.farmName} · {notice.zoneCount} zone{notice.zoneCount === 1 ? '' : 's'}, <AreaText m2={notice.totalTreatedM2} /> · sent {notice.sentAt ? new Date(notice.sentAt).toLocaleDateString(undefined, { dateStyle: 'long' }) : '—'}
         </p>
@@ -71,7 +73,7 @@ export function GrowerHome() {
             <ul className="divide-y divide-straw-200" aria-label="Zone notices">
               {notices.data.map((n) => <NoticeRow key={n.id} notice={n} />)}
             </ul>
-            <p className="mt-2 text-sm text-soil-600">Open a notice from the link in its e-mail to see the map, the recommendation and the cautions, and to acknowledge it.</p>
+            <p className="mt-2 text-sm text-soil-600">Open a notice to see the map, the recommendation and the cautions, and to acknowledge it.</p>
           </>
         )}
       </Panel>

@@ -10,7 +10,7 @@ import { EmptyState, ErrorState, LoadingState } from '../../../components/query-
 import { checkForm, errorMessage, serverFieldErrors, type FieldErrors } from '../../../lib/form-errors.ts';
 import { useNoticeZoneSet } from '../api/get-notice-zone-set.ts';
 import { useCreateNotice } from '../api/create-notice.ts';
-import { NoticeZoneTable } from './notice-zone-table.tsx';
+import { NoticeZoneTable } from '../../../components/notice-view/notice-zone-table.tsx';
 import { FieldNoticesPanel } from './field-notices-panel.tsx';
 
 export function ComposeNoticePage() {

@@ -1,17 +1,16 @@
 // The notice page's map: the field boundary and the zones as vector layers (useful with no tiles). On paper the
 // server's own map image (with its own legend) stands in, since a live map prints unreliably.
 import { GeoJSON, Tooltip } from 'react-leaflet';
-import type { MultiPolygon } from 'geojson';
-import { MapFrame } from '../../../components/map-frame.tsx';
-import type { LinkedNotice } from '../api/get-notice-link.ts';
+import type { NoticeLinkResponse } from '@shared/schemas/notices.ts';
+import { MapFrame } from '../map-frame.tsx';
 
 const zoneStyle = { color: '#9a3f14', weight: 2, fillColor: '#f08a4b', fillOpacity: 0.45 };
 
-export function NoticeLinkMap({ notice, boundary }: { notice: LinkedNotice; boundary: MultiPolygon }) {
+export function NoticeMap({ notice }: { notice: NoticeLinkResponse['notice'] }) {
   return (
     <figure>
       <div className="print:hidden">
-        <MapFrame boundaries={[{ id: 'field', geometry: boundary, label: notice.fieldName }]} label={`Map of ${notice.fieldName} with the treatment zones`} className="h-80 sm:h-[26rem]">
+        <MapFrame boundaries={[{ id: 'field', geometry: notice.boundary, label: notice.fieldName }]} label={`Map of ${notice.fieldName} with the treatment zones`} className="h-80 sm:h-[26rem]">
           {notice.zonesGeoJson.features.map((zone) => (
             <GeoJSON key={zone.properties.label} data={zone} style={zoneStyle}>
               <Tooltip sticky>{zone.properties.label}</Tooltip>

@@ -1,0 +1,9 @@
+// One notice about the grower's own farms, as the notice page shows it; opening it marks their own copy opened.
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client.ts';
+import type { NoticeLinkResponse } from '@shared/schemas/notices.ts';
+
+export const growerNoticeQueryKey = (noticeId: string) => ['grower', 'notices', noticeId] as const;
+export const getGrowerNotice = (noticeId: string) => api<NoticeLinkResponse>(`/api/grower/notices/${encodeURIComponent(noticeId)}`).then((r) => r.notice);
+export const growerNoticeQueryOptions = (noticeId: string) => queryOptions({ queryKey: growerNoticeQueryKey(noticeId), queryFn: () => getGrowerNotice(noticeId) });
+export const useGrowerNotice = (noticeId: string) => useQuery(growerNoticeQueryOptions(noticeId));
