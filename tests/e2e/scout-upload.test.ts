@@ -1,5 +1,5 @@
 // A scout on a phone: signs in, starts today's walk, sends three photos (two with GPS, one without),
-// pins the third by tapping the field map, and sees all three on the walk's map and list.
+// pins the third by tapping the field map, sees all three on the walk's map and list, and corrects one count.
 import fs from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -71,7 +71,7 @@ const uploadRows = (page: Page) => page.getByRole('list', { name: 'Photos in thi
 const rowStates = (page: Page) => uploadRows(page).evaluateAll((items) => items.map((i) => i.getAttribute('data-upload-state')));
 
 describe('scout on a phone', () => {
-  it('uploads three photos, pins the one without GPS, and sees all three on the walk', async () => {
+  it('uploads three photos, pins the one without GPS, sees all three on the walk, and corrects one count', async () => {
     const photos = [
       { name: 'leaf-a.jpg', mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: insideA, markSeed: 11 }) },
       { name: 'leaf-b.jpg', mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: insideB, markSeed: 22 }) },
@@ -137,6 +137,19 @@ describe('scout on a phone', () => {
       expect(pinned.status).toBe('placed');
       expect(booleanPointInPolygon([pinned.position!.lon, pinned.position!.lat], boundary)).toBe(true);
       expect(detail.sightings.map((s) => s.count)).toEqual([4, 4, 4]);
+
+      // The scout corrects the pinned photo's count from the list: the list shows it, and the server keeps it.
+      const pinnedRow = list.filter({ hasText: 'pinned by hand' });
+      await pinnedRow.getByRole('button', { name: /^Correct the sighting/ }).tap();
+      const correction = page.getByRole('form', { name: /^Correct the sighting/ });
+      await correction.getByLabel('Count').fill('7');
+      await shot(page, '6-correct');
+      await correction.getByRole('button', { name: 'Save the correction' }).tap();
+      await correction.waitFor({ state: 'detached' });
+      await expect.poll(() => pinnedRow.getByTestId('sighting-count').textContent(), settle).toBe('Count 7');
+      const corrected = (await scout.get(`/api/walks/${walkId}`).expect(200)).body as typeof detail;
+      expect(corrected.sightings.find((s) => s.positionSource === 'pin')!.count).toBe(7);
+      expect(corrected.sightings.filter((s) => s.positionSource === 'exif').map((s) => s.count)).toEqual([4, 4]);
     } finally {
       await context.close();
     }

@@ -6,7 +6,7 @@ import { useQuery } from '@tanstack/react-query';
 import { fieldQueryOptions } from '../../fields/api/get-field.ts';
 import { usePests } from '../../../lib/api/get-pests.ts';
 import { SightingList } from '../../sightings/components/sighting-list.tsx';
-import { useWalk } from '../api/get-walk.ts';
+import { useWalk, walkQueryKey } from '../api/get-walk.ts';
 import { useBatchTags } from '../hooks/use-batch-tags.ts';
 import { scoutPaths } from '../paths.ts';
 import { EmptyStopButton } from './empty-stop-button.tsx';
@@ -61,7 +61,7 @@ export function WalkPage() {
 
       <Panel title={`Sightings (${sightings.length})`}>
         {sightings.length ? (
-          <SightingList sightings={sightings} pinHref={(s) => scoutPaths.pin(info.id, s.id)} />
+          <SightingList sightings={sightings} pinHref={(s) => scoutPaths.pin(info.id, s.id)} correction={{ pests: pestList, shownUnder: walkQueryKey(info.id) }} />
         ) : (
           <p className="text-soil-700">Nothing yet: send photos or record a stop where you found nothing.</p>
         )}
