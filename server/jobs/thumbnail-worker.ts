@@ -1,7 +1,7 @@
 // Thumbnail jobs (one per uploaded photo) and hourly housekeeping: orphan files, the 30-day purge,
 // re-queuing thumbnails left pending. Each job is a thin call into a service.
 import { defineWorker } from './workers.ts';
-import { ensureThumbnailQueue, requestThumbnails, THUMBNAIL_QUEUE } from '../services/thumbnail-queue.ts';
+import { ensureThumbnailQueue, requestThumbnails, THUMBNAIL_QUEUE, thumbnailWorkerStarted } from '../services/thumbnail-queue.ts';
 import { makeThumbnail, stalePendingThumbnails } from '../services/thumbnails.ts';
 import { thumbnailThreads } from '../services/thumbnail-pool.ts';
 import { removeOrphanFiles } from '../services/orphan-cleanup.ts';
@@ -20,10 +20,16 @@ defineWorker({
   name: THUMBNAIL_QUEUE,
   async start(boss) {
     await ensureThumbnailQueue();
-    // One batch per thread, so both cores decode at once.
-    await boss.work<{ photoId: string }>(THUMBNAIL_QUEUE, { batchSize: Math.max(1, thumbnailThreads()), pollingIntervalSeconds: 0.5 }, async (jobs) => {
-      await Promise.all(jobs.map((job) => makeThumbnail(job.data.photoId)));
-    });
+    // pg-boss fetches a batch, waits for all of it, then sleeps out the rest of its polling interval. Several jobs
+    // per thread keep both threads fed (the pool queues them), and two loops let one fetch while the other's last
+    // job finishes; queuing wakes them (thumbnailWorkerStarted) so a fresh upload does not wait for the next poll.
+    const options = { batchSize: Math.max(1, thumbnailThreads()) * 4, pollingIntervalSeconds: 0.5 };
+    for (let loop = 0; loop < 2; loop++) {
+      const workerId = await boss.work<{ photoId: string }>(THUMBNAIL_QUEUE, options, async (jobs) => {
+        await Promise.all(jobs.map((job) => makeThumbnail(job.data.photoId)));
+      });
+      thumbnailWorkerStarted(workerId);
+    }
   },
 });
 

@@ -2,7 +2,7 @@
 // and both cores work. THUMBNAIL_THREADS=0 renders on the calling thread instead.
 import { availableParallelism } from 'node:os';
 import { Piscina } from 'piscina';
-import type { RenderedThumbnail } from './thumbnail-render.ts';
+import type { RenderedThumbnail, ThumbnailSource } from './thumbnail-render.ts';
 
 let pool: Piscina | null = null;
 
@@ -11,7 +11,7 @@ export const thumbnailThreads = () => {
   return Number.isFinite(configured) && configured >= 0 ? Math.floor(configured) : Math.max(1, availableParallelism());
 };
 
-export async function renderInPool(input: { bytes: Uint8Array; mimeType: string; orientation: number }): Promise<RenderedThumbnail> {
+export async function renderInPool(input: ThumbnailSource): Promise<RenderedThumbnail> {
   const threads = thumbnailThreads();
   if (threads === 0) {
     const { renderThumbnail } = await import('./thumbnail-render.ts');

@@ -3,6 +3,10 @@ import { queue } from '../jobs/queue.ts';
 
 export const THUMBNAIL_QUEUE = 'photo-thumbnail';
 let created: Promise<void> | null = null;
+/** Thumbnail workers polling in this process: woken when photos are queued, rather than at their next poll. */
+const localWorkers = new Set<string>();
+
+export const thumbnailWorkerStarted = (workerId: string) => void localWorkers.add(workerId);
 
 export async function ensureThumbnailQueue() {
   const boss = await queue();
@@ -19,7 +23,9 @@ export async function requestThumbnails(photoIds: string[]) {
   if (photoIds.length === 0) return;
   try {
     const boss = await ensureThumbnailQueue();
-    for (const photoId of photoIds) await boss.send(THUMBNAIL_QUEUE, { photoId });
+    // One insert for the batch; retry and expiry come from the queue's settings.
+    await boss.insert(photoIds.map((photoId) => ({ name: THUMBNAIL_QUEUE, data: { photoId } })));
+    for (const workerId of localWorkers) boss.notifyWorker(workerId);
   } catch (error) {
     console.error('thumbnail jobs not queued:', (error as Error).message);
   }

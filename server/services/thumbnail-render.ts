@@ -1,12 +1,13 @@
 // Renders a photo's thumbnail: the embedded EXIF thumbnail when it is big enough (fast path), otherwise
-// a full decode (mozjpeg through @jsquash/jpeg for JPEG, heic-decode for HEIC, jimp for PNG), then EXIF
-// orientation applied and the result scaled with jimp. Pure CPU work: runs in a worker thread.
+// a full decode (mozjpeg through @jsquash/jpeg for JPEG, heic-decode for HEIC, jimp for PNG); then scaled
+// (box prescale, then jimp) and turned upright for its EXIF orientation. Pure CPU work: runs in a worker thread.
 import fs from 'node:fs';
 import { createRequire } from 'node:module';
 import exifr from 'exifr';
 import { Jimp, ResizeStrategy } from 'jimp';
 import decodeJpeg, { init as initJpegDecoder } from '@jsquash/jpeg/decode.js';
 import heicDecode from 'heic-decode';
+import { boxScaleDown, type RgbaBitmap } from './thumbnail-box-scale.ts';
 
 /** Long edge of a thumbnail in pixels. */
 export const THUMBNAIL_EDGE = 320;
@@ -56,44 +57,53 @@ export function applyOrientation(image: JimpImage, orientation: number) {
   else if (orientation === 8) image.rotate(90);
 }
 
-/** Scales the image down (never up) to THUMBNAIL_EDGE on its long side, in place. */
-function scaleDown(image: JimpImage) {
-  const { width, height } = image.bitmap;
+/** The thumbnail's size for a picture of this size: THUMBNAIL_EDGE on the long side, never enlarged. */
+function thumbnailSize(width: number, height: number) {
   const scale = THUMBNAIL_EDGE / Math.max(width, height);
-  if (scale >= 1) return;
-  // A cheap nearest-neighbour pass to twice the size first: bilinear over 12 MP is the slow part otherwise.
-  if (scale < 0.25) image.resize({ w: Math.round(width * scale * 2), h: Math.round(height * scale * 2), mode: ResizeStrategy.NEAREST_NEIGHBOR });
-  image.resize({ w: Math.max(1, Math.round(width * scale)), h: Math.max(1, Math.round(height * scale)), mode: ResizeStrategy.BILINEAR });
+  if (scale >= 1) return { width, height };
+  return { width: Math.max(1, Math.round(width * scale)), height: Math.max(1, Math.round(height * scale)) };
 }
 
-async function embeddedThumbnail(bytes: Buffer): Promise<JimpImage | null> {
-  const embedded = await exifr.thumbnail(bytes).catch(() => undefined);
-  if (!embedded || embedded.length < 100) return null;
-  const image = (await Jimp.read(Buffer.from(embedded)).catch(() => null)) as JimpImage | null;
-  if (!image || Math.max(image.bitmap.width, image.bitmap.height) < EMBEDDED_MIN_EDGE) return null;
+/** Cuts the bitmap to the thumbnail's size: a box prescale to about twice the size, then jimp's bilinear resize. */
+function scaleDown(bitmap: RgbaBitmap): JimpImage {
+  const target = thumbnailSize(bitmap.width, bitmap.height);
+  const prescaled = boxScaleDown(bitmap, Math.max(bitmap.width, bitmap.height) / (2 * THUMBNAIL_EDGE));
+  const image = fromRgba(prescaled.data, prescaled.width, prescaled.height);
+  if (prescaled.width !== target.width || prescaled.height !== target.height) image.resize({ w: target.width, h: target.height, mode: ResizeStrategy.BILINEAR });
   return image;
 }
 
-async function decodeFull(bytes: Buffer, mimeType: string): Promise<JimpImage> {
-  if (mimeType === 'image/jpeg') {
-    await ensureJpegDecoder();
-    const decoded = await decodeJpeg(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
-    return fromRgba(decoded.data, decoded.width, decoded.height);
-  }
-  if (mimeType === 'image/heic' || mimeType === 'image/heif') {
-    const decoded = await heicDecode({ buffer: bytes });
-    return fromRgba(decoded.data, decoded.width, decoded.height);
-  }
-  return (await Jimp.read(bytes)) as JimpImage;
+const decodeMozjpeg = async (bytes: Uint8Array): Promise<RgbaBitmap> => {
+  await ensureJpegDecoder();
+  return decodeJpeg(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
+};
+
+/** The embedded EXIF thumbnail, when there is one big enough; exifr reads only the file's head for it. */
+async function embeddedThumbnail(source: string | Buffer): Promise<RgbaBitmap | null> {
+  const embedded = await exifr.thumbnail(source).catch(() => undefined);
+  if (!embedded || embedded.length < 100) return null;
+  const bitmap = await decodeMozjpeg(embedded).catch(() => null);
+  if (!bitmap || Math.max(bitmap.width, bitmap.height) < EMBEDDED_MIN_EDGE) return null;
+  return bitmap;
 }
 
-export async function renderThumbnail(input: { bytes: Uint8Array; mimeType: string; orientation: number }): Promise<RenderedThumbnail> {
-  const bytes = Buffer.from(input.bytes.buffer, input.bytes.byteOffset, input.bytes.byteLength);
-  const embedded = input.mimeType === 'image/jpeg' ? await embeddedThumbnail(bytes) : null;
-  const image = embedded ?? (await decodeFull(bytes, input.mimeType));
+async function decodeFull(bytes: Buffer, mimeType: string): Promise<RgbaBitmap> {
+  if (mimeType === 'image/jpeg') return decodeMozjpeg(bytes);
+  if (mimeType === 'image/heic' || mimeType === 'image/heif') return heicDecode({ buffer: bytes });
+  return ((await Jimp.read(bytes)) as JimpImage).bitmap;
+}
+
+/** What to render: the stored file's path (the thread reads it, so the bytes never cross threads) or the bytes. */
+export type ThumbnailSource = { path: string; mimeType: string; orientation: number } | { bytes: Uint8Array; mimeType: string; orientation: number };
+
+export async function renderThumbnail(input: ThumbnailSource): Promise<RenderedThumbnail> {
+  let bytes = 'bytes' in input ? Buffer.from(input.bytes.buffer, input.bytes.byteOffset, input.bytes.byteLength) : null;
+  const embedded = input.mimeType === 'image/jpeg' ? await embeddedThumbnail(bytes ?? (input as { path: string }).path) : null;
+  bytes ??= embedded ? null : await fs.promises.readFile((input as { path: string }).path);
+  const image = scaleDown(embedded ?? (await decodeFull(bytes!, input.mimeType)));
+  // Turned upright after scaling, on 320 px rather than 12 MP.
   // libheif already applies the HEIF container's rotation; EXIF orientation there would turn it twice.
   if (input.mimeType !== 'image/heic' && input.mimeType !== 'image/heif') applyOrientation(image, input.orientation);
-  scaleDown(image);
   const out = await image.getBuffer('image/jpeg', { quality: 78 });
   return { bytes: out, width: image.bitmap.width, height: image.bitmap.height, source: embedded ? 'embedded' : 'decoded' };
 }

@@ -1,7 +1,7 @@
 // Makes and stores one photo's thumbnail; a photo that cannot be decoded is marked failed, its sighting kept.
 import { QueryTypes } from 'sequelize';
 import { sequelize } from '../db.ts';
-import { readStored, thumbnailKeyFor, writeStored } from './storage.ts';
+import { storedPath, thumbnailKeyFor, writeStored } from './storage.ts';
 import { renderInPool } from './thumbnail-pool.ts';
 
 export type ThumbnailResult = { status: 'ready'; source: 'embedded' | 'decoded' } | { status: 'failed'; reason: string } | { status: 'skipped' };
@@ -12,10 +12,11 @@ export async function makeThumbnail(photoId: string): Promise<ThumbnailResult> {
     { replacements: { photoId }, type: QueryTypes.SELECT },
   );
   if (!photo || photo.thumbnailStatus === 'ready') return { status: 'skipped' };
+  // Orientation as read at upload: the thread does not parse the photo's EXIF a second time for it.
   const orientation = Number(photo.exif?.Orientation ?? 1) || 1;
   let rendered;
   try {
-    rendered = await renderInPool({ bytes: await readStored(photo.storageKey), mimeType: photo.mimeType, orientation });
+    rendered = await renderInPool({ path: storedPath(photo.storageKey), mimeType: photo.mimeType, orientation });
   } catch (error) {
     const reason = (error as Error).message?.slice(0, 500) || 'The photo could not be decoded.';
     await sequelize.query(`UPDATE photos SET thumbnail_status = 'failed', thumbnail_error = :reason, updated_at = now() WHERE id = :photoId`, { replacements: { photoId, reason } });

@@ -16,6 +16,7 @@ import {
   toDmsRationals,
   uploadedFiles,
   uploadPhotos,
+  withExif,
 } from '../helpers/photos.ts';
 import { stopQueue } from '../../server/jobs/queue.ts';
 import { startWorkers } from '../../server/jobs/workers.ts';
@@ -273,6 +274,28 @@ describe('storage and thumbnails', () => {
     // Orientation 6 (TIFF 6.0 tag 274: row 0 is the visual right side): a 400 × 200 photo stands 200 × 400.
     expect(image.bitmap.height).toBeGreaterThan(image.bitmap.width);
     expect(image.bitmap.height / image.bitmap.width).toBeCloseTo(2, 1);
+  });
+
+  it('keeps each part of a large photo where it belongs when turning it upright for orientation 6', async () => {
+    const { scout, pest } = await scoutingSetUp();
+    // 1600 × 1200, well past twice the 320 px edge, so the decode path's prescale runs; the stored top-left quarter is red.
+    const picture = new Jimp({ width: 1600, height: 1200, color: 0x4f8a2bff });
+    picture.scan(0, 0, 800, 600, (_x, _y, idx) => void picture.bitmap.data.set([220, 30, 30], idx));
+    const photo = await withExif(await picture.getBuffer('image/jpeg', { quality: 90 }), { orientation: 6, gps: insideField() });
+    const res = await uploadPhotos(scout, [{ bytes: photo }], { pestId: pest.id }).expect(200);
+    expect(await makeThumbnail(res.body.results[0].photoId)).toEqual({ status: 'ready', source: 'decoded' });
+    const thumb = await Jimp.read((await scout.get(`/api/photos/${res.body.results[0].photoId}/thumbnail`).buffer(true).expect(200)).body as Buffer);
+    expect([thumb.bitmap.width, thumb.bitmap.height]).toEqual([240, 320]);
+    const rgbAt = (x: number, y: number) => Array.from(thumb.bitmap.data.subarray((y * 240 + x) * 4, (y * 240 + x) * 4 + 3));
+    // TIFF 6.0 tag 274, value 6: stored row 0 is the visual right side and stored column 0 the visual top, so the
+    // stored top-left quarter stands at the top right; the other quarters keep the leaf green.
+    const [r, g] = rgbAt(180, 80);
+    expect(r).toBeGreaterThan(180);
+    expect(g).toBeLessThan(80);
+    for (const [x, y] of [[60, 80], [60, 240], [180, 240]]) {
+      const [qr, qg] = rgbAt(x, y);
+      expect(qg).toBeGreaterThan(qr);
+    }
   });
 
   it('uses the embedded EXIF thumbnail when the photo carries one, turned upright', async () => {
