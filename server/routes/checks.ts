@@ -1,11 +1,12 @@
-import { Router } from 'express';
+import { Router, type Request, type Response } from 'express';
 import { z, type ZodError } from 'zod';
 import { requireRole, actor } from '../middleware/access.ts';
 import { parse } from '../middleware/validate.ts';
 import { AppError, fromZod } from '../errors.ts';
 import { checkRequestSchema, sensitivityRequestSchema, type CheckRequest } from '../../shared/schemas/checks.ts';
-import { getCheck, requestCheck } from '../services/checks.ts';
+import { getCheckAnswer, requestCheck } from '../services/checks.ts';
 import { sensitivityStrip } from '../services/sensitivity.ts';
+import type { SerialisedAnswer } from '../services/check-answer-cache.ts';
 
 // Scouts never see checks; growers see only what a zone notice shows them, so both are refused here.
 export const checksRouter = Router();
@@ -39,6 +40,20 @@ checksRouter.post('/sensitivity', requireRole('adviser', 'admin'), async (req, r
   res.json(await sensitivityStrip(actor(req), parseCheckRequest(req.body, sensitivityRequestSchema)));
 });
 
+/** Sends pre-serialised JSON: the stored gzip when the client takes it, 304 when its copy is current. */
+function sendSerialised(req: Request, res: Response, answer: SerialisedAnswer) {
+  res.setHeader('ETag', answer.etag);
+  res.vary('Accept-Encoding');
+  res.type('json');
+  if (req.fresh) return void res.status(304).end();
+  if (answer.gzip && req.acceptsEncodings('gzip', 'identity') === 'gzip') {
+    // Already encoded, so the compression middleware leaves it alone.
+    res.setHeader('Content-Encoding', 'gzip');
+    return void res.send(answer.gzip);
+  }
+  res.send(answer.json);
+}
+
 checksRouter.get('/:id', requireRole('adviser', 'admin'), async (req, res) => {
-  res.json({ check: await getCheck(actor(req), parse(idParam, req.params).id) });
+  sendSerialised(req, res, await getCheckAnswer(actor(req), parse(idParam, req.params).id));
 });

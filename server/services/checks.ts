@@ -14,6 +14,7 @@ import { enqueueCheck } from '../jobs/check-worker.ts';
 import { ENGINE_VERSION } from '../../shared/analysis/version.ts';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
 import type { CheckRequest, CheckSummary, CheckView, Spread } from '../../shared/schemas/checks.ts';
+import { cachedAnswer, serialise, type SerialisedAnswer } from './check-answer-cache.ts';
 
 const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
 
@@ -119,6 +120,22 @@ export async function getCheck(actor: Actor, id: string): Promise<CheckView> {
   const check = await PatternCheck.findOne({ where: { id, organisationId: actor.organisationId } });
   if (!check) throw notFound('That pattern check');
   return present(check);
+}
+
+/**
+ * The GET answer `{ check }` for one check, already serialised. A done check's bytes come from the cache,
+ * keyed by what could change them; a cheap scoped look-up still runs first, so a deleted check is gone at once.
+ */
+export async function getCheckAnswer(actor: Actor, id: string): Promise<SerialisedAnswer> {
+  const [stored] = await sequelize.query<{ status: string; version: string }>(
+    `SELECT c.status, concat_ws('|', c.updated_at::text, c.finished_at::text, u.name) AS version
+       FROM pattern_checks c LEFT JOIN users u ON u.id = c.created_by
+      WHERE c.id = :id AND c.organisation_id = :org`,
+    { replacements: { id, org: actor.organisationId }, type: QueryTypes.SELECT },
+  );
+  if (!stored) throw notFound('That pattern check');
+  const build = async () => JSON.stringify({ check: await getCheck(actor, id) });
+  return stored.status === 'done' ? cachedAnswer(id, stored.version, build) : serialise(await build());
 }
 
 type SpreadOf = { spread?: { verdict?: Spread }; n?: number };

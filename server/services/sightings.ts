@@ -29,13 +29,31 @@ const sightingSelect = `
 
 type SightingRow = Omit<SightingView, 'position' | 'observedAt' | 'createdAt'> & { lon: number | null; lat: number | null; observedAt: Date | null; createdAt: Date; deletedAt: Date | null };
 
+// Spelled out key by key, in the answer's order (the row's columns, then position): rest/spread copies of
+// thousands of rows cost more than the query that read them.
 function present(row: SightingRow): SightingView {
-  const { lon, lat, deletedAt: _deletedAt, ...rest } = row;
   return {
-    ...rest,
-    position: lon === null || lat === null ? null : { lon, lat },
+    id: row.id,
+    fieldId: row.fieldId,
+    walkId: row.walkId,
+    walkedOn: row.walkedOn,
+    pestId: row.pestId,
+    pestName: row.pestName,
+    count: row.count,
+    positionSource: row.positionSource,
+    accuracyM: row.accuracyM,
+    altitudeM: row.altitudeM,
+    directionDeg: row.directionDeg,
     observedAt: row.observedAt ? new Date(row.observedAt).toISOString() : null,
+    timeFlag: row.timeFlag,
+    status: row.status,
+    photoId: row.photoId,
+    thumbnailStatus: row.thumbnailStatus,
+    scoutId: row.scoutId,
+    scoutName: row.scoutName,
+    isEmptyStop: row.isEmptyStop,
     createdAt: new Date(row.createdAt).toISOString(),
+    position: row.lon === null || row.lat === null ? null : { lon: row.lon, lat: row.lat },
   };
 }
 
