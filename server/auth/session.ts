@@ -25,7 +25,8 @@ export function sessionMiddleware(pool: pg.Pool, c: SessionConfig = config) {
     store,
     resave: false,
     saveUninitialized: false,
-    rolling: true,
+    // A session lasts one working day from sign-in; not rolling it spares every read a session UPDATE.
+    rolling: false,
     cookie: sessionCookieOptions(c),
   });
 }
