@@ -13,7 +13,7 @@ import { recordAudit } from './audit.ts';
 import { visibleFieldIds } from './scope.ts';
 import { readBoundary } from './boundary-input.ts';
 
-export interface FieldView {
+export interface FieldSummary {
   id: string;
   farmId: string;
   farmName: string;
@@ -27,7 +27,7 @@ export interface FieldView {
 
 const stripCrs = (g: MultiPolygon & { crs?: unknown }): MultiPolygon => ({ type: 'MultiPolygon', coordinates: g.coordinates });
 
-async function present(fields: Field[], actor: Actor): Promise<FieldView[]> {
+async function present(fields: Field[], actor: Actor): Promise<FieldSummary[]> {
   const farms = await Farm.findAll({ where: { id: { [Op.in]: [...new Set(fields.map((f) => f.farmId))] } } });
   const farmNames = new Map(farms.map((f) => [f.id, f.name]));
   const assignments = actor.role === 'admin' || actor.role === 'adviser'

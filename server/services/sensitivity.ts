@@ -14,17 +14,17 @@ export const CELL_SIZE_FACTORS = [0.5, 1, 2] as const;
 export const SENSITIVITY_AREA_BASES = ['boundary', 'bbox', 'hull'] as const;
 
 function row(result: AnalysisResult, cellSizeFactor: number, areaBasis: SensitivityRow['areaBasis']): SensitivityRow {
-  const nn = result.nearestNeighbour;
+  const nearest = result.nearestNeighbour;
   return {
     cellSizeM: result.quadrat?.cellSizeM ?? null,
     cellSizeFactor,
     areaBasis,
     verdict: result.spread.verdict,
-    R: nn?.R ?? null,
-    z: nn?.z ?? null,
-    pValue: nn?.pValue ?? null,
-    donnellyR: nn?.donnelly.R ?? null,
-    monteCarloPValue: nn?.monteCarlo.pValue ?? null,
+    R: nearest?.R ?? null,
+    z: nearest?.z ?? null,
+    pValue: nearest?.pValue ?? null,
+    donnellyR: nearest?.donnelly.R ?? null,
+    monteCarloPValue: nearest?.monteCarlo.pValue ?? null,
     chiSquare: result.quadrat?.chiSquare ?? null,
     quadratPValue: result.quadrat?.pValue ?? null,
   };

@@ -41,17 +41,17 @@ export function verdictInWords(result: unknown): VerdictWords {
     return { spread: null, headline: 'No pattern check is attached: the adviser drew these zones from the field visit.', figures: [] };
   }
   const verdict = r.spread.verdict;
-  const nn = r.nearestNeighbour;
+  const nearest = r.nearestNeighbour;
   const figures: string[] = [];
   if (typeof r.n === 'number') figures.push(`${r.n} sighting${r.n === 1 ? '' : 's'} inside the field.`);
-  if (verdict === 'too-few' || !nn) {
+  if (verdict === 'too-few' || !nearest) {
     return { spread: verdict, headline: `${reading['too-few']} (a check needs at least ${r.spread.minSightings ?? 10} sightings).`, figures };
   }
-  const monteCarlo = r.spread.decidedBy === 'monte-carlo' && nn.monteCarlo?.pValue != null;
-  const p = monteCarlo ? (nn.monteCarlo!.pValue as number) : (nn.donnelly?.pValue ?? nn.pValue);
-  const pText = monteCarlo ? `${formatP(p)} against ${nn.monteCarlo!.simulations} random patterns inside the field` : formatP(p);
-  const headline = `${reading[verdict]} (Clark–Evans R = ${nn.R.toFixed(2)}, z = ${signed(nn.z, 1)}, ${pText}).`;
-  if (nn.donnelly) figures.push(`With Donnelly’s edge correction for the field boundary, R = ${nn.donnelly.R.toFixed(2)} (z = ${signed(nn.donnelly.z, 1)}, ${formatP(nn.donnelly.pValue)}); R below 1 means closer together than chance, above 1 more evenly spaced.`);
+  const monteCarlo = r.spread.decidedBy === 'monte-carlo' && nearest.monteCarlo?.pValue != null;
+  const p = monteCarlo ? (nearest.monteCarlo!.pValue as number) : (nearest.donnelly?.pValue ?? nearest.pValue);
+  const pText = monteCarlo ? `${formatP(p)} against ${nearest.monteCarlo!.simulations} random patterns inside the field` : formatP(p);
+  const headline = `${reading[verdict]} (Clark–Evans R = ${nearest.R.toFixed(2)}, z = ${signed(nearest.z, 1)}, ${pText}).`;
+  if (nearest.donnelly) figures.push(`With Donnelly’s edge correction for the field boundary, R = ${nearest.donnelly.R.toFixed(2)} (z = ${signed(nearest.donnelly.z, 1)}, ${formatP(nearest.donnelly.pValue)}); R below 1 means closer together than chance, above 1 more evenly spaced.`);
   if (r.quadrat && r.quadrat.df > 0) {
     const vmr = r.quadrat.varianceToMean;
     figures.push(`Quadrat count test: χ² = ${r.quadrat.chiSquare.toFixed(1)} on ${r.quadrat.df} degrees of freedom (${formatP(r.quadrat.pValue)})${vmr === null ? '' : `, variance-to-mean ratio ${vmr.toFixed(2)}`}.`);

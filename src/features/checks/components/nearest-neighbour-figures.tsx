@@ -5,13 +5,13 @@ import { explainDonnelly, explainMeanDistance, explainMonteCarlo, explainP, expl
 import { Figure, FigureList, SectionTitle, Warning } from './figure-list.tsx';
 
 export function NearestNeighbourFigures({ result }: { result: AnalysisResult }) {
-  const nn = result.nearestNeighbour;
+  const nearest = result.nearestNeighbour;
   const { area, spread } = result;
   const alpha = spread.alpha;
   return (
-    <section aria-labelledby="nn-title">
+    <section aria-labelledby="nearest-title">
       <SectionTitle source="Clark & Evans 1954; Donnelly 1978">
-        <span id="nn-title">Spacing of sightings</span>
+        <span id="nearest-title">Spacing of sightings</span>
       </SectionTitle>
       <FigureList label="Nearest-neighbour figures">
         <Figure name="Sightings (n)" value={result.n} figure="n">
@@ -24,34 +24,34 @@ export function NearestNeighbourFigures({ result }: { result: AnalysisResult }) 
         <Figure name="Area used" value={<span className="whitespace-nowrap text-xs">{hectaresAndAcres(area.usedM2)}</span>} figure="area-used">
           Field boundary {hectaresAndAcres(area.boundaryM2)}; bounding rectangle {hectaresAndAcres(area.boundingBoxM2)}; hull {hectaresAndAcres(area.convexHullM2)}.
         </Figure>
-        {nn ? (
+        {nearest ? (
           <>
-            <Figure name="Mean nearest distance" value={metres(nn.meanDistanceM)} figure="mean-distance">
-              {explainMeanDistance(nn)}
+            <Figure name="Mean nearest distance" value={metres(nearest.meanDistanceM)} figure="mean-distance">
+              {explainMeanDistance(nearest)}
             </Figure>
-            <Figure name="Expected distance" value={metres(nn.expectedDistanceM)} figure="expected-distance">
-              The spacing a chance scatter of {nn.n} sightings over the area used would give.
+            <Figure name="Expected distance" value={metres(nearest.expectedDistanceM)} figure="expected-distance">
+              The spacing a chance scatter of {nearest.n} sightings over the area used would give.
             </Figure>
-            <Figure name="R (Clark–Evans)" value={fixed(nn.R, 3)} figure="R">
-              {explainR(nn.R, nn.pValue, alpha)}
+            <Figure name="R (Clark–Evans)" value={fixed(nearest.R, 3)} figure="R">
+              {explainR(nearest.R, nearest.pValue, alpha)}
             </Figure>
-            <Figure name="z" value={fixed(nn.z)} figure="z">
-              {explainZ(nn.z)}
+            <Figure name="z" value={fixed(nearest.z)} figure="z">
+              {explainZ(nearest.z)}
             </Figure>
-            <Figure name="p (normal)" value={pText(nn.pValue)} figure="p">
-              {explainP(nn.pValue, alpha)}
+            <Figure name="p (normal)" value={pText(nearest.pValue)} figure="p">
+              {explainP(nearest.pValue, alpha)}
             </Figure>
-            <Figure name="R, edge-corrected" value={fixed(nn.donnelly.R, 3)} figure="donnelly-R">
-              {explainDonnelly(nn)}
+            <Figure name="R, edge-corrected" value={fixed(nearest.donnelly.R, 3)} figure="donnelly-R">
+              {explainDonnelly(nearest)}
             </Figure>
-            <Figure name="Edge-corrected z" value={fixed(nn.donnelly.z)} figure="donnelly-z">
-              Expected spacing with the edge allowed for: {metres(nn.donnelly.expectedDistanceM)}.
+            <Figure name="Edge-corrected z" value={fixed(nearest.donnelly.z)} figure="donnelly-z">
+              Expected spacing with the edge allowed for: {metres(nearest.donnelly.expectedDistanceM)}.
             </Figure>
-            <Figure name="Edge-corrected p" value={pText(nn.donnelly.pValue)} figure="donnelly-p">
+            <Figure name="Edge-corrected p" value={pText(nearest.donnelly.pValue)} figure="donnelly-p">
               The normal p of the edge-corrected test; used for the verdict only when no random scatters were simulated.
             </Figure>
-            <Figure name="Monte Carlo p" value={pText(nn.monteCarlo.pValue)} figure="monte-carlo-p">
-              {explainMonteCarlo(nn, alpha)}
+            <Figure name="Monte Carlo p" value={pText(nearest.monteCarlo.pValue)} figure="monte-carlo-p">
+              {explainMonteCarlo(nearest, alpha)}
             </Figure>
           </>
         ) : (
