@@ -1,5 +1,5 @@
 // Edge-correction weights for second-order statistics in a polygonal field.
-import { isInsideField, type PlanarField } from './field-geometry.ts';
+import { isInsideField, squaredDistanceToEdge, type PlanarField } from './field-geometry.ts';
 
 const TWO_PI = 2 * Math.PI;
 
@@ -69,18 +69,7 @@ export function edgesWithin(field: PlanarField, x: number, y: number, r: number,
   const r2 = r * r;
   let count = 0;
   for (let e = 0; e < field.edgeCount; e++) {
-    const k = e * 4;
-    const ax = edges[k];
-    const ay = edges[k + 1];
-    const dx = edges[k + 2] - ax;
-    const dy = edges[k + 3] - ay;
-    const len2 = dx * dx + dy * dy;
-    let t = len2 > 0 ? ((x - ax) * dx + (y - ay) * dy) / len2 : 0;
-    if (t < 0) t = 0;
-    else if (t > 1) t = 1;
-    const ex = ax + t * dx - x;
-    const ey = ay + t * dy - y;
-    if (ex * ex + ey * ey <= r2) out[count++] = e;
+    if (squaredDistanceToEdge(edges, e * 4, x, y) <= r2) out[count++] = e;
   }
   return count;
 }

@@ -130,22 +130,27 @@ export function isInsideField(field: PlanarField, x: number, y: number): boolean
   return inside;
 }
 
+/** Squared distance from (x, y) to the edge stored at edges[k..k+3] (ax, ay, bx, by). */
+export function squaredDistanceToEdge(edges: Float64Array, k: number, x: number, y: number): number {
+  const ax = edges[k];
+  const ay = edges[k + 1];
+  const dx = edges[k + 2] - ax;
+  const dy = edges[k + 3] - ay;
+  const len2 = dx * dx + dy * dy;
+  let t = len2 > 0 ? ((x - ax) * dx + (y - ay) * dy) / len2 : 0;
+  if (t < 0) t = 0;
+  else if (t > 1) t = 1;
+  const ex = ax + t * dx - x;
+  const ey = ay + t * dy - y;
+  return ex * ex + ey * ey;
+}
+
 /** Distance from a point to the nearest boundary edge (outer ring or hole). */
 export function distanceToBoundary(field: PlanarField, x: number, y: number): number {
   const edges = field.edges;
   let best = Infinity;
   for (let k = 0; k < field.edgeCount * 4; k += 4) {
-    const ax = edges[k];
-    const ay = edges[k + 1];
-    const dx = edges[k + 2] - ax;
-    const dy = edges[k + 3] - ay;
-    const len2 = dx * dx + dy * dy;
-    let t = len2 > 0 ? ((x - ax) * dx + (y - ay) * dy) / len2 : 0;
-    if (t < 0) t = 0;
-    else if (t > 1) t = 1;
-    const ex = ax + t * dx - x;
-    const ey = ay + t * dy - y;
-    const d2 = ex * ex + ey * ey;
+    const d2 = squaredDistanceToEdge(edges, k, x, y);
     if (d2 < best) best = d2;
   }
   return Math.sqrt(best);
