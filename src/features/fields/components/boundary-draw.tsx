@@ -1,11 +1,10 @@
 // Drawing and editing a boundary on the map with the Leaflet-Geoman plugin; every change is
 // reported as one MultiPolygon (or null when nothing is drawn).
-import '@geoman-io/leaflet-geoman-free';
-import '@geoman-io/leaflet-geoman-free/dist/leaflet-geoman.css';
 import { useEffect, useRef } from 'react';
 import L from 'leaflet';
 import type { MultiPolygon, Polygon, Position } from 'geojson';
 import { useMap } from 'react-leaflet';
+import { addPolygonEditing } from '../../../components/map-editing.ts';
 
 function drawnBoundary(map: L.Map): MultiPolygon | null {
   const polygons: Position[][][] = [];
@@ -25,23 +24,7 @@ export function BoundaryDraw({ initial, onChange }: { initial: MultiPolygon | nu
   const start = useRef(initial);
 
   useEffect(() => {
-    map.pm.addControls({
-      position: 'topleft',
-      drawMarker: false,
-      drawCircleMarker: false,
-      drawPolyline: false,
-      drawCircle: false,
-      drawText: false,
-      drawRectangle: true,
-      drawPolygon: true,
-      editMode: true,
-      dragMode: true,
-      cutPolygon: true,
-      rotateMode: false,
-      removalMode: true,
-    });
-    // A self-crossing edge would be refused by the server anyway; refuse it while drawing.
-    map.pm.setGlobalOptions({ allowSelfIntersection: false, snappable: true });
+    addPolygonEditing(map, { cutPolygon: true });
     const emit = () => report.current(drawnBoundary(map));
     const watch = (layer: L.Layer) => {
       layer.on('pm:edit', emit);

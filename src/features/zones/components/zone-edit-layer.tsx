@@ -1,11 +1,10 @@
 // Editing treatment zones on the map with the Leaflet-Geoman plugin: move vertices, drag, draw a zone by
 // hand, remove one. The field boundary on the same map stays out of every editing mode.
-import '@geoman-io/leaflet-geoman-free';
-import '@geoman-io/leaflet-geoman-free/dist/leaflet-geoman.css';
 import { useEffect, useRef } from 'react';
 import L from 'leaflet';
 import type { MultiPolygon, Polygon } from 'geojson';
 import { useMap } from 'react-leaflet';
+import { addPolygonEditing } from '../../../components/map-editing.ts';
 import type { WorkingZone } from './working-zones.ts';
 
 export const zoneStyle: L.PathOptions = { color: '#9a3f14', weight: 2, fillColor: '#f08a4b', fillOpacity: 0.4 };
@@ -31,22 +30,7 @@ export function ZoneEditLayer({ zones, revision, handlers }: { zones: WorkingZon
   const keys = useRef(new Map<L.Layer, string>());
 
   useEffect(() => {
-    map.pm.addControls({
-      position: 'topleft',
-      drawMarker: false,
-      drawCircleMarker: false,
-      drawPolyline: false,
-      drawCircle: false,
-      drawText: false,
-      drawRectangle: true,
-      drawPolygon: true,
-      editMode: true,
-      dragMode: true,
-      cutPolygon: false,
-      rotateMode: false,
-      removalMode: true,
-    });
-    map.pm.setGlobalOptions({ allowSelfIntersection: false, snappable: true });
+    addPolygonEditing(map, { cutPolygon: false });
     // The boundary (drawn by the map frame) must not be edited, dragged or removed with the zones.
     const protect = (layer: L.Layer) => {
       if (layer instanceof L.Path && !keys.current.has(layer) && !(layer as { _pmTempLayer?: boolean })._pmTempLayer) layer.options.pmIgnore = true;

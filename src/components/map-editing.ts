@@ -1,0 +1,24 @@
+// The editing toolbar every map editor uses (field boundaries, treatment zones): polygons and rectangles
+// only, and no self-crossing edges, which the server would refuse anyway.
+import '@geoman-io/leaflet-geoman-free';
+import '@geoman-io/leaflet-geoman-free/dist/leaflet-geoman.css';
+import type L from 'leaflet';
+
+export function addPolygonEditing(map: L.Map, options: { cutPolygon: boolean }) {
+  map.pm.addControls({
+    position: 'topleft',
+    drawMarker: false,
+    drawCircleMarker: false,
+    drawPolyline: false,
+    drawCircle: false,
+    drawText: false,
+    drawRectangle: true,
+    drawPolygon: true,
+    editMode: true,
+    dragMode: true,
+    cutPolygon: options.cutPolygon,
+    rotateMode: false,
+    removalMode: true,
+  });
+  map.pm.setGlobalOptions({ allowSelfIntersection: false, snappable: true });
+}
