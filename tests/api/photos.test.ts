@@ -192,7 +192,7 @@ describe('bad inputs get a clear outcome and leave nothing behind', () => {
     const saved = { ...process.env };
     try {
       process.env.PHOTO_MAX_FILE_MB = '0.01';
-      const big = await makeJpeg({ width: 640, height: 480, gps: insideField(), quality: 95 });
+      const big = await makeJpeg({ width: 1600, height: 1200, gps: insideField(), quality: 95, markSeed: 321 });
       expect(big.length).toBeGreaterThan(0.01 * 1024 * 1024);
       const tooBig = await uploadPhotos(scout, [{ bytes: await makeJpeg({ gps: insideField(0.1, 0.1) }) }, { bytes: big, name: 'big.jpg' }], { pestId: pest.id });
       expect(tooBig.status).toBe(413);
