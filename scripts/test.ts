@@ -63,6 +63,10 @@ try {
   const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn', '--outDir', env.CLIENT_DIR, '--emptyOutDir'], { env: { ...env, NODE_ENV: 'production' }, stdio: 'inherit' });
   if (build.status !== 0) throw new Error('The client build failed.');
 
+  // Printed for the record; `npm run audit` is the check that fails on a high or critical advisory.
+  const audit = spawnSync('node', ['--import', 'tsx', 'scripts/audit.ts'], { env, encoding: 'utf8', timeout: 150_000 });
+  console.log((audit.stdout ?? '').trim() || 'Dependency audit not checked: `npm audit` did not finish.');
+
   const reportFile = path.join(workDir, 'vitest-report.json');
   const vitest = spawn('npx', ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`, ...vitestArgs], { env, stdio: 'inherit' });
   const vitestCode: number = await new Promise((resolve) => vitest.on('exit', (code) => resolve(code ?? 1)));
