@@ -2,12 +2,13 @@ import { Op } from 'sequelize';
 import { sequelize } from '../db.ts';
 import { Farm } from '../models/farm.ts';
 import { FarmContact } from '../models/farm-contact.ts';
+import { Field } from '../models/field.ts';
 import { FarmGrower } from '../models/farm-grower.ts';
 import { User } from '../models/user.ts';
 import '../models/associations.ts';
 import type { Actor } from '../auth/passport.ts';
 import type { FarmInput } from '../../shared/schemas/farms.ts';
-import { badRequest, notFound } from '../errors.ts';
+import { badRequest, conflict, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { visibleFarmIds } from './scope.ts';
 
@@ -66,6 +67,9 @@ export async function deleteFarm(actor: Actor, id: string) {
   await sequelize.transaction(async (transaction) => {
     const farm = await Farm.findOne({ where: { id, organisationId: actor.organisationId }, transaction });
     if (!farm) throw notFound('That farm');
+    // Deleting a farm would take its fields and their scouting records with it: its fields go first, one by one.
+    const fields = await Field.count({ where: { farmId: id }, transaction });
+    if (fields > 0) throw conflict(`${farm.name} still has ${fields} ${fields === 1 ? 'field' : 'fields'}; delete ${fields === 1 ? 'it' : 'them'} first, then the farm.`);
     await farm.destroy({ transaction });
     await recordAudit(actor, 'delete', 'farm', id, { name: farm.name }, transaction);
   });

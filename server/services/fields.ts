@@ -8,7 +8,7 @@ import { User } from '../models/user.ts';
 import '../models/associations.ts';
 import type { Actor } from '../auth/passport.ts';
 import type { FieldCreateInput } from '../../shared/schemas/fields.ts';
-import { badRequest, notFound } from '../errors.ts';
+import { badRequest, conflict, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { visibleFieldIds } from './scope.ts';
 import { readBoundary } from './boundary-input.ts';
@@ -118,9 +118,22 @@ export async function updateField(actor: Actor, id: string, input: Partial<Field
   return getField(actor, id);
 }
 
+const counted = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+
+/**
+ * A field's scouting record (sightings, notices sent to the grower) outlives mistakes in its set-up, so a field
+ * holding one is not deleted; its boundary and details can still be edited.
+ */
 export async function deleteField(actor: Actor, id: string) {
   const field = await findVisibleField(actor, id);
   await sequelize.transaction(async (transaction) => {
+    const [record] = await sequelize.query<{ sightings: number; notices: number }>(
+      `SELECT (SELECT count(*)::int FROM sightings WHERE field_id = :id AND deleted_at IS NULL) AS sightings,
+              (SELECT count(*)::int FROM notices WHERE field_id = :id) AS notices`,
+      { replacements: { id }, type: QueryTypes.SELECT, transaction },
+    );
+    const held = [record.sightings && counted(record.sightings, 'sighting', 'sightings'), record.notices && counted(record.notices, 'zone notice', 'zone notices')].filter(Boolean);
+    if (held.length) throw conflict(`${field.name} has ${held.join(' and ')} on record, so it is kept; edit its boundary or details instead of deleting it.`);
     await field.destroy({ transaction });
     await recordAudit(actor, 'delete', 'field', id, { name: field.name }, transaction);
   });

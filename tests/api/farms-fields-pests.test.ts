@@ -7,6 +7,7 @@ import { signedIn } from '../helpers/http.ts';
 import { makeOrganisation } from '../helpers/org.ts';
 import { auditLog, createFarm, createField, createPest, fieldCount } from '../helpers/farm-records.ts';
 import { plainField } from '../helpers/boundary-shapes.ts';
+import { makeScoutedField, stopsFrom, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 
 async function adminOfNewOrganisation() {
   const org = await makeOrganisation('Records');
@@ -62,6 +63,21 @@ describe('farms and grower contacts', () => {
     expect(res.body.error.fields['contacts.0.email']).toMatch(/valid e-mail address/);
   });
 
+  it('deletes a farm without fields and logs it; a farm with fields is refused by name and kept', async () => {
+    const { org, admin } = await adminOfNewOrganisation();
+    const empty = await createFarm(admin, { name: 'Short Lease' });
+    await admin.delete(`/api/farms/${empty.id}`).expect(204);
+    await admin.get(`/api/farms/${empty.id}`).expect(404);
+    expect(await auditLog(org.id)).toContainEqual(expect.objectContaining({ action: 'delete', entity: 'farm', entity_id: empty.id }));
+
+    const farmed = await createFarm(admin, { name: 'Long Lease' });
+    await createField(admin, farmed.id);
+    const res = await admin.delete(`/api/farms/${farmed.id}`);
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toBe('Long Lease still has 1 field; delete it first, then the farm.');
+    expect((await admin.get(`/api/farms/${farmed.id}`).expect(200)).body.farm.name).toBe('Long Lease');
+  });
+
   it('refuses a second farm of the same name in one organisation', async () => {
     const { admin } = await adminOfNewOrganisation();
     await createFarm(admin, { name: 'Twin Oaks' });
@@ -80,6 +96,17 @@ describe('fields, scouts and growers', () => {
     await admin.get(`/api/fields/${field.id}`).expect(404);
     expect(await fieldCount(org.id)).toBe(before - 1);
     expect(await auditLog(org.id)).toContainEqual(expect.objectContaining({ action: 'delete', entity: 'field', entity_id: field.id }));
+  });
+
+  it('keeps a field with sightings on record: deleting it answers 409 with the count and removes nothing', async () => {
+    const { org, admin } = await adminOfNewOrganisation();
+    const { field, sightingIds } = await makeScoutedField(org, stopsFrom([TEST_FIELD_CORNER.lon + 0.001, TEST_FIELD_CORNER.lon + 0.002], [TEST_FIELD_CORNER.lat + 0.001, TEST_FIELD_CORNER.lat + 0.002], [4, 0]));
+    const res = await admin.delete(`/api/fields/${field.id}`);
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toBe(`${field.name} has 2 sightings on record, so it is kept; edit its boundary or details instead of deleting it.`);
+    await admin.get(`/api/fields/${field.id}`).expect(200);
+    const [{ kept }] = await sequelize.query<{ kept: number }>('SELECT count(*)::int AS kept FROM sightings WHERE id IN (:ids)', { replacements: { ids: sightingIds }, type: QueryTypes.SELECT });
+    expect(kept).toBe(sightingIds.length);
   });
 
   it('edits a field\'s details and logs the change', async () => {

@@ -85,4 +85,29 @@ describe('admin fields in the browser', () => {
 
     await page.close();
   });
+
+  it('deletes a farm only once its fields are gone, saying why when it still has one', async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await page.goto(`${server.url}/sign-in`);
+    await page.getByLabel('E-mail address').fill(org.users.admin.email);
+    await page.getByLabel('Password').fill(TEST_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('heading', { name: 'Overview' }).waitFor();
+
+    await page.goto(`${server.url}/admin/farms`);
+    await page.getByRole('link', { name: /Hollow Creek/ }).first().click();
+    await page.getByRole('heading', { name: 'Hollow Creek' }).waitFor();
+    await page.getByRole('button', { name: 'Delete farm' }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Delete farm' }).click();
+    await page.getByText('Hollow Creek still has 1 field; delete it first, then the farm.').waitFor();
+
+    await page.getByRole('button', { name: 'Delete North paddock' }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Delete field' }).click();
+    await page.getByText('This farm has no fields yet').waitFor();
+    await page.getByRole('button', { name: 'Delete farm' }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Delete farm' }).click();
+    await page.getByRole('heading', { name: 'Farms' }).waitFor();
+    await expect.poll(() => page.getByRole('link', { name: /Hollow Creek/ }).count()).toBe(0);
+    await page.close();
+  });
 });

@@ -4,6 +4,7 @@ import { PageFrame, Panel } from '../../components/page-frame.tsx';
 import { ErrorState, LoadingState } from '../../components/query-states.tsx';
 import { useFarm } from '../../features/admin/api/get-farm.ts';
 import { FarmForm } from '../../features/admin/components/farm-form.tsx';
+import { DeleteFarmButton } from '../../features/admin/components/delete-farm-button.tsx';
 import { FarmGrowersPanel } from '../../features/admin/components/farm-growers-panel.tsx';
 import { FarmFieldsPanel } from '../../features/fields/components/farm-fields-panel.tsx';
 
@@ -14,7 +15,7 @@ export function AdminFarmPage() {
   if (farm.isPending) return <PageFrame title="Farm" eyebrow={eyebrow}><LoadingState label="Loading the farm…" /></PageFrame>;
   if (farm.isError) return <PageFrame title="Farm" eyebrow={eyebrow}><ErrorState error={farm.error} onRetry={() => farm.refetch()} /></PageFrame>;
   return (
-    <PageFrame title={farm.data.name} eyebrow={eyebrow} wide>
+    <PageFrame title={farm.data.name} eyebrow={eyebrow} wide actions={<DeleteFarmButton farm={farm.data} />}>
       <FarmFieldsPanel farmId={farmId} />
       <div className="grid gap-5 lg:grid-cols-2">
         <Panel title="Farm details">

@@ -70,7 +70,7 @@ export function FarmFieldsPanel({ farmId }: { farmId: string }) {
         onCancel={() => setDoomed(null)}
         onConfirm={() => doomed && remove.mutate(doomed.id, { onSettled: () => setDoomed(null) })}
       >
-        The field, its boundary and its scout assignments are removed. This cannot be undone.
+        The field, its boundary and its scout assignments are removed; this cannot be undone. A field with sightings or zone notices on record is kept.
       </ConfirmDialog>
     </Panel>
   );
