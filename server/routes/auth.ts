@@ -7,6 +7,7 @@ import { forgotPasswordSchema, setPasswordSchema, signInSchema } from '../../sha
 import { AppError } from '../errors.ts';
 import { requestPasswordReset, setPasswordWithToken } from '../services/users.ts';
 import { config } from '../config.ts';
+import { PostgresRequestLimitStore } from '../auth/request-limit-store.ts';
 import { User } from '../models/user.ts';
 
 export const authRouter = Router();
@@ -18,6 +19,7 @@ const signInLimiter = rateLimit({
   standardHeaders: 'draft-7',
   legacyHeaders: false,
   keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
+  store: new PostgresRequestLimitStore('sign-in|'),
   handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many sign-in attempts; wait 15 minutes and try again.')),
 });
 
@@ -25,6 +27,7 @@ const forgotLimiter = rateLimit({
   windowMs: 15 * 60 * 1000,
   limit: 5,
   keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
+  store: new PostgresRequestLimitStore('forgot-password|'),
   handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many requests; wait 15 minutes and try again.')),
 });
 
