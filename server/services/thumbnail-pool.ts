@@ -6,6 +6,8 @@ import type { RenderedThumbnail, ThumbnailSource } from './thumbnail-render.ts';
 
 let pool: Piscina | null = null;
 
+export const THREAD_NICE_INCREMENT = 10;
+
 export const thumbnailThreads = () => {
   const configured = Number(process.env.THUMBNAIL_THREADS);
   return Number.isFinite(configured) && configured >= 0 ? Math.floor(configured) : Math.max(1, availableParallelism());
@@ -22,6 +24,9 @@ export async function renderInPool(input: ThumbnailSource): Promise<RenderedThum
     minThreads: 0,
     maxThreads: threads,
     idleTimeout: 10_000,
+    // Lower priority for the render threads (Linux nice is per thread; piscina applies it through @napi-rs/nice):
+    // with every core decoding photos, the API's own thread still answers reads first.
+    niceIncrement: THREAD_NICE_INCREMENT,
   });
   const result = (await pool.run(input)) as RenderedThumbnail;
   // Buffers come back from the thread as plain Uint8Arrays.
