@@ -10,6 +10,7 @@ import { analyse, planSimulations, type AnalysisResult } from '../../shared/anal
 import { AnalysisInputError } from '../../shared/analysis/errors.ts';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
 import { createMonteCarloPool, type MonteCarloPool } from '../../shared/analysis/parallel/monte-carlo-pool.ts';
+import { BACKGROUND_THREAD_NICE } from './background-priority.ts';
 
 export interface StoredSighting {
   id: string;
@@ -125,7 +126,7 @@ export async function runAnalysis(
 ): Promise<AnalysisResult> {
   if (checkWork(options, sightings.features.length) <= INLINE_WORK_LIMIT) return analyse(boundary, sightings, options);
   const plans = planSimulations(boundary, sightings, options);
-  pool ??= createMonteCarloPool();
+  pool ??= createMonteCarloPool({ niceIncrement: BACKGROUND_THREAD_NICE });
   // Ripley's envelope costs several times the nearest-neighbour simulations, hence the uneven shares.
   const nearest = plans.nearestNeighbour ? await pool.run(plans.nearestNeighbour) : null;
   await onProgress(0.25);

@@ -2,11 +2,10 @@
 // and both cores work. THUMBNAIL_THREADS=0 renders on the calling thread instead.
 import { availableParallelism } from 'node:os';
 import { Piscina } from 'piscina';
+import { BACKGROUND_THREAD_NICE } from './background-priority.ts';
 import type { RenderedThumbnail, ThumbnailSource } from './thumbnail-render.ts';
 
 let pool: Piscina | null = null;
-
-export const THREAD_NICE_INCREMENT = 10;
 
 export const thumbnailThreads = () => {
   const configured = Number(process.env.THUMBNAIL_THREADS);
@@ -24,9 +23,8 @@ export async function renderInPool(input: ThumbnailSource): Promise<RenderedThum
     minThreads: 0,
     maxThreads: threads,
     idleTimeout: 10_000,
-    // Lower priority for the render threads (Linux nice is per thread; piscina applies it through @napi-rs/nice):
-    // with every core decoding photos, the API's own thread still answers reads first.
-    niceIncrement: THREAD_NICE_INCREMENT,
+    // piscina applies it through @napi-rs/nice, in each render thread only.
+    niceIncrement: BACKGROUND_THREAD_NICE,
   });
   const result = (await pool.run(input)) as RenderedThumbnail;
   // Buffers come back from the thread as plain Uint8Arrays.

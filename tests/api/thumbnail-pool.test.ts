@@ -4,7 +4,8 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { closeThumbnailPool, renderInPool, THREAD_NICE_INCREMENT } from '../../server/services/thumbnail-pool.ts';
+import { closeThumbnailPool, renderInPool } from '../../server/services/thumbnail-pool.ts';
+import { BACKGROUND_THREAD_NICE } from '../../server/services/background-priority.ts';
 import { makeJpeg } from '../helpers/photos.ts';
 
 /** Field 19 of a task's stat line; the command name in parentheses may hold spaces, so count after it. */
@@ -26,7 +27,7 @@ describe.runIf(process.platform === 'linux')('thumbnail render threads', () => {
       expect(rendered.bytes.length).toBeGreaterThan(0);
       // The pool keeps its thread for a while after the job (idleTimeout), so it can be read now.
       const nices = fs.readdirSync('/proc/self/task').map((tid) => niceOf(`/proc/self/task/${tid}/stat`));
-      expect(nices).toContain(Math.min(19, mainNice + THREAD_NICE_INCREMENT));
+      expect(nices).toContain(Math.min(19, mainNice + BACKGROUND_THREAD_NICE));
       expect(niceOf(`/proc/self/task/${process.pid}/stat`)).toBe(mainNice);
     } finally {
       fs.rmSync(dir, { recursive: true, force: true });

@@ -16,7 +16,17 @@ interface Pending {
   reject(error: Error): void;
 }
 
-export function createMonteCarloPool(options: { threads?: number; chunksPerThread?: number } = {}): MonteCarloPool {
+export interface MonteCarloPoolOptions {
+  threads?: number;
+  chunksPerThread?: number;
+  /**
+   * Added to each thread's nice value (Linux keeps one per thread), so a server's own request thread stays ahead of
+   * the simulations. 0 (the default) for the command line and benchmarks.
+   */
+  niceIncrement?: number;
+}
+
+export function createMonteCarloPool(options: MonteCarloPoolOptions = {}): MonteCarloPool {
   const threads = Math.max(1, options.threads ?? availableParallelism());
   const chunksPerThread = options.chunksPerThread ?? 4;
   const workers: Worker[] = [];
@@ -35,7 +45,7 @@ export function createMonteCarloPool(options: { threads?: number; chunksPerThrea
     }
   };
   for (let t = 0; t < threads; t++) {
-    const worker = new Worker(workerUrl);
+    const worker = new Worker(workerUrl, { workerData: { niceIncrement: options.niceIncrement ?? 0 } });
     worker.on('message', (reply: { id: number; chunk?: SimulationChunk; error?: string }) => {
       const waiting = pending.get(reply.id);
       pending.delete(reply.id);
