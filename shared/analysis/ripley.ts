@@ -43,7 +43,7 @@ export function ripleyK(field: PlanarField, xy: Float64Array, radiiM: number[], 
   if (correction === 'border') for (let i = 0; i < n; i++) lastEligible[i] = lastRadiusWithin(radiiM, toBoundary[i]);
   const histogram = new Float64Array(radiusCount + 1);
   const isotropic = correction === 'isotropic';
-  const shareInside = isotropic ? circleShareLookup(field, xy, toBoundary, rMax) : () => 1;
+  const shares = isotropic ? circleShareTable(field, xy, toBoundary, rMax) : null;
   const binOf = radiusBins(radiiM);
   const bucketWidth = rMax / binOf.length;
   const lastBucket = binOf.length - 1;
@@ -73,8 +73,8 @@ export function ripleyK(field: PlanarField, xy: Float64Array, radiiM: number[], 
           let bin = binOf[Math.min(lastBucket, Math.floor(d / bucketWidth))];
           while (radiiM[bin] < d) bin++;
           if (isotropic) {
-            const wi = d <= toBoundary[i] ? 1 : 1 / Math.max(shareInside(i, d), 1e-6);
-            const wj = d <= toBoundary[j] ? 1 : 1 / Math.max(shareInside(j, d), 1e-6);
+            const wi = d <= toBoundary[i] ? 1 : 1 / Math.max(shares ? tableShare(shares, toBoundary, i, d) : circleShareInside(field, x, y, d), 1e-6);
+            const wj = d <= toBoundary[j] ? 1 : 1 / Math.max(shares ? tableShare(shares, toBoundary, j, d) : circleShareInside(field, xy[j * 2], xy[j * 2 + 1], d), 1e-6);
             histogram[bin] += wi + wj;
           } else {
             if (bin <= lastEligible[i]) {
@@ -132,39 +132,51 @@ function lastRadiusWithin(radiiM: number[], distance: number): number {
 export const ISOTROPIC_EXACT_UP_TO = 300;
 const TABLE_NODES = 12;
 
+interface ShareTable {
+  /** TABLE_NODES + 1 shares per point, at radii b_i + (m·step_i)², m = 0 … TABLE_NODES. */
+  values: Float64Array;
+  inverseStep: Float64Array;
+}
+
 /**
- * Circle share inside the field for point i at distance d. Small patterns use the exact geometry; larger
- * ones interpolate per point between exact values at TABLE_NODES radii spaced evenly in √(r − b_i), where
- * b_i is the distance to the boundary: the share falls like √(r − b_i) just past b_i, so the table is linear
- * there. Observed and simulated patterns of the same size always use the same rule.
+ * Per-point tables of the circle share inside the field, for patterns above ISOTROPIC_EXACT_UP_TO points (null
+ * below: those use the exact geometry). Nodes are spaced evenly in √(r − b_i), where b_i is the distance to the
+ * boundary: the share falls like √(r − b_i) just past b_i, so the table is linear there. Observed and simulated
+ * patterns of the same size always use the same rule.
  */
-function circleShareLookup(field: PlanarField, xy: Float64Array, toBoundary: Float64Array, rMax: number): (i: number, d: number) => number {
+function circleShareTable(field: PlanarField, xy: Float64Array, toBoundary: Float64Array, rMax: number): ShareTable | null {
   const n = xy.length / 2;
-  if (n <= ISOTROPIC_EXACT_UP_TO) return (i, d) => circleShareInside(field, xy[i * 2], xy[i * 2 + 1], d);
+  if (n <= ISOTROPIC_EXACT_UP_TO) return null;
   const stride = TABLE_NODES + 1;
-  const table = new Float64Array(n * stride);
-  const step = new Float64Array(n);
+  const values = new Float64Array(n * stride);
+  const inverseStep = new Float64Array(n);
   // Only edges within rMax of a point can meet its circles; finding them once serves all its radii.
   const near = new Int32Array(field.edgeCount);
   for (let i = 0; i < n; i++) {
     const span = rMax - toBoundary[i];
-    table[i * stride] = 1;
+    values[i * stride] = 1;
     if (span <= 0) continue;
-    step[i] = Math.sqrt(span) / TABLE_NODES;
+    const step = Math.sqrt(span) / TABLE_NODES;
+    inverseStep[i] = 1 / step;
     const nearCount = edgesWithin(field, xy[i * 2], xy[i * 2 + 1], rMax, near);
     for (let m = 1; m <= TABLE_NODES; m++) {
-      const u = m * step[i];
-      table[i * stride + m] = circleShareInside(field, xy[i * 2], xy[i * 2 + 1], toBoundary[i] + u * u, near, nearCount);
+      const u = m * step;
+      values[i * stride + m] = circleShareInside(field, xy[i * 2], xy[i * 2 + 1], toBoundary[i] + u * u, near, nearCount);
     }
   }
-  return (i, d) => {
-    const position = Math.sqrt(d - toBoundary[i]) / step[i];
-    let m = Math.floor(position);
-    if (m >= TABLE_NODES) m = TABLE_NODES - 1;
-    const fraction = position - m;
-    const base = i * stride + m;
-    return table[base] + (table[base + 1] - table[base]) * fraction;
-  };
+  return { values, inverseStep };
+}
+
+/**
+ * Interpolated share for point i at distance d > b_i. A plain top-level function rather than a closure, so the
+ * pair loop's call site stays monomorphic and V8 inlines it whatever pattern sizes ran before in the thread.
+ */
+function tableShare(table: ShareTable, toBoundary: Float64Array, i: number, d: number): number {
+  const position = Math.sqrt(d - toBoundary[i]) * table.inverseStep[i];
+  let m = Math.floor(position);
+  if (m >= TABLE_NODES) m = TABLE_NODES - 1;
+  const base = i * (TABLE_NODES + 1) + m;
+  return table.values[base] + (table.values[base + 1] - table.values[base]) * (position - m);
 }
 
 // Own cell first (pairs after a), then the four forward neighbours, so each pair is met once.
