@@ -1,11 +1,12 @@
 // Renders a photo's thumbnail: the embedded EXIF thumbnail when it is big enough (fast path), otherwise
-// a full decode (mozjpeg through @jsquash/jpeg for JPEG, heic-decode for HEIC, jimp for PNG); then scaled
-// (box prescale, then jimp) and turned upright for its EXIF orientation. Pure CPU work: runs in a worker thread.
+// a full decode (mozjpeg through @jsquash/jpeg for JPEG, libwebp through @jsquash/webp for WebP, heic-decode for
+// HEIC, jimp for PNG); then scaled (box prescale, then jimp) and turned upright for its EXIF orientation. Pure CPU work: runs in a worker thread.
 import fs from 'node:fs';
 import { createRequire } from 'node:module';
 import exifr from 'exifr';
 import { Jimp, ResizeStrategy } from 'jimp';
 import decodeJpeg, { init as initJpegDecoder } from '@jsquash/jpeg/decode.js';
+import decodeWebp, { init as initWebpDecoder } from '@jsquash/webp/decode.js';
 import heicDecode from 'heic-decode';
 import { boxScaleDown, type RgbaBitmap } from './thumbnail-box-scale.ts';
 
@@ -23,24 +24,31 @@ export interface RenderedThumbnail {
   source: 'embedded' | 'decoded';
 }
 
-let jpegReady: Promise<void> | null = null;
-function ensureJpegDecoder() {
-  jpegReady ??= (async () => {
-    // The emscripten glue cannot fetch its .wasm in Node; compile it from the package's file instead.
-    const wasmPath = createRequire(import.meta.url).resolve('@jsquash/jpeg/codec/dec/mozjpeg_dec.wasm');
-    const module = await WebAssembly.compile(fs.readFileSync(wasmPath));
-    // The decoder returns an ImageData, which Node lacks: a plain holder of the same shape is enough.
-    (globalThis as { ImageData?: unknown }).ImageData ??= class ImageData {
-      constructor(
-        public data: Uint8ClampedArray,
-        public width: number,
-        public height: number,
-      ) {}
-    };
-    await initJpegDecoder(module);
-  })();
-  return jpegReady;
+/**
+ * Readies one of the @jsquash codecs once per thread. The emscripten glue cannot fetch its .wasm in Node, so it is
+ * compiled from the package's own file; the decoders return an ImageData, which Node lacks, so a plain holder of
+ * the same shape stands in.
+ */
+function wasmDecoder(wasmFile: string, init: (module: WebAssembly.Module) => Promise<unknown> | void) {
+  let ready: Promise<void> | null = null;
+  return () =>
+    (ready ??= (async () => {
+      const module = await WebAssembly.compile(fs.readFileSync(createRequire(import.meta.url).resolve(wasmFile)));
+      (globalThis as { ImageData?: unknown }).ImageData ??= class ImageData {
+        constructor(
+          public data: Uint8ClampedArray,
+          public width: number,
+          public height: number,
+        ) {}
+      };
+      await init(module);
+    })());
 }
+
+const ensureJpegDecoder = wasmDecoder('@jsquash/jpeg/codec/dec/mozjpeg_dec.wasm', initJpegDecoder);
+const ensureWebpDecoder = wasmDecoder('@jsquash/webp/codec/dec/webp_dec.wasm', (module) => initWebpDecoder(module));
+
+const arrayBufferOf = (bytes: Uint8Array) => bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer;
 
 const fromRgba = (data: Uint8ClampedArray | Uint8Array, width: number, height: number) =>
   Jimp.fromBitmap({ data: Buffer.from(data.buffer, data.byteOffset, data.byteLength), width, height }) as JimpImage;
@@ -75,7 +83,12 @@ function scaleDown(bitmap: RgbaBitmap): JimpImage {
 
 const decodeMozjpeg = async (bytes: Uint8Array): Promise<RgbaBitmap> => {
   await ensureJpegDecoder();
-  return decodeJpeg(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
+  return decodeJpeg(arrayBufferOf(bytes));
+};
+
+const decodeLibwebp = async (bytes: Uint8Array): Promise<RgbaBitmap> => {
+  await ensureWebpDecoder();
+  return decodeWebp(arrayBufferOf(bytes));
 };
 
 /** The embedded EXIF thumbnail, when there is one big enough; exifr reads only the file's head for it. */
@@ -89,6 +102,7 @@ async function embeddedThumbnail(source: string | Buffer): Promise<RgbaBitmap | 
 
 async function decodeFull(bytes: Buffer, mimeType: string): Promise<RgbaBitmap> {
   if (mimeType === 'image/jpeg') return decodeMozjpeg(bytes);
+  if (mimeType === 'image/webp') return decodeLibwebp(bytes);
   if (mimeType === 'image/heic' || mimeType === 'image/heif') return heicDecode({ buffer: bytes });
   return ((await Jimp.read(bytes)) as JimpImage).bitmap;
 }
