@@ -127,11 +127,16 @@ export async function runAnalysis(
   if (checkWork(options, sightings.features.length) <= INLINE_WORK_LIMIT) return analyse(boundary, sightings, options);
   const plans = planSimulations(boundary, sightings, options);
   pool ??= createMonteCarloPool({ niceIncrement: BACKGROUND_THREAD_NICE });
-  // Ripley's envelope costs several times the nearest-neighbour simulations, hence the uneven shares.
-  const nearest = plans.nearestNeighbour ? await pool.run(plans.nearestNeighbour) : null;
-  await onProgress(0.25);
-  const ripley = plans.ripley ? await pool.run(plans.ripley) : null;
-  await onProgress(0.85);
+  // Ripley's envelope costs several times the nearest-neighbour simulations, hence the uneven shares. Progress
+  // writes are chained, so they reach the row in the order the chunks finished.
+  let reported = Promise.resolve();
+  const report = (share: number) => {
+    reported = reported.then(() => onProgress(share)).catch(() => {});
+  };
+  const within = (from: number, to: number) => (done: number, total: number) => report(from + ((to - from) * done) / total);
+  const nearest = plans.nearestNeighbour ? await pool.run(plans.nearestNeighbour, within(0, 0.25)) : null;
+  const ripley = plans.ripley ? await pool.run(plans.ripley, within(0.25, 0.85)) : null;
+  await reported;
   return analyse(boundary, sightings, options, { meanNearestDistances: nearest?.meanNearestDistances, ripleyL: ripley?.ripleyL });
 }
 

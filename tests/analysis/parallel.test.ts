@@ -19,7 +19,10 @@ describe('Monte Carlo on worker threads', () => {
     };
     const pool = createMonteCarloPool({ threads: 2, chunksPerThread: 3 });
     try {
-      const threaded = await pool.run(plan);
+      const heard: Array<[number, number]> = [];
+      const threaded = await pool.run(plan, (done, total) => heard.push([done, total]));
+      // Six chunks (2 threads × 3), each reported once, counting up to the total.
+      expect(heard).toEqual(Array.from({ length: 6 }, (_, k) => [k + 1, 6]));
       const single = runSimulations(plan);
       expect(Array.from(threaded.meanNearestDistances)).toEqual(Array.from(single.meanNearestDistances));
       expect(Array.from(threaded.ripleyL)).toEqual(Array.from(single.ripleyL));

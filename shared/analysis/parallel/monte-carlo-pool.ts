@@ -7,7 +7,8 @@ import { joinSimulationChunks, type SimulationChunk, type SimulationPlan } from 
 
 export interface MonteCarloPool {
   threads: number;
-  run(plan: SimulationPlan): Promise<SimulationChunk>;
+  /** `onChunk` hears each finished chunk (done of total), for a progress bar; the result does not depend on it. */
+  run(plan: SimulationPlan, onChunk?: (done: number, total: number) => void): Promise<SimulationChunk>;
   close(): Promise<void>;
 }
 
@@ -73,10 +74,15 @@ export function createMonteCarloPool(options: MonteCarloPoolOptions = {}): Monte
 
   return {
     threads,
-    async run(plan) {
+    async run(plan, onChunk) {
       const chunkCount = Math.max(1, Math.min(plan.simulations, threads * chunksPerThread));
       const bounds = Array.from({ length: chunkCount + 1 }, (_, k) => Math.round((plan.simulations * k) / chunkCount));
-      const chunks = await Promise.all(bounds.slice(0, -1).map((start, k) => runChunk(plan, start, bounds[k + 1])));
+      let done = 0;
+      const counted = (chunk: SimulationChunk) => {
+        onChunk?.(++done, chunkCount);
+        return chunk;
+      };
+      const chunks = await Promise.all(bounds.slice(0, -1).map((start, k) => runChunk(plan, start, bounds[k + 1]).then(counted)));
       return joinSimulationChunks(plan, chunks);
     },
     async close() {
