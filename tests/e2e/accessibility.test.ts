@@ -6,13 +6,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
 import { signedIn, type Client } from '../helpers/http.ts';
-import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
+import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
 import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
 import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { acceptProposedZones, addContacts, makeCheckedField, type ScoutedCheck } from '../helpers/zones.ts';
 import { noticeLinkToken, waitForMessage } from '../helpers/mailbox.ts';
 import { makeJpeg } from '../helpers/photos.ts';
-import { findingsTable, focusTop, inDocumentOrder, seriousViolations, tabTo, walkWithTab } from '../helpers/accessibility.ts';
+import { findingsTable, focusTop, seriousViolations, tabTo, walkWithTab } from '../helpers/accessibility.ts';
+import { expectAccessible, newContext, signInByKeyboard as signInByKeyboardAt } from '../helpers/accessibility-browser.ts';
 
 let server: TestServer;
 let browser: Browser;
@@ -53,46 +54,14 @@ afterAll(async () => {
   await server?.close();
 });
 
-const desk = () => browser.newContext({ viewport: { width: 1280, height: 900 } });
-const phone = () =>
-  browser.newContext({
-    viewport: { width: 390, height: 844 },
-    deviceScaleFactor: 2,
-    isMobile: true,
-    hasTouch: true,
-    geolocation: { latitude: TEST_FIELD_CORNER.lat + 0.0015, longitude: TEST_FIELD_CORNER.lon + 0.0025, accuracy: 6 },
-    permissions: ['geolocation'],
-  });
-
-/** Signs in with the keyboard only: Tab to each input, type, Enter on the button. */
-async function signInByKeyboard(page: Page, email: string) {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByRole('heading', { name: 'Sign in' }).waitFor();
-  await focusTop(page);
-  await tabTo(page, page.getByLabel('E-mail address'));
-  await page.keyboard.type(email);
-  await tabTo(page, page.getByLabel('Password'));
-  await page.keyboard.type(TEST_PASSWORD);
-  await tabTo(page, page.getByRole('button', { name: 'Sign in' }));
-  await page.keyboard.press('Enter');
-  await page.getByRole('navigation', { name: 'Main' }).waitFor();
-}
+const desk = () => newContext(browser, 'desk');
+const phone = () => newContext(browser, 'phone');
+const signInByKeyboard = (page: Page, email: string) => signInByKeyboardAt(page, server.url, email);
 
 async function signedInPage(context: BrowserContext, email: string) {
   const page = await context.newPage();
   await signInByKeyboard(page, email);
   return page;
-}
-
-/** axe-core's serious and critical findings, and every interactive element reached by Tab in order. */
-async function expectAccessible(page: Page) {
-  const findings = await seriousViolations(page);
-  expect(findings, `axe-core serious/critical violations on ${page.url()}:\n${findingsTable(findings)}`).toEqual([]);
-  const walk = await walkWithTab(page);
-  expect(walk.expected.length, 'interactive elements on the page').toBeGreaterThan(0);
-  expect(walk.missed, `never reached by Tab on ${page.url()}`).toEqual([]);
-  expect(walk.unfocusable, `clickable but not focusable on ${page.url()}`).toEqual([]);
-  expect(inDocumentOrder(walk), `Tab order on ${page.url()}:\n${walk.reached.join('\n')}`).toBe(true);
 }
 
 // axe-core and the Tab walks take a while on a 2-core machine.
