@@ -21,4 +21,12 @@ export function addPolygonEditing(map: L.Map, options: { cutPolygon: boolean }) 
     removalMode: true,
   });
   map.pm.setGlobalOptions({ allowSelfIntersection: false, snappable: true });
+  nameToolbarButtons(map);
+}
+
+// Geoman puts each tool's name only in the title of the button's container; screen readers need it on the button.
+function nameToolbarButtons(map: L.Map) {
+  map.getContainer().querySelectorAll<HTMLElement>('.button-container[title] > .leaflet-buttons-control-button').forEach((button) => {
+    button.setAttribute('aria-label', button.parentElement?.getAttribute('title') ?? '');
+  });
 }
