@@ -1,3 +1,4 @@
+import { useId } from 'react';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { attachmentUrl, useMailMessage } from '../api/get-mail-message.ts';
 
@@ -5,6 +6,7 @@ const size = (bytes: number) => (bytes < 1024 ? `${bytes} B` : bytes < 1024 * 10
 
 export function MailMessageView({ id }: { id: number }) {
   const message = useMailMessage(id);
+  const plainTextId = useId();
   if (message.isPending) return <LoadingState label="Opening the message…" />;
   if (message.isError) return <ErrorState error={message.error} onRetry={() => message.refetch()} />;
   const m = message.data;
@@ -31,8 +33,9 @@ export function MailMessageView({ id }: { id: number }) {
         </section>
       )}
       <section>
-        <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-soil-600">Plain text</h3>
-        <pre className="max-h-80 overflow-auto whitespace-pre-wrap rounded-md bg-straw-50 p-3 font-sans text-sm text-soil-800 ring-1 ring-straw-200">{m.text || '(no text part)'}</pre>
+        <h3 id={plainTextId} className="mb-1 text-xs font-semibold uppercase tracking-wide text-soil-600">Plain text</h3>
+        {/* Focusable so that a keyboard can scroll a long message. */}
+        <pre role="region" aria-labelledby={plainTextId} tabIndex={0} className="max-h-80 overflow-auto whitespace-pre-wrap rounded-md bg-straw-50 p-3 font-sans text-sm text-soil-800 ring-1 ring-straw-200 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600">{m.text || '(no text part)'}</pre>
       </section>
       {m.attachments.length > 0 && (
         <section>
