@@ -1,4 +1,4 @@
-// Needs a pin: the photo beside a map of its field; tap where it was taken, then confirm.
+// Needs a pin: the photo beside a map of its field; tap where it was taken (or type the place), then confirm.
 import { useState } from 'react';
 import type { QueryKey } from '@tanstack/react-query';
 import type { Position, SightingView } from '@shared/schemas/sightings.ts';
@@ -7,6 +7,7 @@ import { Button } from '../../../components/button.tsx';
 import { FormMessage } from '../../../components/form-field.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
 import { useUpdateSighting } from '../api/update-sighting.ts';
+import { PinByCoordinates } from './pin-by-coordinates.tsx';
 import { PinPicker } from './pin-picker.tsx';
 import { SightingMarkers } from './sighting-markers.tsx';
 import { SightingThumbnail } from './sighting-thumbnail.tsx';
@@ -40,11 +41,12 @@ export function PinSightingPanel({ sighting, boundary, neighbours, shownUnder, o
           Open the full photo
         </a>
       )}
-      <p className="text-base text-soil-800">Tap the map where this photo was taken.</p>
+      <p className="text-base text-soil-800">Tap the map where this photo was taken, or give the place below the map.</p>
       <MapFrame boundaries={[boundary]} label="Map of the field: tap where the photo was taken" className="h-[26rem] [&_.leaflet-container]:cursor-crosshair">
         <SightingMarkers sightings={neighbours} />
         <PinPicker chosen={chosen} onChoose={setChosen} />
       </MapFrame>
+      <PinByCoordinates chosen={chosen} onChoose={setChosen} />
       <p className="text-sm text-soil-700" aria-live="polite">
         {chosen ? `Chosen: ${degrees.format(chosen.lat)}, ${degrees.format(chosen.lon)}` : 'No place chosen yet.'}
       </p>

@@ -2,7 +2,7 @@
 import { useState } from 'react';
 import { Button } from '../../../components/button.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
-import { useCurrentPosition } from '../hooks/use-current-position.ts';
+import { useCurrentPosition } from '../../../lib/use-current-position.ts';
 import { useRecordStop } from '../api/record-stop.ts';
 
 const metres = new Intl.NumberFormat('en', { maximumFractionDigits: 0 });

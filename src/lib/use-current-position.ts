@@ -29,7 +29,7 @@ export function useCurrentPosition() {
     () =>
       new Promise<PhonePosition | null>((resolve) => {
         if (!('geolocation' in navigator)) {
-          setStatus({ kind: 'failed', message: 'This browser cannot share the phone’s location; record the stop from another browser.' });
+          setStatus({ kind: 'failed', message: 'This browser cannot share the phone’s location; open Patchwise in another browser.' });
           resolve(null);
           return;
         }
