@@ -111,7 +111,7 @@ export function ZoneEditorPage() {
             <ZoneEditLayer zones={zones} revision={revision} handlers={handlers} />
           </MapFrame>
           <p className="text-sm text-soil-600">
-            Use the tools on the map: draw a polygon or rectangle for a zone by hand, switch on vertex editing to move a zone’s corners, drag a zone, or remove one. Dots are sightings where the pest was found.
+            Use the tools on the map: draw a polygon or rectangle for a zone by hand, switch on vertex editing to move a zone’s corners, drag a zone, or remove one. Dots are sightings where the pest was found. Without a mouse, shape the proposal with its threshold and margin and delete zones in the table below.
           </p>
         </div>
 
