@@ -15,9 +15,10 @@ import { useZoneField } from '../api/get-zone-field.ts';
 import { useZoneCheck } from '../api/get-zone-check.ts';
 import { useZonePests } from '../api/get-zone-pests.ts';
 import { useZoneSightings } from '../api/get-zone-sightings.ts';
-import { useZoneProposal } from '../api/propose-zones.ts';
+import { useZoneProposal, type ZoneProposal } from '../api/propose-zones.ts';
 import { useCreateZoneSet } from '../api/create-zone-set.ts';
 import { ProposalControls } from './proposal-controls.tsx';
+import { NewProposalChoice } from './new-proposal-choice.tsx';
 import { ZoneEditLayer, type ZoneEditHandlers } from './zone-edit-layer.tsx';
 import { ZoneTable } from './zone-table.tsx';
 import { ZoneVersionsPanel } from './zone-versions-panel.tsx';
@@ -51,16 +52,39 @@ export function ZoneEditorPage() {
     setZones(next);
     setRevision((r) => r + 1);
   }, []);
-  // Each new proposal starts the editing again from the engine's zones.
+  // A new proposal replaces the zones while they are the engine's own; after a hand edit it waits for the
+  // adviser's choice, so a threshold nudge never throws away their work.
+  const handEdited = useRef(false);
+  const [waitingProposal, setWaitingProposal] = useState<ZoneProposal | null>(null);
+  const markHandEdited = () => {
+    handEdited.current = true;
+  };
+  const takeProposal = useCallback(
+    (next: ZoneProposal) => {
+      handEdited.current = false;
+      setWaitingProposal(null);
+      replaceZones(zonesFromProposal(next));
+    },
+    [replaceZones],
+  );
   useEffect(() => {
-    if (proposal.data && !proposal.isPlaceholderData) replaceZones(zonesFromProposal(proposal.data));
-  }, [proposal.data, proposal.isPlaceholderData, replaceZones]);
+    if (!proposal.data || proposal.isPlaceholderData) return;
+    if (handEdited.current) setWaitingProposal(proposal.data);
+    else takeProposal(proposal.data);
+  }, [proposal.data, proposal.isPlaceholderData, takeProposal]);
 
   const handlers = useMemo<ZoneEditHandlers>(
     () => ({
-      onReshape: (key, geometry) => setZones((all) => all.map((z) => (z.key === key ? { ...z, geometry, origin: z.origin === 'drawn' ? 'drawn' : 'edited', proposed: undefined } : z))),
-      onRemove: (key) => setZones((all) => all.filter((z) => z.key !== key)),
+      onReshape: (key, geometry) => {
+        markHandEdited();
+        setZones((all) => all.map((z) => (z.key === key ? { ...z, geometry, origin: z.origin === 'drawn' ? 'drawn' : 'edited', proposed: undefined } : z)));
+      },
+      onRemove: (key) => {
+        markHandEdited();
+        setZones((all) => all.filter((z) => z.key !== key));
+      },
       onDraw: (geometry) => {
+        markHandEdited();
         const all = zonesNow.current;
         replaceZones([...all, { key: newZoneKey(), label: nextZoneLabel(all), geometry, origin: 'drawn' }]);
       },
@@ -125,7 +149,8 @@ export function ZoneEditorPage() {
                   <ProposalControls proposal={proposal.data} countUnit={pest?.countUnit ?? null} onChange={onRequest} />
                   {proposal.isFetching && <p role="status" className="text-sm text-soil-600">Updating the proposal…</p>}
                   {proposal.isError && <FormMessage>{errorMessage(proposal.error)}</FormMessage>}
-                  {proposal.data && <p className="text-sm text-soil-700">{proposal.data.note} Changing these starts again from the new proposal.</p>}
+                  {proposal.data && <p className="text-sm text-soil-700">{proposal.data.note} Changing these proposes again; once you have edited zones by hand, you choose whether to take the new proposal.</p>}
+                  {waitingProposal && <NewProposalChoice zoneCount={waitingProposal.features.length} onTake={() => takeProposal(waitingProposal)} onKeep={() => setWaitingProposal(null)} />}
                 </div>
               )}
             </Panel>
@@ -177,7 +202,13 @@ export function ZoneEditorPage() {
             {checkId ? 'Nothing in this field is above the threshold; lower it, or draw a zone by hand on the map.' : 'Choose the pest, then draw a zone on the map.'}
           </EmptyState>
         ) : (
-          <ZoneTable rows={rows} onDelete={(key) => replaceZones(zones.filter((z) => z.key !== key))} />
+          <ZoneTable
+            rows={rows}
+            onDelete={(key) => {
+              markHandEdited();
+              replaceZones(zones.filter((z) => z.key !== key));
+            }}
+          />
         )}
       </Panel>
 
