@@ -97,25 +97,31 @@ function plain(value: unknown): unknown {
   return value;
 }
 
+/**
+ * One object for every read: exifr keeps the Options it builds from each options object in a Map for the
+ * process's life (Options.useCached), so a fresh literal per photo would keep about 8 KB per upload forever.
+ */
+const exifrOptions = {
+  tiff: true,
+  exif: true,
+  gps: true,
+  ifd1: false,
+  xmp: false,
+  icc: false,
+  iptc: false,
+  jfif: false,
+  ihdr: false,
+  translateKeys: true,
+  translateValues: false,
+  reviveValues: false,
+  mergeOutput: true,
+};
+
 export async function readPhotoExif(bytes: Uint8Array, now = new Date()): Promise<PhotoReading> {
   let tags: Record<string, unknown> = {};
   try {
     tags =
-      (await exifr.parse(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength), {
-        tiff: true,
-        exif: true,
-        gps: true,
-        ifd1: false,
-        xmp: false,
-        icc: false,
-        iptc: false,
-        jfif: false,
-        ihdr: false,
-        translateKeys: true,
-        translateValues: false,
-        reviveValues: false,
-        mergeOutput: true,
-      })) ?? {};
+      (await exifr.parse(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength), exifrOptions)) ?? {};
   } catch {
     tags = {};
   }
