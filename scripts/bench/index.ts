@@ -1,9 +1,9 @@
 // Benchmark runner: `npm run bench` (all) or `npm run bench -- engine review` (some).
-// Each module exports run(): Promise<BenchTable>; a failing module is skipped. Every module runs in a
+// Each module exports run(): Promise<BenchOutput> (one table or several); a failing module is skipped. Every module runs in a
 // child process of its own, because server modules read DATABASE_URL once, on first import.
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
-import type { BenchTable } from './table.ts';
+import type { BenchOutput, BenchTable } from './table.ts';
 
 const modules = ['./engine.ts', './review.ts', './ingest.ts', './load.ts'];
 
@@ -24,8 +24,9 @@ function printTable(table: BenchTable): void {
 
 async function runInThisProcess(specifier: string) {
   try {
-    const module = (await import(specifier)) as { run: () => Promise<BenchTable> };
-    printTable(await module.run());
+    const module = (await import(specifier)) as { run: () => Promise<BenchOutput> };
+    const output = await module.run();
+    for (const table of Array.isArray(output) ? output : [output]) printTable(table);
   } catch (error) {
     console.log(`\nSkipped ${specifier}: ${error instanceof Error ? error.message : String(error)}`);
   }
