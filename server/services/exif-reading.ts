@@ -99,7 +99,7 @@ function plain(value: unknown): unknown {
 
 /**
  * One object for every read: exifr keeps the Options it builds from each options object in a Map for the
- * process's life (Options.useCached), so a fresh literal per photo would keep about 8 KB per upload forever.
+ * process's life (Options.useCached), so a fresh literal per photo kept about 7 KB per upload for good (load bench).
  */
 const exifrOptions = {
   tiff: true,
