@@ -18,7 +18,7 @@ import { acceptProposedZones, addContacts, linkGrower, makeCheckedField, type Sc
 import { waitForMessage } from '../helpers/mailbox.ts';
 import { makeJpeg, uploadPhotos } from '../helpers/photos.ts';
 import { findingsTable, focusTop, seriousViolations, tabTo } from '../helpers/accessibility.ts';
-import { expectAccessible, newContext, PHONE_POSITION, signInByKeyboard, type Device } from '../helpers/accessibility-browser.ts';
+import { expectAccessible, newContext, PHONE_POSITION, sendOnePhotoByKeyboard, signInByKeyboard, type Device } from '../helpers/accessibility-browser.ts';
 import { coverageGaps, homePage, rolesOf } from '../helpers/accessibility-pages.ts';
 
 interface World {
@@ -378,18 +378,7 @@ const rows: PageRow[] = [
     keyboard: {
       does: 'a photo chosen and sent to the field it was taken in',
       run: async (page, w) => {
-        await focusTop(page);
-        await tabTo(page, page.getByLabel('Pest'));
-        await page.keyboard.press('ArrowDown');
-        await expect.poll(() => page.getByLabel('Pest').inputValue()).not.toBe('');
-        await tabTo(page, page.getByTestId('gallery-input'));
-        const chooser = page.waitForEvent('filechooser');
-        await page.keyboard.press('Space');
-        await (await chooser).setFiles({ name: 'headland.jpg', mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: { lon: TEST_FIELD_CORNER.lon + 0.003, lat: TEST_FIELD_CORNER.lat + 0.002 }, markSeed: 21 }) });
-        await tabTo(page, page.getByRole('button', { name: 'Send 1 photo' }));
-        await page.keyboard.press('Enter');
-        const row = page.getByRole('list', { name: 'Photos in this batch' }).getByRole('listitem').first();
-        await expect.poll(() => row.getAttribute('data-upload-state'), settle).toBe('sent');
+        const row = await sendOnePhotoByKeyboard(page, { name: 'headland.jpg', buffer: await makeJpeg({ gps: { lon: TEST_FIELD_CORNER.lon + 0.003, lat: TEST_FIELD_CORNER.lat + 0.002 }, markSeed: 21 }) });
         expect(await row.getAttribute('data-outcome')).toBe('placed');
         await row.getByText(new RegExp(w.walkedField.name)).first().waitFor();
         await expectAccessible(page);

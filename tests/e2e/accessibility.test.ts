@@ -13,7 +13,7 @@ import { acceptProposedZones, addContacts, makeCheckedField, type ScoutedCheck }
 import { noticeLinkToken, waitForMessage } from '../helpers/mailbox.ts';
 import { makeJpeg } from '../helpers/photos.ts';
 import { findingsTable, focusTop, seriousViolations, tabTo, walkWithTab } from '../helpers/accessibility.ts';
-import { expectAccessible, newContext, signInByKeyboard as signInByKeyboardAt } from '../helpers/accessibility-browser.ts';
+import { expectAccessible, newContext, sendOnePhotoByKeyboard, signInByKeyboard as signInByKeyboardAt } from '../helpers/accessibility-browser.ts';
 
 let server: TestServer;
 let browser: Browser;
@@ -117,19 +117,7 @@ describe('accessibility', { timeout: 240_000 }, () => {
       await page.locator('.leaflet-container').first().waitFor();
       await expectAccessible(page);
 
-      await focusTop(page);
-      await tabTo(page, page.getByLabel('Pest'));
-      await page.keyboard.press('ArrowDown');
-      await expect.poll(() => page.getByLabel('Pest').inputValue()).not.toBe('');
-      // The gallery input opens the file chooser from the keyboard like any button.
-      await tabTo(page, page.getByTestId('gallery-input'));
-      const chooser = page.waitForEvent('filechooser');
-      await page.keyboard.press('Space');
-      await (await chooser).setFiles({ name: 'leaf.jpg', mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: { lon: TEST_FIELD_CORNER.lon + 0.002, lat: TEST_FIELD_CORNER.lat + 0.001 }, markSeed: 7 }) });
-      await tabTo(page, page.getByRole('button', { name: 'Send 1 photo' }));
-      await page.keyboard.press('Enter');
-      const row = page.getByRole('list', { name: 'Photos in this batch' }).getByRole('listitem').first();
-      await expect.poll(() => row.getAttribute('data-upload-state'), settle).toBe('sent');
+      await sendOnePhotoByKeyboard(page, { name: 'leaf.jpg', buffer: await makeJpeg({ gps: { lon: TEST_FIELD_CORNER.lon + 0.002, lat: TEST_FIELD_CORNER.lat + 0.001 }, markSeed: 7 }) });
 
       await focusTop(page);
       await tabTo(page, page.getByRole('button', { name: 'Nothing found here' }));

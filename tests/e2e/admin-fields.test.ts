@@ -4,7 +4,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import { area as turfArea, polygon as turfPolygon } from '@turf/turf';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
 import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
@@ -38,17 +38,21 @@ afterAll(async () => {
   if (boundaryFile) fs.rmSync(path.dirname(boundaryFile), { recursive: true, force: true });
 });
 
+async function signInAsAdmin(page: Page) {
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail address').fill(org.users.admin.email);
+  await page.getByLabel('Password').fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: 'Overview' }).waitFor();
+}
+
 const parseNumber = (text: string | null) => Number((text ?? '').replace(/[^\d.]/g, ''));
 
 describe('admin fields in the browser', () => {
   it('creates a farm and a field from an uploaded GeoJSON file and shows its boundary and area', async () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
 
-    await page.goto(`${server.url}/sign-in`);
-    await page.getByLabel('E-mail address').fill(org.users.admin.email);
-    await page.getByLabel('Password').fill(TEST_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('heading', { name: 'Overview' }).waitFor();
+    await signInAsAdmin(page);
 
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Farms' }).click();
     await page.getByRole('button', { name: 'New farm' }).click();
@@ -88,11 +92,7 @@ describe('admin fields in the browser', () => {
 
   it('deletes a farm only once its fields are gone, saying why when it still has one', async () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await page.goto(`${server.url}/sign-in`);
-    await page.getByLabel('E-mail address').fill(org.users.admin.email);
-    await page.getByLabel('Password').fill(TEST_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('heading', { name: 'Overview' }).waitFor();
+    await signInAsAdmin(page);
 
     await page.goto(`${server.url}/admin/farms`);
     await page.getByRole('link', { name: /Hollow Creek/ }).first().click();
