@@ -1,10 +1,10 @@
-import fs from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { fieldAreaM2 } from '../../shared/analysis/area.ts';
 import { fieldToCoordinates } from '../../shared/analysis/field-geometry.ts';
 import { runSimulations, type SimulationPlan } from '../../shared/analysis/monte-carlo.ts';
 import { createMonteCarloPool } from '../../shared/analysis/parallel/monte-carlo-pool.ts';
 import { irregularField } from './patterns.ts';
+import { mainThreadNice, threadNices } from '../helpers/thread-priority.ts';
 
 describe('Monte Carlo on worker threads', () => {
   it('gives bit-identical simulations to the single-thread run for the same seed', async () => {
@@ -31,20 +31,15 @@ describe('Monte Carlo on worker threads', () => {
     }
   });
 
-  // Linux keeps a nice value per thread (proc(5): /proc/[pid]/task/[tid]/stat, field 19).
+  // Linux keeps a nice value per thread (see tests/helpers/thread-priority.ts).
   it.runIf(process.platform === 'linux')('runs its threads at the raised nice value asked for, leaving the calling thread as it was', async () => {
-    const niceOf = (statFile: string) => {
-      const stat = fs.readFileSync(statFile, 'utf8');
-      return Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[16]);
-    };
-    const before = niceOf('/proc/self/stat');
+    const before = mainThreadNice();
     const pool = createMonteCarloPool({ threads: 2, niceIncrement: 5 });
     try {
       const field = irregularField();
       await pool.run({ fieldCoordinates: fieldToCoordinates(field), n: 30, seed: 'nice', simulations: 4, nearestNeighbour: true, ripley: null });
-      const nices = fs.readdirSync('/proc/self/task').map((tid) => niceOf(`/proc/self/task/${tid}/stat`));
-      expect(nices.filter((n) => n === Math.min(19, before + 5)).length).toBeGreaterThanOrEqual(2);
-      expect(niceOf(`/proc/self/task/${process.pid}/stat`)).toBe(before);
+      expect(threadNices().filter((n) => n === Math.min(19, before + 5)).length).toBeGreaterThanOrEqual(2);
+      expect(mainThreadNice()).toBe(before);
     } finally {
       await pool.close();
     }

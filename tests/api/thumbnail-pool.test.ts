@@ -7,12 +7,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { closeThumbnailPool, renderInPool } from '../../server/services/thumbnail-pool.ts';
 import { BACKGROUND_THREAD_NICE } from '../../server/services/background-priority.ts';
 import { makeJpeg } from '../helpers/photos.ts';
-
-/** Field 19 of a task's stat line; the command name in parentheses may hold spaces, so count after it. */
-const niceOf = (statFile: string) => {
-  const stat = fs.readFileSync(statFile, 'utf8');
-  return Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[16]);
-};
+import { mainThreadNice, threadNices } from '../helpers/thread-priority.ts';
 
 afterAll(() => closeThumbnailPool());
 
@@ -22,13 +17,12 @@ describe.runIf(process.platform === 'linux')('thumbnail render threads', () => {
     try {
       const file = path.join(dir, 'leaf.jpg');
       fs.writeFileSync(file, await makeJpeg({ width: 1200, height: 900, markSeed: 11 }));
-      const mainNice = niceOf('/proc/self/stat');
+      const mainNice = mainThreadNice();
       const rendered = await renderInPool({ path: file, mimeType: 'image/jpeg', orientation: 1 });
       expect(rendered.bytes.length).toBeGreaterThan(0);
       // The pool keeps its thread for a while after the job (idleTimeout), so it can be read now.
-      const nices = fs.readdirSync('/proc/self/task').map((tid) => niceOf(`/proc/self/task/${tid}/stat`));
-      expect(nices).toContain(Math.min(19, mainNice + BACKGROUND_THREAD_NICE));
-      expect(niceOf(`/proc/self/task/${process.pid}/stat`)).toBe(mainNice);
+      expect(threadNices()).toContain(Math.min(19, mainNice + BACKGROUND_THREAD_NICE));
+      expect(mainThreadNice()).toBe(mainNice);
     } finally {
       fs.rmSync(dir, { recursive: true, force: true });
     }
