@@ -13,6 +13,21 @@ export interface TableFilters {
 
 const controlClass = 'block w-full rounded border-0 bg-white px-2 py-1 text-sm ring-1 ring-inset ring-soil-300 focus:ring-2 focus:ring-field-600';
 
+/** One of the table's pick-one filters: its first choice, the empty value, keeps every row. */
+function ChoiceFilter({ label, everyLabel, value, choices, onChange }: { label: string; everyLabel: string; value: string | undefined; choices: ReadonlyArray<readonly [string, string]>; onChange: (value: string) => void }) {
+  return (
+    <label className="text-xs font-medium text-soil-700">
+      {label}
+      <select className={controlClass} value={value ?? ''} onChange={(e) => onChange(e.target.value)}>
+        <option value="">{everyLabel}</option>
+        {choices.map(([id, name]) => (
+          <option key={id} value={id}>{name}</option>
+        ))}
+      </select>
+    </label>
+  );
+}
+
 export function SightingsTableFilters({ sightings, pests, filters, onChange }: { sightings: SightingView[]; pests: Pest[]; filters: TableFilters; onChange: (filters: TableFilters) => void }) {
   const choices = useMemo(() => {
     const scouts = new Map<string, string>();
@@ -32,33 +47,9 @@ export function SightingsTableFilters({ sightings, pests, filters, onChange }: {
   return (
     <fieldset className="grid grid-cols-2 gap-2 sm:grid-cols-5">
       <legend className="sr-only">Filter sightings</legend>
-      <label className="text-xs font-medium text-soil-700">
-        Pest
-        <select className={controlClass} value={filters.pestId ?? ''} onChange={(e) => set('pestId', e.target.value)}>
-          <option value="">Every pest</option>
-          {choices.pests.map(([id, name]) => (
-            <option key={id} value={id}>{name}</option>
-          ))}
-        </select>
-      </label>
-      <label className="text-xs font-medium text-soil-700">
-        Scout
-        <select className={controlClass} value={filters.scoutId ?? ''} onChange={(e) => set('scoutId', e.target.value)}>
-          <option value="">Every scout</option>
-          {choices.scouts.map(([id, name]) => (
-            <option key={id} value={id}>{name}</option>
-          ))}
-        </select>
-      </label>
-      <label className="text-xs font-medium text-soil-700">
-        Walk
-        <select className={controlClass} value={filters.walkId ?? ''} onChange={(e) => set('walkId', e.target.value)}>
-          <option value="">Every walk</option>
-          {choices.walks.map(([id, name]) => (
-            <option key={id} value={id}>{name}</option>
-          ))}
-        </select>
-      </label>
+      <ChoiceFilter label="Pest" everyLabel="Every pest" value={filters.pestId} choices={choices.pests} onChange={(v) => set('pestId', v)} />
+      <ChoiceFilter label="Scout" everyLabel="Every scout" value={filters.scoutId} choices={choices.scouts} onChange={(v) => set('scoutId', v)} />
+      <ChoiceFilter label="Walk" everyLabel="Every walk" value={filters.walkId} choices={choices.walks} onChange={(v) => set('walkId', v)} />
       <label className="text-xs font-medium text-soil-700">
         Walked from
         <input type="date" className={controlClass} value={filters.from ?? ''} onChange={(e) => set('from', e.target.value)} />
