@@ -1,11 +1,11 @@
 // `npm start`: local PostgreSQL with PostGIS, migrations, demo seed, mail catcher, client build, one server.
 import { spawnSync } from 'node:child_process';
-import { clusterFor, databaseUrl, ensureDatabase, initCluster, startCluster, stopCluster } from './lib/postgres.ts';
+import { clusterFor, databaseUrl, ensureDatabase, initCluster, reachableDataDir, startCluster, stopCluster } from './lib/postgres.ts';
 import { localDefaults, projectRoot } from './lib/local-env.ts';
 
 process.chdir(projectRoot);
-const cluster = clusterFor(localDefaults.dataDir, localDefaults.databasePort);
 const usesLocalCluster = !process.env.DATABASE_URL;
+const cluster = clusterFor(usesLocalCluster ? reachableDataDir(localDefaults.dataDir) : localDefaults.dataDir, localDefaults.databasePort);
 let startedCluster = false;
 
 if (usesLocalCluster) {
