@@ -15,8 +15,8 @@ const vitestArgs = process.argv.slice(2);
 const needs = testNeeds(vitestArgs);
 const workDir = fs.mkdtempSync(path.join(os.tmpdir(), 'patchwise-test-'));
 fs.chmodSync(workDir, 0o755);
-let cluster: Cluster | null = null;
-let catcher: { close(): Promise<void> } | null = null;
+let cluster = null as Cluster | null;
+let catcher = null as { close(): Promise<void> } | null;
 
 function cleanUp() {
   try {
