@@ -14,7 +14,7 @@ export default defineConfig({
   plugins: [react()],
   resolve: { alias: { '@shared': sharedDir } },
   build: { outDir: 'dist', sourcemap: true, chunkSizeWarningLimit: 900 },
-  server: { proxy: { '/api': 'http://127.0.0.1:3000' } },
+  server: { proxy: { '/api': `http://127.0.0.1:${process.env.PORT ?? 3000}` } },
   test: {
     environment: 'node',
     projects: [
