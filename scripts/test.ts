@@ -54,7 +54,7 @@ async function startDatabaseAndMail(env: NodeJS.ProcessEnv) {
   catcher = await startMailCatcher({ port: smtpPort, databaseUrl: env.DATABASE_URL! });
 }
 
-let exitCode = 1;
+let exitCode: number;
 try {
   const env: NodeJS.ProcessEnv = {
     ...process.env,
