@@ -43,6 +43,8 @@ try {
     DATABASE_URL: databaseUrl(cluster, 'patchwise_test'),
     SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
     SMTP_PORT: String(smtpPort),
+    // The harness runs the catcher, so the development mailbox is served (see mailboxServed in server/config.ts).
+    MAIL_CATCHER_PORT: String(smtpPort),
     UPLOAD_DIR: path.join(workDir, 'uploads'),
     // Each run builds its own client, so two runs at once never serve each other's half-written build.
     CLIENT_DIR: path.join(workDir, 'dist'),
