@@ -1,6 +1,7 @@
 import type { z } from 'zod';
 import { sequelize } from '../db.ts';
 import { User } from '../models/user.ts';
+import { UserToken } from '../models/user-token.ts';
 import { Organisation } from '../models/organisation.ts';
 import type { Actor } from '../auth/passport.ts';
 import type { inviteUserSchema, updateUserSchema } from '../../shared/schemas/users.ts';
@@ -107,6 +108,8 @@ export async function setPasswordWithToken(token: string, password: string, keep
     const weakness = passwordWeakness(password, [user.email, ...user.email.split(/[@.+_-]/), ...user.name.split(/\s+/)]);
     if (weakness) throw badRequest(weakness, { password: weakness });
     await user.update({ passwordHash }, { transaction });
+    // Any other invitation or reset link still out there dies with the old password (one-time links: OWASP ASVS 4.0.3 V2.5).
+    await UserToken.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: null }, transaction });
     await sequelize.query(`DELETE FROM session WHERE sess->'passport'->>'user' = :id AND sid <> :keep`, { replacements: { id: user.id, keep: keepSessionId }, transaction });
     await recordAudit({ id: user.id, organisationId: user.organisationId }, 'set-password', 'user', user.id, {}, transaction);
     return user;

@@ -202,3 +202,21 @@ describe('anonymous visitors', () => {
     await other.post('/api/auth/forgot-password').set('x-csrf-token', res.body.csrfToken).send({ email: 'nobody@test.example' }).expect(403);
   });
 });
+
+describe('links left over after a new password', () => {
+  it('stops an older invitation link from working once a reset link has set the password', async () => {
+    const org = await makeOrganisation();
+    const admin = await signedIn(org.users.admin.email);
+    const email = `both-links-${org.id.slice(0, 8)}@test.example`;
+    await admin.post('/api/users', { name: 'Two Links', email, role: 'scout' }).expect(202);
+    const invitation = linkToken((await waitForMessage(email))[0]);
+    await (await anonymous()).post('/api/auth/forgot-password', { email }).expect(202);
+    const reset = linkToken((await waitForMessage(email, 2))[1]);
+    await (await anonymous()).post('/api/auth/set-password', { token: reset, password: 'Sorrel-kestrel-furrow-88' }).expect(200);
+
+    const stale = await (await anonymous()).post('/api/auth/set-password', { token: invitation, password: 'Another-quince-meadow-19' });
+    expect(stale.status).toBe(400);
+    expect(stale.body.error.code).toBe('link_expired');
+    await signedIn(email, 'Sorrel-kestrel-furrow-88');
+  });
+});
