@@ -24,6 +24,7 @@ export function mailboxServed(env: NodeJS.ProcessEnv = process.env) {
 export function trustProxySetting(value: string | undefined): boolean | number | string {
   const setting = value?.trim() ?? '';
   if (setting === '' || /^(false|off|no|0)$/i.test(setting)) return false;
+  if (/^(true|on|yes)$/i.test(setting)) return true;
   if (/^\d+$/.test(setting)) return Number(setting);
   return setting;
 }

@@ -3,6 +3,7 @@ import request from 'supertest';
 import { QueryTypes } from 'sequelize';
 import { describe, expect, it } from 'vitest';
 import { sequelize } from '../../server/db.ts';
+import { trustProxySetting } from '../../server/config.ts';
 import { anonymous, signedIn, testApp } from '../helpers/http.ts';
 import { makeOrganisation, TEST_PASSWORD } from '../helpers/org.ts';
 import { linkToken, messagesTo, waitForMessage } from '../helpers/mailbox.ts';
@@ -136,6 +137,21 @@ describe('sign-in limits that a client cannot dodge', () => {
     } finally {
       restore();
     }
+  });
+});
+
+describe('TRUST_PROXY', () => {
+  // Express's documented `trust proxy` values: a boolean, a hop count, or addresses and subnets (expressjs.com, "Express behind proxies").
+  it.each([
+    [undefined, false],
+    ['', false],
+    ['off', false],
+    ['1', 1],
+    ['loopback', 'loopback'],
+    ['10.0.0.0/8, 192.168.1.1', '10.0.0.0/8, 192.168.1.1'],
+    ['true', true],
+  ] as const)('reads %j as %j', (value, expected) => {
+    expect(trustProxySetting(value)).toBe(expected);
   });
 });
 
