@@ -4,18 +4,28 @@ import { fileURLToPath } from 'node:url';
 
 const sharedDir = fileURLToPath(new URL('./shared', import.meta.url));
 
+// Suites that need the throwaway database run one file at a time: each starts the app in-process
+// against the one database, and the fault suites kill and restart processes around it.
+const serialSuite = { fileParallelism: false, testTimeout: 60_000, hookTimeout: 120_000 } as const;
+// Projects run one after another (unit first, for the quickest word): the fault suites restart the database.
+const inOrder = (groupOrder: number) => ({ sequence: { groupOrder } });
+
 export default defineConfig({
   plugins: [react()],
   resolve: { alias: { '@shared': sharedDir } },
   build: { outDir: 'dist', sourcemap: true, chunkSizeWarningLimit: 900 },
-  server: { proxy: { '/api': 'http://127.0.0.1:3000' } },
+  server: { proxy: { '/api': `http://127.0.0.1:${process.env.PORT ?? 3000}` } },
   test: {
-    // Each API/e2e file starts the app in-process against the one throwaway database.
-    include: ['tests/**/*.test.ts'],
     environment: 'node',
-    testTimeout: 60_000,
-    hookTimeout: 120_000,
-    fileParallelism: false,
-    globalSetup: ['tests/global-setup.ts'],
+    projects: [
+      {
+        extends: true,
+        // Engine, shared rules, client logic and the tooling's own logic: no database, build or network.
+        test: { name: 'unit', ...inOrder(0), include: ['tests/analysis/**/*.test.ts', 'tests/thresholds/**/*.test.ts', 'tests/scripts/**/*.test.ts', 'tests/client/**/*.test.ts', 'tests/shared/**/*.test.ts'], testTimeout: 30_000 },
+      },
+      { extends: true, test: { name: 'api', ...inOrder(1), include: ['tests/api/**/*.test.ts'], globalSetup: ['tests/global-setup.ts'], ...serialSuite } },
+      { extends: true, test: { name: 'e2e', ...inOrder(2), include: ['tests/e2e/**/*.test.ts'], globalSetup: ['tests/global-setup.ts'], ...serialSuite } },
+      { extends: true, test: { name: 'faults', ...inOrder(3), include: ['tests/faults/**/*.test.ts'], globalSetup: ['tests/global-setup.ts'], ...serialSuite } },
+    ],
   },
 });

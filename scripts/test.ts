@@ -1,24 +1,28 @@
-// `npm test`: a throwaway PostgreSQL cluster and mail catcher, the client build, then every suite.
-// The cluster is stopped and its folder removed whatever the outcome; the last line is "N passed, N failed".
+// `npm test`: starts only what the chosen suites need (a throwaway PostgreSQL cluster and mail catcher for
+// api/e2e/faults, the client build for e2e, the audit line for a full run), then runs them. The cluster is
+// stopped and its folder removed whatever the outcome; the last line is "N passed, N failed".
 import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { clusterFor, databaseUrl, ensureDatabase, initCluster, startCluster, stopCluster } from './lib/postgres.ts';
+import { clusterFor, databaseUrl, ensureDatabase, initCluster, reachableDataDir, startCluster, stopCluster, type Cluster } from './lib/postgres.ts';
 import { freePort } from './lib/free-port.ts';
 import { projectRoot } from './lib/local-env.ts';
+import { testNeeds } from './lib/test-selection.ts';
 
 process.chdir(projectRoot);
 const vitestArgs = process.argv.slice(2);
+const needs = testNeeds(vitestArgs);
 const workDir = fs.mkdtempSync(path.join(os.tmpdir(), 'patchwise-test-'));
 fs.chmodSync(workDir, 0o755);
-const cluster = clusterFor(path.join(workDir, 'postgres'), await freePort());
-let catcher: { close(): Promise<void> } | null = null;
+let cluster = null as Cluster | null;
+let catcher = null as { close(): Promise<void> } | null;
 
 function cleanUp() {
   try {
-    stopCluster(cluster);
+    if (cluster) stopCluster(cluster);
   } finally {
+    if (cluster && !cluster.dataDir.startsWith(workDir)) fs.rmSync(path.dirname(cluster.dataDir), { recursive: true, force: true });
     fs.rmSync(workDir, { recursive: true, force: true });
   }
 }
@@ -31,20 +35,32 @@ function summaryFrom(file: string) {
   return { passed: report.numPassedTests, failed: report.numFailedTests, brokenFiles };
 }
 
-let exitCode = 1;
-try {
+/** Cluster, migrations and mail catcher for the suites that talk to the database. */
+async function startDatabaseAndMail(env: NodeJS.ProcessEnv) {
+  cluster = clusterFor(reachableDataDir(path.join(workDir, 'postgres')), await freePort(), { durable: false });
   initCluster(cluster);
   startCluster(cluster);
   await ensureDatabase(cluster, 'patchwise_test');
   const smtpPort = await freePort();
-  const env = {
-    ...process.env,
-    NODE_ENV: 'test',
+  Object.assign(env, {
     DATABASE_URL: databaseUrl(cluster, 'patchwise_test'),
     SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
     SMTP_PORT: String(smtpPort),
     // The harness runs the catcher, so the development mailbox is served (see mailboxServed in server/config.ts).
     MAIL_CATCHER_PORT: String(smtpPort),
+  });
+  Object.assign(process.env, env);
+  const migrate = spawnSync('node', ['--import', 'tsx', 'scripts/migrate.ts'], { env, stdio: 'inherit' });
+  if (migrate.status !== 0) throw new Error('Migrations failed.');
+  const { startMailCatcher } = await import('../server/mail/catcher.ts');
+  catcher = await startMailCatcher({ port: smtpPort, databaseUrl: env.DATABASE_URL! });
+}
+
+let exitCode: number;
+try {
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    NODE_ENV: 'test',
     UPLOAD_DIR: path.join(workDir, 'uploads'),
     // Each run builds its own client, so two runs at once never serve each other's half-written build.
     CLIENT_DIR: path.join(workDir, 'dist'),
@@ -54,28 +70,30 @@ try {
     TILE_URL: 'http://127.0.0.1:9/{z}/{x}/{y}.png',
   };
   Object.assign(process.env, env);
+  console.log(`Suites: ${needs.projects.join(', ')}`);
 
-  const migrate = spawnSync('node', ['--import', 'tsx', 'scripts/migrate.ts'], { env, stdio: 'inherit' });
-  if (migrate.status !== 0) throw new Error('Migrations failed.');
+  if (needs.database) await startDatabaseAndMail(env);
 
-  const { startMailCatcher } = await import('../server/mail/catcher.ts');
-  catcher = await startMailCatcher({ port: smtpPort, databaseUrl: env.DATABASE_URL });
+  if (needs.clientBuild) {
+    console.log('Building the client…');
+    const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn', '--outDir', env.CLIENT_DIR!, '--emptyOutDir'], { env: { ...env, NODE_ENV: 'production' }, stdio: 'inherit' });
+    if (build.status !== 0) throw new Error('The client build failed.');
+  }
 
-  console.log('Building the client…');
-  const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn', '--outDir', env.CLIENT_DIR, '--emptyOutDir'], { env: { ...env, NODE_ENV: 'production' }, stdio: 'inherit' });
-  if (build.status !== 0) throw new Error('The client build failed.');
-
-  // Printed for the record; `npm run audit` is the check that fails on a high or critical advisory.
-  const audit = spawnSync('node', ['--import', 'tsx', 'scripts/audit.ts'], { env, encoding: 'utf8', timeout: 150_000 });
-  console.log((audit.stdout ?? '').trim() || 'Dependency audit not checked: `npm audit` did not finish.');
+  if (needs.audit) {
+    // Printed for the record; `npm run audit` is the check that fails on a high or critical advisory.
+    const audit = spawnSync('node', ['--import', 'tsx', 'scripts/audit.ts'], { env, encoding: 'utf8', timeout: 150_000 });
+    console.log((audit.stdout ?? '').trim() || 'Dependency audit not checked: `npm audit` did not finish.');
+  }
 
   const reportFile = path.join(workDir, 'vitest-report.json');
-  const vitest = spawn('npx', ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`, ...vitestArgs], { env, stdio: 'inherit' });
+  const projectArgs = vitestArgs.some((a) => a === '--project' || a.startsWith('--project=')) ? [] : needs.projects.flatMap((p) => ['--project', p]);
+  const vitest = spawn('npx', ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`, ...projectArgs, ...vitestArgs], { env, stdio: 'inherit' });
   const vitestCode: number = await new Promise((resolve) => vitest.on('exit', (code) => resolve(code ?? 1)));
   const summary = summaryFrom(reportFile);
   const failed = (summary?.failed ?? 0) + (summary?.brokenFiles ?? 0) + (summary ? 0 : 1);
   exitCode = vitestCode === 0 && failed === 0 ? 0 : 1;
-  await catcher.close();
+  await catcher?.close();
   catcher = null;
   cleanUp();
   console.log(`${summary?.passed ?? 0} passed, ${Math.max(failed, exitCode)} failed`);
@@ -87,4 +105,3 @@ try {
   exitCode = 1;
 }
 process.exit(exitCode);
-

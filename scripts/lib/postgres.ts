@@ -1,6 +1,7 @@
 // Runs a project-local PostgreSQL cluster on loopback. PostgreSQL refuses to run as root,
 // so when we are root every server command runs as the `postgres` user.
 import { execFileSync, spawnSync } from 'node:child_process';
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import pg from 'pg';
@@ -31,10 +32,37 @@ export interface Cluster {
   dataDir: string;
   port: number;
   socketDir: string;
+  /** Throwaway clusters (npm test) trade crash safety for speed; a cluster that keeps data never does. */
+  durable: boolean;
 }
 
-export function clusterFor(dataDir: string, port: number): Cluster {
-  return { dataDir, port, socketDir: path.join(dataDir, 'socket') };
+export function clusterFor(dataDir: string, port: number, options: { durable?: boolean } = {}): Cluster {
+  return { dataDir, port, socketDir: path.join(dataDir, 'socket'), durable: options.durable ?? true };
+}
+
+// Where clusters go when the server user cannot enter the project's folder (a clone in root's home or a
+// mode-700 temporary folder): PostgreSQL's own home, which that user owns on every Debian install.
+const REACHABLE_ROOT = '/var/lib/postgresql/patchwise';
+
+function serverUserCanEnter(dir: string): boolean {
+  if (!isRoot) return true;
+  // access(2) needs search permission on every folder of the path, so one test covers the whole chain.
+  return spawnSync('runuser', ['-u', SERVER_USER, '--', 'test', '-x', dir]).status === 0;
+}
+
+/**
+ * The data folder to use for a wanted one: the wanted folder itself when the server user can reach its
+ * parent, else a folder of the server user's own named after the wanted path, so a second start finds it again.
+ */
+export function reachableDataDir(wanted: string): string {
+  const parent = path.dirname(wanted);
+  fs.mkdirSync(parent, { recursive: true });
+  if (serverUserCanEnter(parent)) return wanted;
+  const key = crypto.createHash('sha256').update(path.resolve(wanted)).digest('hex').slice(0, 16);
+  const fallback = path.join(REACHABLE_ROOT, `${path.basename(path.dirname(parent)) || 'project'}-${key}`, path.basename(wanted));
+  fs.mkdirSync(path.dirname(fallback), { recursive: true });
+  execFileSync('chown', [`${SERVER_USER}:${SERVER_USER}`, REACHABLE_ROOT, path.dirname(fallback)]);
+  return fallback;
 }
 
 export function initCluster(cluster: Cluster) {
@@ -56,7 +84,8 @@ export function startCluster(cluster: Cluster) {
   fs.mkdirSync(cluster.socketDir, { recursive: true });
   ownByServerUser(cluster.socketDir);
   const logFile = path.join(cluster.dataDir, 'server.log');
-  const options = `-c listen_addresses=127.0.0.1 -p ${cluster.port} -k ${cluster.socketDir} -c fsync=off -c max_connections=200`;
+  const speedOverSafety = cluster.durable ? '' : ' -c fsync=off -c synchronous_commit=off -c full_page_writes=off';
+  const options = `-c listen_addresses=127.0.0.1 -p ${cluster.port} -k ${cluster.socketDir} -c max_connections=200${speedOverSafety}`;
   const result = runServerCommand('pg_ctl', ['-D', cluster.dataDir, '-l', logFile, '-o', options, '-w', '-t', '60', 'start']);
   if (result.status !== 0) {
     const log = fs.existsSync(logFile) ? fs.readFileSync(logFile, 'utf8').split('\n').slice(-15).join('\n') : '';

@@ -118,7 +118,7 @@ const exifrOptions = {
 };
 
 export async function readPhotoExif(bytes: Uint8Array, now = new Date()): Promise<PhotoReading> {
-  let tags: Record<string, unknown> = {};
+  let tags: Record<string, unknown>;
   try {
     tags =
       (await exifr.parse(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength), exifrOptions)) ?? {};

@@ -43,6 +43,7 @@ interface Context {
 /** Keeps the uploaded name readable as a label: no folders, no control characters, bounded length. */
 export function labelFromFileName(name: string) {
   const base = name.split(/[\\/]/).pop() ?? '';
+  // eslint-disable-next-line no-control-regex -- control characters are exactly what a stored label must lose
   return base.replace(/[\u0000-\u001f\u007f]/g, '').trim().slice(0, 200);
 }
 

@@ -10,6 +10,8 @@ import { issueNoticeToken } from './notice-links.ts';
 import { renderNoticeMap } from './notice-map.ts';
 import { organisationHeader } from '../mail/organisation-header.ts';
 import { noticeMaterial, refreshNoticeStatus, type NoticeMaterial } from './notices.ts';
+import { MACHINE_FILE_CAUTION } from '../../shared/notices/cautions.ts';
+import { noticeMachineFilePaths } from './zone-files/zone-machine-files.ts';
 import type { NoticeContent } from '../../shared/schemas/notices.ts';
 
 export const MAP_CID = 'notice-map@patchwise';
@@ -52,8 +54,16 @@ export function noticeText(c: NoticeContent, link: string): string {
     ...c.cautions.map((caution) => `- ${caution}`),
     '',
     `See the map, the zones and acknowledge this notice: ${link}`,
-    'The zones are attached as zones.geojson for a sprayer or mapping program.',
+    'The zones are attached as zones.geojson for a mapping program. Files for a sprayer terminal:',
+    `- ISO 11783-10 task data: ${zoneFileLinks(link).taskData}`,
+    `- Shapefile: ${zoneFileLinks(link).shapefile}`,
+    MACHINE_FILE_CAUTION,
   ].join('\n');
+}
+
+/** The zone files beside a notice link: the page at `/n/<token>` has them under the API's link path. */
+export function zoneFileLinks(link: string) {
+  return noticeMachineFilePaths(link.replace(/\/n\/([^/]+)$/, '/api/notice-links/$1'));
 }
 
 export function noticeHtml(c: NoticeContent, link: string, mapSrc = `cid:${MAP_CID}`): string {
@@ -91,7 +101,8 @@ ${c.rescoutOn ? `<p style="margin:0 0 12px"><strong>Re-scout on:</strong> ${e(lo
 <h2 style="font-size:17px;color:#9a3f14">Before any treatment</h2>
 <ul style="margin:0 0 12px;padding-left:20px">${c.cautions.map((caution) => `<li>${e(caution)}</li>`).join('')}</ul>
 <p style="margin:16px 0"><a href="${e(link)}" style="background:#2f5d3a;color:#ffffff;padding:10px 16px;text-decoration:none;border-radius:4px">Open the notice and acknowledge it</a></p>
-<p style="margin:0;font-size:13px;color:#5f5142">Link: ${e(link)}<br>The zones are attached as zones.geojson for a sprayer or mapping program. Sent by ${e(c.organisationName)}.</p>
+<p style="margin:0 0 8px;font-size:13px;color:#5f5142">Files for a sprayer terminal: <a href="${e(zoneFileLinks(link).taskData)}">ISO 11783-10 task data</a> · <a href="${e(zoneFileLinks(link).shapefile)}">shapefile</a>. ${e(MACHINE_FILE_CAUTION)}</p>
+<p style="margin:0;font-size:13px;color:#5f5142">Link: ${e(link)}<br>The zones are attached as zones.geojson for a mapping program. Sent by ${e(c.organisationName)}.</p>
 </div></body></html>`;
 }
 

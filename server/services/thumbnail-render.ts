@@ -59,9 +59,15 @@ export function applyOrientation(image: JimpImage, orientation: number) {
   if (orientation === 2) mirror();
   else if (orientation === 3) image.rotate(180);
   else if (orientation === 4) image.flip({ horizontal: false, vertical: true });
-  else if (orientation === 5) (image.rotate(-90), mirror());
+  else if (orientation === 5) {
+    image.rotate(-90);
+    mirror();
+  }
   else if (orientation === 6) image.rotate(-90);
-  else if (orientation === 7) (image.rotate(90), mirror());
+  else if (orientation === 7) {
+    image.rotate(90);
+    mirror();
+  }
   else if (orientation === 8) image.rotate(90);
 }
 

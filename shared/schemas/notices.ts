@@ -109,6 +109,8 @@ export interface NoticeLinkResponse {
     zonesGeoJson: FeatureCollection<MultiPolygon, NoticeZoneRow>;
     boundary: MultiPolygon;
     mapPath: string;
+    /** Sprayer-ready files of the zones: ISO 11783-10 task data and a shapefile, each zipped. */
+    zoneFiles: { taskData: string; shapefile: string };
   };
 }
 export interface AcknowledgeResponse {

@@ -24,7 +24,9 @@ function FitToBoundaries({ boundaries }: { boundaries: MapBoundary[] }) {
     if (boundaries.length === 0) return;
     const bounds = L.geoJSON(boundaries.map((b) => ({ type: 'Feature', properties: {}, geometry: b.geometry })) as never).getBounds();
     if (bounds.isValid()) map.fitBounds(bounds, { padding: [24, 24], maxZoom: 17 });
-  }, [map, key]); // refit when the set of boundaries changes, not on every render
+    // Refit when the set of boundaries changes (its key), not when a parent hands a new array of the same ones.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [map, key]);
   return null;
 }
 

@@ -11,6 +11,7 @@ export function TableFrame<Row>({
 }: {
   caption: string;
   // `any` value type: TanStack's column helpers give each column its own value type.
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any
   columns: ColumnDef<Row, any>[];
   rows: Row[];
   rowId: (row: Row) => string;

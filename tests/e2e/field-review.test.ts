@@ -82,15 +82,23 @@ function parseCsv(text: string): string[][] {
   for (let i = 0; i < text.length; i++) {
     const c = text[i];
     if (quoted) {
-      if (c === '"' && text[i + 1] === '"') (field += '"'), i++;
+      if (c === '"' && text[i + 1] === '"') {
+        field += '"';
+        i++;
+      }
       else if (c === '"') quoted = false;
       else field += c;
     } else if (c === '"') quoted = true;
-    else if (c === ',') record.push(field), (field = '');
+    else if (c === ',') {
+      record.push(field);
+      field = '';
+    }
     else if (c === '\r' && text[i + 1] === '\n') {
       record.push(field);
       records.push(record);
-      (record = []), (field = ''), i++;
+      record = [];
+      field = '';
+      i++;
     } else field += c;
   }
   if (field !== '' || record.length) records.push([...record, field]);

@@ -46,7 +46,7 @@ describe('a database restart while serving', () => {
     const visitor = await anonymous();
     // Requests in flight as the database goes down: each makes a farm and its three contacts in one transaction.
     const names = Array.from({ length: 12 }, (_, i) => `Race ${org.id.slice(0, 6)} ${i}`);
-    let during: Array<{ status: number; body: { error?: { code: string; message: string } } }> = [];
+    let during: Array<{ status: number; body: { error?: { code: string; message: string } } }>;
     try {
       const racing = names.map((name) => admin.post('/api/farms', farmBody(name)).then((r) => r.status));
       stopCluster(cluster);

@@ -60,10 +60,11 @@ export function ZoneEditLayer({ zones, revision, handlers }: { zones: WorkingZon
 
   useEffect(() => {
     const layers: L.Layer[] = [];
+    const zoneKeys = keys.current;
     for (const zone of current.current) {
       const group = L.geoJSON(zone.geometry, { style: zoneStyle, pmIgnore: false } as L.GeoJSONOptions);
       group.eachLayer((layer) => {
-        keys.current.set(layer, zone.key);
+        zoneKeys.set(layer, zone.key);
         const reshape = () => report.current.onReshape(zone.key, geometryOf(layer as L.Polygon));
         layer.on('pm:edit', reshape);
         layer.on('pm:dragend', reshape);
@@ -76,7 +77,7 @@ export function ZoneEditLayer({ zones, revision, handlers }: { zones: WorkingZon
     if (map.pm.globalEditModeEnabled()) map.pm.enableGlobalEditMode();
     return () => {
       for (const layer of layers) {
-        keys.current.delete(layer);
+        zoneKeys.delete(layer);
         layer.off();
         layer.remove();
       }
