@@ -48,7 +48,8 @@ export interface AppOptions {
 
 export function createApp(options: AppOptions = {}): Express {
   const app = express();
-  app.set('trust proxy', 'loopback');
+  // Off by default: X-Forwarded-For is believed only from the proxies TRUST_PROXY names, so no client picks its own address.
+  app.set('trust proxy', config.trustProxy);
   app.disable('x-powered-by');
   app.use(requestLogging(options.logger ?? logger));
   // Before sessions: a probe creates no session and needs no database beyond its own check.

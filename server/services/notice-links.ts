@@ -8,6 +8,7 @@ import { AppError } from '../errors.ts';
 import { Notice } from '../models/notice.ts';
 import { noticeMaterial } from './notices.ts';
 import { renderNoticeMap } from './notice-map.ts';
+import { cachedNoticeMap } from './notice-map-cache.ts';
 import { noticeMachineFilePaths } from './zone-files/zone-machine-files.ts';
 import type { NoticeLinkResponse } from '../../shared/schemas/notices.ts';
 
@@ -94,10 +95,14 @@ export async function noticeForLink(token: string): Promise<NoticeLinkResponse['
   return noticePageContent(copy.noticeId, { name: copy.contactName, acknowledgedAt: copy.acknowledgedAt }, `/api/notice-links/${token}`);
 }
 
-/** A notice's map image, as the e-mail and the notice page carry it. */
+/** A notice's map image, as the e-mail and the notice page carry it: drawn once per notice version. */
 export async function noticeMapImage(noticeId: string): Promise<Buffer> {
-  const material = await noticeMaterial(noticeId);
-  return renderNoticeMap({ boundary: material.boundary, zones: material.zones, sightings: material.sightings });
+  const notice = await Notice.findByPk(noticeId, { attributes: ['id', 'updatedAt'] });
+  if (!notice) throw linkRefused();
+  return cachedNoticeMap(notice.id, notice.updatedAt, async () => {
+    const material = await noticeMaterial(noticeId);
+    return renderNoticeMap({ boundary: material.boundary, zones: material.zones, sightings: material.sightings });
+  });
 }
 
 /** The notice's map for a token (does not count as an opening: mail programs fetch images by themselves). */

@@ -8,6 +8,7 @@ import { mailTransport } from '../mail/transport.ts';
 import { escapeHtml } from './escape-html.ts';
 import { issueNoticeToken } from './notice-links.ts';
 import { renderNoticeMap } from './notice-map.ts';
+import { organisationHeader } from '../mail/organisation-header.ts';
 import { noticeMaterial, refreshNoticeStatus, type NoticeMaterial } from './notices.ts';
 import { MACHINE_FILE_CAUTION } from '../../shared/notices/cautions.ts';
 import { noticeMachineFilePaths } from './zone-files/zone-machine-files.ts';
@@ -132,11 +133,12 @@ const STALE_SENDING_MINUTES = 15;
  * de-duplicate by Message-ID still show one message. Nothing else can send a second copy.
  */
 export async function deliverNoticeCopy(recipientId: string): Promise<'sent' | 'skipped'> {
-  const [claim] = await sequelize.query<{ notice_id: string; email: string; contact_name: string; message_id: string; attempts: number }>(
-    `UPDATE notice_recipients SET status = 'sending', attempts = attempts + 1, updated_at = now()
-      WHERE id = :id AND smtp_accepted_at IS NULL AND revoked_at IS NULL
-        AND (status <> 'sending' OR updated_at < now() - make_interval(mins => :stale))
-      RETURNING notice_id, email, contact_name, message_id, attempts`,
+  const [claim] = await sequelize.query<{ notice_id: string; email: string; contact_name: string; message_id: string; attempts: number; organisation_id: string }>(
+    `UPDATE notice_recipients r SET status = 'sending', attempts = attempts + 1, updated_at = now()
+       FROM notices n
+      WHERE r.id = :id AND n.id = r.notice_id AND r.smtp_accepted_at IS NULL AND r.revoked_at IS NULL
+        AND (r.status <> 'sending' OR r.updated_at < now() - make_interval(mins => :stale))
+      RETURNING r.notice_id, r.email, r.contact_name, r.message_id, r.attempts, n.organisation_id`,
     { replacements: { id: recipientId, stale: STALE_SENDING_MINUTES }, type: QueryTypes.SELECT },
   );
   if (!claim) {
@@ -158,6 +160,7 @@ export async function deliverNoticeCopy(recipientId: string): Promise<'sent' | '
       to: { name: claim.contact_name, address: claim.email },
       messageId: claim.message_id,
       ...mail,
+      headers: organisationHeader(claim.organisation_id),
     });
     // The single statement after SMTP acceptance (see above).
     await sequelize.query(`UPDATE notice_recipients SET status = 'sent', smtp_accepted_at = now(), last_error = NULL, updated_at = now() WHERE id = :id`, { replacements: { id: recipientId } });

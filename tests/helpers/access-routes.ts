@@ -14,7 +14,7 @@ export const foundationRoutes: AccessRow[] = [
   row('GET', '/api/config', everyone(200)),
 
   row('GET', '/api/users', anySignedIn(200, staff)),
-  row('POST', '/api/users', adminOnly(201, 201), { name: 'Matrix Scout', email: '{newEmail}', role: 'scout' }, 'each admin invites into their own organisation'),
+  row('POST', '/api/users', adminOnly(202, 202), { name: 'Matrix Scout', email: '{newEmail}', role: 'scout' }, 'each admin invites into their own organisation'),
   row('PATCH', '/api/users/{invitedUser}', adminOnly(200), { name: 'Invited Adviser Renamed' }),
   row('POST', '/api/users/{invitedUser}/invitation', adminOnly(200)),
 
