@@ -3,6 +3,7 @@
 // path traversal through uploads and photo routes, injection through filters, and oversized bodies.
 import crypto from 'node:crypto';
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import express from 'express';
 import pg from 'pg';
@@ -15,6 +16,7 @@ import { sessionCookieOptions, sessionMiddleware } from '../../server/auth/sessi
 import { stopQueue } from '../../server/jobs/queue.ts';
 import { closeSimulationPool } from '../../server/services/check-runner.ts';
 import { listApiRoutes } from '../helpers/access-matrix.ts';
+import { createApp } from '../../server/app.ts';
 import { anonymous, signedIn, testApp } from '../helpers/http.ts';
 import { makeOrganisation, TEST_PASSWORD } from '../helpers/org.ts';
 import { linkToken, waitForMessage } from '../helpers/mailbox.ts';
@@ -211,7 +213,11 @@ describe('markup in user text reaches e-mail only escaped, and pages carry a scr
   });
 
   it("serves the app's pages with a Content-Security-Policy that allows no inline script", async () => {
-    const res = await request(testApp()).get('/fields');
+    // The API suites run without a client build: the app's own index.html in a folder of its own stands in for it.
+    const clientDir = fs.mkdtempSync(path.join(os.tmpdir(), 'patchwise-client-'));
+    fs.copyFileSync('index.html', path.join(clientDir, 'index.html'));
+    const res = await request(createApp({ clientDir })).get('/fields');
+    fs.rmSync(clientDir, { recursive: true, force: true });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/text\/html/);
     const policy = String(res.headers['content-security-policy']);
