@@ -3,7 +3,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import type { CheckRequestInput, CheckResponse } from '@shared/schemas/checks.ts';
-import { checkQueryKey } from './get-check.ts';
+import { checkQueryKey } from '../../../lib/api/get-check.ts';
 import { fieldChecksQueryKey } from './get-field-checks.ts';
 import { fieldHistoryQueryKey } from './get-field-history.ts';
 

@@ -8,7 +8,7 @@ import { ErrorState, EmptyState, LoadingState } from '../../../components/query-
 import { FormMessage } from '../../../components/form-field.tsx';
 import { errorMessage, serverFieldErrors, type FieldErrors } from '../../../lib/form-errors.ts';
 import { useRunCheck } from '../api/run-check.ts';
-import type { useCheck } from '../api/get-check.ts';
+import type { useCheck } from '../../../lib/api/get-check.ts';
 import { CheckOptionsForm, optionsFromDraft, type CheckOptionsDraft } from './check-options-form.tsx';
 import { VerdictSummary } from './verdict-summary.tsx';
 

@@ -5,8 +5,8 @@ import { PageFrame } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { TableFrame } from '../../../components/table-frame.tsx';
 import { AreaText } from '../../../components/area-text.tsx';
-import type { Field } from '../../../types/api.ts';
-import { useFields } from '../api/get-fields.ts';
+import type { FieldView as Field } from '@shared/schemas/fields.ts';
+import { useFields } from '../../../lib/api/get-fields.ts';
 
 const column = createColumnHelper<Field>();
 const columns = [

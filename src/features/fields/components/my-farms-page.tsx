@@ -1,8 +1,8 @@
 // The grower's read-only home: their farms, each with its fields.
 import { PageFrame } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
-import type { Field } from '../../../types/api.ts';
-import { useFields } from '../api/get-fields.ts';
+import type { FieldView as Field } from '@shared/schemas/fields.ts';
+import { useFields } from '../../../lib/api/get-fields.ts';
 import { FieldCard } from './fields-home.tsx';
 
 function byFarm(fields: Field[]) {
