@@ -1,6 +1,7 @@
 // The zone-notice API's contract: requests (zod) and the answers' types, for the adviser, grower and notice page.
 import { z } from 'zod';
 import type { FeatureCollection, MultiPolygon } from 'geojson';
+import type { VerdictWords } from '../notices/verdict-words.ts';
 
 export const noticeStatuses = ['draft', 'sending', 'sent', 'partly-failed'] as const;
 export type NoticeStatus = (typeof noticeStatuses)[number];
@@ -91,7 +92,7 @@ export interface NoticeContent {
   pestName: string;
   /** YYYY-MM-DD, oldest first. */
   walkDates: string[];
-  verdict: { spread: 'clustered' | 'random' | 'regular' | 'too-few' | null; headline: string; figures: string[] };
+  verdict: VerdictWords;
   zones: NoticeZoneRow[];
   totalTreatedM2: number;
   untreatedShare: number;

@@ -1,6 +1,5 @@
 // Run a pattern check for the chosen pest and window, follow it while it runs, and read its verdict.
 import { useState } from 'react';
-import type { AnalysisResult } from '@shared/analysis/analyse.ts';
 import type { CheckRequestInput, CheckView } from '@shared/schemas/checks.ts';
 import { Button } from '../../../components/button.tsx';
 import { Panel } from '../../../components/page-frame.tsx';
@@ -57,7 +56,7 @@ export function CheckPanel({ window, draft, onDraftChange, check, onCheckOpened 
         ) : current?.status === 'failed' ? (
           <FormMessage>{current.error ?? 'The check failed; run it again.'}</FormMessage>
         ) : current?.result ? (
-          <VerdictSummary check={current} result={current.result as unknown as AnalysisResult} />
+          <VerdictSummary check={current} result={current.result} />
         ) : null}
       </div>
     </Panel>

@@ -2,7 +2,6 @@
 // the threshold status and the season — for one field, pest and date window (kept in the address).
 import { lazy, Suspense, useCallback, useEffect, useMemo, useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router';
-import type { AnalysisResult } from '@shared/analysis/analyse.ts';
 import type { CheckView } from '@shared/schemas/checks.ts';
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
@@ -64,7 +63,7 @@ export function FieldReviewPage() {
   const window = pestId ? { fieldId, pestId, from, to } : null;
   const built = optionsFromDraft(draft);
   const request = window && built.ok ? { ...window, options: { ...built.options } } : null;
-  const result = check.data?.status === 'done' && check.data.result && check.data.pestId === pestId ? (check.data.result as unknown as AnalysisResult) : null;
+  const result = check.data?.status === 'done' && check.data.result && check.data.pestId === pestId ? check.data.result : null;
 
   if (field.isPending || pests.isPending) return <PageFrame title="Field review"><LoadingState label="Loading the field…" /></PageFrame>;
   if (field.isError) return <PageFrame title="Field review"><ErrorState error={field.error} onRetry={() => field.refetch()} /></PageFrame>;
