@@ -8,7 +8,8 @@ import { FormMessage } from '../../../components/form-field.tsx';
 import { errorMessage, serverFieldErrors, type FieldErrors } from '../../../lib/form-errors.ts';
 import { useRunCheck } from '../api/run-check.ts';
 import type { useCheck } from '../../../lib/api/get-check.ts';
-import { CheckOptionsForm, optionsFromDraft, type CheckOptionsDraft } from './check-options-form.tsx';
+import { CheckOptionsForm } from './check-options-form.tsx';
+import { optionsFromDraft, type CheckOptionsDraft } from '../check-options-draft.ts';
 import { VerdictSummary } from './verdict-summary.tsx';
 
 export function CheckPanel({ window, draft, onDraftChange, check, onCheckOpened }: {

@@ -12,7 +12,7 @@ import { useSightings } from '../../../lib/api/get-sightings.ts';
 import { useCheck } from '../../../lib/api/get-check.ts';
 import { CheckPanel } from './check-panel.tsx';
 import { CheckEvidence } from './check-evidence.tsx';
-import { defaultDraft, optionsFromDraft, type CheckOptionsDraft } from './check-options-form.tsx';
+import { defaultDraft, optionsFromDraft, type CheckOptionsDraft } from '../check-options-draft.ts';
 import { ReviewToolbar, type ReviewWindow } from './review-toolbar.tsx';
 import { SensitivityStrip } from './sensitivity-strip.tsx';
 import { ThresholdStatusPanel } from './threshold-status-panel.tsx';
