@@ -50,7 +50,7 @@ export function AdviserFieldsHome() {
   );
 }
 
-export function FieldCard({ field }: { field: Field }) {
+function FieldCard({ field }: { field: Field }) {
   return (
     <li>
       <Link

@@ -3,8 +3,6 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import type { ZoneSetListResponse } from '@shared/schemas/zones.ts';
 
-export type ZoneSetSummary = ZoneSetListResponse['zoneSets'][number];
-
 export const getZoneSets = (fieldId: string) => api<ZoneSetListResponse>(`/api/fields/${fieldId}/zone-sets`).then((r) => r.zoneSets);
 export const zoneSetsQueryKey = (fieldId: string) => ['zone-sets', 'list', fieldId] as const;
 export const zoneSetsQueryOptions = (fieldId: string) => queryOptions({ queryKey: zoneSetsQueryKey(fieldId), queryFn: () => getZoneSets(fieldId) });
