@@ -49,20 +49,3 @@ export function AdviserFieldsHome() {
     </PageFrame>
   );
 }
-
-function FieldCard({ field }: { field: Field }) {
-  return (
-    <li>
-      <Link
-        to={`/fields/${field.id}`}
-        className="block min-h-16 rounded-xl bg-white p-4 shadow-sm ring-1 ring-soil-300/60 hover:ring-field-500 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600 active:bg-field-50"
-      >
-        <span className="block text-lg font-semibold text-field-900">{field.name}</span>
-        <span className="mt-0.5 block text-sm text-soil-700">
-          {field.farmName} · {field.crop} {field.season}
-        </span>
-        <AreaText m2={field.areaM2} className="mt-1 block text-sm" />
-      </Link>
-    </li>
-  );
-}
