@@ -46,6 +46,8 @@ async function startDatabaseAndMail(env: NodeJS.ProcessEnv) {
     DATABASE_URL: databaseUrl(cluster, 'patchwise_test'),
     SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
     SMTP_PORT: String(smtpPort),
+    // The harness runs the catcher, so the development mailbox is served (see mailboxServed in server/config.ts).
+    MAIL_CATCHER_PORT: String(smtpPort),
   });
   Object.assign(process.env, env);
   const migrate = spawnSync('node', ['--import', 'tsx', 'scripts/migrate.ts'], { env, stdio: 'inherit' });

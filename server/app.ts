@@ -27,6 +27,9 @@ import { photosRouter } from './routes/photos.ts';
 import { checksRouter } from './routes/checks.ts';
 import { fieldInsightsRouter } from './routes/field-insights.ts';
 import { advisersRouter } from './routes/advisers.ts';
+import { healthRouter } from './routes/health.ts';
+import { logger, requestLogging } from './logger.ts';
+import type { Logger } from 'pino';
 
 function tileOrigin(tileUrl: string) {
   try {
@@ -39,12 +42,18 @@ function tileOrigin(tileUrl: string) {
 export interface AppOptions {
   /** Serve the built client from this folder (skipped when it does not exist). */
   clientDir?: string;
+  /** Where request lines go (tests hand in their own to read them). */
+  logger?: Logger;
 }
 
 export function createApp(options: AppOptions = {}): Express {
   const app = express();
-  app.set('trust proxy', 'loopback');
+  // Off by default: X-Forwarded-For is believed only from the proxies TRUST_PROXY names, so no client picks its own address.
+  app.set('trust proxy', config.trustProxy);
   app.disable('x-powered-by');
+  app.use(requestLogging(options.logger ?? logger));
+  // Before sessions: a probe creates no session and needs no database beyond its own check.
+  app.use(healthRouter);
 
   const tiles = tileOrigin(config.tileUrl);
   app.use(

@@ -3,6 +3,32 @@ import path from 'node:path';
 
 export const DEFAULT_SESSION_SECRET = 'patchwise-local-development-secret';
 
+const LOOPBACK_HOSTS = new Set(['127.0.0.1', 'localhost', '[::1]']);
+
+/**
+ * The development mailbox is a stand-in for a real mail service: served only while mail goes to the catcher that
+ * `npm start` or `npm test` runs (they announce its port in MAIL_CATCHER_PORT), never with a real SMTP server
+ * and never in production.
+ */
+export function mailboxServed(env: NodeJS.ProcessEnv = process.env) {
+  if (env.NODE_ENV === 'production' || env.MAIL_CATCHER === 'off' || !env.MAIL_CATCHER_PORT || !env.SMTP_URL) return false;
+  try {
+    const smtp = new URL(env.SMTP_URL);
+    return LOOPBACK_HOSTS.has(smtp.hostname) && smtp.port === env.MAIL_CATCHER_PORT;
+  } catch {
+    return false;
+  }
+}
+
+/** Express's `trust proxy`: off unless TRUST_PROXY names the proxies (a hop count, or addresses and subnets). */
+export function trustProxySetting(value: string | undefined): boolean | number | string {
+  const setting = value?.trim() ?? '';
+  if (setting === '' || /^(false|off|no|0)$/i.test(setting)) return false;
+  if (/^(true|on|yes)$/i.test(setting)) return true;
+  if (/^\d+$/.test(setting)) return Number(setting);
+  return setting;
+}
+
 function readConfig(env: NodeJS.ProcessEnv = process.env) {
   const isProduction = env.NODE_ENV === 'production';
   const port = Number(env.PORT ?? 3000);
@@ -19,7 +45,10 @@ function readConfig(env: NodeJS.ProcessEnv = process.env) {
     uploadDir: path.resolve(env.UPLOAD_DIR ?? 'uploads'),
     clientDir: path.resolve(env.CLIENT_DIR ?? 'dist'),
     signInLimitPerWindow: Number(env.SIGN_IN_LIMIT ?? 10),
-    mailCatcherEnabled: env.MAIL_CATCHER !== 'off',
+    // Failed sign-ins per client address over every e-mail address, per 15 minutes (against guessing across accounts).
+    signInAddressLimitPerWindow: Number(env.SIGN_IN_ADDRESS_LIMIT ?? 100),
+    trustProxy: trustProxySetting(env.TRUST_PROXY),
+    mailboxServed: mailboxServed(env),
   };
   return config;
 }

@@ -54,7 +54,7 @@ function isDatabaseUnavailable(error: MaybeDbError | undefined, depth = 0): bool
   return isDatabaseUnavailable(error.parent, depth + 1) || isDatabaseUnavailable(error.original, depth + 1);
 }
 
-export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
+export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   let error: AppError;
   if (err instanceof AppError) error = err;
   else if (err instanceof ZodError) error = fromZod(err);
@@ -64,6 +64,9 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
   else if (err?.code === 'EBADCSRFTOKEN' || err?.code === 'invalid_csrf') error = new AppError(403, 'csrf', 'This form has expired: reload the page and try again.');
   else if (isDatabaseUnavailable(err)) error = new AppError(503, 'unavailable', 'Patchwise cannot reach its database right now; try again in a minute.');
   else error = fromDatabase(err) ?? new AppError(500, 'internal', 'Something went wrong on our side; the team has been told.');
-  if (error.status >= 500 && error.code === 'internal') console.error(err);
+  if (error.status >= 500 && error.code === 'internal') {
+    if (req.log) req.log.error({ err }, 'Unhandled error');
+    else console.error(err);
+  }
   res.status(error.status).json({ error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) } });
 };

@@ -4,6 +4,11 @@ import { startWorkers } from './jobs/workers.ts';
 import { stopQueue } from './jobs/queue.ts';
 import './jobs/all-workers.ts';
 import { closeSimulationPool } from './services/check-runner.ts';
+import { markStopping } from './services/readiness.ts';
+import { logger } from './logger.ts';
+
+// Requests still running when this runs out are cut off, so a stuck one cannot hold a deploy for ever.
+const SHUTDOWN_GRACE_MS = Number(process.env.SHUTDOWN_GRACE_MS ?? 25_000);
 
 /** Starts the HTTP server and, unless WORKERS=off, the background workers in the same process. */
 export async function startServer(options: { port?: number; host?: string } = {}) {
@@ -15,8 +20,16 @@ export async function startServer(options: { port?: number; host?: string } = {}
   });
   return {
     server,
+    /** Graceful: no new connections, requests in flight finish (up to the grace period), then the queue stops. */
     close: async () => {
-      await new Promise<void>((resolve) => server.close(() => resolve()));
+      markStopping();
+      const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+      // Idle keep-alive connections would otherwise hold close() open until the client hangs up.
+      server.closeIdleConnections();
+      const grace = setTimeout(() => server.closeAllConnections(), SHUTDOWN_GRACE_MS);
+      grace.unref();
+      await closed;
+      clearTimeout(grace);
       await stopQueue();
       // Idle simulation worker threads would otherwise keep the process alive.
       await closeSimulationPool();
@@ -26,6 +39,11 @@ export async function startServer(options: { port?: number; host?: string } = {}
 
 if (import.meta.url === `file://${process.argv[1]}`) {
   const running = await startServer();
-  console.log(`Patchwise is serving on ${config.publicUrl}`);
-  for (const signal of ['SIGINT', 'SIGTERM'] as const) process.on(signal, () => void running.close().then(() => process.exit(0)));
+  logger.info({ url: config.publicUrl }, `Patchwise is serving on ${config.publicUrl}`);
+  for (const signal of ['SIGINT', 'SIGTERM'] as const) {
+    process.once(signal, () => {
+      logger.info({ signal }, 'Stopping: finishing the requests in flight');
+      void running.close().then(() => process.exit(0));
+    });
+  }
 }

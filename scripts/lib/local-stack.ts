@@ -15,6 +15,9 @@ export async function startLocalStack() {
   }
   const usesMailCatcher = !process.env.SMTP_URL;
   process.env.SMTP_URL ??= `smtp://127.0.0.1:${localDefaults.smtpPort}`;
+  // Tells the server its mail goes to our own catcher, so the development mailbox may be served.
+  if (usesMailCatcher) process.env.MAIL_CATCHER_PORT = String(localDefaults.smtpPort);
+  else delete process.env.MAIL_CATCHER_PORT;
   process.env.PORT ??= String(localDefaults.appPort);
 
   // Server modules read their configuration on import, so they load only after the environment is set.

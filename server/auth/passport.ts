@@ -1,7 +1,7 @@
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { User } from '../models/user.ts';
-import { decoyPasswordHash, verifyPassword } from './passwords.ts';
+import { verifyPassword } from './passwords.ts';
 import type { Role } from '../../shared/schemas/roles.ts';
 
 export interface Actor {
@@ -32,7 +32,7 @@ passport.use(
   new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, async (email, password, done) => {
     try {
       const user = await User.findOne({ where: { email: email.trim().toLowerCase() } });
-      const ok = user ? await verifyPassword(user.passwordHash, password) : await verifyPassword(await decoyPasswordHash(), `${password}x`);
+      const ok = await verifyPassword(user?.passwordHash ?? null, password);
       if (!user || !ok || !user.active) return done(null, false);
       return done(null, actorOf(user));
     } catch (error) {

@@ -1,7 +1,8 @@
 // The local mail catcher: an SMTP server on loopback that keeps every message in the database,
-// where the admin's mailbox page reads it. It never relays anything onward.
+// where the admin's mailbox page reads it (filed by the organisation the app sent it for). It never relays anything onward.
 import { SMTPServer } from 'smtp-server';
 import pg from 'pg';
+import { organisationOfRawMessage } from './organisation-header.ts';
 
 export interface MailCatcher {
   port: number;
@@ -24,11 +25,12 @@ export async function startMailCatcher(options: { port: number; databaseUrl: str
         const raw = Buffer.concat(chunks);
         const subject = /^Subject: (.*)$/im.exec(raw.subarray(0, 16_384).toString('utf8'))?.[1] ?? null;
         try {
-          await pool.query('INSERT INTO mailbox_messages (envelope_from, envelope_to, subject, raw) VALUES ($1, $2, $3, $4)', [
+          await pool.query('INSERT INTO mailbox_messages (envelope_from, envelope_to, subject, raw, organisation_id) VALUES ($1, $2, $3, $4, $5)', [
             session.envelope.mailFrom ? session.envelope.mailFrom.address : null,
             session.envelope.rcptTo.map((r) => r.address),
             subject,
             raw,
+            organisationOfRawMessage(raw),
           ]);
           callback();
         } catch (error) {

@@ -1,7 +1,7 @@
 import { Router, type Request } from 'express';
 import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
 import { passport, type Actor } from '../auth/passport.ts';
-import { generateCsrfToken } from '../auth/csrf.ts';
+import { csrfTokenFor, generateCsrfToken } from '../auth/csrf.ts';
 import { parse } from '../middleware/validate.ts';
 import { forgotPasswordSchema, setPasswordSchema, signInSchema } from '../../shared/schemas/auth.ts';
 import { AppError } from '../errors.ts';
@@ -12,13 +12,29 @@ import { User } from '../models/user.ts';
 
 export const authRouter = Router();
 
+// The client address is the socket's, or what a proxy named in TRUST_PROXY reports: never a header the client chose.
+const clientAddress = (req: Request) => ipKeyGenerator(req.ip ?? '');
+
+// Failed sign-ins from one address over every e-mail address, against guessing one password across many accounts
+// (OWASP ASVS 4.0.3 V2.2.1). Successful sign-ins do not count, so a busy office behind one address is not held up.
+const signInAddressLimiter = rateLimit({
+  windowMs: 15 * 60 * 1000,
+  limit: () => config.signInAddressLimitPerWindow,
+  skipSuccessfulRequests: true,
+  standardHeaders: 'draft-7',
+  legacyHeaders: false,
+  keyGenerator: clientAddress,
+  store: new PostgresRequestLimitStore('sign-in-address|'),
+  handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many failed sign-ins from this network; wait 15 minutes and try again.')),
+});
+
 // Counted per address and e-mail, so one person's typos do not lock out a whole office.
 const signInLimiter = rateLimit({
   windowMs: 15 * 60 * 1000,
-  limit: config.signInLimitPerWindow,
+  limit: () => config.signInLimitPerWindow,
   standardHeaders: 'draft-7',
   legacyHeaders: false,
-  keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
+  keyGenerator: (req) => `${clientAddress(req)}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
   store: new PostgresRequestLimitStore('sign-in|'),
   handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many sign-in attempts; wait 15 minutes and try again.')),
 });
@@ -26,15 +42,16 @@ const signInLimiter = rateLimit({
 const forgotLimiter = rateLimit({
   windowMs: 15 * 60 * 1000,
   limit: 5,
-  keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
+  keyGenerator: (req) => `${clientAddress(req)}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
   store: new PostgresRequestLimitStore('forgot-password|'),
   handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many requests; wait 15 minutes and try again.')),
 });
 
 const publicUser = async (actor: Actor) => (await User.findByPk(actor.id))?.toPublic();
 
+// A visitor's token lives in a signed cookie, so asking for one writes no session row.
 authRouter.get('/csrf', (req, res) => {
-  res.json({ csrfToken: generateCsrfToken(req) });
+  res.json({ csrfToken: csrfTokenFor(req, res) });
 });
 
 authRouter.get('/me', async (req, res) => {
@@ -48,7 +65,7 @@ function logIn(req: Request, actor: Actor) {
   return new Promise<void>((resolve, reject) => req.login(actor, (err) => (err ? reject(err) : resolve())));
 }
 
-authRouter.post('/sign-in', signInLimiter, async (req, res, next) => {
+authRouter.post('/sign-in', signInAddressLimiter, signInLimiter, async (req, res, next) => {
   try {
     parse(signInSchema, req.body);
     const actor = await new Promise<Actor | false>((resolve, reject) =>
@@ -83,6 +100,7 @@ authRouter.post('/forgot-password', forgotLimiter, (req, res) => {
 
 authRouter.post('/set-password', async (req, res) => {
   const { token, password } = parse(setPasswordSchema, req.body);
-  const user = await setPasswordWithToken(token, password);
+  // Every other session of the account ends; the one that set the password (if it is one) stays.
+  const user = await setPasswordWithToken(token, password, req.sessionID);
   res.json({ user: user.toPublic(), message: 'Your password is set; sign in with it now.' });
 });

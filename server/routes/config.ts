@@ -5,5 +5,5 @@ import { config } from '../config.ts';
 export const configRouter = Router();
 
 configRouter.get('/', (_req, res) => {
-  res.json({ tileUrl: config.tileUrl, mailCatcher: config.mailCatcherEnabled });
+  res.json({ tileUrl: config.tileUrl, mailCatcher: config.mailboxServed });
 });

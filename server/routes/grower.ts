@@ -3,7 +3,8 @@ import { z } from 'zod';
 import { requireRole, actor } from '../middleware/access.ts';
 import { parse } from '../middleware/validate.ts';
 import { listGrowerNotices } from '../services/notices.ts';
-import { acknowledgeGrowerNotice, growerNoticeMap, growerNoticePage } from '../services/grower-notices.ts';
+import { acknowledgeGrowerNotice, growerNoticeMachineFile, growerNoticeMap, growerNoticePage } from '../services/grower-notices.ts';
+import { sendMachineFile } from './machine-file-response.ts';
 
 /** What a signed-in grower sees of the notices: those for their own farms, with their own copy's state. */
 export const growerRouter = Router();
@@ -21,6 +22,14 @@ growerRouter.get('/notices/:id', async (req, res) => {
 
 growerRouter.get('/notices/:id/map.png', async (req, res) => {
   res.type('png').send(await growerNoticeMap(actor(req), parse(idParam, req.params).id));
+});
+
+growerRouter.get('/notices/:id/zones.taskdata.zip', async (req, res) => {
+  sendMachineFile(res, await growerNoticeMachineFile(actor(req), parse(idParam, req.params).id, 'taskdata'));
+});
+
+growerRouter.get('/notices/:id/zones.shp.zip', async (req, res) => {
+  sendMachineFile(res, await growerNoticeMachineFile(actor(req), parse(idParam, req.params).id, 'shapefile'));
 });
 
 growerRouter.post('/notices/:id/acknowledge', async (req, res) => {

@@ -3,6 +3,8 @@ import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
 import { z } from 'zod';
 import { AppError } from '../errors.ts';
 import { acknowledge, linkRefused, mapForLink, noticeForLink, resolveNoticeToken } from '../services/notice-links.ts';
+import { noticeMachineFile } from '../services/zone-files/zone-machine-files.ts';
+import { sendMachineFile } from './machine-file-response.ts';
 
 /** The grower's notice page, opened by the token in the e-mailed link alone (no sign-in). */
 export const noticeLinksRouter = Router();
@@ -38,4 +40,12 @@ noticeLinksRouter.post('/:token/acknowledge', async (req, res) => {
 
 noticeLinksRouter.get('/:token/map.png', async (req, res) => {
   res.type('png').send(await mapForLink(token(req.params)));
+});
+
+noticeLinksRouter.get('/:token/zones.taskdata.zip', async (req, res) => {
+  sendMachineFile(res, await noticeMachineFile((await resolveNoticeToken(token(req.params))).noticeId, 'taskdata'));
+});
+
+noticeLinksRouter.get('/:token/zones.shp.zip', async (req, res) => {
+  sendMachineFile(res, await noticeMachineFile((await resolveNoticeToken(token(req.params))).noticeId, 'shapefile'));
 });

@@ -79,10 +79,11 @@ photosRouter.post(
 function sendPhoto(variant: PhotoVariant): RequestHandler {
   return async (req, res, next) => {
     const file = await photoFileFor(actor(req), parse(idParam, req.params).id, variant);
-    res.setHeader('Cache-Control', 'private, max-age=3600');
+    // Private pictures: no shared cache keeps them, and the browser does not keep them past sign-out (RFC 9111 §5.2.2.5).
+    res.setHeader('Cache-Control', 'private, no-store');
     res.setHeader('Content-Type', file.mimeType);
     res.setHeader('X-Content-Type-Options', 'nosniff');
-    res.sendFile(file.path, { dotfiles: 'deny', headers: { 'Content-Type': file.mimeType } }, (error) => {
+    res.sendFile(file.path, { dotfiles: 'deny', cacheControl: false, lastModified: false, headers: { 'Content-Type': file.mimeType } }, (error) => {
       if (error && !res.headersSent) next(new AppError(404, 'not_found', 'That photo file is missing from storage.'));
     });
   };

@@ -13,9 +13,8 @@ usersRouter.get('/', requireRole('admin', 'adviser'), async (req, res) => {
 });
 
 usersRouter.post('/', requireRole('admin'), async (req, res) => {
-  const outcome = await inviteUser(actor(req), parse(inviteUserSchema, req.body));
-  // 202: accepted without a new user (the address is taken elsewhere, which the answer must not say).
-  res.status(outcome.user ? 201 : 202).json(outcome);
+  // 202 and one sentence whether or not a pending user was made: the answer must not say an address is taken elsewhere.
+  res.status(202).json(await inviteUser(actor(req), parse(inviteUserSchema, req.body)));
 });
 
 usersRouter.patch('/:id', requireRole('admin'), async (req, res) => {

@@ -5,6 +5,8 @@ import { parse } from '../middleware/validate.ts';
 import { zoneProposalSchema, zoneSetCreateSchema } from '../../shared/schemas/zones.ts';
 import { createZoneSet, getZoneSet, listZoneSets, proposeZones } from '../services/zones.ts';
 import { exportFileName, zonesGeoJson, zonesKml } from '../services/zone-export.ts';
+import { machineFile } from '../services/zone-files/zone-machine-files.ts';
+import { sendMachineFile } from './machine-file-response.ts';
 
 /** Zone proposals from a check, and the accepted, versioned zone sets of a field (mounted at /api). */
 export const zoneSetsRouter = Router();
@@ -38,4 +40,14 @@ zoneSetsRouter.get('/zone-sets/:id/export.kml', requireRole('admin', 'adviser', 
   res.setHeader('Content-Type', 'application/vnd.google-earth.kml+xml');
   res.setHeader('Content-Disposition', `attachment; filename="${exportFileName(`${zoneSet.fieldName} ${zoneSet.pestName}`, zoneSet.version, 'kml')}"`);
   res.send(zonesKml(zoneSet, `${zoneSet.fieldName}, ${zoneSet.pestName}`));
+});
+
+zoneSetsRouter.get('/zone-sets/:id/export.taskdata.zip', requireRole('admin', 'adviser', 'grower'), async (req, res) => {
+  const zoneSet = await getZoneSet(actor(req), parse(idParam('zone set'), req.params).id);
+  sendMachineFile(res, await machineFile(zoneSet, 'taskdata'));
+});
+
+zoneSetsRouter.get('/zone-sets/:id/export.shp.zip', requireRole('admin', 'adviser', 'grower'), async (req, res) => {
+  const zoneSet = await getZoneSet(actor(req), parse(idParam('zone set'), req.params).id);
+  sendMachineFile(res, await machineFile(zoneSet, 'shapefile'));
 });

@@ -15,11 +15,52 @@ function postgisFault({ reason, x, y }: { reason: string | null; x: number | nul
   return fault('self-intersecting', `The boundary is not a valid polygon (${reason ?? 'unknown reason'}${near}); check that holes lie inside the outline and parts do not overlap.`);
 }
 
+// A field's outline needs a Feature in a FeatureCollection at most, or a GeometryCollection of polygons; a few more
+// levels cost nothing, but thousands would exhaust the parser's stack and take the request down with them.
+const MAX_COLLECTION_DEPTH = 16;
+
+/** How deeply GeoJSON collections nest in a value, counted without recursion (so any depth is safe to measure). */
+function collectionDepth(value: unknown) {
+  let deepest = 0;
+  const pending: Array<{ node: unknown; depth: number }> = [{ node: value, depth: 0 }];
+  while (pending.length > 0) {
+    const { node, depth } = pending.pop()!;
+    if (!node || typeof node !== 'object') continue;
+    const { type, geometries, features, geometry } = node as { type?: unknown; geometries?: unknown; features?: unknown; geometry?: unknown };
+    if (type !== 'GeometryCollection' && type !== 'FeatureCollection' && type !== 'Feature') continue;
+    deepest = Math.max(deepest, depth + 1);
+    if (deepest > MAX_COLLECTION_DEPTH) return deepest;
+    const children = [geometries, features].flatMap((list) => (Array.isArray(list) ? list : []));
+    if (geometry) children.push(geometry);
+    for (const child of children) pending.push({ node: child, depth: depth + 1 });
+  }
+  return deepest;
+}
+
+function refuseDeepNesting(value: unknown) {
+  if (collectionDepth(value) > MAX_COLLECTION_DEPTH) {
+    throw fault('unparseable', `The boundary nests collections more than ${MAX_COLLECTION_DEPTH} levels deep; export the field outline as a plain Polygon or MultiPolygon and upload that.`);
+  }
+}
+
+function jsonOrNothing(text: string): unknown {
+  try {
+    return JSON.parse(text);
+  } catch {
+    return undefined;
+  }
+}
+
 /** Reads a boundary from a GeoJSON value or a file's text and checks it, in code and then in PostGIS. */
 export async function readBoundary(input: { boundary?: unknown; boundaryFile?: string }): Promise<MultiPolygon> {
   let boundary: MultiPolygon;
-  if (input.boundaryFile !== undefined) boundary = parseBoundaryText(input.boundaryFile, DOMParser as never);
-  else if (input.boundary !== undefined) boundary = boundaryFromGeoJson(input.boundary);
+  if (input.boundaryFile !== undefined) {
+    if (/^\s*[[{]/.test(input.boundaryFile)) refuseDeepNesting(jsonOrNothing(input.boundaryFile));
+    boundary = parseBoundaryText(input.boundaryFile, DOMParser as never);
+  } else if (input.boundary !== undefined) {
+    refuseDeepNesting(input.boundary);
+    boundary = boundaryFromGeoJson(input.boundary);
+  }
   else throw fault('not-polygon', 'Add a boundary: upload a GeoJSON or KML file, or draw it on the map.');
   // Checked before anything walks the coordinates, so a badly nested file gets a message rather than a crash.
   validateBoundary(boundary);

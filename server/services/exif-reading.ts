@@ -1,6 +1,7 @@
 // Reads what a photo says about where and when it was taken (exifr), and judges whether to trust it.
 // GPS tags per EXIF 2.32 / CIPA DC-008: latitude/longitude as DMS rationals, the sign in the N/S/E/W refs.
 import exifr from 'exifr';
+import { heifExifTiff } from './heif-exif.ts';
 import type { Position, TimeFlag } from '../../shared/schemas/sightings.ts';
 
 export type PositionProblem = 'missing' | 'null-island' | 'out-of-range' | 'no-reference';
@@ -120,8 +121,10 @@ const exifrOptions = {
 export async function readPhotoExif(bytes: Uint8Array, now = new Date()): Promise<PhotoReading> {
   let tags: Record<string, unknown>;
   try {
-    tags =
-      (await exifr.parse(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength), exifrOptions)) ?? {};
+    // A HEIF photo's Exif block is found by a full box parser first; exifr then reads it as the TIFF it is.
+    const heifTiff = heifExifTiff(bytes);
+    const source = heifTiff ?? bytes;
+    tags = (await exifr.parse(Buffer.from(source.buffer, source.byteOffset, source.byteLength), exifrOptions)) ?? {};
   } catch {
     tags = {};
   }

@@ -6,6 +6,7 @@ import type { Actor } from '../auth/passport.ts';
 import { AppError, notFound } from '../errors.ts';
 import { NoticeRecipient } from '../models/notice-recipient.ts';
 import { acknowledge, markOpened, noticeMapImage, noticePageContent } from './notice-links.ts';
+import { noticeMachineFile, type MachineFileKind } from './zone-files/zone-machine-files.ts';
 import type { AcknowledgeResponse, NoticeLinkResponse } from '../../shared/schemas/notices.ts';
 
 /** The sent notice, when it is about a farm linked to this grower; any other id (another farm, another organisation, a draft) is not found. */
@@ -28,13 +29,19 @@ export async function growerNoticePage(actor: Actor, noticeId: string): Promise<
   return noticePageContent(
     noticeId,
     { name: copy?.contactName ?? actor.name, acknowledgedAt: copy?.acknowledgedAt ?? null },
-    `/api/grower/notices/${noticeId}/map.png`,
+    `/api/grower/notices/${noticeId}`,
   );
 }
 
 export async function growerNoticeMap(actor: Actor, noticeId: string): Promise<Buffer> {
   await findGrowerNotice(actor, noticeId);
   return noticeMapImage(noticeId);
+}
+
+/** The sprayer-ready files of a notice of the grower's own farm. */
+export async function growerNoticeMachineFile(actor: Actor, noticeId: string, kind: MachineFileKind) {
+  await findGrowerNotice(actor, noticeId);
+  return noticeMachineFile(noticeId, kind);
 }
 
 /** Acknowledges the grower's own copy (once; a second time answers with the first time). */

@@ -8,6 +8,8 @@ import { AppError } from '../errors.ts';
 import { Notice } from '../models/notice.ts';
 import { noticeMaterial } from './notices.ts';
 import { renderNoticeMap } from './notice-map.ts';
+import { cachedNoticeMap } from './notice-map-cache.ts';
+import { noticeMachineFilePaths } from './zone-files/zone-machine-files.ts';
 import type { NoticeLinkResponse } from '../../shared/schemas/notices.ts';
 
 /** Common practice for such links: long enough for a season's re-scout, short enough to go stale. */
@@ -70,7 +72,8 @@ export async function acknowledge(recipientId: string): Promise<{ acknowledgedAt
 }
 
 /** What the notice page shows of one notice to one reader: the copy's contact, or a signed-in grower of the farm. */
-export async function noticePageContent(noticeId: string, reader: { name: string; acknowledgedAt: Date | null }, mapPath: string): Promise<NoticeLinkResponse['notice']> {
+/** `basePath` is the reader's path to this notice, under which its map image and zone files are served. */
+export async function noticePageContent(noticeId: string, reader: { name: string; acknowledgedAt: Date | null }, basePath: string): Promise<NoticeLinkResponse['notice']> {
   const material = await noticeMaterial(noticeId);
   const notice = await Notice.findByPk(noticeId);
   return {
@@ -80,7 +83,8 @@ export async function noticePageContent(noticeId: string, reader: { name: string
     acknowledgedAt: reader.acknowledgedAt ? reader.acknowledgedAt.toISOString() : null,
     zonesGeoJson: material.zonesGeoJson,
     boundary: material.boundary,
-    mapPath,
+    mapPath: `${basePath}/map.png`,
+    zoneFiles: noticeMachineFilePaths(basePath),
   };
 }
 
@@ -88,13 +92,17 @@ export async function noticePageContent(noticeId: string, reader: { name: string
 export async function noticeForLink(token: string): Promise<NoticeLinkResponse['notice']> {
   const copy = await resolveNoticeToken(token);
   await markOpened(copy.recipientId);
-  return noticePageContent(copy.noticeId, { name: copy.contactName, acknowledgedAt: copy.acknowledgedAt }, `/api/notice-links/${token}/map.png`);
+  return noticePageContent(copy.noticeId, { name: copy.contactName, acknowledgedAt: copy.acknowledgedAt }, `/api/notice-links/${token}`);
 }
 
-/** A notice's map image, as the e-mail and the notice page carry it. */
+/** A notice's map image, as the e-mail and the notice page carry it: drawn once per notice version. */
 export async function noticeMapImage(noticeId: string): Promise<Buffer> {
-  const material = await noticeMaterial(noticeId);
-  return renderNoticeMap({ boundary: material.boundary, zones: material.zones, sightings: material.sightings });
+  const notice = await Notice.findByPk(noticeId, { attributes: ['id', 'updatedAt'] });
+  if (!notice) throw linkRefused();
+  return cachedNoticeMap(notice.id, notice.updatedAt, async () => {
+    const material = await noticeMaterial(noticeId);
+    return renderNoticeMap({ boundary: material.boundary, zones: material.zones, sightings: material.sightings });
+  });
 }
 
 /** The notice's map for a token (does not count as an opening: mail programs fetch images by themselves). */

@@ -8,7 +8,10 @@ import { mailTransport } from '../mail/transport.ts';
 import { escapeHtml } from './escape-html.ts';
 import { issueNoticeToken } from './notice-links.ts';
 import { renderNoticeMap } from './notice-map.ts';
+import { organisationHeader } from '../mail/organisation-header.ts';
 import { noticeMaterial, refreshNoticeStatus, type NoticeMaterial } from './notices.ts';
+import { MACHINE_FILE_CAUTION } from '../../shared/notices/cautions.ts';
+import { noticeMachineFilePaths } from './zone-files/zone-machine-files.ts';
 import type { NoticeContent } from '../../shared/schemas/notices.ts';
 
 export const MAP_CID = 'notice-map@patchwise';
@@ -51,8 +54,16 @@ export function noticeText(c: NoticeContent, link: string): string {
     ...c.cautions.map((caution) => `- ${caution}`),
     '',
     `See the map, the zones and acknowledge this notice: ${link}`,
-    'The zones are attached as zones.geojson for a sprayer or mapping program.',
+    'The zones are attached as zones.geojson for a mapping program. Files for a sprayer terminal:',
+    `- ISO 11783-10 task data: ${zoneFileLinks(link).taskData}`,
+    `- Shapefile: ${zoneFileLinks(link).shapefile}`,
+    MACHINE_FILE_CAUTION,
   ].join('\n');
+}
+
+/** The zone files beside a notice link: the page at `/n/<token>` has them under the API's link path. */
+export function zoneFileLinks(link: string) {
+  return noticeMachineFilePaths(link.replace(/\/n\/([^/]+)$/, '/api/notice-links/$1'));
 }
 
 export function noticeHtml(c: NoticeContent, link: string, mapSrc = `cid:${MAP_CID}`): string {
@@ -90,7 +101,8 @@ ${c.rescoutOn ? `<p style="margin:0 0 12px"><strong>Re-scout on:</strong> ${e(lo
 <h2 style="font-size:17px;color:#9a3f14">Before any treatment</h2>
 <ul style="margin:0 0 12px;padding-left:20px">${c.cautions.map((caution) => `<li>${e(caution)}</li>`).join('')}</ul>
 <p style="margin:16px 0"><a href="${e(link)}" style="background:#2f5d3a;color:#ffffff;padding:10px 16px;text-decoration:none;border-radius:4px">Open the notice and acknowledge it</a></p>
-<p style="margin:0;font-size:13px;color:#5f5142">Link: ${e(link)}<br>The zones are attached as zones.geojson for a sprayer or mapping program. Sent by ${e(c.organisationName)}.</p>
+<p style="margin:0 0 8px;font-size:13px;color:#5f5142">Files for a sprayer terminal: <a href="${e(zoneFileLinks(link).taskData)}">ISO 11783-10 task data</a> · <a href="${e(zoneFileLinks(link).shapefile)}">shapefile</a>. ${e(MACHINE_FILE_CAUTION)}</p>
+<p style="margin:0;font-size:13px;color:#5f5142">Link: ${e(link)}<br>The zones are attached as zones.geojson for a mapping program. Sent by ${e(c.organisationName)}.</p>
 </div></body></html>`;
 }
 
@@ -121,11 +133,12 @@ const STALE_SENDING_MINUTES = 15;
  * de-duplicate by Message-ID still show one message. Nothing else can send a second copy.
  */
 export async function deliverNoticeCopy(recipientId: string): Promise<'sent' | 'skipped'> {
-  const [claim] = await sequelize.query<{ notice_id: string; email: string; contact_name: string; message_id: string; attempts: number }>(
-    `UPDATE notice_recipients SET status = 'sending', attempts = attempts + 1, updated_at = now()
-      WHERE id = :id AND smtp_accepted_at IS NULL AND revoked_at IS NULL
-        AND (status <> 'sending' OR updated_at < now() - make_interval(mins => :stale))
-      RETURNING notice_id, email, contact_name, message_id, attempts`,
+  const [claim] = await sequelize.query<{ notice_id: string; email: string; contact_name: string; message_id: string; attempts: number; organisation_id: string }>(
+    `UPDATE notice_recipients r SET status = 'sending', attempts = attempts + 1, updated_at = now()
+       FROM notices n
+      WHERE r.id = :id AND n.id = r.notice_id AND r.smtp_accepted_at IS NULL AND r.revoked_at IS NULL
+        AND (r.status <> 'sending' OR r.updated_at < now() - make_interval(mins => :stale))
+      RETURNING r.notice_id, r.email, r.contact_name, r.message_id, r.attempts, n.organisation_id`,
     { replacements: { id: recipientId, stale: STALE_SENDING_MINUTES }, type: QueryTypes.SELECT },
   );
   if (!claim) {
@@ -147,6 +160,7 @@ export async function deliverNoticeCopy(recipientId: string): Promise<'sent' | '
       to: { name: claim.contact_name, address: claim.email },
       messageId: claim.message_id,
       ...mail,
+      headers: organisationHeader(claim.organisation_id),
     });
     // The single statement after SMTP acceptance (see above).
     await sequelize.query(`UPDATE notice_recipients SET status = 'sent', smtp_accepted_at = now(), last_error = NULL, updated_at = now() WHERE id = :id`, { replacements: { id: recipientId } });

@@ -13,5 +13,7 @@ export function photoLimits(env: NodeJS.ProcessEnv = process.env) {
     maxFiles: Math.floor(number(env.PHOTO_MAX_FILES, 20)),
     maxRequestMb,
     maxRequestBytes: Math.round(maxRequestMb * 1024 * 1024),
+    // A decoded photo takes 4 bytes a pixel: 100 MP is 400 MB of memory for one thumbnail, so larger ones are refused.
+    maxMegapixels: number(env.PHOTO_MAX_MEGAPIXELS, 100),
   };
 }

@@ -1,6 +1,8 @@
 // What a file really is, decided from its bytes (file-type), and whether it arrived whole.
 import { fileTypeFromBuffer } from 'file-type';
+import { imageSize } from 'image-size';
 import { acceptedPhotoTypes, type PhotoMimeType } from '../models/photo.ts';
+import { photoLimits } from './photo-limits.ts';
 
 export const extensionFor: Record<PhotoMimeType, string> = {
   'image/jpeg': 'jpg',
@@ -41,7 +43,29 @@ function webpIsComplete(bytes: Uint8Array) {
   return bytes.length >= declared + 8;
 }
 
-export async function sniffPhotoType(bytes: Uint8Array): Promise<PhotoTypeVerdict> {
+const grouped = new Intl.NumberFormat('en');
+
+/** Width × height from the file's headers (image-size), without decoding; null when the headers do not say. */
+export function declaredPixels(bytes: Uint8Array): { width: number; height: number } | null {
+  try {
+    const size = imageSize(bytes);
+    const all = [size, ...(size.images ?? [])].filter((s) => s.width && s.height);
+    return all.reduce<{ width: number; height: number } | null>((largest, s) => (!largest || s.width * s.height > largest.width * largest.height ? { width: s.width, height: s.height } : largest), null);
+  } catch {
+    return null;
+  }
+}
+
+/** The sentence for a photo whose decoded size would pass the pixel limit, decided before any decoding. */
+export function pixelLimitProblem(bytes: Uint8Array, maxMegapixels: number): string | null {
+  const size = declaredPixels(bytes);
+  if (!size || size.width * size.height <= maxMegapixels * 1_000_000) return null;
+  const exact = (size.width * size.height) / 1_000_000;
+  const megapixels = exact < 10 ? Math.round(exact * 10) / 10 : Math.round(exact);
+  return `This photo is ${grouped.format(size.width)} × ${grouped.format(size.height)} pixels (${megapixels} MP); Patchwise takes photos of at most ${maxMegapixels} MP. Send a smaller copy (phones can share a reduced size).`;
+}
+
+export async function sniffPhotoType(bytes: Uint8Array, maxMegapixels = photoLimits().maxMegapixels): Promise<PhotoTypeVerdict> {
   if (bytes.length === 0) return { ok: false, message: 'This file is empty (0 bytes); take or choose the photo again.' };
   const detected = await fileTypeFromBuffer(bytes);
   const mime = detected?.mime as string | undefined;
@@ -52,5 +76,7 @@ export async function sniffPhotoType(bytes: Uint8Array): Promise<PhotoTypeVerdic
   const mimeType = mime as PhotoMimeType;
   const complete = mimeType === 'image/jpeg' ? jpegIsComplete(bytes) : mimeType === 'image/png' ? pngIsComplete(bytes) : mimeType === 'image/webp' ? webpIsComplete(bytes) : true;
   if (!complete) return { ok: false, message: 'This photo file is incomplete (it was cut off before the end); send it again.' };
+  const tooLarge = pixelLimitProblem(bytes, maxMegapixels);
+  if (tooLarge) return { ok: false, message: tooLarge };
   return { ok: true, mimeType };
 }

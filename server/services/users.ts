@@ -1,6 +1,7 @@
 import type { z } from 'zod';
 import { sequelize } from '../db.ts';
 import { User } from '../models/user.ts';
+import { UserToken } from '../models/user-token.ts';
 import { Organisation } from '../models/organisation.ts';
 import type { Actor } from '../auth/passport.ts';
 import type { inviteUserSchema, updateUserSchema } from '../../shared/schemas/users.ts';
@@ -9,6 +10,7 @@ import { recordAudit } from './audit.ts';
 import { consumeToken, issueToken } from './user-tokens.ts';
 import { sendInvitation, sendInvitationDeclined, sendPasswordReset } from './account-mail.ts';
 import { hashPassword } from '../auth/passwords.ts';
+import { passwordWeakness } from '../auth/password-strength.ts';
 
 export async function listUsers(actor: Actor) {
   const users = await User.findAll({ where: { organisationId: actor.organisationId }, order: [['name', 'ASC']] });
@@ -21,29 +23,31 @@ async function findOwnUser(actor: Actor, id: string) {
   return user;
 }
 
-/** What an invitation led to: a new pending user, or (for an address already taken elsewhere) only a letter to its owner. */
-export type InvitationOutcome = { user: ReturnType<User['toPublic']> } | { user: null; message: string };
-
 /**
  * Invites a person by e-mail. An address that is already one of the admin's own users is refused plainly (the
  * admin can see their own users anyway). An address that belongs to another organisation must not be revealed:
  * any refusal naming it ("already has an account", "cannot invite that address; ask for another") tells one
- * advisory business who works with another. So that case is answered as accepted, with no account created, and
- * the address's owner is told by e-mail who tried to invite them and how to join (with another address). What
- * remains observable is only that no pending user appears in the admin's list; hiding that too would need
- * invitations kept apart from accounts (accounts are one per address, since sign-in is by address alone).
+ * advisory business who works with another. So both other cases get the same answer, after the same work (one
+ * letter sent and waited for): a new pending user with an invitation, or for an address taken elsewhere no account
+ * and a letter to its owner saying who tried to invite them and how to join (with another address). What remains
+ * observable is only that no pending user appears in the admin's list; hiding that too would need invitations
+ * kept apart from accounts (accounts are one per address, since sign-in is by address alone).
  */
-export async function inviteUser(actor: Actor, input: z.infer<typeof inviteUserSchema>): Promise<InvitationOutcome> {
+export async function inviteUser(actor: Actor, input: z.infer<typeof inviteUserSchema>): Promise<{ message: string }> {
   const existing = await User.findOne({ where: { email: input.email } });
   const organisation = await Organisation.findByPk(actor.organisationId);
   const organisationName = organisation?.name ?? 'your advisory business';
   if (existing && existing.organisationId === actor.organisationId) {
     throw conflict(`${input.email} is already one of your users; use "Send invitation again" on their row if they have not set a password yet.`);
   }
+  const answer = { message: invitationAcceptedMessage(input.email) };
   if (existing) {
     await recordAudit(actor, 'invite-declined', 'user', null, { role: input.role });
-    void sendInvitationDeclined(existing, actor.name, organisationName).catch((error) => console.error('declined-invitation mail failed', error));
-    return { user: null, message: invitationAcceptedMessage(input.email) };
+    await sendInvitationDeclined(existing, actor.name, organisationName).catch((error) => {
+      console.error('declined-invitation mail failed', error);
+      throw invitationMailFailed(input.email);
+    });
+    return answer;
   }
   const { user, token } = await sequelize.transaction(async (transaction) => {
     const user = await User.create({ organisationId: actor.organisationId, name: input.name, email: input.email, role: input.role, passwordHash: null }, { transaction });
@@ -51,15 +55,17 @@ export async function inviteUser(actor: Actor, input: z.infer<typeof inviteUserS
     await recordAudit(actor, 'invite', 'user', user.id, { email: input.email, role: input.role }, transaction);
     return { user, token };
   });
-  try {
-    await sendInvitation(user, actor.name, organisationName, token);
-  } catch {
-    throw new AppError(502, 'mail_failed', `${user.email} was added, but the invitation e-mail could not be sent; use "Send invitation again".`);
-  }
-  return { user: user.toPublic() };
+  await sendInvitation(user, actor.name, organisationName, token).catch(() => {
+    throw invitationMailFailed(input.email);
+  });
+  return answer;
 }
 
 export const invitationAcceptedMessage = (email: string) => `An invitation is on its way to ${email}.`;
+
+// One wording for both cases, so a mail failure does not tell them apart either.
+const invitationMailFailed = (email: string) =>
+  new AppError(502, 'mail_failed', `The invitation e-mail to ${email} could not be sent; try again in a few minutes (if they appear in your list, use "Send invitation again" on their row).`);
 
 export async function resendInvitation(actor: Actor, id: string) {
   const user = await findOwnUser(actor, id);
@@ -87,15 +93,24 @@ export async function updateUser(actor: Actor, id: string, input: z.infer<typeof
   return user.toPublic();
 }
 
-/** Sets a password from an invitation or reset link; the link then stops working. */
-export async function setPasswordWithToken(token: string, password: string) {
+/**
+ * Sets a password from an invitation or reset link; the link then stops working, and every session of the account
+ * other than `keepSessionId` (the one that set it, if any) is signed out (OWASP ASVS 4.0.3 V3.3.3). A password
+ * that is easy to guess is refused before the link is used up, so the person can try another.
+ */
+export async function setPasswordWithToken(token: string, password: string, keepSessionId = '') {
   const passwordHash = await hashPassword(password);
   return sequelize.transaction(async (transaction) => {
     const userId = await consumeToken(token, transaction);
     if (!userId) throw new AppError(400, 'link_expired', 'This link has expired or was already used; ask for a new one.');
     const user = await User.findByPk(userId, { transaction });
     if (!user || !user.active) throw new AppError(400, 'link_expired', 'This link has expired or was already used; ask for a new one.');
+    const weakness = passwordWeakness(password, [user.email, ...user.email.split(/[@.+_-]/), ...user.name.split(/\s+/)]);
+    if (weakness) throw badRequest(weakness, { password: weakness });
     await user.update({ passwordHash }, { transaction });
+    // Any other invitation or reset link still out there dies with the old password (one-time links: OWASP ASVS 4.0.3 V2.5).
+    await UserToken.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: null }, transaction });
+    await sequelize.query(`DELETE FROM session WHERE sess->'passport'->>'user' = :id AND sid <> :keep`, { replacements: { id: user.id, keep: keepSessionId }, transaction });
     await recordAudit({ id: user.id, organisationId: user.organisationId }, 'set-password', 'user', user.id, {}, transaction);
     return user;
   });

@@ -7,3 +7,7 @@ export const NOTICE_CAUTIONS = [
   'Local regulations and local extension guidance prevail over this notice.',
   'This notice is advice, not a prescription: the decision to treat, and how, stays with you.',
 ] as const;
+
+/** What the sprayer-ready zone files (task data, shapefile) say wherever they are offered. */
+export const MACHINE_FILE_CAUTION =
+  'These files mark where to treat, not what to apply: they hold no product and no rate. The product label (the legal document), local regulations and local extension guidance decide the product, rate, re-entry and pre-harvest intervals and buffers; apply through a licensed applicator where the law requires.';

@@ -4,17 +4,14 @@ import { z } from 'zod';
 import { analysisOptionsSchema } from '../analysis/options.ts';
 import type { AnalysisResult } from '../analysis/analyse.ts';
 import type { SpreadVerdict } from '../analysis/spread.ts';
+import { calendarDateSchema } from './calendar-date.ts';
 import type { ThresholdStatus } from '../thresholds/threshold-status.ts';
 import type { UnacknowledgedNotice } from './notices.ts';
 
 export const checkStatuses = ['queued', 'running', 'done', 'failed'] as const;
 export type CheckStatus = (typeof checkStatuses)[number];
 
-const isoDate = (label: string) =>
-  z
-    .string({ error: `Enter the ${label} date as YYYY-MM-DD.` })
-    .regex(/^\d{4}-\d{2}-\d{2}$/, { error: `Enter the ${label} date as YYYY-MM-DD.` })
-    .refine((v) => new Date(`${v}T00:00:00Z`).toISOString().startsWith(v), { error: `The ${label} date is not a real calendar date.` });
+const isoDate = (label: string) => calendarDateSchema({ shape: `Enter the ${label} date as YYYY-MM-DD.`, notADay: `The ${label} date is not a real calendar date.` });
 
 const windowFields = {
   fieldId: z.uuid({ error: 'Choose the field to check.' }),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { oneLineNameSchema } from './one-line-name.ts';
 import { emailSchema } from './auth.ts';
 import { personNameSchema } from './users.ts';
 
@@ -8,7 +9,7 @@ export const farmContactSchema = z.object({
 });
 
 export const farmSchema = z.object({
-  name: z.string({ error: 'Enter the farm name.' }).trim().min(1, { error: 'Enter the farm name.' }).max(120),
+  name: oneLineNameSchema('Enter the farm name.', 120, 'Keep the farm name to 120 characters or fewer.'),
   contacts: z
     .array(farmContactSchema)
     .max(20, { error: 'A farm can have at most 20 grower contacts.' })

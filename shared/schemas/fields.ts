@@ -1,9 +1,10 @@
 import { z } from 'zod';
+import { oneLineNameSchema } from './one-line-name.ts';
 
 export const fieldDetailsSchema = z.object({
   farmId: z.uuid({ error: 'Choose the farm this field belongs to.' }),
-  name: z.string({ error: 'Enter the field name.' }).trim().min(1, { error: 'Enter the field name.' }).max(120),
-  crop: z.string({ error: 'Enter the crop.' }).trim().min(1, { error: 'Enter the crop, for example "soybean".' }).max(80),
+  name: oneLineNameSchema('Enter the field name.', 120, 'Keep the field name to 120 characters or fewer.'),
+  crop: oneLineNameSchema('Enter the crop, for example "soybean".', 80, 'Keep the crop to 80 characters or fewer.'),
   season: z.coerce.number({ error: 'Enter the season as a year.' }).int({ error: 'Enter the season as a year, like 2026.' }).min(1990, { error: 'Enter a season from 1990 on.' }).max(2200, { error: 'Enter a season before 2200.' }),
 });
 

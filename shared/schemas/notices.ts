@@ -1,5 +1,6 @@
 // The zone-notice API's contract: requests (zod) and the answers' types, for the adviser, grower and notice page.
 import { z } from 'zod';
+import { calendarDateSchema } from './calendar-date.ts';
 import type { FeatureCollection, MultiPolygon } from 'geojson';
 import type { VerdictWords } from '../notices/verdict-words.ts';
 
@@ -10,10 +11,7 @@ export type DeliveryStatus = (typeof deliveryStatuses)[number];
 /** What the adviser sees per recipient: delivery first, then the grower's reading. */
 export type RecipientState = DeliveryStatus | 'opened' | 'acknowledged';
 
-const isoDate = z
-  .string({ error: 'Enter the re-scout date as YYYY-MM-DD.' })
-  .regex(/^\d{4}-\d{2}-\d{2}$/, { error: 'Enter the re-scout date as YYYY-MM-DD.' })
-  .refine((v) => new Date(`${v}T00:00:00Z`).toISOString().startsWith(v), { error: 'The re-scout date is not a real calendar date.' });
+const isoDate = calendarDateSchema({ shape: 'Enter the re-scout date as YYYY-MM-DD.', notADay: 'The re-scout date is not a real calendar date.' });
 
 export const noticeCreateSchema = z
   .object({
@@ -112,6 +110,8 @@ export interface NoticeLinkResponse {
     zonesGeoJson: FeatureCollection<MultiPolygon, NoticeZoneRow>;
     boundary: MultiPolygon;
     mapPath: string;
+    /** Sprayer-ready files of the zones: ISO 11783-10 task data and a shapefile, each zipped. */
+    zoneFiles: { taskData: string; shapefile: string };
   };
 }
 export interface AcknowledgeResponse {

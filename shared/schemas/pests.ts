@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { oneLineNameSchema } from './one-line-name.ts';
 
 export const pestKinds = ['insect', 'disease', 'weed'] as const;
 export type PestKind = (typeof pestKinds)[number];
@@ -7,9 +8,9 @@ export const thresholdBases = ['mean', 'incidence'] as const;
 export type ThresholdBasis = (typeof thresholdBases)[number];
 
 const pestFields = {
-  name: z.string({ error: 'Enter the pest name.' }).trim().min(1, { error: 'Enter the pest name.' }).max(120),
+  name: oneLineNameSchema('Enter the pest name.', 120, 'Keep the pest name to 120 characters or fewer.'),
   kind: z.enum(pestKinds, { error: 'Choose insect, disease or weed.' }),
-  countUnit: z.string({ error: 'Enter the count unit, for example "aphids per plant".' }).trim().min(1, { error: 'Enter the count unit, for example "aphids per plant".' }).max(120),
+  countUnit: oneLineNameSchema('Enter the count unit, for example "aphids per plant".', 120, 'Keep the count unit to 120 characters or fewer.'),
   actionThreshold: z.coerce.number({ error: 'Enter the action threshold as a number.' }).min(0, { error: 'The action threshold cannot be negative.' }).max(1_000_000),
   thresholdBasis: z.enum(thresholdBases),
   thresholdNote: z.string().trim().max(1000),

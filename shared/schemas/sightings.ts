@@ -1,5 +1,6 @@
 // The sighting and photo-upload API's contract, shared by the server routes and the scout's screens.
 import { z } from 'zod';
+import { calendarDateSchema } from './calendar-date.ts';
 import type { WalkView } from './walks.ts';
 
 export const positionSources = ['exif', 'pin', 'device'] as const;
@@ -78,7 +79,7 @@ export interface PhotoUploadResponse {
   results: PhotoOutcome[];
 }
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { error: 'Dates must be YYYY-MM-DD.' });
+const isoDate = calendarDateSchema({ shape: 'Dates must be YYYY-MM-DD.', notADay: 'That date is not a real calendar date; pick a day that exists.' });
 
 export const sightingListQuerySchema = z.object({
   fieldId: z.uuid({ error: 'That field id is not valid.' }).optional(),

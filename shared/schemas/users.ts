@@ -1,8 +1,9 @@
 import { z } from 'zod';
+import { oneLineNameSchema } from './one-line-name.ts';
 import { emailSchema } from './auth.ts';
 import { roleSchema } from './roles.ts';
 
-export const personNameSchema = z.string({ error: 'Enter a name.' }).trim().min(1, { error: 'Enter a name.' }).max(120);
+export const personNameSchema = oneLineNameSchema('Enter a name.', 120, 'Keep the name to 120 characters or fewer.');
 
 export const inviteUserSchema = z.object({
   name: personNameSchema,

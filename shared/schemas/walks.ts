@@ -1,12 +1,8 @@
 // The walk API's contract, shared by the server routes and the scout's screens.
 import { z } from 'zod';
+import { calendarDateSchema } from './calendar-date.ts';
 
-const isoDate = z
-  .string({ error: 'Enter the walk date as YYYY-MM-DD.' })
-  .regex(/^\d{4}-\d{2}-\d{2}$/, { error: 'Enter the walk date as YYYY-MM-DD.' })
-  .refine((v) => !Number.isNaN(Date.parse(`${v}T00:00:00Z`)) && new Date(`${v}T00:00:00Z`).toISOString().startsWith(v), {
-    error: 'That walk date is not a real calendar date.',
-  });
+const isoDate = calendarDateSchema({ shape: 'Enter the walk date as YYYY-MM-DD.', notADay: 'That walk date is not a real calendar date.' });
 
 const notes = z.string({ error: 'Notes must be text.' }).max(4000, { error: 'Keep the notes under 4000 characters.' });
 

@@ -1,5 +1,6 @@
 // The treatment-zone API's contract: proposal and zone-set requests (zod) and the answers' types.
 import { z } from 'zod';
+import { oneLineNameSchema } from './one-line-name.ts';
 import type { FeatureCollection, MultiPolygon, Polygon } from 'geojson';
 
 export const zoneSetStatuses = ['draft', 'accepted', 'superseded'] as const;
@@ -24,7 +25,7 @@ const multiPolygonGeometry = z.object({ type: z.literal('MultiPolygon'), coordin
 export const zoneFeatureSchema = z.object({
   type: z.literal('Feature', { error: 'Each zone must be a GeoJSON Feature.' }),
   geometry: z.discriminatedUnion('type', [polygonGeometry, multiPolygonGeometry], { error: 'Each zone must be a Polygon or MultiPolygon.' }),
-  properties: z.object({ label: z.string().trim().min(1).max(80, 'A zone label can have at most 80 characters.').optional() }).loose().nullable().optional(),
+  properties: z.object({ label: oneLineNameSchema('Give the zone a label, or leave it out.', 80, 'A zone label can have at most 80 characters.').optional() }).loose().nullable().optional(),
 });
 
 export const zoneSetCreateSchema = z

@@ -37,6 +37,14 @@ async function snapshot() {
   return { counts, files: uploadedFiles() };
 }
 
+/** A field whose boundary is a GeometryCollection holding a GeometryCollection … `depth` times, written as JSON text
+ * directly (the test client's own serialiser would run out of stack on it before the server saw it). */
+function fieldWithNestedCollections(w: World, depth: number) {
+  const boundary = '{"type":"GeometryCollection","geometries":['.repeat(depth) + ']}'.repeat(depth);
+  const body = `{"farmId":"${w.farmId}","name":"${uniqueName('Catalogue')}","crop":"maize","season":2026,"boundary":${boundary}}`;
+  return w.admin.agent.post('/api/fields').set('x-csrf-token', w.admin.csrf).set('Content-Type', 'application/json').send(body);
+}
+
 const field = (w: World, boundary: unknown, extra: Record<string, unknown> = {}) =>
   w.admin.post('/api/fields', { farmId: w.farmId, name: uniqueName('Catalogue'), crop: 'maize', season: 2026, boundary, ...extra });
 const upload = (w: World, bytes: Buffer, fields: Record<string, string | number | undefined> = {}, name = 'photo.jpg') =>
@@ -105,6 +113,13 @@ const catalogue: BadInput[] = [
   { what: 'a field id that is not an id', send: (w) => w.admin.get('/api/fields/north-forty'), status: 400, code: 'invalid', message: /field id is not valid/ },
   { what: 'a farm filter that is not an id', send: (w) => w.admin.get('/api/fields?farmId=42'), status: 400, code: 'invalid', message: /farm id is not valid/ },
   { what: 'sightings without a field', send: (w) => w.adviser.get('/api/sightings'), status: 400, code: 'invalid', message: /Choose a field \(or a walk\)/ },
+  { what: 'a check window from date that is not a date', send: (w) => w.adviser.post('/api/checks', { fieldId: w.field.id, pestId: w.pest.id, from: 'x' }), status: 400, code: 'invalid', message: /from date as YYYY-MM-DD/ },
+  // 30 February exists in no year (Gregorian calendar; ISO 8601 dates).
+  { what: 'a check window on 30 February', send: (w) => w.adviser.post('/api/checks', { fieldId: w.field.id, pestId: w.pest.id, from: '2026-02-30' }), status: 400, code: 'invalid', message: /from date is not a real calendar date/ },
+  { what: 'a re-scout date of "soon"', send: (w) => w.adviser.post('/api/notices', { fieldId: w.field.id, zoneSetId: w.field.id, recommendation: 'Spot-spray the patches this week.', rescoutOn: 'soon' }), status: 400, code: 'invalid', message: /re-scout date as YYYY-MM-DD/ },
+  { what: 'a walk on 30 February', send: (w) => w.scout.post('/api/walks', { fieldId: w.field.id, walkedOn: '2026-02-30' }), status: 400, code: 'invalid', message: /walk date is not a real calendar date/ },
+  { what: 'a sighting date filter on 30 February', send: (w) => w.adviser.get(`/api/sightings?fieldId=${w.field.id}&from=2026-02-30`), status: 400, code: 'invalid', message: /not a real calendar date/ },
+  { what: 'a boundary of GeometryCollections nested 50,000 deep', send: (w) => fieldWithNestedCollections(w, 50_000), status: 400, code: 'boundary_unparseable', message: /nests collections more than 16 levels deep/ },
   { what: 'a sighting date filter in the wrong format', send: (w) => w.adviser.get(`/api/sightings?fieldId=${w.field.id}&from=01/07/2026`), status: 400, code: 'invalid', message: /YYYY-MM-DD|date/ },
   { what: 'includeInactive that is not true or false', send: (w) => w.admin.get('/api/pests?includeInactive=yes'), status: 400, code: 'invalid', message: /includeInactive to true or false/ },
   { what: 'a mailbox message number that is not a number', send: (w) => w.admin.get('/api/mailbox/first'), status: 400, code: 'invalid', message: /message number is not valid/ },

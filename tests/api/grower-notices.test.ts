@@ -98,12 +98,14 @@ describe('a grower opening a notice from their home', () => {
   it('shows the grower their own notice with the same content the e-mailed link opens', async () => {
     const mine = await grower.get(`/api/grower/notices/${ownNotice}`).expect(200);
     const viaLink = await (await anonymous()).get(`/api/notice-links/${ownCopyToken}`).expect(200);
-    const { mapPath: myMap, ...myContent } = mine.body.notice;
-    const { mapPath: linkMap, ...linkContent } = viaLink.body.notice;
+    const { mapPath: myMap, zoneFiles: myFiles, ...myContent } = mine.body.notice;
+    const { mapPath: linkMap, zoneFiles: linkFiles, ...linkContent } = viaLink.body.notice;
     expect(myContent).toEqual(linkContent);
     expect(myContent.recipientName).toBe('The grower');
     expect(myMap).toBe(`/api/grower/notices/${ownNotice}/map.png`);
     expect(linkMap).not.toBe(myMap);
+    expect(myFiles.taskData).toBe(`/api/grower/notices/${ownNotice}/zones.taskdata.zip`);
+    expect(linkFiles.taskData).not.toBe(myFiles.taskData);
   });
 
   it('serves the notice map as a PNG image', async () => {

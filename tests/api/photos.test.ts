@@ -76,6 +76,8 @@ describe('photos with EXIF GPS become sightings', () => {
     const original = await admin.get(`/api/photos/${photoId}/original`).buffer(true).expect(200);
     expect(original.headers['content-type']).toBe('image/jpeg');
     expect(Buffer.compare(original.body as Buffer, bytes)).toBe(0);
+    // A private picture is kept in no cache, so nobody sees it after sign-out (RFC 9111 §5.2.2.5 no-store, §5.2.2.7 private).
+    expect(original.headers['cache-control']).toBe('private, no-store');
 
     const stranger = await makeOrganisation('Other');
     const outsider = await signedIn(stranger.users.adviser.email);
@@ -270,6 +272,7 @@ describe('storage and thumbnails', () => {
     expect(await makeThumbnail(photoId)).toMatchObject({ status: 'ready' });
     const thumb = await scout.get(`/api/photos/${photoId}/thumbnail`).buffer(true).expect(200);
     expect(thumb.headers['content-type']).toBe('image/jpeg');
+    expect(thumb.headers['cache-control']).toBe('private, no-store');
     const image = await Jimp.read(thumb.body as Buffer);
     // Orientation 6 (TIFF 6.0 tag 274: row 0 is the visual right side): a 400 × 200 photo stands 200 × 400.
     expect(image.bitmap.height).toBeGreaterThan(image.bitmap.width);

@@ -87,7 +87,8 @@ export async function buildAccessWorld(): Promise<AccessWorld> {
   }
   const pest = await createPest(admin);
   const invitedEmail = `invited-${crypto.randomBytes(4).toString('hex')}@test.example`;
-  const invited = await admin.post('/api/users', { name: 'Invited Adviser', email: invitedEmail, role: 'adviser' }).expect(201);
+  await admin.post('/api/users', { name: 'Invited Adviser', email: invitedEmail, role: 'adviser' }).expect(202);
+  const [invited] = await sequelize.query<{ id: string }>('SELECT id FROM users WHERE email = :email', { replacements: { email: invitedEmail }, type: QueryTypes.SELECT });
 
   const foreignFarm = await createFarm(clients.otherAdmin);
   const foreignField = await createField(clients.otherAdmin, foreignFarm.id, plainField(4));
@@ -115,7 +116,7 @@ export async function buildAccessWorld(): Promise<AccessWorld> {
       scoutOnlyField: scoutOnlyField.id,
       hiddenField: hiddenField.id,
       pest: pest.id,
-      invitedUser: invited.body.user.id,
+      invitedUser: invited.id,
       invitationMessage: await messageIdTo(invitedEmail),
       scout: home.users.scout.id,
       grower: home.users.grower.id,

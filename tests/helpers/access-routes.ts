@@ -14,7 +14,7 @@ export const foundationRoutes: AccessRow[] = [
   row('GET', '/api/config', everyone(200)),
 
   row('GET', '/api/users', anySignedIn(200, staff)),
-  row('POST', '/api/users', adminOnly(201, 201), { name: 'Matrix Scout', email: '{newEmail}', role: 'scout' }, 'each admin invites into their own organisation'),
+  row('POST', '/api/users', adminOnly(202, 202), { name: 'Matrix Scout', email: '{newEmail}', role: 'scout' }, 'each admin invites into their own organisation'),
   row('PATCH', '/api/users/{invitedUser}', adminOnly(200), { name: 'Invited Adviser Renamed' }),
   row('POST', '/api/users/{invitedUser}/invitation', adminOnly(200)),
 
@@ -112,6 +112,8 @@ export const scoutingRoutes: AccessRow[] = [
   row('GET', '/api/zone-sets/{zoneSet}', deskAndGrower(200)),
   row('GET', '/api/zone-sets/{zoneSet}/export.geojson', deskAndGrower(200)),
   row('GET', '/api/zone-sets/{zoneSet}/export.kml', deskAndGrower(200)),
+  row('GET', '/api/zone-sets/{zoneSet}/export.taskdata.zip', deskAndGrower(200)),
+  row('GET', '/api/zone-sets/{zoneSet}/export.shp.zip', deskAndGrower(200)),
 
   row('GET', '/api/notices', deskOnly(200, 200)),
   row('GET', '/api/notices?fieldId={checkedField}', deskOnly(200), undefined, "another organisation's field id is not found"),
@@ -124,11 +126,15 @@ export const scoutingRoutes: AccessRow[] = [
 
   row('GET', '/api/notice-links/{noticeToken}', everyone(200), undefined, 'the token in the e-mailed link is the credential'),
   row('GET', '/api/notice-links/{noticeToken}/map.png', everyone(200)),
+  row('GET', '/api/notice-links/{noticeToken}/zones.taskdata.zip', everyone(200)),
+  row('GET', '/api/notice-links/{noticeToken}/zones.shp.zip', everyone(200)),
   row('POST', '/api/notice-links/{noticeToken}/acknowledge', everyone(200)),
   row('GET', '/api/notice-links/{recipient}.not-the-secret', everyone(404)),
 
   row('GET', '/api/grower/notices', growerOnly(200)),
   row('GET', '/api/grower/notices/{notice}', growerOnly(200), undefined, "the notice's farm is linked to the grower"),
   row('GET', '/api/grower/notices/{notice}/map.png', growerOnly(200)),
+  row('GET', '/api/grower/notices/{notice}/zones.taskdata.zip', growerOnly(200)),
+  row('GET', '/api/grower/notices/{notice}/zones.shp.zip', growerOnly(200)),
   row('POST', '/api/grower/notices/{notice}/acknowledge', growerOnly(409), undefined, "the grower's address is not among the notice's copies, so there is no copy of theirs to acknowledge"),
 ];

@@ -1,7 +1,7 @@
 // One zone notice as the grower reads it: what was found, where the zones are, what the adviser recommends, and
 // the cautions. Shared by the e-mailed link's page and the signed-in grower's; calm on screen, clean on paper.
 import { useEffect, useMemo, type ReactNode } from 'react';
-import { NOTICE_CAUTIONS } from '@shared/notices/cautions.ts';
+import { MACHINE_FILE_CAUTION, NOTICE_CAUTIONS } from '@shared/notices/cautions.ts';
 import type { NoticeLinkResponse } from '@shared/schemas/notices.ts';
 import { AreaText } from '../area-text.tsx';
 import { Button } from '../button.tsx';
@@ -26,10 +26,22 @@ function Section({ title, children }: { title: string; children: ReactNode }) {
 function ZonesDownload({ notice }: { notice: NoticePageContent }) {
   const href = useMemo(() => URL.createObjectURL(new Blob([JSON.stringify(notice.zonesGeoJson)], { type: 'application/geo+json' })), [notice.zonesGeoJson]);
   useEffect(() => () => URL.revokeObjectURL(href), [href]);
+  const link = 'font-medium text-field-700 underline-offset-2 hover:underline';
   return (
-    <a href={href} download={`${notice.fieldName} zones.geojson`} className="font-medium text-field-700 underline-offset-2 hover:underline print:hidden">
-      Download the zones (GeoJSON)
-    </a>
+    <div className="space-y-1 print:hidden">
+      <p className="flex flex-wrap gap-x-4 gap-y-1">
+        <a href={href} download={`${notice.fieldName} zones.geojson`} className={link}>
+          Download the zones (GeoJSON)
+        </a>
+        <a href={notice.zoneFiles.taskData} download className={link}>
+          Task data for a sprayer terminal (ISO 11783-10)
+        </a>
+        <a href={notice.zoneFiles.shapefile} download className={link}>
+          Shapefile
+        </a>
+      </p>
+      <p className="text-xs text-soil-700">{MACHINE_FILE_CAUTION}</p>
+    </div>
   );
 }
 

@@ -3,12 +3,11 @@ import type { z } from 'zod';
 import { api } from '../../../lib/api-client.ts';
 import { usersQueryKey } from './get-users.ts';
 import type { inviteUserSchema } from '@shared/schemas/users.ts';
-import type { UserView } from '@shared/schemas/users.ts';
 
 export type InviteUserInput = z.infer<typeof inviteUserSchema>;
 
-// `user` is null when the address is taken in another organisation: the server accepts without saying so.
-export const inviteUser = (input: InviteUserInput) => api<{ user: UserView | null }>('/api/users', { method: 'POST', body: input }).then((r) => r.user);
+// One answer whether or not the address is taken in another organisation: the server does not say which.
+export const inviteUser = (input: InviteUserInput) => api<{ message: string }>('/api/users', { method: 'POST', body: input });
 
 export function useInviteUser() {
   const queryClient = useQueryClient();

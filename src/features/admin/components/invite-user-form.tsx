@@ -22,8 +22,8 @@ export function InviteUserForm() {
     setErrors({});
     setSentTo(null);
     invite.mutate(checked.value, {
-      onSuccess: (user) => {
-        setSentTo(user?.email ?? checked.value.email);
+      onSuccess: () => {
+        setSentTo(checked.value.email);
         setValues(blank);
       },
       onError: (error) => setErrors(serverFieldErrors(error)),

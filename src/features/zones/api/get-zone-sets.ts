@@ -9,4 +9,4 @@ export const zoneSetsQueryOptions = (fieldId: string) => queryOptions({ queryKey
 export const useZoneSets = (fieldId: string) => useQuery(zoneSetsQueryOptions(fieldId));
 
 /** Where a version downloads as a file (the server names it). */
-export const zoneSetExportUrl = (zoneSetId: string, format: 'geojson' | 'kml') => `/api/zone-sets/${zoneSetId}/export.${format}`;
+export const zoneSetExportUrl = (zoneSetId: string, format: 'geojson' | 'kml' | 'taskdata.zip' | 'shp.zip') => `/api/zone-sets/${zoneSetId}/export.${format}`;

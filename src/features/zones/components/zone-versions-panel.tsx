@@ -1,8 +1,10 @@
-// A field's stored zone versions, each downloadable as GeoJSON and KML, the current one ready for a notice.
+// A field's stored zone versions, each downloadable as GeoJSON and KML, the current one also as sprayer files
+// (ISO 11783-10 task data, shapefile) and ready for a notice.
 import { Link } from 'react-router';
 import { Panel } from '../../../components/page-frame.tsx';
 import { AreaText } from '../../../components/area-text.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
+import { MACHINE_FILE_CAUTION } from '@shared/notices/cautions.ts';
 import { useZoneSets, zoneSetExportUrl } from '../api/get-zone-sets.ts';
 
 const statusWords = { draft: 'Draft', accepted: 'Current', superseded: 'Replaced' } as const;
@@ -39,6 +41,16 @@ export function ZoneVersionsPanel({ fieldId, pestId }: { fieldId: string; pestId
                   KML
                 </a>
                 {s.status === 'accepted' && (
+                  <>
+                    <a className="font-medium text-field-700 hover:underline" href={zoneSetExportUrl(s.id, 'taskdata.zip')} download>
+                      Task data (ISO 11783-10)
+                    </a>
+                    <a className="font-medium text-field-700 hover:underline" href={zoneSetExportUrl(s.id, 'shp.zip')} download>
+                      Shapefile
+                    </a>
+                  </>
+                )}
+                {s.status === 'accepted' && (
                   <Link className="font-medium text-patch-700 hover:underline" to={`/fields/${fieldId}/notices/new?zoneSetId=${s.id}`}>
                     Write the notice
                   </Link>
@@ -48,6 +60,7 @@ export function ZoneVersionsPanel({ fieldId, pestId }: { fieldId: string; pestId
           ))}
         </ul>
       )}
+      {shown.some((s) => s.status === 'accepted') && <p className="mt-2 text-xs text-soil-700">Sprayer files: {MACHINE_FILE_CAUTION}</p>}
     </Panel>
   );
 }

@@ -1,0 +1,38 @@
+// Whether this process can serve: its database answers, its photo storage takes writes, and it is not stopping.
+import fs from 'node:fs/promises';
+import { sequelize } from '../db.ts';
+import { storageRoot } from './storage.ts';
+
+let stopping = false;
+
+/** Called as a graceful shutdown starts, so the balancer stops sending new requests here. */
+export function markStopping() {
+  stopping = true;
+}
+
+type Check = 'ok' | string;
+
+async function databaseCheck(): Promise<Check> {
+  try {
+    await sequelize.query('SELECT 1');
+    return 'ok';
+  } catch {
+    return 'the database does not answer';
+  }
+}
+
+async function storageCheck(): Promise<Check> {
+  try {
+    await fs.mkdir(storageRoot(), { recursive: true });
+    await fs.access(storageRoot(), fs.constants.W_OK);
+    return 'ok';
+  } catch {
+    return 'the photo storage folder cannot be written';
+  }
+}
+
+export async function processReadiness() {
+  const [database, storage] = await Promise.all([databaseCheck(), storageCheck()]);
+  const shutdown: Check = stopping ? 'this process is stopping' : 'ok';
+  return { ready: database === 'ok' && storage === 'ok' && shutdown === 'ok', checks: { database, storage, shutdown } };
+}
