@@ -13,7 +13,7 @@ const inOrder = (groupOrder: number) => ({ sequence: { groupOrder } });
 export default defineConfig({
   plugins: [react()],
   resolve: { alias: { '@shared': sharedDir } },
-  build: { outDir: 'dist', sourcemap: true, chunkSizeWarningLimit: 900 },
+  build: { outDir: 'dist', sourcemap: true },
   server: { proxy: { '/api': `http://127.0.0.1:${process.env.PORT ?? 3000}` } },
   test: {
     environment: 'node',

@@ -13,7 +13,9 @@ import { checkWork, INLINE_WORK_LIMIT, optionsHash, runStoredCheck, sightingsHas
 import { enqueueCheck } from '../jobs/check-worker.ts';
 import { ENGINE_VERSION } from '../../shared/analysis/version.ts';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
-import type { CheckRequest, CheckSummary, CheckView, Spread } from '../../shared/schemas/checks.ts';
+import type { CheckRequest, CheckSummary, CheckView } from '../../shared/schemas/checks.ts';
+import type { AnalysisResult } from '../../shared/analysis/analyse.ts';
+import type { SpreadVerdict } from '../../shared/analysis/spread.ts';
 import { cachedAnswer, serialise, type SerialisedAnswer } from './check-answer-cache.ts';
 
 const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
@@ -36,7 +38,8 @@ function presentCheck(check: PatternCheck, people: Map<string, { id: string; nam
     engineVersion: check.engineVersion,
     status: check.status,
     progress: check.progress,
-    result: check.result ?? null,
+    // The stored JSONB is analyse()'s answer, exactly as it returned it.
+    result: (check.result as AnalysisResult | null) ?? null,
     error: check.error ?? null,
     createdBy: people.get(check.createdBy) ?? { id: check.createdBy, name: '' },
     createdAt: iso(check.createdAt)!,
@@ -138,7 +141,7 @@ export async function getCheckAnswer(actor: Actor, id: string): Promise<Serialis
   return stored.status === 'done' ? cachedAnswer(id, stored.version, build) : serialise(await build());
 }
 
-type SpreadOf = { spread?: { verdict?: Spread }; n?: number };
+type SpreadOf = { spread?: { verdict?: SpreadVerdict }; n?: number };
 
 export async function summarise(checks: PatternCheck[]): Promise<CheckSummary[]> {
   const people = await peopleById(checks.map((c) => c.createdBy));

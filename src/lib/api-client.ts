@@ -93,6 +93,3 @@ export async function api<T>(path: string, options: RequestOptions = {}): Promis
   if (res.status === 204) return undefined as T;
   return (await res.json()) as T;
 }
-
-/** The current CSRF token, for requests sent outside `api()` (an XMLHttpRequest upload that reports progress). */
-export const csrfTokenForUpload = () => currentCsrfToken();

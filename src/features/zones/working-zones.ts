@@ -4,6 +4,7 @@
 import { area, booleanPointInPolygon, feature, featureCollection, union } from '@turf/turf';
 import type { Feature, FeatureCollection, MultiPolygon, Polygon } from 'geojson';
 import type { ProposedZoneProperties } from '@shared/schemas/zones.ts';
+import type { SightingView } from '@shared/schemas/sightings.ts';
 
 export type ZoneOrigin = 'proposed' | 'edited' | 'drawn';
 
@@ -31,6 +32,28 @@ export const newZoneKey = () => `zone-${++nextKey}`;
 
 export function zonesFromProposal(proposal: FeatureCollection<Polygon, ProposedZoneProperties>): WorkingZone[] {
   return proposal.features.map((f) => ({ key: newZoneKey(), label: `Zone ${f.properties.zone}`, geometry: f.geometry, origin: 'proposed', proposed: f.properties }));
+}
+
+/** A zone reshaped on the map: its engine figures no longer apply; a hand-drawn zone stays hand-drawn. */
+export function reshapeZone(zones: WorkingZone[], key: string, geometry: Polygon | MultiPolygon): WorkingZone[] {
+  return zones.map((z) => (z.key === key ? { ...z, geometry, origin: z.origin === 'drawn' ? 'drawn' : 'edited', proposed: undefined } : z));
+}
+
+export const removeZone = (zones: WorkingZone[], key: string) => zones.filter((z) => z.key !== key);
+
+export function addDrawnZone(zones: WorkingZone[], geometry: Polygon | MultiPolygon): WorkingZone[] {
+  return [...zones, { key: newZoneKey(), label: nextZoneLabel(zones), geometry, origin: 'drawn' }];
+}
+
+/**
+ * Where the pest was found, as [lon, lat]: the check's own sightings, or every placed one on the field for
+ * zones drawn without a check. Empty stops (count 0) are places the scout looked and found nothing.
+ */
+export function foundSightingPoints(sightings: Pick<SightingView, 'id' | 'count' | 'position'>[], checkSightingIds: string[] | null): SightingPoint[] {
+  const inCheck = checkSightingIds ? new Set(checkSightingIds) : null;
+  const points: SightingPoint[] = [];
+  for (const s of sightings) if (s.position && s.count !== 0 && (!inCheck || inCheck.has(s.id))) points.push([s.position.lon, s.position.lat]);
+  return points;
 }
 
 /** The next free "Zone n" label, so a drawn zone never repeats a label in the table. */

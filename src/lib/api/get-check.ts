@@ -1,6 +1,7 @@
-// GET /api/checks/:id: one stored pattern check; polled while it is queued or running.
+// GET /api/checks/:id: one stored pattern check; polled while it is queued or running. The review page and
+// the zone editor read it.
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client.ts';
+import { api } from '../api-client.ts';
 import type { CheckResponse, CheckView } from '@shared/schemas/checks.ts';
 
 export const getCheck = (id: string) => api<CheckResponse>(`/api/checks/${encodeURIComponent(id)}`).then((r) => r.check);
