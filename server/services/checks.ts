@@ -15,6 +15,7 @@ import { ENGINE_VERSION } from '../../shared/analysis/version.ts';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
 import type { CheckRequest, CheckSummary, CheckView, Spread } from '../../shared/schemas/checks.ts';
 import { cachedAnswer, serialise, type SerialisedAnswer } from './check-answer-cache.ts';
+import { assertCheckWithinBudget, fieldExtent } from './check-budget.ts';
 
 const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
 
@@ -66,9 +67,11 @@ export interface CheckOutcome {
 /** Finds the stored check with exactly these inputs, or stores a new one and runs it (inline or queued). */
 export async function requestCheck(actor: Actor, request: CheckRequest): Promise<CheckOutcome> {
   assertGeographic(request.options);
-  await findVisibleField(actor, request.fieldId);
+  const field = await findVisibleField(actor, request.fieldId);
   await findPest(actor, request.pestId);
   const sightings = await sightingsInWindow(request);
+  // Refused before any row exists, so an over-budget request leaves nothing behind.
+  assertCheckWithinBudget(request.options, sightings.length, fieldExtent(field.boundary, field.areaM2));
   const key = {
     fieldId: request.fieldId,
     pestId: request.pestId,
@@ -122,6 +125,25 @@ export async function getCheck(actor: Actor, id: string): Promise<CheckView> {
   return present(check);
 }
 
+/** The stored figures as text: spliced into the answer as they are, never parsed and re-serialised on this thread. */
+async function storedFiguresText(id: string): Promise<string | null> {
+  const [row] = await sequelize.query<{ figures: string | null }>('SELECT result::text AS figures FROM pattern_checks WHERE id = :id', {
+    replacements: { id },
+    type: QueryTypes.SELECT,
+  });
+  return row?.figures ?? null;
+}
+
+/** `{ check }` as JSON, its result the stored text itself. */
+async function checkAnswerJson(actor: Actor, id: string): Promise<string> {
+  const attributes = Object.keys(PatternCheck.getAttributes()).filter((name) => name !== 'result');
+  const check = await PatternCheck.findOne({ where: { id, organisationId: actor.organisationId }, attributes });
+  if (!check) throw notFound('That pattern check');
+  const { result: _omitted, ...view } = await present(check);
+  const figures = await storedFiguresText(id);
+  return `{"check":${JSON.stringify(view).slice(0, -1)},"result":${figures ?? 'null'}}}`;
+}
+
 /**
  * The GET answer `{ check }` for one check, already serialised. A done check's bytes come from the cache,
  * keyed by what could change them; a cheap scoped look-up still runs first, so a deleted check is gone at once.
@@ -134,7 +156,7 @@ export async function getCheckAnswer(actor: Actor, id: string): Promise<Serialis
     { replacements: { id, org: actor.organisationId }, type: QueryTypes.SELECT },
   );
   if (!stored) throw notFound('That pattern check');
-  const build = async () => JSON.stringify({ check: await getCheck(actor, id) });
+  const build = () => checkAnswerJson(actor, id);
   return stored.status === 'done' ? cachedAnswer(id, stored.version, build) : serialise(await build());
 }
 
