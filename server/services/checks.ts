@@ -15,7 +15,7 @@ import { ENGINE_VERSION } from '../../shared/analysis/version.ts';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
 import type { CheckRequest, CheckSummary, CheckView, Spread } from '../../shared/schemas/checks.ts';
 import { cachedAnswer, serialise, type SerialisedAnswer } from './check-answer-cache.ts';
-import { assertCheckWithinBudget, fieldExtent } from './check-budget.ts';
+import { assertCheckWithinBudget, fieldExtent, INLINE_WORK_UNITS } from './check-budget.ts';
 
 const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
 
@@ -71,7 +71,7 @@ export async function requestCheck(actor: Actor, request: CheckRequest): Promise
   await findPest(actor, request.pestId);
   const sightings = await sightingsInWindow(request);
   // Refused before any row exists, so an over-budget request leaves nothing behind.
-  assertCheckWithinBudget(request.options, sightings.length, fieldExtent(field.boundary, field.areaM2));
+  const work = assertCheckWithinBudget(request.options, sightings.length, fieldExtent(field.boundary, field.areaM2));
   const key = {
     fieldId: request.fieldId,
     pestId: request.pestId,
@@ -105,7 +105,7 @@ export async function requestCheck(actor: Actor, request: CheckRequest): Promise
     await recordAudit(actor, 'run', 'pattern-check', check.id, { fieldId: key.fieldId, pestId: key.pestId, sightings: sightings.length });
   }
 
-  if (checkWork(request.options, sightings.length) <= INLINE_WORK_LIMIT) {
+  if (checkWork(request.options, sightings.length) <= INLINE_WORK_LIMIT && work.total <= INLINE_WORK_UNITS) {
     const inputError = await runStoredCheck(check.id);
     if (inputError) {
       // Input the engine cannot analyse (e.g. a zero area basis) is the adviser's to fix: answer it, keep no row.

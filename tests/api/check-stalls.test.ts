@@ -24,6 +24,8 @@ function spreadStops(seed: number, n: number): StopPoint[] {
 
 /** 200 Ripley radii from 1 m to 200 m: the most the options allow, and the costliest part of each simulation. */
 const manyRadii = Array.from({ length: 200 }, (_, k) => k + 1);
+/** 50 radii from 4 m to 200 m: heavy, yet within the inline and sensitivity budgets for 200 sightings. */
+const fiftyRadii = Array.from({ length: 50 }, (_, k) => 4 * (k + 1));
 const pause = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
 let org: TestOrganisation;
@@ -56,10 +58,10 @@ async function answerOrder(heavy: () => Promise<{ status: number }>) {
 }
 
 describe('heavy requests leave the others answered', () => {
-  it('answers GET /api/config while an inline check with 999 simulations and 200 Ripley radii runs', async () => {
+  it('answers GET /api/config while an inline check with 999 simulations and 50 Ripley radii runs', { timeout: 180_000 }, async () => {
     const points = spreadStops(3, 200);
     const { field, pest } = await makeScoutedField(org, points);
-    const options = { simulations: 999, seed: 4, radiiM: manyRadii };
+    const options = { simulations: 999, seed: 4, radiiM: fiftyRadii };
     // Inline: the request itself waits for the figures.
     expect(options.simulations * points.length).toBeLessThanOrEqual(INLINE_WORK_LIMIT);
     const { order, heavyStatus, configStatus } = await answerOrder(() => adviser.post('/api/checks', { fieldId: field.id, pestId: pest.id, options }));
@@ -68,9 +70,9 @@ describe('heavy requests leave the others answered', () => {
     expect(order).toEqual(['config', 'heavy']);
   });
 
-  it('answers GET /api/config while a sensitivity strip with 200 Ripley radii runs', async () => {
+  it('answers GET /api/config while a sensitivity strip with 50 Ripley radii runs', { timeout: 180_000 }, async () => {
     const { field, pest } = await makeScoutedField(org, spreadStops(5, 200));
-    const { order, heavyStatus, configStatus } = await answerOrder(() => adviser.post('/api/checks/sensitivity', { fieldId: field.id, pestId: pest.id, options: { seed: 2, radiiM: manyRadii } }));
+    const { order, heavyStatus, configStatus } = await answerOrder(() => adviser.post('/api/checks/sensitivity', { fieldId: field.id, pestId: pest.id, options: { seed: 2, radiiM: fiftyRadii } }));
     expect(heavyStatus).toBe(200);
     expect(configStatus).toBe(200);
     expect(order).toEqual(['config', 'heavy']);
@@ -113,7 +115,7 @@ describe('the work budget', () => {
   });
 
   it('refuses a sensitivity strip past its budget with a sentence naming the option', async () => {
-    const { field, pest } = await makeScoutedField(org, spreadStops(10, 1500));
+    const { field, pest } = await makeScoutedField(org, spreadStops(10, 300));
     const res = await adviser.post('/api/checks/sensitivity', { fieldId: field.id, pestId: pest.id, options: { radiiM: manyRadii } });
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/^Option "simulations": This sensitivity strip \(nine runs\) would take .* work units, over its budget of .*; reduce "simulations" to at most [\d,]+ or give fewer Ripley radii\.$/);
