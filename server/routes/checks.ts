@@ -34,7 +34,7 @@ function parseCheckRequest(body: unknown, schema = checkRequestSchema): CheckReq
 
 checksRouter.post('/', requireRole('adviser', 'admin'), async (req, res) => {
   const outcome = await requestCheck(actor(req), parseCheckRequest(req.body));
-  res.status(outcome.httpStatus).json({ check: outcome.check });
+  res.status(outcome.httpStatus).type('json').send(outcome.json);
 });
 
 checksRouter.post('/sensitivity', requireRole('adviser', 'admin'), async (req, res) => {

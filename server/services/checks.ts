@@ -59,7 +59,8 @@ const isStale = (check: PatternCheck) =>
   (check.status === 'queued' || check.status === 'running') && Date.now() - new Date(check.updatedAt).getTime() > STALE_AFTER_MS;
 
 export interface CheckOutcome {
-  check: CheckView;
+  /** `{ check }` already serialised, its figures spliced in as stored. */
+  json: string;
   /** 200 stored, 201 computed now, 202 queued. */
   httpStatus: 200 | 201 | 202;
 }
@@ -83,7 +84,7 @@ export async function requestCheck(actor: Actor, request: CheckRequest): Promise
   };
 
   const stored = await PatternCheck.findOne({ where: key });
-  if (stored && stored.status !== 'failed' && !isStale(stored)) return { check: await present(stored, true), httpStatus: 200 };
+  if (stored && stored.status !== 'failed' && !isStale(stored)) return { json: await checkAnswerJson(actor, stored.id, true), httpStatus: 200 };
 
   let check: PatternCheck;
   if (stored) {
@@ -100,7 +101,7 @@ export async function requestCheck(actor: Actor, request: CheckRequest): Promise
       },
     );
     // Two identical requests at once: the second finds the first's row.
-    if (!inserted) return { check: await present((await PatternCheck.findOne({ where: key }))!, true), httpStatus: 200 };
+    if (!inserted) return { json: await checkAnswerJson(actor, (await PatternCheck.findOne({ where: key, attributes: ['id'] }))!.id, true), httpStatus: 200 };
     check = (await PatternCheck.findByPk(inserted.id))!;
     await recordAudit(actor, 'run', 'pattern-check', check.id, { fieldId: key.fieldId, pestId: key.pestId, sightings: sightings.length });
   }
@@ -112,10 +113,10 @@ export async function requestCheck(actor: Actor, request: CheckRequest): Promise
       await PatternCheck.destroy({ where: { id: check.id } });
       throw badRequest(inputError.message);
     }
-    return { check: await present((await check.reload())!, false), httpStatus: 201 };
+    return { json: await checkAnswerJson(actor, check.id, false), httpStatus: 201 };
   }
   await enqueueCheck(check.id);
-  return { check: await present(check, false), httpStatus: 202 };
+  return { json: await checkAnswerJson(actor, check.id, false), httpStatus: 202 };
 }
 
 /** One check of the actor's organisation (another organisation's id simply is not found). */
@@ -135,11 +136,11 @@ async function storedFiguresText(id: string): Promise<string | null> {
 }
 
 /** `{ check }` as JSON, its result the stored text itself. */
-async function checkAnswerJson(actor: Actor, id: string): Promise<string> {
+async function checkAnswerJson(actor: Actor, id: string, reused?: boolean): Promise<string> {
   const attributes = Object.keys(PatternCheck.getAttributes()).filter((name) => name !== 'result');
   const check = await PatternCheck.findOne({ where: { id, organisationId: actor.organisationId }, attributes });
   if (!check) throw notFound('That pattern check');
-  const { result: _omitted, ...view } = await present(check);
+  const { result: _omitted, ...view } = await present(check, reused);
   const figures = await storedFiguresText(id);
   return `{"check":${JSON.stringify(view).slice(0, -1)},"result":${figures ?? 'null'}}}`;
 }
