@@ -4,8 +4,9 @@ import type { MultiPolygon } from 'geojson';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
 import { badRequest } from '../errors.ts';
 
-// Measured on the 2-core development machine under test load: an inline check of 200 sightings, 999 simulations and
-// 200 Ripley radii (4e9 units) took 34 s on one analysis thread, about 1.2e8 units a second.
+// Measured on the 2-core development machine: an inline check of 200 sightings, 999 simulations and 200 Ripley radii
+// (4e9 units) took 34 s on one analysis thread under test load (1.2e8 units a second); `npm run bench -- stalls` ran
+// 9.1e8 units in 1.75 s on a quiet machine (5e8 a second).
 /** A full check may ask for at most this many work units (about 15 thread-minutes); 5,000 sightings at the defaults take about 5e10. */
 export const CHECK_WORK_BUDGET = 100_000_000_000;
 /** Checks up to this many units answer within the request (a few seconds on a thread); heavier ones go to the queue. */
