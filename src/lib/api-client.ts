@@ -93,3 +93,11 @@ export async function api<T>(path: string, options: RequestOptions = {}): Promis
   if (res.status === 204) return undefined as T;
   return (await res.json()) as T;
 }
+
+/** GETs a binary answer (a density grid) as raw bytes; errors come back as JSON like everywhere else. */
+export async function apiBytes(path: string, options: Pick<RequestOptions, 'signal'> = {}): Promise<ArrayBuffer> {
+  const res = await send(path, { signal: options.signal });
+  if (!res.ok) throw await toApiError(res);
+  return res.arrayBuffer();
+}
+

@@ -92,7 +92,7 @@ export function FieldReviewPage() {
             <ErrorState error={sightings.error} onRetry={() => sightings.refetch()} />
           ) : (
             <Suspense fallback={<div className="flex h-[40rem] items-center justify-center rounded-lg bg-straw-100"><LoadingState label="Loading the map…" /></div>}>
-              <ReviewMap field={f} sightings={pestSightings} result={result} selectedId={selectedId} onSelect={setSelectedId} />
+              <ReviewMap field={f} sightings={pestSightings} result={result} checkId={result ? (check.data?.id ?? null) : null} selectedId={selectedId} onSelect={setSelectedId} />
             </Suspense>
           )}
         </Panel>
