@@ -9,7 +9,7 @@ import { PatternCheck } from '../models/pattern-check.ts';
 import { planSimulations } from '../../shared/analysis/analyse.ts';
 import { AnalysisInputError } from '../../shared/analysis/errors.ts';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
-import { createMonteCarloPool, type MonteCarloPool } from '../../shared/analysis/parallel/monte-carlo-pool.ts';
+import { createMonteCarloPool, type MonteCarloPool } from './monte-carlo/monte-carlo-pool.ts';
 import { BACKGROUND_THREAD_NICE } from './background-priority.ts';
 import { closeAnalysisPool, runInAnalysisThread } from './analysis-pool.ts';
 import type { SplitResult } from './check-figures.ts';
