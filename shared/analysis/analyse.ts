@@ -6,7 +6,9 @@ import { searchCoverage, type CoverageResult } from './coverage.ts';
 import { densitySurface, type DensityResult } from './density.ts';
 import { normalTwoSided } from './distributions.ts';
 import { AnalysisInputError } from './errors.ts';
-import { createPlanarField, fieldToCoordinates, isInsideField, type PlanarField } from './field-geometry.ts';
+import { createPlanarField, fieldToCoordinates, isInsideField, snapInsideField, type PlanarField } from './field-geometry.ts';
+import { randomLabellingTest, type RandomLabellingResult } from './labelling.ts';
+import { mergeStops, type PlacedSighting, type StopMerge } from './stops.ts';
 import { readBoundary, readSightings } from './input.ts';
 import { runSimulations, type SimulationPlan } from './monte-carlo.ts';
 import { nearestNeighbourTest, type NearestNeighbourResult } from './nearest-neighbour.ts';
@@ -14,7 +16,7 @@ import { analysisOptionsSchema, type AnalysisOptions, type AnalysisOptionsInput 
 import { boundaryCentroid, planarProjection, utmProjectionFor, type Projection } from './projection.ts';
 import { quadratTest, type QuadratResult } from './quadrat.ts';
 import { defaultRipleyRadii, ripleyK, ripleyResult, type RipleyResult } from './ripley.ts';
-import { spreadVerdict, type SpreadResult } from './spread.ts';
+import { formatP, spreadVerdict, stopsVerdict, type CheckDesign, type Evidence, type SpreadResult } from './spread.ts';
 import { ENGINE_VERSION } from './version.ts';
 import { densityThresholdPerHa, zonesFromDensity, type PlanarZone } from './zones.ts';
 
@@ -44,16 +46,35 @@ export interface CountsResult {
   hotPatches: Array<{ sightings: number; ids: string[]; meanCount: number; centre: [number, number] }>;
 }
 
+export interface StopsSummary {
+  /** Stops after same-stop merging (found and empty). */
+  count: number;
+  found: number;
+  empty: number;
+  walks: number;
+  radiusM: number | null;
+  rule: string;
+  merges: StopMerge[];
+  /** Sightings just outside the boundary (within the tolerance) moved onto it. */
+  movedInside: { count: number; ids: string[]; toleranceM: number };
+}
+
 export interface AnalysisResult {
   engineVersion: string;
+  /** stops: empty stops recorded, tested by random labelling; whole-field: photos only, tested against chance over the field. */
+  design: CheckDesign;
+  designNote: string;
+  /** Stops with the pest (after same-stop merging). */
   n: number;
+  stops: StopsSummary;
+  randomLabelling: RandomLabellingResult | null;
   crs: string;
   crsDefinition: string | null;
   excluded: { count: number; ids: string[] };
   emptyStops: number;
   area: AreaFigures;
   quadrat: QuadratResult | null;
-  nearestNeighbour: NearestNeighbourResult | null;
+  nearestNeighbour: (NearestNeighbourResult & { reference: 'csr' | 'random-labelling' }) | null;
   ripley: RipleyResult | null;
   density: DensityResult | null;
   counts: CountsResult | null;
@@ -85,6 +106,10 @@ interface Prepared {
   excluded: string[];
   area: AreaFigures;
   radiiM: number[];
+  design: CheckDesign;
+  found: Uint8Array;
+  walkOf: Int32Array;
+  summary: StopsSummary;
 }
 
 function parseOptions(options: AnalysisOptionsInput | undefined): AnalysisOptions {
@@ -118,33 +143,54 @@ function prepare(boundary: unknown, sightings: unknown, optionsInput: AnalysisOp
   originX = Math.floor(originX);
   originY = Math.floor(originY);
   const field = createPlanarField(projected.map((polygon) => polygon.map((ring) => ring.map(([x, y]) => [x - originX, y - originY]))));
+  const placed: PlacedSighting[] = [];
+  const excluded: string[] = [];
+  const moved: string[] = [];
+  for (const sighting of records) {
+    const [px, py] = projection.forward(sighting.x, sighting.y);
+    const spot = snapInsideField(field, px - originX, py - originY, options.boundaryToleranceM);
+    if (!spot) {
+      excluded.push(sighting.id);
+      continue;
+    }
+    if (spot[0] !== px - originX || spot[1] !== py - originY) moved.push(sighting.id);
+    placed.push({ id: sighting.id, x: spot[0], y: spot[1], count: sighting.count, walk: sighting.walk, accuracyM: sighting.accuracyM });
+  }
+  const merged = mergeStops(placed, options.stopRadiusM);
   const located: number[] = [];
   const locatedIds: string[] = [];
   const locatedCounts: (number | null)[] = [];
   const stops: number[] = [];
   const stopIds: string[] = [];
   const stopCounts: (number | null)[] = [];
-  const excluded: string[] = [];
+  const found = new Uint8Array(merged.stops.length);
+  const walkOf = new Int32Array(merged.stops.length);
   let emptyStops = 0;
-  for (const sighting of records) {
-    const [px, py] = projection.forward(sighting.x, sighting.y);
-    const x = px - originX;
-    const y = py - originY;
-    if (!isInsideField(field, x, y)) {
-      excluded.push(sighting.id);
-      continue;
-    }
-    stops.push(x, y);
-    stopIds.push(sighting.id);
-    stopCounts.push(sighting.count);
-    if (sighting.count === 0) {
+  merged.stops.forEach((stop, i) => {
+    stops.push(stop.x, stop.y);
+    stopIds.push(stop.id);
+    stopCounts.push(stop.count);
+    walkOf[i] = stop.walk;
+    if (!stop.found) {
       emptyStops++;
-      continue;
+      return;
     }
-    located.push(x, y);
-    locatedIds.push(sighting.id);
-    locatedCounts.push(sighting.count);
-  }
+    found[i] = 1;
+    located.push(stop.x, stop.y);
+    locatedIds.push(stop.id);
+    locatedCounts.push(stop.count);
+  });
+  const design: CheckDesign = emptyStops > 0 ? 'stops' : 'whole-field';
+  const summary: StopsSummary = {
+    count: merged.stops.length,
+    found: merged.stops.length - emptyStops,
+    empty: emptyStops,
+    walks: merged.walks.length,
+    radiusM: merged.radiusM,
+    rule: merged.rule,
+    merges: merged.merges,
+    movedInside: { count: moved.length, ids: moved, toleranceM: options.boundaryToleranceM },
+  };
   const locatedXY = new Float64Array(located);
   const area = areaFigures(field, locatedXY, options.areaBasis, options.customAreaM2);
   if (!(area.usedM2 > 0)) throw new AnalysisInputError(`The ${options.areaBasis} area is zero; choose another area basis.`);
@@ -165,13 +211,18 @@ function prepare(boundary: unknown, sightings: unknown, optionsInput: AnalysisOp
     excluded,
     area,
     radiiM,
+    design,
+    found,
+    walkOf,
+    summary,
   };
 }
 
 function plansOf(prepared: Prepared): { nearestNeighbour: SimulationPlan | null; ripley: SimulationPlan | null } {
   const n = prepared.located.length / 2;
   const { options } = prepared;
-  if (n < 2 || options.simulations === 0) return { nearestNeighbour: null, ripley: null };
+  // The stops design relabels the stops it has (cheap, on this thread); CSR simulations serve the whole-field design only.
+  if (n < 2 || options.simulations === 0 || prepared.design === 'stops') return { nearestNeighbour: null, ripley: null };
   const base = { fieldCoordinates: fieldToCoordinates(prepared.field), n, simulations: options.simulations };
   return {
     nearestNeighbour: { ...base, seed: `${options.seed}:nearest-neighbour`, nearestNeighbour: true, ripley: null },
@@ -206,17 +257,39 @@ export function analyse(
 
   const quadrat = n >= 2 ? timed('quadrat', () => quadratTest(field, located, area.boundaryM2, { cellSizeM: options.cellSizeM, grid: options.grid, slivers: options.slivers, counts })) : null;
 
+  const labelling =
+    prepared.design === 'stops' && n >= 2 && options.simulations > 0
+      ? timed('randomLabelling', () =>
+          randomLabellingTest(field, prepared.stops, prepared.found, prepared.walkOf, prepared.radiiM, area.boundaryM2, {
+            correction: options.ripleyCorrection,
+            simulations: options.simulations,
+            seed: `${options.seed}:random-labelling`,
+            alpha: options.alpha,
+          }),
+        )
+      : null;
+
   const nearestNeighbour =
     n >= 2
       ? timed('nearestNeighbour', () => {
+          if (prepared.design === 'stops') {
+            const values = nearestNeighbourTest(located, area.usedM2, area.perimeterM);
+            const relabelled = labelling?.nearestNeighbour;
+            return {
+              ...values,
+              reference: 'random-labelling' as const,
+              monteCarlo: { simulations: relabelled?.simulations ?? 0, pValue: relabelled?.pValue ?? null, meanSimulatedDistanceM: relabelled?.relabellingMeanM ?? null },
+            };
+          }
           const simulated = plans.nearestNeighbour ? (precomputed.meanNearestDistances ?? runSimulations(plans.nearestNeighbour, field).meanNearestDistances) : undefined;
-          return nearestNeighbourTest(located, area.usedM2, area.perimeterM, simulated);
+          return { ...nearestNeighbourTest(located, area.usedM2, area.perimeterM, simulated), reference: 'csr' as const };
         })
       : null;
 
   const ripley =
     n >= 2
       ? timed('ripley', () => {
+          if (prepared.design === 'stops') return labelling ? labellingRipley(labelling) : ripleyResult(prepared.radiiM, ripleyK(field, located, prepared.radiiM, area.boundaryM2, options.ripleyCorrection), options.ripleyCorrection, null, 0);
           const K = ripleyK(field, located, prepared.radiiM, area.usedM2, options.ripleyCorrection);
           const simulated = plans.ripley ? (precomputed.ripleyL ?? runSimulations(plans.ripley, field).ripleyL) : null;
           return ripleyResult(prepared.radiiM, K, options.ripleyCorrection, simulated, plans.ripley ? options.simulations : 0);
@@ -233,11 +306,29 @@ export function analyse(
 
   const countsResult = timed('counts', () => countStatistics(prepared));
   const coverage = prepared.stops.length >= 4 ? timed('coverage', () => searchCoverage(field, prepared.stops, prepared.emptyStops, area.boundaryM2)) : null;
-  const spread = spreadVerdict({ n, alpha: options.alpha, minSightings: options.minSightings, nearestNeighbour, quadrat, ripley, coverage });
+  const spread =
+    prepared.design === 'stops'
+      ? stopsVerdict({
+          stops: prepared.summary.count,
+          found: n,
+          alpha: options.alpha,
+          minSightings: options.minSightings,
+          everywhereShare: options.everywhereShare,
+          labelling,
+          supporting: stopsSupportingEvidence(labelling, countsResult),
+        })
+      : spreadVerdict({ n, alpha: options.alpha, minSightings: options.minSightings, nearestNeighbour, quadrat, ripley, coverage, areaM2: area.boundaryM2, perimeterM: area.perimeterM });
   const zones = timed('zones', () => treatmentZones(prepared, density, spread));
   return {
     engineVersion: ENGINE_VERSION,
+    design: prepared.design,
+    designNote:
+      prepared.design === 'stops'
+        ? 'Stops design: empty stops were recorded, so the pest is compared with the stops the scout made (random labelling, stratified by walk).'
+        : 'Whole-field design: no empty stops were recorded, so the tests compare the sightings with chance over the whole field, which assumes the whole field was searched evenly.',
     n,
+    stops: prepared.summary,
+    randomLabelling: labelling,
     crs: projection.crs,
     crsDefinition: projection.definition,
     excluded: { count: prepared.excluded.length, ids: prepared.excluded },
@@ -253,6 +344,49 @@ export function analyse(
     spread,
     timingsMs,
   };
+}
+
+/** The stops design's Ripley figures: L of the found stops with its pointwise range over the relabellings. */
+function labellingRipley(labelling: RandomLabellingResult): RipleyResult {
+  const above: number[] = [];
+  const below: number[] = [];
+  labelling.radiiM.forEach((r, k) => {
+    if (labelling.lFound[k] > labelling.lHigh[k]) above.push(r);
+    else if (labelling.lFound[k] < labelling.lLow[k]) below.push(r);
+  });
+  return {
+    correction: labelling.correction,
+    radiiM: labelling.radiiM,
+    K: labelling.kFound,
+    L: labelling.lFound,
+    envelopeLow: labelling.lLow,
+    envelopeHigh: labelling.lHigh,
+    simulations: labelling.simulations,
+    aboveEnvelopeM: above,
+    belowEnvelopeM: below,
+  };
+}
+
+function stopsSupportingEvidence(labelling: RandomLabellingResult | null, counts: CountsResult | null): Evidence[] {
+  const evidence: Evidence[] = [];
+  const nn = labelling?.nearestNeighbour;
+  if (nn) {
+    evidence.push({
+      role: 'supporting',
+      test: 'Clark–Evans among found stops, random labelling',
+      pValue: nn.pValue,
+      text: `Mean distance from a found stop to the nearest other found stop: ${nn.meanDistanceM.toFixed(1)} m against ${nn.relabellingMeanM.toFixed(1)} m on average over ${nn.simulations} relabellings (R = ${nn.R.toFixed(2)}, ${formatP(nn.pValue)}).`,
+    });
+  }
+  if (counts && Number.isFinite(counts.moran.I)) {
+    evidence.push({
+      role: 'supporting',
+      test: "Moran's I of stop counts",
+      pValue: counts.moran.pValue,
+      text: `Moran's I of the counts per stop, empty stops included: I = ${counts.moran.I.toFixed(3)} (expected ${counts.moran.expected.toFixed(3)}; permutation ${formatP(counts.moran.pValue)}), neighbours within ${counts.moran.bandM.toFixed(0)} m.`,
+    });
+  }
+  return evidence;
 }
 
 function countStatistics(prepared: Prepared): CountsResult | null {

@@ -1,7 +1,7 @@
 // The spread verdict and its key figures in plain words, from a stored check result (the engine's own figures).
 import { formatP } from '../analysis/spread.ts';
 
-type Spread = 'clustered' | 'random' | 'regular' | 'too-few';
+type Spread = 'clustered' | 'random' | 'regular' | 'too-few' | 'everywhere' | 'cant-tell';
 
 interface StoredResult {
   n?: number;
@@ -26,6 +26,8 @@ const reading: Record<Spread, string> = {
   regular: 'Regular: sightings are spaced more evenly than chance would place them',
   random: 'Random: the spacing of the sightings is what chance alone would give',
   'too-few': 'Too few sightings to tell a pattern',
+  everywhere: 'Everywhere: the pest was found at most stops, a whole-field decision against the threshold',
+  'cant-tell': "Can't tell: the data cannot separate the walk from the pest",
 };
 
 export interface VerdictWords {

@@ -46,7 +46,7 @@ export interface PersonRef {
   name: string;
 }
 
-export type Spread = 'clustered' | 'random' | 'regular' | 'too-few';
+export type Spread = 'clustered' | 'random' | 'regular' | 'too-few' | 'everywhere' | 'cant-tell';
 
 export interface CheckView {
   id: string;

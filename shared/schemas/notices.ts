@@ -91,7 +91,7 @@ export interface NoticeContent {
   pestName: string;
   /** YYYY-MM-DD, oldest first. */
   walkDates: string[];
-  verdict: { spread: 'clustered' | 'random' | 'regular' | 'too-few' | null; headline: string; figures: string[] };
+  verdict: { spread: 'clustered' | 'random' | 'regular' | 'too-few' | 'everywhere' | 'cant-tell' | null; headline: string; figures: string[] };
   zones: NoticeZoneRow[];
   totalTreatedM2: number;
   untreatedShare: number;

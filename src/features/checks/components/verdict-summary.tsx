@@ -8,6 +8,8 @@ const tone: Record<AnalysisResult['spread']['verdict'], string> = {
   random: 'bg-field-100 text-field-900 ring-1 ring-inset ring-field-300',
   regular: 'bg-straw-200 text-soil-900 ring-1 ring-inset ring-straw-400',
   'too-few': 'bg-soil-300/40 text-soil-800 ring-1 ring-inset ring-soil-300',
+  everywhere: 'bg-patch-100 text-patch-700 ring-1 ring-inset ring-patch-400',
+  'cant-tell': 'bg-soil-300/40 text-soil-800 ring-1 ring-inset ring-soil-300',
 };
 
 const meaning: Record<AnalysisResult['spread']['verdict'], string> = {
@@ -15,6 +17,8 @@ const meaning: Record<AnalysisResult['spread']['verdict'], string> = {
   random: 'No pattern beyond chance: the pest is scattered across the field.',
   regular: 'More even than chance: the pest is spread everywhere, not in patches.',
   'too-few': 'Too few sightings to tell a patch from chance: scout again before deciding.',
+  everywhere: 'The pest was found at most stops: decide for the whole field against the action threshold, not by patches.',
+  'cant-tell': 'The data cannot separate the walk from the pest: no zone is proposed. Record empty stops and cover the field evenly.',
 };
 
 export function VerdictSummary({ check, result }: { check: CheckView; result: AnalysisResult }) {

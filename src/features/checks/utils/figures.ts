@@ -41,6 +41,8 @@ export const spreadLabels = {
   random: 'Random',
   regular: 'Regular',
   'too-few': 'Too few sightings',
+  everywhere: 'Everywhere',
+  'cant-tell': "Can't tell",
 } as const;
 
 export function dateTime(iso: string | null): string {
