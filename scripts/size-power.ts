@@ -48,8 +48,8 @@ for (const [name, stops] of Object.entries(walks)) {
     const random = mulberry32(300_000 + s);
     const features = [];
     for (let k = 0; k < 25; k++) {
-      const x = 50 + 900 * random();
-      const y = 50 + 900 * random();
+      const x = 999 * random();
+      const y = 1000 * random();
       for (const dx of [0, 1]) features.push({ type: 'Feature' as const, properties: { id: `p${k}-${dx}` }, geometry: { type: 'Point' as const, coordinates: [x + dx, y] } });
     }
     if (analyse(squareField, { type: 'FeatureCollection', features }, { planar: true, seed: s, simulations, alpha }).spread.verdict === 'clustered') clustered++;

@@ -9,6 +9,9 @@ import { AnalysisInputError } from './errors.ts';
 import { createPlanarField, fieldToCoordinates, isInsideField, snapInsideField, type PlanarField } from './field-geometry.ts';
 import { randomLabellingTest, type RandomLabellingResult } from './labelling.ts';
 import { mergeStops, type PlacedSighting, type StopMerge } from './stops.ts';
+import { abundanceZones, stopSurface, type ZoneBasis } from './abundance-zones.ts';
+import { bernoulliScan, type ScanResult } from './scan.ts';
+import { scoutedArea, type ScoutedArea } from './scouted.ts';
 import { readBoundary, readSightings } from './input.ts';
 import { runSimulations, type SimulationPlan } from './monte-carlo.ts';
 import { nearestNeighbourTest, type NearestNeighbourResult } from './nearest-neighbour.ts';
@@ -36,6 +39,29 @@ export interface ZoneProperties {
   areaAc: number;
   shareOfField: number;
   sightings: number;
+  /** Stops inside the zone (found and empty), their ids, mean count per stop and the threshold it was held against. */
+  stopCount?: number;
+  stops?: string[];
+  meanCount?: number;
+  threshold?: number | null;
+  basis?: ZoneBasis;
+}
+
+export interface ScoutedSummary {
+  stopSpacingM: number;
+  radiusM: number;
+  rule: string;
+  scoutedM2: number;
+  notScoutedM2: number;
+  /** Share of the field the stops speak for. */
+  scoutedShare: number;
+  scouted: MultiPolygon;
+  notScouted: MultiPolygon;
+}
+
+export interface ScanSummary extends Omit<ScanResult, 'members' | 'centre'> {
+  centre: [number, number];
+  stops: string[];
 }
 
 export interface CountsResult {
@@ -68,6 +94,10 @@ export interface AnalysisResult {
   n: number;
   stops: StopsSummary;
   randomLabelling: RandomLabellingResult | null;
+  /** Where the stops speak for the crop, and the rest of the field: "not scouted", never clean. */
+  scouted: ScoutedSummary | null;
+  /** The most likely patch by the spatial scan statistic (stops design). */
+  scan: ScanSummary | null;
   crs: string;
   crsDefinition: string | null;
   excluded: { count: number; ids: string[] };
@@ -318,7 +348,13 @@ export function analyse(
           supporting: stopsSupportingEvidence(labelling, countsResult),
         })
       : spreadVerdict({ n, alpha: options.alpha, minSightings: options.minSightings, nearestNeighbour, quadrat, ripley, coverage, areaM2: area.boundaryM2, perimeterM: area.perimeterM });
-  const zones = timed('zones', () => treatmentZones(prepared, density, spread));
+  const scouted = prepared.stops.length >= 4 ? timed('scouted', () => scoutedArea(field, prepared.stops)) : null;
+  const walkMembers = walkMembersOf(prepared.walkOf);
+  const scan =
+    prepared.design === 'stops' && options.simulations > 0
+      ? timed('scan', () => bernoulliScan(prepared.stops, prepared.found, walkMembers, { simulations: options.simulations, seed: `${options.seed}:scan` }))
+      : null;
+  const zones = timed('zones', () => (prepared.design === 'stops' && scouted ? stopZones(prepared, scouted, spread, walkMembers) : treatmentZones(prepared, density, spread)));
   return {
     engineVersion: ENGINE_VERSION,
     design: prepared.design,
@@ -329,6 +365,8 @@ export function analyse(
     n,
     stops: prepared.summary,
     randomLabelling: labelling,
+    scouted: scouted && scoutedSummary(prepared, scouted),
+    scan: scan && scanSummary(prepared, scan),
     crs: projection.crs,
     crsDefinition: projection.definition,
     excluded: { count: prepared.excluded.length, ids: prepared.excluded },
@@ -435,6 +473,78 @@ function treatmentZones(prepared: Prepared, density: DensityResult | null, sprea
     thresholdPerHa: threshold,
     note: `Density of at least ${threshold.toFixed(1)} sightings per ha, ${options.zones.marginM} m margin, zones under ${options.zones.minZoneAreaM2} m² dropped.`,
     features: planarZones.map((zone, index) => zoneFeature(prepared, zone, index, located, area.boundaryM2)),
+  };
+}
+
+function scanSummary(prepared: Prepared, scan: ScanResult): ScanSummary {
+  const { members, centre, ...figures } = scan;
+  return {
+    ...figures,
+    centre: prepared.projection.inverse(prepared.stops[centre * 2] + prepared.originX, prepared.stops[centre * 2 + 1] + prepared.originY),
+    stops: members.map((i) => prepared.stopIds[i]),
+  };
+}
+
+function walkMembersOf(walkOf: Int32Array): Int32Array[] {
+  const lists = new Map<number, number[]>();
+  walkOf.forEach((w, i) => (lists.get(w) ?? lists.set(w, []).get(w)!).push(i));
+  return [...lists.values()].filter((l) => l.length > 1).map((l) => Int32Array.from(l));
+}
+
+const toLonLat = (prepared: Prepared, polygons: number[][][][]): MultiPolygon => ({
+  type: 'MultiPolygon',
+  coordinates: polygons.map((rings) => rings.map((ring) => ring.map(([x, y]) => prepared.projection.inverse(x + prepared.originX, y + prepared.originY)))),
+});
+
+function scoutedSummary(prepared: Prepared, scouted: ScoutedArea): ScoutedSummary {
+  return {
+    stopSpacingM: scouted.stopSpacingM,
+    radiusM: scouted.radiusM,
+    rule: scouted.rule,
+    scoutedM2: scouted.scoutedM2,
+    notScoutedM2: scouted.notScoutedM2,
+    scoutedShare: scouted.scoutedM2 / prepared.area.boundaryM2,
+    scouted: toLonLat(prepared, scouted.scouted),
+    notScouted: toLonLat(prepared, scouted.notScouted),
+  };
+}
+
+/** Stops design: zones from abundance among the stops (mean count against the action threshold, or relative risk). */
+function stopZones(prepared: Prepared, scouted: ScoutedArea, spread: SpreadResult, walkMembers: Int32Array[]): AnalysisResult['zones'] {
+  const { options } = prepared;
+  const threshold = options.zones.actionThreshold ?? null;
+  const empty = (note: string) => ({ type: 'FeatureCollection' as const, features: [], thresholdPerHa: null, note });
+  if (options.zones.onlyWhenClustered && spread.verdict !== 'clustered') return empty(`No zones proposed: the spread is ${spread.verdict}, not clustered.`);
+  const counts = prepared.stopCounts.map((c, i) => c ?? (prepared.found[i] ? 1 : 0));
+  const surface = stopSurface(prepared.stops, counts, prepared.found, walkMembers, scouted.stopSpacingM, {
+    threshold,
+    bandwidthM: options.bandwidthM,
+    simulations: Math.min(options.simulations, 999),
+    seed: `${options.seed}:relative-risk`,
+    alpha: options.alpha,
+  });
+  const planar = abundanceZones(prepared.stops, counts, surface, scouted, { marginM: options.zones.marginM, minZoneAreaM2: options.zones.minZoneAreaM2 });
+  const unit = options.zones.unit ?? 'per stop';
+  const rule =
+    surface.basis === 'mean-count'
+      ? `Mean count per stop (kernel-weighted, empty stops included, ${surface.bandwidthRule} ${surface.bandwidthM.toFixed(0)} m) at or above the action threshold of ${threshold} ${unit}`
+      : `No action threshold given: stops where the found share of nearby stops (relative risk, ${surface.bandwidthRule} ${surface.bandwidthM.toFixed(0)} m) is beyond its ${Math.round((1 - options.alpha) * 100)} % tolerance over relabellings`;
+  return {
+    type: 'FeatureCollection',
+    thresholdPerHa: null,
+    note: `${rule}; ${options.zones.marginM} m margin, kept inside the scouted area (${scouted.rule}); zones under ${options.zones.minZoneAreaM2} m² dropped. The rest of the field is not scouted.`,
+    features: planar.map((zone, index) => {
+      const feature = zoneFeature(prepared, { rings: zone.rings, areaM2: zone.areaM2 }, index, prepared.located, prepared.area.boundaryM2);
+      feature.properties = {
+        ...feature.properties,
+        stopCount: zone.stops.length,
+        stops: zone.stops.map((i) => prepared.stopIds[i]),
+        meanCount: zone.meanCount,
+        threshold,
+        basis: surface.basis,
+      };
+      return feature;
+    }),
   };
 }
 

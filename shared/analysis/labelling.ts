@@ -122,7 +122,7 @@ export function relabelWithinWalks(labels: Uint8Array, walkMembers: Int32Array[]
 }
 
 /** For each stop, the other stops nearest first (up to 64), so a relabelling finds nearest found stops fast. */
-function neighbourOrder(xy: Float64Array): { order: Int32Array; distance: Float64Array; width: number } {
+export function neighbourOrder(xy: Float64Array): { order: Int32Array; distance: Float64Array; width: number } {
   const m = xy.length / 2;
   const width = Math.min(m - 1, 64);
   const order = new Int32Array(m * width);

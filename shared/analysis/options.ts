@@ -14,6 +14,10 @@ export const zoneOptionsSchema = z
     minZoneAreaM2: z.number().min(0, 'The smallest zone area cannot be negative.').max(10_000_000, 'The smallest zone area must be at most 1,000 ha.').default(500),
     /** Propose zones only when the verdict is clustered: spot treatment of an evenly spread pest is a miss. */
     onlyWhenClustered: z.boolean().default(true),
+    /** The pest's action threshold as a mean count per stop, in the pest's own unit; without it zones follow relative risk. */
+    actionThreshold: z.number().positive('The action threshold must be more than 0.').optional(),
+    /** The unit of counts and threshold, e.g. "aphids per plant", for the zone notes. */
+    unit: z.string().min(1).max(80).optional(),
   })
   .strict();
 

@@ -64,8 +64,8 @@ describe('repeated photos of one spot', () => {
     const random = mulberry32(seed);
     const features = [];
     for (let k = 0; k < 25; k++) {
-      const x = 50 + 900 * random();
-      const y = 50 + 900 * random();
+      const x = 999 * random();
+      const y = 1000 * random();
       for (const dx of [0, 1]) features.push({ type: 'Feature' as const, properties: { id: `p${k}-${dx}` }, geometry: { type: 'Point' as const, coordinates: [x + dx, y] } });
     }
     return { type: 'FeatureCollection' as const, features };
