@@ -17,6 +17,8 @@ export interface StoredSighting {
   lon: number;
   lat: number;
   count: number | null;
+  walkId?: string | null;
+  accuracyM?: number | null;
   /** UTC, microseconds, so an edit always changes the hash. */
   updatedAt: string;
 }
@@ -28,9 +30,9 @@ export interface SightingWindow {
   to?: string | null;
 }
 
-export type SightingProperties = { id: string; count?: number };
+export type SightingProperties = { id: string; count?: number; walk?: string; accuracyM?: number };
 
-const sightingColumns = `s.id, ST_X(s.position) AS lon, ST_Y(s.position) AS lat, s.count,
+const sightingColumns = `s.id, ST_X(s.position) AS lon, ST_Y(s.position) AS lat, s.count, s.walk_id AS "walkId", s.accuracy_m AS "accuracyM",
   to_char(s.updated_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"') AS "updatedAt"`;
 
 /** The placed, not-deleted sightings of a pest in a field whose walk falls in the window, empty stops included, by id. */
@@ -88,7 +90,13 @@ export function sightingsCollection(sightings: StoredSighting[]): FeatureCollect
       (s): Feature<Point, SightingProperties> => ({
         type: 'Feature',
         geometry: { type: 'Point', coordinates: [s.lon, s.lat] },
-        properties: s.count === null ? { id: s.id } : { id: s.id, count: s.count },
+        // Walk and GPS accuracy let the engine merge photos of one stop and keep each walk's stops apart.
+        properties: {
+          id: s.id,
+          ...(s.count === null ? {} : { count: s.count }),
+          ...(s.walkId ? { walk: s.walkId } : {}),
+          ...(s.accuracyM == null ? {} : { accuracyM: s.accuracyM }),
+        },
       }),
     ),
   };
@@ -140,6 +148,17 @@ export async function runAnalysis(
   return analyse(boundary, sightings, options, { meanNearestDistances: nearest?.meanNearestDistances, ripleyL: ripley?.ripleyL });
 }
 
+/** The design, the same-stop merges and the not-scouted area, stored beside the result. */
+export function designColumns(result: AnalysisResult) {
+  const notScouted = result.scouted?.notScouted;
+  return {
+    design: result.design,
+    stopMerges: result.stops.merges,
+    notScouted: notScouted && notScouted.coordinates.length ? { ...notScouted, crs: { type: 'name', properties: { name: 'EPSG:4326' } } } : null,
+    notScoutedM2: result.scouted ? result.scouted.notScoutedM2 : null,
+  };
+}
+
 /** Progress writes are throttled: a check reports at most every 5 %. */
 function progressWriter(checkId: string) {
   let last = 0;
@@ -166,7 +185,7 @@ export async function runStoredCheck(checkId: string): Promise<AnalysisInputErro
     }
     const boundary = await fieldBoundary(check.fieldId);
     const result = await runAnalysis(boundary, sightingsCollection(sightings), check.options as AnalysisOptions, progressWriter(check.id));
-    await check.update({ status: 'done', progress: 1, result: JSON.parse(JSON.stringify(result)), error: null, finishedAt: new Date() });
+    await check.update({ status: 'done', progress: 1, result: JSON.parse(JSON.stringify(result)), error: null, finishedAt: new Date(), ...designColumns(result) });
     return null;
   } catch (error) {
     await check.update({ status: 'failed', error: (error as Error).message || 'The check failed.', finishedAt: new Date() });
