@@ -1,6 +1,4 @@
 // Stops: the sampling unit of a walk. Photos of one walk within the same-stop radius are one stop.
-import { forEachPairWithin } from './ripley.ts';
-
 export interface PlacedSighting {
   id: string;
   x: number;
@@ -45,38 +43,49 @@ export const DEFAULT_STOP_RADIUS_M = 5;
 const isFound = (count: number | null) => count === null || count > 0;
 
 /**
- * Merges the sightings of each walk that lie within the same-stop radius of one another (single linkage,
- * so a chain of photos along one plant row joins up). radiusM = 0 turns merging off; undefined uses
- * max(5 m, accuracy of either position) per pair.
+ * Merges the sightings of each walk that lie within the same-stop radius of a stop's first sighting (the leader
+ * algorithm, Hartigan 1975, in input order), so a stop never spreads wider than twice the radius: photos of every
+ * plant along a row stay separate stops instead of chaining into one. radiusM = 0 turns merging off; undefined
+ * uses max(5 m, the stated accuracy of either position) per pair.
  */
 export function mergeStops(sightings: PlacedSighting[], radiusM?: number): StopsResult {
   const walks = [...new Set(sightings.map((s) => s.walk))];
   const walkIndex = new Map(walks.map((w, i) => [w, i]));
   const n = sightings.length;
-  const parent = Int32Array.from({ length: n }, (_, i) => i);
-  const root = (i: number): number => {
-    while (parent[i] !== i) {
-      parent[i] = parent[parent[i]];
-      i = parent[i];
-    }
-    return i;
-  };
+  const leaderOf = new Int32Array(n);
   const maxAccuracy = sightings.reduce((m, s) => Math.max(m, s.accuracyM ?? 0), 0);
   const reach = radiusM ?? Math.max(DEFAULT_STOP_RADIUS_M, maxAccuracy);
-  if (reach > 0 && n > 1) {
-    const xy = new Float64Array(n * 2);
-    sightings.forEach((s, i) => {
-      xy[i * 2] = s.x;
-      xy[i * 2 + 1] = s.y;
-    });
-    forEachPairWithin(xy, reach, (i, j, d) => {
-      const a = sightings[i];
-      const b = sightings[j];
-      if (a.walk !== b.walk) return;
-      const limit = radiusM ?? Math.max(DEFAULT_STOP_RADIUS_M, a.accuracyM ?? 0, b.accuracyM ?? 0);
-      if (d < limit) parent[root(i)] = root(j);
-    });
+  // Leaders hashed into square cells of side `reach`, so each sighting looks at nine cells only.
+  const cells = new Map<string, number[]>();
+  const key = (cx: number, cy: number, walk: string) => `${walk}|${cx}|${cy}`;
+  for (let i = 0; i < n; i++) {
+    const s = sightings[i];
+    leaderOf[i] = i;
+    if (!(reach > 0)) continue;
+    const cx = Math.floor(s.x / reach);
+    const cy = Math.floor(s.y / reach);
+    let best = -1;
+    let bestD = Infinity;
+    for (let dx = -1; dx <= 1; dx++) for (let dy = -1; dy <= 1; dy++) {
+      for (const l of cells.get(key(cx + dx, cy + dy, s.walk)) ?? []) {
+        const leader = sightings[l];
+        const d = Math.hypot(leader.x - s.x, leader.y - s.y);
+        const limit = radiusM ?? Math.max(DEFAULT_STOP_RADIUS_M, leader.accuracyM ?? 0, s.accuracyM ?? 0);
+        if (d < limit && d < bestD) {
+          best = l;
+          bestD = d;
+        }
+      }
+    }
+    if (best >= 0) leaderOf[i] = best;
+    else {
+      const k = key(cx, cy, s.walk);
+      const list = cells.get(k);
+      if (list) list.push(i);
+      else cells.set(k, [i]);
+    }
   }
+  const root = (i: number) => leaderOf[i];
   const groups = new Map<number, number[]>();
   for (let i = 0; i < n; i++) {
     const r = root(i);
@@ -118,7 +127,7 @@ export function mergeStops(sightings: PlacedSighting[], radiusM?: number): Stops
     radiusM === 0
       ? 'Same-stop merging is off: every sighting is its own stop.'
       : radiusM !== undefined
-        ? `Sightings of one walk closer than ${radiusM} m are one stop (counts summed).`
-        : `Sightings of one walk closer than the larger of ${DEFAULT_STOP_RADIUS_M} m and their stated GPS accuracy are one stop (counts summed).`;
+        ? `Sightings of one walk closer than ${radiusM} m to a stop's first sighting join that stop (counts summed).`
+        : `Sightings of one walk closer than the larger of ${DEFAULT_STOP_RADIUS_M} m and their stated GPS accuracy to a stop's first sighting join that stop (counts summed).`;
   return { stops, walks, merges, radiusM: radiusM ?? reach, rule };
 }

@@ -96,6 +96,13 @@ describe('same-stop merging', () => {
     expect(merged.merges[0].sightingIds).toEqual(['a', 'b', 'c']);
   });
 
+  it('does not chain photos of a row 4 m apart into one long stop', () => {
+    const row = Array.from({ length: 10 }, (_, k) => sighting(`r${k}`, 4 * k, 'w', 1));
+    const merged = mergeStops(row);
+    expect(merged.stops.length).toBeGreaterThanOrEqual(4);
+    for (const merge of merged.merges) expect(merge.spanM).toBeLessThan(10);
+  });
+
   it('keeps sightings of different walks apart even at the same spot', () => {
     expect(mergeStops([sighting('a', 0, 'w1', 2), sighting('b', 1, 'w2', 3)]).stops).toHaveLength(2);
   });

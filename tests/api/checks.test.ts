@@ -326,9 +326,9 @@ describe('a field’s checks, threshold status and history', () => {
     const res = await adviser.get(`/api/fields/${field.id}/history?pestId=${pest.id}`).expect(200);
     expect(res.body.walks.map((w: { walkId: string }) => w.walkId)).toEqual([walkId, laterWalk]);
     const [first, second] = res.body.walks;
-    expect(first.pests[0]).toMatchObject({ pestId: pest.id, sightings: points.length, stops: points.length });
+    expect(first.pests[0]).toMatchObject({ pestId: pest.id, sightings: points.filter((p) => (p.count as number) > 0).length, stops: points.length });
     expect(first.pests[0].meanCount).toBeCloseTo(mean(points.map((p) => p.count as number)), 10);
-    expect(second.pests[0]).toMatchObject({ sightings: 12, stops: 17 });
+    expect(second.pests[0]).toMatchObject({ sightings: 12, stops: 12 + 24 + 5 });
     expect(second.pests[0].meanCount).toBeCloseTo(mean(later.map((p) => p.count as number)), 10);
     expect(res.body.checks.map((c: { id: string }) => c.id)).toEqual([check.id]);
   });
