@@ -36,7 +36,8 @@ function xlnxTable(N: number): Float64Array {
   return t;
 }
 
-function bestWindow(labels: Uint8Array, near: ReturnType<typeof neighbourOrder>, maxSize: number, C: number, t: Float64Array): { llr: number; centre: number; size: number } {
+/** The best window; with `enough`, stops at the first window reaching it (a relabelling only needs to know that). */
+function bestWindow(labels: Uint8Array, near: ReturnType<typeof neighbourOrder>, maxSize: number, C: number, t: Float64Array, enough = Infinity): { llr: number; centre: number; size: number } {
   const N = labels.length;
   // The same Bernoulli ratio as bernoulliLLR, rewritten as Σ k ln k terms.
   const whole = t[C] + t[N - C] - t[N];
@@ -49,7 +50,10 @@ function bestWindow(labels: Uint8Array, near: ReturnType<typeof neighbourOrder>,
       if (c * N <= C * n) continue;
       const rest = N - n;
       const llr = t[c] + t[n - c] - t[n] + t[C - c] + t[rest - C + c] - t[rest] - whole;
-      if (llr > best.llr) best = { llr, centre: i, size: n };
+      if (llr > best.llr) {
+        best = { llr, centre: i, size: n };
+        if (llr >= enough) return best;
+      }
     }
   }
   return best;
@@ -73,7 +77,7 @@ export function bernoulliScan(xy: Float64Array, found: Uint8Array, walkMembers: 
   let atLeast = 0;
   for (let t = 0; t < options.simulations; t++) {
     relabelWithinWalks(found, walkMembers, createRandom(deriveSeed(options.seed, t)), labels);
-    if (bestWindow(labels, near, maxSize, C, table).llr >= observed.llr - 1e-9) atLeast++;
+    if (bestWindow(labels, near, maxSize, C, table, observed.llr - 1e-9).llr >= observed.llr - 1e-9) atLeast++;
   }
   const members = [observed.centre];
   for (let k = 1; k < observed.size; k++) members.push(near.order[observed.centre * near.width + k - 1]);

@@ -6,7 +6,15 @@ type Spread = 'clustered' | 'random' | 'regular' | 'too-few' | 'everywhere' | 'c
 interface StoredResult {
   n?: number;
   area?: { boundaryM2?: number };
-  spread?: { verdict?: Spread; alpha?: number; minSightings?: number; decidedBy?: 'monte-carlo' | 'donnelly' | null };
+  design?: 'stops' | 'whole-field';
+  spread?: {
+    verdict?: Spread;
+    alpha?: number;
+    minSightings?: number;
+    decidedBy?: 'random-labelling' | 'monte-carlo' | 'donnelly' | null;
+    headline?: string;
+    evidence?: Array<{ role: 'primary' | 'supporting'; text: string }>;
+  };
   nearestNeighbour?: {
     R: number;
     z: number;
@@ -48,6 +56,15 @@ export function verdictInWords(result: unknown): VerdictWords {
   if (typeof r.n === 'number') figures.push(`${r.n} sighting${r.n === 1 ? '' : 's'} inside the field.`);
   if (verdict === 'too-few' || !nearest) {
     return { spread: verdict, headline: `${reading['too-few']} (a check needs at least ${r.spread.minSightings ?? 10} sightings).`, figures };
+  }
+  const primary = r.spread.evidence?.find((e) => e.role === 'primary');
+  if (r.design === 'stops' && r.spread.headline && primary) {
+    // Checks that state their design lead with their one primary test; Clark–Evans stays a value beside it.
+    figures.push(primary.text);
+    figures.push(`Clark–Evans R = ${nearest.R.toFixed(2)} (no edge correction; a value, not evidence).`);
+    if (typeof r.spread.alpha === 'number') figures.push(`Significance level α = ${r.spread.alpha}.`);
+    for (const warning of r.coverage?.warnings ?? []) figures.push(warning);
+    return { spread: verdict, headline: `${r.spread.headline}.`, figures };
   }
   const monteCarlo = r.spread.decidedBy === 'monte-carlo' && nearest.monteCarlo?.pValue != null;
   const p = monteCarlo ? (nearest.monteCarlo!.pValue as number) : (nearest.donnelly?.pValue ?? nearest.pValue);
