@@ -1,7 +1,7 @@
 // One pattern check: every figure the app, the e-mail and the command line show comes from here.
 import type { Feature, FeatureCollection, MultiPolygon, Point, Polygon } from 'geojson';
 import { areaFigures, type AreaFigures } from './area.ts';
-import { benjaminiHochberg, distanceBandNeighbours, getisOrdGiStar, hotPatches, moransI, type MoranResult } from './autocorrelation.ts';
+import { benjaminiHochberg, distanceBandNeighbours, getisOrdGiStar, giStarPermutationP, hotPatches, moransI, stopSpacingNeighbours, type MoranResult } from './autocorrelation.ts';
 import { searchCoverage, type CoverageResult } from './coverage.ts';
 import { densitySurface, type DensityResult } from './density.ts';
 import { normalTwoSided } from './distributions.ts';
@@ -441,10 +441,12 @@ function countStatistics(prepared: Prepared): CountsResult | null {
     xy[k * 2 + 1] = stops[i * 2 + 1];
     values[k] = stopCounts[i] as number;
   });
-  const nb = distanceBandNeighbours(xy, options.moranBandM);
+  const nb = options.moranBandM === undefined ? stopSpacingNeighbours(xy) : distanceBandNeighbours(xy, options.moranBandM);
   const moran = moransI(values, nb, options.simulations, `${options.seed}:moran`);
   const gi = getisOrdGiStar(values, nb);
-  const p = gi.map((z) => normalTwoSided(z));
+  // Conditional permutation p (Anselin 1995) when simulations run; the normal p only without them.
+  const permuted = giStarPermutationP(values, nb, Math.min(options.simulations, 999), `${options.seed}:gi-star`);
+  const p = gi.map((z, k) => (Number.isNaN(permuted[k]) ? normalTwoSided(z) : permuted[k]));
   const q = benjaminiHochberg(p);
   const patches = hotPatches(values, xy, nb, gi, q, options.alpha);
   return {

@@ -121,8 +121,20 @@ export function relabelWithinWalks(labels: Uint8Array, walkMembers: Int32Array[]
   return out;
 }
 
+type NeighbourOrder = { order: Int32Array; distance: Float64Array; width: number };
+// The nearest-neighbour test, the scan and the tolerance all ask for the same stops' order: computed once per array.
+const orders = new WeakMap<Float64Array, NeighbourOrder>();
+
 /** For each stop, the other stops nearest first (up to 64), so a relabelling finds nearest found stops fast. */
-export function neighbourOrder(xy: Float64Array): { order: Int32Array; distance: Float64Array; width: number } {
+export function neighbourOrder(xy: Float64Array): NeighbourOrder {
+  const known = orders.get(xy);
+  if (known) return known;
+  const computed = computeNeighbourOrder(xy);
+  orders.set(xy, computed);
+  return computed;
+}
+
+function computeNeighbourOrder(xy: Float64Array): NeighbourOrder {
   const m = xy.length / 2;
   const width = Math.min(m - 1, 64);
   const order = new Int32Array(m * width);
@@ -134,13 +146,22 @@ export function neighbourOrder(xy: Float64Array): { order: Int32Array; distance:
       d[j] = j === i ? Infinity : Math.hypot(xy[j * 2] - xy[i * 2], xy[j * 2 + 1] - xy[i * 2 + 1]);
       index[j] = j;
     }
-    const sorted = Array.from(index).sort((p, q) => d[p] - d[q]);
+    // Only the nearest `width` are kept, so a partial selection by a distance cut avoids sorting every stop.
+    const sorted = nearestFirst(d, index, width);
     for (let w = 0; w < width; w++) {
       order[i * width + w] = sorted[w];
       distance[i * width + w] = d[sorted[w]];
     }
   }
   return { order, distance, width };
+}
+
+function nearestFirst(d: Float64Array, index: Int32Array, width: number): number[] {
+  if (width >= d.length - 1) return Array.from(index).sort((p, q) => d[p] - d[q]);
+  const cut = Float64Array.from(d).sort()[width];
+  const kept: number[] = [];
+  for (let j = 0; j < d.length; j++) if (d[j] <= cut) kept.push(j);
+  return kept.sort((p, q) => d[p] - d[q]);
 }
 
 function meanNearestFound(xy: Float64Array, labels: Uint8Array, near: ReturnType<typeof neighbourOrder>): number {
