@@ -12,6 +12,7 @@ import { mergeStops, type PlacedSighting, type StopMerge } from './stops.ts';
 import { abundanceZones, stopSurface, type ZoneBasis } from './abundance-zones.ts';
 import { bernoulliScan, type ScanResult } from './scan.ts';
 import { scoutedArea, type ScoutedArea } from './scouted.ts';
+import { intersection, polygonsArea } from './vector-buffer.ts';
 import { readBoundary, readSightings } from './input.ts';
 import { runSimulations, type SimulationPlan } from './monte-carlo.ts';
 import { nearestNeighbourTest, type NearestNeighbourResult } from './nearest-neighbour.ts';
@@ -172,7 +173,9 @@ function prepare(boundary: unknown, sightings: unknown, optionsInput: AnalysisOp
   }
   originX = Math.floor(originX);
   originY = Math.floor(originY);
-  const field = createPlanarField(projected.map((polygon) => polygon.map((ring) => ring.map(([x, y]) => [x - originX, y - originY]))));
+  const local = projected.map((polygon) => polygon.map((ring) => ring.map(([x, y]) => [x - originX, y - originY])));
+  refuseOverlappingParts(local);
+  const field = createPlanarField(local);
   const placed: PlacedSighting[] = [];
   const excluded: string[] = [];
   const moved: string[] = [];
@@ -246,6 +249,16 @@ function prepare(boundary: unknown, sightings: unknown, optionsInput: AnalysisOp
     walkOf,
     summary,
   };
+}
+
+/** Parts of a MultiPolygon that overlap would count their shared ground twice: refused with a sentence. */
+function refuseOverlappingParts(polygons: number[][][][]): void {
+  for (let a = 0; a < polygons.length; a++) for (let b = a + 1; b < polygons.length; b++) {
+    const shared = polygonsArea(intersection([polygons[a]], [polygons[b]]));
+    if (shared > 1) {
+      throw new AnalysisInputError(`Parts ${a + 1} and ${b + 1} of the boundary overlap (${shared.toFixed(0)} m²); join them into one part or fix the outline before a check.`);
+    }
+  }
 }
 
 function plansOf(prepared: Prepared): { nearestNeighbour: SimulationPlan | null; ripley: SimulationPlan | null } {

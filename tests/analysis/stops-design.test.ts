@@ -136,6 +136,22 @@ describe('permutations stratified by walk', () => {
   });
 });
 
+describe('boundary parts', () => {
+  it('refuses a MultiPolygon whose parts overlap, with a sentence naming them', () => {
+    const boundary = { type: 'MultiPolygon' as const, coordinates: [[[[0, 0], [600, 0], [600, 600], [0, 600], [0, 0]]], [[[500, 500], [1000, 500], [1000, 1000], [500, 1000], [500, 500]]]] };
+    expect(() => analyse(boundary, stopsCollection(wWalk(20), new Array(20).fill(true)), { planar: true })).toThrow(/Parts 1 and 2 of the boundary overlap \(10000 m²\)/);
+  });
+
+  it('keeps a photo taken a metre outside the boundary at the headland, and says so', () => {
+    const walk = wWalk();
+    const sightings = stopsCollection(walk, walk.map((_, i) => i % 3 === 0));
+    sightings.features.push({ type: 'Feature', properties: { id: 'headland', count: 1, walk: 'w1' }, geometry: { type: 'Point', coordinates: [1001, 500] } });
+    const result = analyse(squareField, sightings, { planar: true, simulations: 19 });
+    expect(result.excluded.count).toBe(0);
+    expect(result.stops.movedInside.ids).toEqual(['headland']);
+  });
+});
+
 describe('verdict rules', () => {
   it('calls a field where most stops hold the pest Everywhere, not a patch', () => {
     const walk = wWalk();
