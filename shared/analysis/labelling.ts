@@ -4,10 +4,7 @@ import { distanceToBoundary, type PlanarField } from './field-geometry.ts';
 import { globalRankEnvelope, type GlobalEnvelope } from './global-envelope.ts';
 import { monteCarloPValue } from './nearest-neighbour.ts';
 import { createRandom, deriveSeed, type Seed } from './random.ts';
-import { forEachPairWithin, type RipleyCorrection } from './ripley.ts';
-
-/** Isotropic edge weights above this are capped, as spatstat's Kest does by default (maxweight = 100). */
-export const MAX_EDGE_WEIGHT = 100;
+import { forEachPairWithin, MAX_EDGE_WEIGHT, type RipleyCorrection } from './ripley.ts';
 
 /** Stop pairs within the largest radius, with the bin of their distance and each side's edge weight. */
 export interface StopPairs {
