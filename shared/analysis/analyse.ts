@@ -13,6 +13,9 @@ import { abundanceZones, stopSurface, type ZoneBasis } from './abundance-zones.t
 import { bernoulliScan, type ScanResult } from './scan.ts';
 import { scoutedArea, type ScoutedArea } from './scouted.ts';
 import { intersection, polygonsArea } from './vector-buffer.ts';
+import { stopsQuadratTest, type StopsQuadratResult } from './stops-quadrat.ts';
+import { quadratGrid } from './quadrat.ts';
+import { cellAreasInsideField } from './cell-clipping.ts';
 import { readBoundary, readSightings } from './input.ts';
 import { runSimulations, type SimulationPlan } from './monte-carlo.ts';
 import { nearestNeighbourTest, type NearestNeighbourResult } from './nearest-neighbour.ts';
@@ -97,6 +100,8 @@ export interface AnalysisResult {
   randomLabelling: RandomLabellingResult | null;
   /** Where the stops speak for the crop, and the rest of the field: "not scouted", never clean. */
   scouted: ScoutedSummary | null;
+  /** Stops design: found stops against stops per quadrat cell (supporting evidence). */
+  stopsQuadrat: StopsQuadratResult | null;
   /** The most likely patch by the spatial scan statistic (stops design). */
   scan: ScanSummary | null;
   crs: string;
@@ -348,6 +353,15 @@ export function analyse(
       : null;
 
   const countsResult = timed('counts', () => countStatistics(prepared));
+  const stopsQuadrat =
+    prepared.design === 'stops' && n >= 1
+      ? timed('stopsQuadrat', () => {
+          const grid = quadratGrid(field, prepared.summary.count, area.boundaryM2, { cellSizeM: options.cellSizeM, grid: options.grid });
+          const inField = cellAreasInsideField(field, grid).filter((a) => a > 0).length;
+          const result = stopsQuadratTest(grid, prepared.stops, prepared.found, walkMembersOf(prepared.walkOf), { simulations: options.simulations, seed: `${options.seed}:stops-quadrat`, cellCount: inField });
+          return result && { ...result, grid: { ...result.grid, originX: result.grid.originX + originX, originY: result.grid.originY + originY } };
+        })
+      : null;
   const coverage = prepared.stops.length >= 4 ? timed('coverage', () => searchCoverage(field, prepared.stops, prepared.emptyStops, area.boundaryM2)) : null;
   const spread =
     prepared.design === 'stops'
@@ -358,7 +372,7 @@ export function analyse(
           minSightings: options.minSightings,
           everywhereShare: options.everywhereShare,
           labelling,
-          supporting: stopsSupportingEvidence(labelling, countsResult),
+          supporting: stopsSupportingEvidence(labelling, countsResult, stopsQuadrat),
         })
       : spreadVerdict({ n, alpha: options.alpha, minSightings: options.minSightings, nearestNeighbour, quadrat, ripley, coverage, areaM2: area.boundaryM2, perimeterM: area.perimeterM });
   const scouted = prepared.stops.length >= 4 ? timed('scouted', () => scoutedArea(field, prepared.stops)) : null;
@@ -380,6 +394,7 @@ export function analyse(
     randomLabelling: labelling,
     scouted: scouted && scoutedSummary(prepared, scouted),
     scan: scan && scanSummary(prepared, scan),
+    stopsQuadrat,
     crs: projection.crs,
     crsDefinition: projection.definition,
     excluded: { count: prepared.excluded.length, ids: prepared.excluded },
@@ -418,8 +433,16 @@ function labellingRipley(labelling: RandomLabellingResult): RipleyResult {
   };
 }
 
-function stopsSupportingEvidence(labelling: RandomLabellingResult | null, counts: CountsResult | null): Evidence[] {
+function stopsSupportingEvidence(labelling: RandomLabellingResult | null, counts: CountsResult | null, quadrat: StopsQuadratResult | null): Evidence[] {
   const evidence: Evidence[] = [];
+  if (quadrat) {
+    evidence.push({
+      role: 'supporting',
+      test: 'quadrat test of equal proportions over the stops',
+      pValue: quadrat.pValue,
+      text: `Found stops against stops per quadrat cell: χ² = ${quadrat.chiSquare.toFixed(1)} on ${quadrat.df} df, two-sided ${formatP(quadrat.pValue)} (${quadrat.pValueMethod === 'monte-carlo' ? 'relabellings, as expected counts are small' : 'χ² distribution'}); ${quadrat.notScoutedCells} cell${quadrat.notScoutedCells === 1 ? '' : 's'} without a stop are not scouted.`,
+    });
+  }
   const nn = labelling?.nearestNeighbour;
   if (nn) {
     evidence.push({

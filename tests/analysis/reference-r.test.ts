@@ -10,6 +10,8 @@ import { labelledK, stopPairs } from '../../shared/analysis/labelling.ts';
 import { meanNearestNeighbourDistance } from '../../shared/analysis/nearest-neighbour-index.ts';
 import { clarkEvans, donnellyCorrected } from '../../shared/analysis/nearest-neighbour.ts';
 import { ripleyK } from '../../shared/analysis/ripley.ts';
+import { quadratGrid } from '../../shared/analysis/quadrat.ts';
+import { stopsQuadratTest } from '../../shared/analysis/stops-quadrat.ts';
 
 const dir = new URL('../fixtures/analysis/reference-r/', import.meta.url);
 const read = (name: string) => JSON.parse(readFileSync(new URL(name, dir), 'utf8'));
@@ -70,6 +72,14 @@ for (const name of ['irregular-zigzag', 'square-w']) {
       expect(moran.I).toBeCloseTo(expected.moran.I, 10);
       expect(moran.expected).toBeCloseTo(expected.moran.expected, 12);
       expect(moran.variance).toBeCloseTo(expected.moran.variance, 10);
+    });
+
+    it("gives R's chisq.test of equal proportions of found stops over the quadrat cells", () => {
+      const grid = quadratGrid(field, m, area);
+      expect(grid.cellWidth).toBeCloseTo(expected.equalProportions.cellSideM, 9);
+      const result = stopsQuadratTest(grid, xy, found, [], { simulations: 0, seed: 1, cellCount: grid.cols * grid.rows });
+      expect(result?.chiSquare).toBeCloseTo(expected.equalProportions.chiSquare, 9);
+      expect(result?.df).toBe(expected.equalProportions.df);
     });
 
     it("gives spdep's Getis–Ord Gi* (localG with include.self, binary weights)", () => {
