@@ -57,6 +57,7 @@ function optionsFrom(values: Record<string, string | boolean | undefined>): Anal
   options.customAreaM2 = number('area', text('area'));
   if (options.customAreaM2 !== undefined && options.areaBasis === undefined) options.areaBasis = 'custom';
   options.minSightings = number('min-sightings', text('min-sightings'));
+  options.stopRadiusM = number('stop-radius', text('stop-radius'));
   for (const key of Object.keys(options) as (keyof AnalysisOptionsInput)[]) if (options[key] === undefined) delete options[key];
   return options;
 }
@@ -93,6 +94,7 @@ function main(): void {
         'area-basis': { type: 'string' },
         area: { type: 'string' },
         'min-sightings': { type: 'string' },
+        'stop-radius': { type: 'string' },
         pretty: { type: 'boolean' },
       },
       strict: true,

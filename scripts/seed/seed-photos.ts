@@ -195,7 +195,8 @@ export async function seedPhotos(ids: DemoIds) {
       }
     }
     if (run.key === 'patchy' && walkId) {
-      for (const stop of wWalkStops(random, 800, 500, 25).map((s) => toLonLat(f, s.x, s.y)).filter((p) => insideBoundary(f, p))) {
+      // Enough empty stops along the walk that the patches hold under half of all stops: a patchy field, not "everywhere".
+      for (const stop of wWalkStops(random, 800, 500, 90).map((s) => toLonLat(f, s.x, s.y)).filter((p) => insideBoundary(f, p))) {
         stops++;
         await recordEmptyStop(actor, walkId, { pestId: ids.pests[run.pest], ...stop, accuracyM: 4 + Math.round(random() * 30) / 10 });
       }

@@ -24,6 +24,11 @@ export class PatternCheck extends Model<InferAttributes<PatternCheck>, InferCrea
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare finishedAt: CreationOptional<Date | null>;
+  /** From the finished result: the design, the same-stop merges and the not-scouted part of the field. */
+  declare design: CreationOptional<'stops' | 'whole-field' | null>;
+  declare stopMerges: CreationOptional<unknown[] | null>;
+  declare notScouted: CreationOptional<{ type: 'MultiPolygon'; coordinates: number[][][][] } | null>;
+  declare notScoutedM2: CreationOptional<number | null>;
 }
 
 PatternCheck.init(
@@ -47,6 +52,10 @@ PatternCheck.init(
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
     finishedAt: { type: DataTypes.DATE, allowNull: true },
+    design: { type: DataTypes.TEXT, allowNull: true },
+    stopMerges: { type: DataTypes.JSONB, allowNull: true },
+    notScouted: { type: DataTypes.GEOMETRY('MULTIPOLYGON', 4326), allowNull: true },
+    notScoutedM2: { type: DataTypes.DOUBLE, allowNull: true },
   },
   { sequelize, tableName: 'pattern_checks' },
 );

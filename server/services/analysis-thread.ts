@@ -10,7 +10,7 @@ import { boundaryFromGeoJson, parseBoundaryText } from '../../shared/boundary/pa
 import { validateBoundary } from '../../shared/boundary/validate-boundary.ts';
 import { BoundaryError, type BoundaryFault } from '../../shared/boundary/boundary-faults.ts';
 import type { SensitivityRow } from '../../shared/schemas/checks.ts';
-import { oversizeMessage, splitResult } from './check-figures.ts';
+import { oversizeMessage, splitResult, type SplitResult } from './check-figures.ts';
 import { sensitivityRows } from './sensitivity-strip.ts';
 
 export type AnalysisTask =
@@ -20,7 +20,7 @@ export type AnalysisTask =
 
 export type AnalysisAnswer =
   | { kind: 'boundary'; boundary: MultiPolygon; areaM2: number }
-  | { kind: 'check'; figuresJson: string; densityGrid: Float64Array | null; figuresBytes: number }
+  | ({ kind: 'check' } & SplitResult)
   | { kind: 'sensitivity'; rows: SensitivityRow[] }
   | { kind: 'input-error'; message: string }
   | { kind: 'boundary-fault'; fault: BoundaryFault };

@@ -9,8 +9,28 @@ export const MAX_FIGURES_BYTES = 4 * 1024 * 1024;
 /** The density figures as stored and served: everything but the grid, which has a route of its own. */
 export type StoredDensity = Omit<DensityResult, 'perHa'>;
 
+/** What a finished check rests on, stored in columns beside its figures (migration 0009). */
+export interface DesignColumns {
+  design: AnalysisResult['design'];
+  stopMerges: AnalysisResult['stops']['merges'];
+  /** RFC 7946 MultiPolygon in longitude/latitude, or null when every part of the field was scouted. */
+  notScouted: string | null;
+  notScoutedM2: number | null;
+}
+
+export function designColumns(result: AnalysisResult): DesignColumns {
+  const notScouted = result.scouted?.notScouted;
+  return {
+    design: result.design,
+    stopMerges: result.stops.merges,
+    notScouted: notScouted && notScouted.coordinates.length ? JSON.stringify(notScouted) : null,
+    notScoutedM2: result.scouted ? result.scouted.notScoutedM2 : null,
+  };
+}
+
 export interface SplitResult {
   figuresJson: string;
+  design: DesignColumns;
   /** Row-major from the south, sightings per ha as the engine computed them (64-bit); NaN where the cell centre lies outside the field. */
   densityGrid: Float64Array | null;
   figuresBytes: number;
@@ -27,7 +47,7 @@ export function splitResult(result: AnalysisResult): SplitResult {
     storedDensity = rest;
   }
   const figuresJson = JSON.stringify({ ...result, density: storedDensity });
-  return { figuresJson, densityGrid, figuresBytes: Buffer.byteLength(figuresJson, 'utf8') };
+  return { figuresJson, design: designColumns(result), densityGrid, figuresBytes: Buffer.byteLength(figuresJson, 'utf8') };
 }
 
 /** The largest parts of the figures, for the sentence that says which option to change. */

@@ -19,6 +19,8 @@ export interface StoredSighting {
   lon: number;
   lat: number;
   count: number | null;
+  walkId?: string | null;
+  accuracyM?: number | null;
   /** UTC, microseconds, so an edit always changes the hash. */
   updatedAt: string;
 }
@@ -30,9 +32,9 @@ export interface SightingWindow {
   to?: string | null;
 }
 
-export type SightingProperties = { id: string; count?: number };
+export type SightingProperties = { id: string; count?: number; walk?: string; accuracyM?: number };
 
-const sightingColumns = `s.id, ST_X(s.position) AS lon, ST_Y(s.position) AS lat, s.count,
+const sightingColumns = `s.id, ST_X(s.position) AS lon, ST_Y(s.position) AS lat, s.count, s.walk_id AS "walkId", s.accuracy_m AS "accuracyM",
   to_char(s.updated_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"') AS "updatedAt"`;
 
 /** The placed, not-deleted sightings of a pest in a field whose walk falls in the window, empty stops included, by id. */
@@ -90,7 +92,13 @@ export function sightingsCollection(sightings: StoredSighting[]): FeatureCollect
       (s): Feature<Point, SightingProperties> => ({
         type: 'Feature',
         geometry: { type: 'Point', coordinates: [s.lon, s.lat] },
-        properties: s.count === null ? { id: s.id } : { id: s.id, count: s.count },
+        // Walk and GPS accuracy let the engine merge photos of one stop and keep each walk's stops apart.
+        properties: {
+          id: s.id,
+          ...(s.count === null ? {} : { count: s.count }),
+          ...(s.walkId ? { walk: s.walkId } : {}),
+          ...(s.accuracyM == null ? {} : { accuracyM: s.accuracyM }),
+        },
       }),
     ),
   };
@@ -167,9 +175,16 @@ async function storeResult(checkId: string, split: SplitResult) {
     } else {
       await sequelize.query('DELETE FROM pattern_check_density_grids WHERE check_id = :checkId', { replacements: { checkId }, transaction });
     }
+    const { design } = split;
     await sequelize.query(
-      `UPDATE pattern_checks SET status = 'done', progress = 1, result = CAST(:figures AS jsonb), error = NULL, finished_at = now(), updated_at = now() WHERE id = :checkId`,
-      { replacements: { checkId, figures: split.figuresJson }, transaction },
+      `UPDATE pattern_checks SET status = 'done', progress = 1, result = CAST(:figures AS jsonb), error = NULL, finished_at = now(), updated_at = now(),
+              design = :design, stop_merges = CAST(:stopMerges AS jsonb), not_scouted_m2 = :notScoutedM2,
+              not_scouted = CASE WHEN CAST(:notScouted AS text) IS NULL THEN NULL ELSE ST_Multi(ST_SetSRID(ST_GeomFromGeoJSON(CAST(:notScouted AS text)), 4326)) END
+        WHERE id = :checkId`,
+      {
+        replacements: { checkId, figures: split.figuresJson, design: design.design, stopMerges: JSON.stringify(design.stopMerges ?? []), notScoutedM2: design.notScoutedM2, notScouted: design.notScouted },
+        transaction,
+      },
     );
   });
 }

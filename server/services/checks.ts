@@ -41,6 +41,9 @@ function presentCheck(check: PatternCheck, people: Map<string, { id: string; nam
     progress: check.progress,
     // The stored JSONB is analyse()'s answer, exactly as it returned it.
     result: (check.result as AnalysisResult | null) ?? null,
+    design: check.design ?? null,
+    notScoutedM2: check.notScoutedM2 ?? null,
+    stopMerges: check.stopMerges ? check.stopMerges.length : null,
     error: check.error ?? null,
     createdBy: people.get(check.createdBy) ?? { id: check.createdBy, name: '' },
     createdAt: iso(check.createdAt)!,

@@ -46,7 +46,17 @@ async function findCheck(actor: Actor, checkId: string) {
 export async function proposeZones(actor: Actor, checkId: string, input: ZoneProposalRequest): Promise<ZoneProposalResponse['zones']> {
   const check = await findCheck(actor, checkId);
   if (check.status !== 'done' || !check.result) throw conflict('This check has not finished yet; propose zones once its result is in.');
-  const result = check.result as { density: (Omit<DensityResult, 'perHa'> & { perHa?: DensityResult['perHa'] }) | null; quadrat: QuadratResult | null; area: { boundaryM2: number } };
+  const result = check.result as {
+    density: (Omit<DensityResult, 'perHa'> & { perHa?: DensityResult['perHa'] }) | null;
+    quadrat: QuadratResult | null;
+    area: { boundaryM2: number };
+    design?: 'stops' | 'whole-field';
+    zones?: { features: Feature<Polygon, ProposedZoneProperties>[]; note: string };
+  };
+  // A stops-design check drew its zones from abundance among the stops, inside the scouted area: those are its proposal.
+  if (input.source === 'density' && result.design === 'stops' && result.zones && input.threshold === undefined && input.marginM === undefined && input.minZoneAreaM2 === undefined) {
+    return { type: 'FeatureCollection', features: result.zones.features, source: input.source, threshold: 0, marginM: DEFAULT_MARGIN_M, minZoneAreaM2: DEFAULT_MIN_ZONE_AREA_M2, note: result.zones.note };
+  }
   const boundary = await fieldBoundary(check.fieldId);
   const { projection, originX, originY, field } = planarFrame(boundary);
   const marginM = input.marginM ?? DEFAULT_MARGIN_M;

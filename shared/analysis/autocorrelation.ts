@@ -2,6 +2,7 @@
 import { normalTwoSided } from './distributions.ts';
 import { nearestNeighbourDistances } from './nearest-neighbour-index.ts';
 import { createRandom, type Seed } from './random.ts';
+import { neighbourOrder } from './labelling.ts';
 import { forEachPairWithin } from './ripley.ts';
 
 export interface Neighbours {
@@ -194,4 +195,72 @@ export function hotPatches(values: ArrayLike<number>, xy: Float64Array, nb: Neig
     patches.push({ members, meanCount: total / members.length, centroidX: cx / members.length, centroidY: cy / members.length });
   }
   return patches;
+}
+
+/**
+ * Neighbours at the stop-spacing scale: the band is the median distance to the third-nearest stop, and a stop with
+ * fewer than three stops in the band takes its three nearest (symmetrised), so one isolated stop does not widen the
+ * band for every stop (our rule; at least 3 neighbours is common practice for local statistics).
+ */
+export function stopSpacingNeighbours(xy: Float64Array, minNeighbours = 3): Neighbours {
+  const n = xy.length / 2;
+  if (n <= minNeighbours) return distanceBandNeighbours(xy);
+  const near = neighbourOrder(xy);
+  const k = Math.min(minNeighbours, near.width);
+  const third = Array.from({ length: n }, (_, i) => near.distance[i * near.width + k - 1]).sort((a, b) => a - b);
+  const band = third[Math.floor(n / 2)] * (1 + 1e-9);
+  const sets: Set<number>[] = Array.from({ length: n }, () => new Set<number>());
+  forEachPairWithin(xy, band, (i, j) => {
+    sets[i].add(j);
+    sets[j].add(i);
+  });
+  for (let i = 0; i < n; i++) {
+    for (let w = 0; sets[i].size < k && w < near.width; w++) {
+      const j = near.order[i * near.width + w];
+      sets[i].add(j);
+      sets[j].add(i);
+    }
+  }
+  const offsets = new Int32Array(n + 1);
+  for (let i = 0; i < n; i++) offsets[i + 1] = offsets[i] + sets[i].size;
+  const list = new Int32Array(offsets[n]);
+  sets.forEach((set, i) => list.set([...set].sort((a, b) => a - b), offsets[i]));
+  return { bandM: band, offsets, list, pairs: offsets[n] / 2 };
+}
+
+/**
+ * Conditional permutation p-values of local Gi* (Anselin 1995): each stop keeps its own value while its neighbours'
+ * values are drawn from the other stops; two-sided, p = (1 + permutations at least as far from the mean) / (P + 1).
+ */
+export function giStarPermutationP(values: ArrayLike<number>, nb: Neighbours, permutations: number, seed: Seed): Float64Array {
+  const n = values.length;
+  const p = new Float64Array(n).fill(NaN);
+  if (permutations <= 0 || n < 3) return p;
+  let total = 0;
+  for (let i = 0; i < n; i++) total += values[i];
+  const random = createRandom(seed);
+  const others = new Float64Array(n - 1);
+  for (let i = 0; i < n; i++) {
+    const w = nb.offsets[i + 1] - nb.offsets[i];
+    let observed = 0;
+    for (let q = nb.offsets[i]; q < nb.offsets[i + 1]; q++) observed += values[nb.list[q]];
+    const expected = (w * (total - values[i])) / (n - 1);
+    const gap = Math.abs(observed - expected) - 1e-9;
+    for (let j = 0, k = 0; j < n; j++) if (j !== i) others[k++] = values[j];
+    let extreme = 0;
+    for (let t = 0; t < permutations; t++) {
+      let sum = 0;
+      // Partial Fisher–Yates: the first w entries become a random draw without replacement.
+      for (let a = 0; a < w; a++) {
+        const b = a + Math.floor(random() * (n - 1 - a));
+        const x = others[a];
+        others[a] = others[b];
+        others[b] = x;
+        sum += others[a];
+      }
+      if (Math.abs(sum - expected) >= gap) extreme++;
+    }
+    p[i] = (1 + extreme) / (permutations + 1);
+  }
+  return p;
 }

@@ -167,3 +167,34 @@ export function fieldToCoordinates(field: PlanarField): number[][][][] {
     }),
   );
 }
+
+/**
+ * A point on or just outside the boundary moved onto it, a centimetre inside (interior lies left of each
+ * edge); null when it is farther out than the tolerance. Keeps headland photos that GPS error put outside.
+ */
+export function snapInsideField(field: PlanarField, x: number, y: number, toleranceM: number): [number, number] | null {
+  if (isInsideField(field, x, y)) return [x, y];
+  const edges = field.edges;
+  let best = Infinity;
+  let bestK = -1;
+  for (let k = 0; k < field.edgeCount * 4; k += 4) {
+    const d2 = squaredDistanceToEdge(edges, k, x, y);
+    if (d2 < best) {
+      best = d2;
+      bestK = k;
+    }
+  }
+  if (bestK < 0 || Math.sqrt(best) > toleranceM) return null;
+  const ax = edges[bestK];
+  const ay = edges[bestK + 1];
+  const dx = edges[bestK + 2] - ax;
+  const dy = edges[bestK + 3] - ay;
+  const len = Math.hypot(dx, dy) || 1;
+  const t = Math.min(1, Math.max(0, ((x - ax) * dx + (y - ay) * dy) / (len * len)));
+  for (const step of [0.01, 0.1, 0.5]) {
+    const px = ax + t * dx - (dy / len) * step;
+    const py = ay + t * dy + (dx / len) * step;
+    if (isInsideField(field, px, py)) return [px, py];
+  }
+  return null;
+}

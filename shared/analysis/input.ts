@@ -13,7 +13,12 @@ const pointFeature = z.object({
   id: z.union([z.string(), z.number()]).optional(),
   geometry: z.object({ type: z.literal('Point'), coordinates: position }),
   properties: z
-    .object({ count: z.number().finite().min(0).nullable().optional(), id: z.union([z.string(), z.number()]).optional() })
+    .object({
+      count: z.number().finite().min(0).nullable().optional(),
+      id: z.union([z.string(), z.number()]).optional(),
+      walk: z.union([z.string(), z.number()]).nullable().optional(),
+      accuracyM: z.number().finite().min(0).nullable().optional(),
+    })
     .passthrough()
     .nullable()
     .optional(),
@@ -26,6 +31,10 @@ export interface SightingInput {
   y: number;
   /** null when the sighting carries no number; 0 marks an empty stop. */
   count: number | null;
+  /** The walk the sighting was made on; sightings without one count as one walk. */
+  walk: string;
+  /** Stated GPS accuracy of the position in metres, when known. */
+  accuracyM: number | null;
 }
 
 /** Polygon rings from a Polygon, MultiPolygon, a Feature of one, or a FeatureCollection of such Features. */
@@ -62,11 +71,11 @@ export function readSightings(input: unknown): SightingInput[] {
     if (!parsed.success) {
       const issue = parsed.error.issues[0];
       const where = issue.path.join('.');
-      const reason = where.includes('count') ? 'its count must be a number of 0 or more' : 'it must be a Point Feature with [x, y] coordinates';
+      const reason = where.includes('count') ? 'its count must be a number of 0 or more' : where.includes('accuracyM') ? 'its accuracyM must be a number of metres, 0 or more' : where.includes('walk') ? 'its walk must be a text or a number' : 'it must be a Point Feature with [x, y] coordinates';
       throw new AnalysisInputError(`Sighting ${index + 1} is not usable: ${reason}.`);
     }
     const feature = parsed.data;
     const id = feature.properties?.id ?? feature.id ?? `#${index + 1}`;
-    return { id: String(id), x: feature.geometry.coordinates[0], y: feature.geometry.coordinates[1], count: feature.properties?.count ?? null };
+    return { id: String(id), x: feature.geometry.coordinates[0], y: feature.geometry.coordinates[1], count: feature.properties?.count ?? null, walk: String(feature.properties?.walk ?? ''), accuracyM: feature.properties?.accuracyM ?? null };
   });
 }

@@ -14,6 +14,10 @@ export const zoneOptionsSchema = z
     minZoneAreaM2: z.number().min(0, 'The smallest zone area cannot be negative.').max(10_000_000, 'The smallest zone area must be at most 1,000 ha.').default(500),
     /** Propose zones only when the verdict is clustered: spot treatment of an evenly spread pest is a miss. */
     onlyWhenClustered: z.boolean().default(true),
+    /** The pest's action threshold as a mean count per stop, in the pest's own unit; without it zones follow relative risk. */
+    actionThreshold: z.number().positive('The action threshold must be more than 0.').optional(),
+    /** The unit of counts and threshold, e.g. "aphids per plant", for the zone notes. */
+    unit: z.string().min(1).max(80).optional(),
   })
   .strict();
 
@@ -51,6 +55,12 @@ export const analysisOptionsSchema = z
     minSightings: z.number().int('The minimum number of sightings must be a whole number.').min(2, 'The minimum number of sightings must be at least 2.').max(100_000).default(10),
     /** Distance band for Moran's I and Gi*; default: the largest nearest-neighbour distance among the stops. */
     moranBandM: positiveMetres('The Moran distance band', 100_000).optional(),
+    /** Same-stop radius: sightings of one walk closer than this are one stop; 0 turns merging off; default max(5 m, stated GPS accuracy). */
+    stopRadiusM: z.number({ error: 'The same-stop radius must be a number of metres.' }).min(0, 'The same-stop radius cannot be negative.').max(200, 'The same-stop radius must be at most 200 m.').optional(),
+    /** Above this share of stops with the pest the verdict is "everywhere": a whole-field decision (our rule: most stops). */
+    everywhereShare: z.number().gt(0, 'The everywhere share must be more than 0.').max(1, 'The everywhere share must be at most 1.').default(0.5),
+    /** Sightings this far outside the boundary still count, moved onto it: GPS error at the headland (common practice: a few metres). */
+    boundaryToleranceM: z.number().min(0, 'The boundary tolerance cannot be negative.').max(50, 'The boundary tolerance must be at most 50 m.').default(5),
     zones: zoneOptionsSchema.default({ shareOfMax: 0.5, marginM: 10, minZoneAreaM2: 500, onlyWhenClustered: true }),
   })
   .strict()

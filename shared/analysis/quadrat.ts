@@ -41,7 +41,11 @@ export interface QuadratResult {
   n: number;
   chiSquare: number;
   df: number;
+  /** Two-sided: 2 · min(upper, lower tail) of χ² on df, so too even a spread is also a departure. */
   pValue: number;
+  pValueSides: 'two-sided';
+  /** The upper tail alone (clumping only). */
+  upperTailPValue: number;
   lowExpected: boolean;
   fullCells: number;
   meanPerFullCell: number;
@@ -165,7 +169,9 @@ export function quadratTest(field: PlanarField, xy: Float64Array, fieldAreaM2: n
     n: testN,
     chiSquare,
     df,
-    pValue: df > 0 ? chiSquareUpper(chiSquare, df) : NaN,
+    pValue: df > 0 ? Math.min(1, 2 * Math.min(chiSquareUpper(chiSquare, df), 1 - chiSquareUpper(chiSquare, df))) : NaN,
+    pValueSides: 'two-sided',
+    upperTailPValue: df > 0 ? chiSquareUpper(chiSquare, df) : NaN,
     lowExpected,
     ...aggregationFigures(fullCounts),
     slivers: { rule, sliverCells, merged: mergedCount, dropped, sightingsDropped },

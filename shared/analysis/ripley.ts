@@ -2,6 +2,9 @@
 import { circleShareInside, edgesWithin } from './edge-correction.ts';
 import { distanceToBoundary, type PlanarField } from './field-geometry.ts';
 
+/** Isotropic edge weights are capped at 100, as spatstat's Kest does by default (maxweight = 100). */
+export const MAX_EDGE_WEIGHT = 100;
+
 export type RipleyCorrection = 'isotropic' | 'border';
 
 export interface RipleyResult {
@@ -73,8 +76,8 @@ export function ripleyK(field: PlanarField, xy: Float64Array, radiiM: number[], 
           let bin = binOf[Math.min(lastBucket, Math.floor(d / bucketWidth))];
           while (radiiM[bin] < d) bin++;
           if (isotropic) {
-            const wi = d <= toBoundary[i] ? 1 : 1 / Math.max(shares ? tableShare(shares, toBoundary, i, d) : circleShareInside(field, x, y, d), 1e-6);
-            const wj = d <= toBoundary[j] ? 1 : 1 / Math.max(shares ? tableShare(shares, toBoundary, j, d) : circleShareInside(field, xy[j * 2], xy[j * 2 + 1], d), 1e-6);
+            const wi = d <= toBoundary[i] ? 1 : 1 / Math.max(shares ? tableShare(shares, toBoundary, i, d) : circleShareInside(field, x, y, d), 1 / MAX_EDGE_WEIGHT);
+            const wj = d <= toBoundary[j] ? 1 : 1 / Math.max(shares ? tableShare(shares, toBoundary, j, d) : circleShareInside(field, xy[j * 2], xy[j * 2 + 1], d), 1 / MAX_EDGE_WEIGHT);
             histogram[bin] += wi + wj;
           } else {
             if (bin <= lastEligible[i]) {

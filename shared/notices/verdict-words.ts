@@ -4,7 +4,15 @@ import { formatP, type SpreadVerdict as Spread } from '../analysis/spread.ts';
 interface StoredResult {
   n?: number;
   area?: { boundaryM2?: number };
-  spread?: { verdict?: Spread; alpha?: number; minSightings?: number; decidedBy?: 'monte-carlo' | 'donnelly' | null };
+  design?: 'stops' | 'whole-field';
+  spread?: {
+    verdict?: Spread;
+    alpha?: number;
+    minSightings?: number;
+    decidedBy?: 'random-labelling' | 'monte-carlo' | 'donnelly' | null;
+    headline?: string;
+    evidence?: Array<{ role: 'primary' | 'supporting'; text: string }>;
+  };
   nearestNeighbour?: {
     R: number;
     z: number;
@@ -24,6 +32,8 @@ const reading: Record<Spread, string> = {
   regular: 'Regular: sightings are spaced more evenly than chance would place them',
   random: 'Random: the spacing of the sightings is what chance alone would give',
   'too-few': 'Too few sightings to tell a pattern',
+  everywhere: 'Everywhere: the pest was found at most stops, a whole-field decision against the threshold',
+  'cant-tell': "Can't tell: the data cannot separate the walk from the pest",
 };
 
 export interface VerdictWords {
@@ -44,6 +54,15 @@ export function verdictInWords(result: unknown): VerdictWords {
   if (typeof r.n === 'number') figures.push(`${r.n} sighting${r.n === 1 ? '' : 's'} inside the field.`);
   if (verdict === 'too-few' || !nearest) {
     return { spread: verdict, headline: `${reading['too-few']} (a check needs at least ${r.spread.minSightings ?? 10} sightings).`, figures };
+  }
+  const primary = r.spread.evidence?.find((e) => e.role === 'primary');
+  if (r.design === 'stops' && r.spread.headline && primary) {
+    // Checks that state their design lead with their one primary test; Clark–Evans stays a value beside it.
+    figures.push(primary.text);
+    figures.push(`Clark–Evans R = ${nearest.R.toFixed(2)} (no edge correction; a value, not evidence).`);
+    if (typeof r.spread.alpha === 'number') figures.push(`Significance level α = ${r.spread.alpha}.`);
+    for (const warning of r.coverage?.warnings ?? []) figures.push(warning);
+    return { spread: verdict, headline: `${r.spread.headline}.`, figures };
   }
   const monteCarlo = r.spread.decidedBy === 'monte-carlo' && nearest.monteCarlo?.pValue != null;
   const p = monteCarlo ? (nearest.monteCarlo!.pValue as number) : (nearest.donnelly?.pValue ?? nearest.pValue);

@@ -59,6 +59,12 @@ export interface CheckView {
   progress: number;
   /** The engine's result, exactly as analyse() returned it. */
   result: AnalysisResult | null;
+  /** Stored beside the result: stops (empty stops recorded) or whole-field (photos only). */
+  design?: 'stops' | 'whole-field' | null;
+  /** Part of the field no stop speaks for, m². */
+  notScoutedM2?: number | null;
+  /** Sightings merged into one stop, one entry per merged stop. */
+  stopMerges?: number | null;
   error: string | null;
   createdBy: PersonRef;
   createdAt: string;

@@ -23,28 +23,31 @@ describe('analyse()', () => {
   const points: Array<[number, number, number | null]> = [];
   for (let i = 0; i < 30; i++) points.push([random() * 700, random() * 300, 1]);
   for (let i = 0; i < 50; i++) points.push([200 + 15 * normalDeviate(random), 150 + 15 * normalDeviate(random), 20]);
-  for (let i = 0; i < 20; i++) points.push([random() * 700, random() * 300, 0]);
+  for (let i = 0; i < 100; i++) points.push([random() * 700, random() * 300, 0]);
   points.push([-300, -300, 4]);
-  const result = analyse(BOUNDARY, sightings(points), { simulations: 99 });
+  // Merging off, so every generated point stays one stop and the counts below are the input's own.
+  const result = analyse(BOUNDARY, sightings(points), { simulations: 99, stopRadiusM: 0 });
 
   it('reports the projection, the boundary area (within 0.5 % of turf.area on the sphere) and the excluded sightings', () => {
     expect(result.crs).toBe('EPSG:32614');
     expect(Math.abs(result.area.boundaryM2 / turfArea(BOUNDARY) - 1)).toBeLessThan(0.005);
-    expect(result.excluded).toEqual({ count: 1, ids: ['s101'] });
-    expect(result.emptyStops).toBe(20);
+    expect(result.excluded).toEqual({ count: 1, ids: ['s181'] });
+    expect(result.emptyStops).toBe(100);
+    expect(result.design).toBe('stops');
     expect(result.n).toBe(80);
     expect(result.engineVersion).toBe(ENGINE_VERSION);
   });
 
   it('finds a patchy pest clustered, cites its figures and proposes a zone over the patch', () => {
     expect(result.spread.verdict).toBe('clustered');
-    expect(result.spread.reasons[0]).toContain(`R = ${result.nearestNeighbour?.donnelly.R.toFixed(2)}`);
+    expect(result.spread.reasons[0]).toContain('K_found − K_all stops');
+    expect(result.spread.reasons[0]).toContain(`${result.randomLabelling?.simulations} relabellings`);
     expect(result.zones.features.length).toBeGreaterThan(0);
     const zone = result.zones.features[0].properties;
     expect(zone.areaHa).toBeCloseTo(zone.areaM2 / 10_000, 12);
     expect(zone.areaAc).toBeCloseTo(zone.areaM2 / 4046.8564224, 12);
     expect(zone.sightings).toBeGreaterThan(25);
-    expect(result.counts?.moran.expected).toBeCloseTo(-1 / (100 - 1), 12);
+    expect(result.counts?.moran.expected).toBeCloseTo(-1 / (180 - 1), 12);
     expect(result.counts?.hotPatches.length).toBeGreaterThan(0);
   });
 
@@ -60,7 +63,7 @@ describe('analyse()', () => {
   });
 
   it('repeats every figure exactly for the same seed', () => {
-    const again = analyse(BOUNDARY, sightings(points), { simulations: 99 });
+    const again = analyse(BOUNDARY, sightings(points), { simulations: 99, stopRadiusM: 0 });
     expect({ ...again, timingsMs: {} }).toEqual({ ...result, timingsMs: {} });
   });
 });

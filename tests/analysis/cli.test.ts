@@ -31,6 +31,22 @@ describe('npm run analyze', () => {
     expect(result.crs).toBe('planar');
   });
 
+  it('merges photos of one spot into one stop, and keeps them apart with --stop-radius 0', () => {
+    const args = ['--boundary', fixture('lattice-field.geojson'), '--sightings', fixture('sightings-repeat-photos.geojson'), '--planar', '--simulations', '9', '--min-sightings', '2'];
+    const merged = JSON.parse(analyze(...args).stdout);
+    expect(merged.stops.count).toBe(6);
+    expect(merged.stops.merges).toHaveLength(6);
+    const apart = JSON.parse(analyze(...args, '--stop-radius', '0').stdout);
+    expect(apart.stops.count).toBe(12);
+    expect(apart.stops.merges).toHaveLength(0);
+  });
+
+  it('exits 2 with one clear sentence for a negative --stop-radius', () => {
+    const run = analyze('--boundary', fixture('lattice-field.geojson'), '--sightings', fixture('sightings-repeat-photos.geojson'), '--planar', '--stop-radius', '-1');
+    expect(run.status).toBe(2);
+    expectOneSentence(run.stderr, /same-stop radius/);
+  });
+
   it('reports sightings outside the boundary, leaves them out and says how many', () => {
     const run = analyze('--boundary', fixture('field.geojson'), '--sightings', fixture('sightings-one-outside.geojson'), '--simulations', '19');
     expect(run.status).toBe(0);

@@ -1,7 +1,16 @@
 // Spread figures are properties of the pattern, not of where or how it is drawn.
 import { describe, expect, it } from 'vitest';
 import { analyse } from '../../shared/analysis/analyse.ts';
+import { isInsideField } from '../../shared/analysis/field-geometry.ts';
 import { asFeatureCollection, irregularField, IRREGULAR_FIELD_RING, thomasPattern } from './patterns.ts';
+
+/** Empty stops on a 50 m lattice inside the field: the stops design needs them. */
+const EMPTY_STOPS = (() => {
+  const field = irregularField();
+  const out: number[] = [];
+  for (let x = 25; x < 760; x += 50) for (let y = 25; y < 500; y += 50) if (isInsideField(field, x, y)) out.push(x, y);
+  return new Float64Array(out);
+})();
 
 type Transform = (x: number, y: number) => [number, number];
 
@@ -9,7 +18,12 @@ function run(transform: Transform, xy: Float64Array, grid?: { nx: number; ny: nu
   const ring = IRREGULAR_FIELD_RING.map(([x, y]) => transform(x, y));
   const moved = new Float64Array(xy.length);
   for (let i = 0; i < xy.length; i += 2) [moved[i], moved[i + 1]] = transform(xy[i], xy[i + 1]);
-  return analyse({ type: 'Polygon', coordinates: [ring] }, asFeatureCollection(moved), { planar: true, simulations: 99, seed: 4, grid });
+  const empty = new Float64Array(EMPTY_STOPS.length);
+  for (let i = 0; i < EMPTY_STOPS.length; i += 2) [empty[i], empty[i + 1]] = transform(EMPTY_STOPS[i], EMPTY_STOPS[i + 1]);
+  const sightings = asFeatureCollection(moved, Array.from({ length: moved.length / 2 }, () => 1));
+  sightings.features.push(...asFeatureCollection(empty, Array.from({ length: empty.length / 2 }, () => 0)).features.map((f, i) => ({ ...f, properties: { ...f.properties, id: `e${i}` } })));
+  // Merging off: a fixed same-stop radius in metres is not scale-invariant.
+  return analyse({ type: 'Polygon', coordinates: [ring] }, sightings, { planar: true, simulations: 99, seed: 4, grid, stopRadiusM: 0 });
 }
 
 describe('invariance of the spread figures', () => {

@@ -32,7 +32,10 @@ describe('quadrat count test', () => {
     }
     expect(result.chiSquare).toBeCloseTo(chi, 9);
     expect(result.df).toBe(result.cells.length - 1);
-    expect(result.pValue).toBeCloseTo(chiSquareUpper(chi, result.df), 12);
+    const upper = chiSquareUpper(chi, result.df);
+    expect(result.upperTailPValue).toBeCloseTo(upper, 12);
+    expect(result.pValue).toBeCloseTo(Math.min(1, 2 * Math.min(upper, 1 - upper)), 12);
+    expect(result.pValueSides).toBe('two-sided');
   });
 
   it('merges slivers into a neighbour, keeps or drops them on request, and says which', () => {

@@ -18,7 +18,7 @@ function compare(points: number[][], ring: number[][]) {
   const sightings = featureCollection(points.map((c) => point(c)));
   // turf's type omits nearestNeighborIndex, which its result does carry.
   const turf = nearestNeighborAnalysis(sightings, { studyArea: boundary, units: 'meters' }).properties.nearestNeighborAnalysis as unknown as TurfFigures;
-  const ours = analyse(boundary, sightings, { simulations: 0 }).nearestNeighbour;
+  const ours = analyse(boundary, sightings, { simulations: 0, stopRadiusM: 0 }).nearestNeighbour;
   if (!ours) throw new Error('no nearest-neighbour result');
   return { turf, ours };
 }

@@ -24,9 +24,16 @@ function patchyStops(seed: number, perPatch = 20): StopPoint[] {
     [TEST_FIELD_CORNER.lon + TEST_FIELD_SIZE.lon * 0.25, TEST_FIELD_CORNER.lat + TEST_FIELD_SIZE.lat * 0.3],
     [TEST_FIELD_CORNER.lon + TEST_FIELD_SIZE.lon * 0.7, TEST_FIELD_CORNER.lat + TEST_FIELD_SIZE.lat * 0.7],
   ];
-  return centres.flatMap(([lon, lat]) =>
+  const patches = centres.flatMap(([lon, lat]) =>
     Array.from({ length: perPatch }, () => ({ lon: lon + (random() - 0.5) * 0.0003, lat: lat + (random() - 0.5) * 0.0002, count: 3 + Math.floor(random() * 6) })),
   );
+  // Empty stops on a 6 × 4 grid across the field: the walk recorded where it found nothing, so the check has a stops design.
+  const empty = Array.from({ length: 24 }, (_, k) => ({
+    lon: TEST_FIELD_CORNER.lon + TEST_FIELD_SIZE.lon * ((k % 6) + 0.5) / 6,
+    lat: TEST_FIELD_CORNER.lat + TEST_FIELD_SIZE.lat * (Math.floor(k / 6) + 0.5) / 4,
+    count: 0,
+  }));
+  return [...patches, ...empty];
 }
 
 function scatteredStops(seed: number, n: number): StopPoint[] {
@@ -39,14 +46,14 @@ function scatteredStops(seed: number, n: number): StopPoint[] {
 }
 
 /** The engine's inputs rebuilt from what the test inserted: sightings by id, as the server orders them. */
-function engineSightings(ids: string[], points: StopPoint[]) {
+function engineSightings(ids: string[], points: StopPoint[], walk: string) {
   const byId = ids.map((id, i) => ({ id, point: points[i] })).sort((a, b) => (a.id < b.id ? -1 : 1));
   return {
     type: 'FeatureCollection' as const,
     features: byId.map(({ id, point }) => ({
       type: 'Feature' as const,
       geometry: { type: 'Point' as const, coordinates: [point.lon, point.lat] },
-      properties: point.count === null ? { id } : { id, count: point.count },
+      properties: point.count === null ? { id, walk } : { id, count: point.count, walk },
     })),
   };
 }
@@ -72,7 +79,7 @@ afterAll(async () => {
 describe('running a pattern check', () => {
   it('stores exactly the figures the engine gives for the same sightings and options', async () => {
     const points = patchyStops(11);
-    const { field, pest, sightingIds } = await makeScoutedField(org, points);
+    const { field, pest, walkId, sightingIds } = await makeScoutedField(org, points);
     const options = { simulations: 199, seed: 7 };
     const res = await adviser.post('/api/checks', { fieldId: field.id, pestId: pest.id, options });
     expect(res.status).toBe(201);
@@ -83,12 +90,31 @@ describe('running a pattern check', () => {
     expect(check.createdBy).toEqual({ id: org.users.adviser.id, name: org.users.adviser.name });
     expect([...check.sightingIds]).toEqual([...sightingIds].sort());
     expect(check.options).toEqual(analysisOptionsSchema.parse(options));
-    expect(check.engineVersion).toBe(analyse(field.boundary, engineSightings(sightingIds, points), options).engineVersion);
+    expect(check.engineVersion).toBe(analyse(field.boundary, engineSightings(sightingIds, points, walkId), options).engineVersion);
 
     // No second computation: the page's figures are the engine's own, run here on the same inputs.
-    const reference = analyse(field.boundary, engineSightings(sightingIds, points), options);
+    const reference = analyse(field.boundary, engineSightings(sightingIds, points, walkId), options);
     expect(withoutTimings(await withDensityGrid(adviser, check))).toEqual(withoutTimings(reference));
     expect(check.result.spread.verdict).toBe('clustered');
+  });
+
+  it('stores the design, the same-stop merges and the not-scouted area with the check', async () => {
+    const points = patchyStops(13);
+    const { field, pest } = await makeScoutedField(org, points);
+    const { check } = (await adviser.post('/api/checks', { fieldId: field.id, pestId: pest.id, options: { simulations: 99 } }).expect(201)).body;
+    expect(check.design).toBe('stops');
+    expect(check.stopMerges).toBe(check.result.stops.merges.length);
+    const [row] = await sequelize.query<{ design: string; merges: number; notScoutedM2: number; area: number; srid: number }>(
+      `SELECT design, jsonb_array_length(stop_merges) AS merges, not_scouted_m2 AS "notScoutedM2",
+              ST_Area(not_scouted::geography) AS area, ST_SRID(not_scouted) AS srid
+         FROM pattern_checks WHERE id = :id`,
+      { replacements: { id: check.id }, type: QueryTypes.SELECT },
+    );
+    expect(row.design).toBe('stops');
+    expect(row.merges).toBe(check.result.stops.merges.length);
+    expect(row.srid).toBe(4326);
+    // PostGIS measures the stored polygon on the spheroid; the engine in UTM: within 1 %.
+    expect(Math.abs(row.area / row.notScoutedM2 - 1)).toBeLessThan(0.01);
   });
 
   it('answers a repeat with the stored check, same id and same result', async () => {
@@ -125,7 +151,7 @@ describe('running a pattern check', () => {
     expect(third.id).not.toBe(second.id);
     expect(third.sightingIds).toEqual(second.sightingIds);
     expect(third.sightingsHash).not.toBe(second.sightingsHash);
-    const reference = analyse(field.boundary, engineSightings([...sightingIds, newId], [{ ...points[0], count: 40 }, ...points.slice(1), added]), body.options);
+    const reference = analyse(field.boundary, engineSightings([...sightingIds, newId], [{ ...points[0], count: 40 }, ...points.slice(1), added], walkId), body.options);
     expect(withoutTimings(await withDensityGrid(adviser, third))).toEqual(withoutTimings(reference));
   });
 
@@ -192,7 +218,7 @@ describe('heavy checks', () => {
   it('runs as a background job that reaches done with progress, with the engine’s figures', async () => {
     await startWorkers();
     const points = patchyStops(51, 25);
-    const { field, pest, sightingIds } = await makeScoutedField(org, points);
+    const { field, pest, walkId, sightingIds } = await makeScoutedField(org, points);
     const options = { simulations: 9999, seed: 5 };
     expect(options.simulations * points.length).toBeGreaterThan(INLINE_WORK_LIMIT);
     const res = await adviser.post('/api/checks', { fieldId: field.id, pestId: pest.id, options });
@@ -215,7 +241,7 @@ describe('heavy checks', () => {
     expect(check.finishedAt).not.toBeNull();
 
     // Simulations ran on worker threads; the single-threaded engine gives the same figures.
-    const reference = analyse(field.boundary, engineSightings(sightingIds, points), options);
+    const reference = analyse(field.boundary, engineSightings(sightingIds, points, walkId), options);
     expect(withoutTimings(await withDensityGrid(adviser, check))).toEqual(withoutTimings(reference));
   });
 });
@@ -223,12 +249,12 @@ describe('heavy checks', () => {
 describe('sensitivity strip', () => {
   it('gives the engine’s verdict and figures at each cell size and area basis', async () => {
     const points = patchyStops(61);
-    const { field, pest, sightingIds } = await makeScoutedField(org, points);
+    const { field, pest, walkId, sightingIds } = await makeScoutedField(org, points);
     const res = await adviser.post('/api/checks/sensitivity', { fieldId: field.id, pestId: pest.id, options: { seed: 2 } });
     expect(res.status).toBe(200);
     expect(res.body.simulations).toBe(199);
     expect(res.body.rows).toHaveLength(9);
-    const sightings = engineSightings(sightingIds, points);
+    const sightings = engineSightings(sightingIds, points, walkId);
     const side = analyse(field.boundary, sightings, { seed: 2, simulations: 199 }).quadrat!.cellSizeM!;
     for (const row of res.body.rows) {
       const result = analyse(field.boundary, sightings, { seed: 2, simulations: 199, areaBasis: row.areaBasis, cellSizeM: side * row.cellSizeFactor });
@@ -301,9 +327,9 @@ describe('a field’s checks, threshold status and history', () => {
     const res = await adviser.get(`/api/fields/${field.id}/history?pestId=${pest.id}`).expect(200);
     expect(res.body.walks.map((w: { walkId: string }) => w.walkId)).toEqual([walkId, laterWalk]);
     const [first, second] = res.body.walks;
-    expect(first.pests[0]).toMatchObject({ pestId: pest.id, sightings: points.length, stops: points.length });
+    expect(first.pests[0]).toMatchObject({ pestId: pest.id, sightings: points.filter((p) => (p.count as number) > 0).length, stops: points.length });
     expect(first.pests[0].meanCount).toBeCloseTo(mean(points.map((p) => p.count as number)), 10);
-    expect(second.pests[0]).toMatchObject({ sightings: 12, stops: 17 });
+    expect(second.pests[0]).toMatchObject({ sightings: 12, stops: 12 + 24 + 5 });
     expect(second.pests[0].meanCount).toBeCloseTo(mean(later.map((p) => p.count as number)), 10);
     expect(res.body.checks.map((c: { id: string }) => c.id)).toEqual([check.id]);
   });

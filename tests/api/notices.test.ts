@@ -140,9 +140,10 @@ describe('zone notice e-mail', () => {
     const { text, html } = delivered.messages[0].mail[0];
     const result = scouted.check.result as { n: number; spread: { verdict: string }; nearestNeighbour: { R: number; z: number } };
     expect(result.spread.verdict).toBe('clustered');
-    expect(text).toMatch(/Clustered: sightings are closer together than chance would place them/);
-    expect(text).toContain(`Clark–Evans R = ${result.nearestNeighbour.R.toFixed(2)}`);
-    expect(text).toContain(`z = −${Math.abs(result.nearestNeighbour.z).toFixed(1)}`);
+    // The check has a stops design: the notice leads with its primary test, Clark–Evans stays a value.
+    expect(text).toMatch(/Clustered: the pest is more bunched than chance would bunch it among the stops made/);
+    expect(text).toContain('K_found − K_all stops');
+    expect(text).toContain(`Clark–Evans R = ${result.nearestNeighbour.R.toFixed(2)} (no edge correction`);
     expect(text).toContain(`${result.n} sightings inside the field`);
     expect(text).toMatch(/1 July 2026, 3 July 2026/);
     expect(html).toContain(`R = ${result.nearestNeighbour.R.toFixed(2)}`);

@@ -130,6 +130,11 @@ describe('field review in the browser', () => {
     await page.locator('[data-verdict]').waitFor({ timeout: 60_000 });
     expect(await page.locator('[data-verdict]').getAttribute('data-verdict')).toBe('clustered');
     await expect.poll(() => page.getByLabel('Spread: Clustered').count()).toBe(1);
+    // The design and the one primary test come first, in plain words; the rest of the field is drawn as not scouted.
+    expect(await page.locator('[data-design]').getAttribute('data-design')).toBe('stops');
+    expect(await page.locator('[data-primary-test]').textContent()).toMatch(/more bunched among the places the scout stopped.*relabellings/);
+    await expect.poll(() => page.getByLabel('Not scouted').isChecked()).toBe(true);
+    expect(await page.getByText(/Not scouted \([0-9.]+ ha/).count()).toBe(1);
 
     const boundaryResult = await storedCheck(page);
     const shownR = await figure(page, 'R').textContent();

@@ -8,16 +8,26 @@ import type { Client } from './http.ts';
 import type { TestOrganisation } from './org.ts';
 import { addSightings, makeField, makePest, makeWalk, TEST_FIELD_CORNER, TEST_FIELD_SIZE, type StopPoint } from './sightings.ts';
 
-/** Two tight patches of counted sightings in the invented field (clustered by construction). */
+/**
+ * Two tight patches of counted sightings in the invented field (clustered by construction), each followed by
+ * 24 empty stops on a grid over the field, so each of the two walks records where it found nothing.
+ */
 export function patchyStops(seed: number, perPatch = 18): StopPoint[] {
   const random = createRandom(seed);
   const centres = [
     [TEST_FIELD_CORNER.lon + TEST_FIELD_SIZE.lon * 0.25, TEST_FIELD_CORNER.lat + TEST_FIELD_SIZE.lat * 0.3],
     [TEST_FIELD_CORNER.lon + TEST_FIELD_SIZE.lon * 0.72, TEST_FIELD_CORNER.lat + TEST_FIELD_SIZE.lat * 0.7],
   ];
-  return centres.flatMap(([lon, lat]) =>
-    Array.from({ length: perPatch }, () => ({ lon: lon + (random() - 0.5) * 0.0004, lat: lat + (random() - 0.5) * 0.0003, count: 3 + Math.floor(random() * 6) })),
-  );
+  // Each walk's empty stops on a 6 × 4 grid over the whole field, the second walk's offset by a quarter cell.
+  const empty = (k: number, walk: number) => ({
+    lon: TEST_FIELD_CORNER.lon + (TEST_FIELD_SIZE.lon * ((k % 6) + 0.35 + 0.3 * walk)) / 6,
+    lat: TEST_FIELD_CORNER.lat + (TEST_FIELD_SIZE.lat * (Math.floor(k / 6) + 0.35 + 0.3 * walk)) / 4,
+    count: 0,
+  });
+  return centres.flatMap(([lon, lat], patch) => [
+    ...Array.from({ length: perPatch }, () => ({ lon: lon + (random() - 0.5) * 0.0004, lat: lat + (random() - 0.5) * 0.0003, count: 3 + Math.floor(random() * 6) })),
+    ...Array.from({ length: 24 }, (_, k) => empty(k, patch)),
+  ]);
 }
 
 export interface ScoutedCheck {

@@ -14,9 +14,9 @@ import { QuadratGridLayer } from './map/quadrat-grid-layer.tsx';
 import { DensityLayer, densityRamp } from './map/density-layer.tsx';
 import { SightingDetails } from './sighting-details.tsx';
 
-const { patch } = palette.theme.extend.colors;
-type LayerKey = 'sightings' | 'quadrat' | 'density' | 'zones';
-const layerLabels: Record<LayerKey, string> = { sightings: 'Sightings', quadrat: 'Quadrat grid', density: 'Density surface', zones: 'Proposed zones' };
+const { patch, soil } = palette.theme.extend.colors;
+type LayerKey = 'sightings' | 'quadrat' | 'density' | 'zones' | 'notScouted';
+const layerLabels: Record<LayerKey, string> = { sightings: 'Sightings', quadrat: 'Quadrat grid', density: 'Density surface', zones: 'Proposed zones', notScouted: 'Not scouted' };
 
 export function ReviewMap({ field, sightings, result, checkId, selectedId, onSelect }: {
   field: Field;
@@ -27,7 +27,7 @@ export function ReviewMap({ field, sightings, result, checkId, selectedId, onSel
   selectedId: string | null;
   onSelect: (id: string | null) => void;
 }) {
-  const [shown, setShown] = useState<Record<LayerKey, boolean>>({ sightings: true, quadrat: false, density: false, zones: true });
+  const [shown, setShown] = useState<Record<LayerKey, boolean>>({ sightings: true, quadrat: false, density: false, zones: true, notScouted: true });
   const toLonLat = useMemo(() => planarToLonLat(result?.crsDefinition ?? null), [result]);
   const selected = selectedId ? sightings.find((s) => s.id === selectedId && s.position) : undefined;
   const available: Record<LayerKey, boolean> = {
@@ -35,6 +35,7 @@ export function ReviewMap({ field, sightings, result, checkId, selectedId, onSel
     quadrat: Boolean(result?.quadrat && toLonLat),
     density: Boolean(result?.density && toLonLat),
     zones: Boolean(result?.zones.features.length),
+    notScouted: Boolean(result?.scouted?.notScouted.coordinates.length),
   };
 
   return (
@@ -58,6 +59,9 @@ export function ReviewMap({ field, sightings, result, checkId, selectedId, onSel
       <MapFrame boundaries={[{ id: field.id, geometry: field.boundary, label: field.name }]} label={`Map of ${field.name} with ${sightings.length} sightings`} className="h-[38rem]">
         {shown.density && result?.density && checkId && toLonLat && <DensityLayer checkId={checkId} density={result.density} toLonLat={toLonLat} />}
         {shown.quadrat && result?.quadrat && toLonLat && <QuadratGridLayer quadrat={result.quadrat} boundary={field.boundary} toLonLat={toLonLat} />}
+        {shown.notScouted && result?.scouted && result.scouted.notScouted.coordinates.length > 0 && (
+          <GeoJSON key={`not-scouted-${result.scouted.notScoutedM2}`} data={result.scouted.notScouted} style={{ color: soil[500], weight: 0.5, fillColor: soil[400], fillOpacity: 0.35 }} interactive={false} />
+        )}
         {shown.zones && result && result.zones.features.length > 0 && (
           <GeoJSON key={JSON.stringify(result.zones.features.map((f) => f.properties.areaM2))} data={result.zones} style={{ color: patch[700], weight: 2.5, dashArray: '6 4', fillColor: patch[400], fillOpacity: 0.18 }} />
         )}
@@ -91,6 +95,11 @@ function MapLegend({ result, shownDensity }: { result: AnalysisResult | null; sh
             ))}
           </span>
           {fixed(result.density.maxPerHa, 0)} sightings/ha ({result.density.kernel}, bandwidth {fixed(result.density.bandwidthM, 0)} m)
+        </span>
+      )}
+      {result?.scouted && result.scouted.notScouted.coordinates.length > 0 && (
+        <span className="inline-flex items-center gap-1.5">
+          <span className="inline-block h-3 w-5 bg-soil-400/40 ring-1 ring-soil-500" aria-hidden="true" /> Not scouted ({fixed(result.scouted.notScoutedM2 / 10_000, 1)} ha, {fixed(100 * (1 - result.scouted.scoutedShare), 0)} % of the field): no stop speaks for it, so it is not known to be clean
         </span>
       )}
       {result && result.zones.features.length > 0 && (

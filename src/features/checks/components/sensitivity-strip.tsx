@@ -13,7 +13,7 @@ const bases = [
   { key: 'hull', label: 'Convex hull' },
 ] as const;
 
-const verdictTone: Record<SpreadVerdict, string> = { clustered: 'bg-patch-100 text-patch-700', random: 'bg-field-50 text-field-800', regular: 'bg-straw-100 text-soil-800', 'too-few': 'bg-soil-300/30 text-soil-700' };
+const verdictTone: Record<SpreadVerdict, string> = { clustered: 'bg-patch-100 text-patch-700', random: 'bg-field-50 text-field-800', regular: 'bg-straw-100 text-soil-800', 'too-few': 'bg-soil-300/30 text-soil-700', everywhere: 'bg-patch-100 text-patch-700', 'cant-tell': 'bg-soil-300/30 text-soil-700' };
 
 function StripCell({ row }: { row: SensitivityRow | undefined }) {
   if (!row) return <td className="px-2 py-1.5 text-soil-400">—</td>;

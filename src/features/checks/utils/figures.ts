@@ -42,6 +42,8 @@ export const spreadLabels: Record<SpreadVerdict, string> = {
   random: 'Random',
   regular: 'Regular',
   'too-few': 'Too few sightings',
+  everywhere: 'Everywhere',
+  'cant-tell': "Can't tell",
 };
 
 export function dateTime(iso: string | null): string {
