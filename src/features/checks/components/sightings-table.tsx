@@ -32,7 +32,7 @@ const PAGE_SIZES = [25, 50, 100, 250];
 function Thumbnail({ sighting }: { sighting: SightingView }) {
   const [failed, setFailed] = useState(false);
   if (!sighting.photoId || sighting.thumbnailStatus !== 'ready' || failed) {
-    return <span className="flex h-9 w-9 items-center justify-center rounded bg-straw-100 text-[10px] text-soil-500 ring-1 ring-soil-300/60">{sighting.isEmptyStop ? 'stop' : sighting.thumbnailStatus === 'pending' ? '…' : '—'}</span>;
+    return <span className="flex h-9 w-9 items-center justify-center rounded bg-straw-100 text-[10px] text-soil-700 ring-1 ring-soil-300/60">{sighting.isEmptyStop ? 'stop' : sighting.thumbnailStatus === 'pending' ? '…' : '—'}</span>;
   }
   return (
     <a href={`/api/photos/${sighting.photoId}/original`} target="_blank" rel="noreferrer" aria-label={`Open the photo of ${sighting.pestName}`}>
