@@ -2,7 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { requireRole, actor } from '../middleware/access.ts';
 import { parse } from '../middleware/validate.ts';
-import { listGrowerNotices } from '../services/notices.ts';
+import { listGrowerNotices } from '../services/notice-reading.ts';
 import { acknowledgeGrowerNotice, growerNoticeMachineFile, growerNoticeMap, growerNoticePage } from '../services/grower-notices.ts';
 import { sendMachineFile } from './machine-file-response.ts';
 

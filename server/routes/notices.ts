@@ -3,7 +3,10 @@ import { z } from 'zod';
 import { requireRole, actor } from '../middleware/access.ts';
 import { parse } from '../middleware/validate.ts';
 import { noticeCreateSchema } from '../../shared/schemas/notices.ts';
-import { createNotice, getNotice, listNotices, noticeMaterial, revokeRecipient, sendNotice } from '../services/notices.ts';
+import { createNotice } from '../services/notice-drafts.ts';
+import { getNotice, listNotices } from '../services/notice-reading.ts';
+import { noticeMaterial } from '../services/notice-material.ts';
+import { revokeRecipient, sendNotice } from '../services/notice-sending.ts';
 import { composeNoticeMail, PREVIEW_LINK } from '../services/notice-mail.ts';
 import { renderNoticeMap } from '../services/notice-map.ts';
 

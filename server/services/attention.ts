@@ -5,7 +5,7 @@ import type { Actor } from '../auth/passport.ts';
 import { thresholdStatus } from '../../shared/thresholds/threshold-status.ts';
 import type { ThresholdBasis } from '../../shared/schemas/pests.ts';
 import type { AttentionField, AttentionResponse } from '../../shared/schemas/checks.ts';
-import { listUnacknowledgedNotices } from './notices.ts';
+import { listUnacknowledgedNotices } from './notice-reading.ts';
 
 interface LatestCheckRow {
   checkId: string;

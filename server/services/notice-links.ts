@@ -6,7 +6,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { sequelize } from '../db.ts';
 import { AppError } from '../errors.ts';
 import { Notice } from '../models/notice.ts';
-import { noticeMaterial } from './notices.ts';
+import { noticeMaterial } from './notice-material.ts';
 import { renderNoticeMap } from './notice-map.ts';
 import { cachedNoticeMap } from './notice-map-cache.ts';
 import { noticeMachineFilePaths } from './zone-files/zone-machine-files.ts';

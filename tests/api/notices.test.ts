@@ -16,7 +16,7 @@ import { startWorkers } from '../../server/jobs/workers.ts';
 import { stopQueue } from '../../server/jobs/queue.ts';
 import '../../server/jobs/all-workers.ts';
 import { closeSimulationPool } from '../../server/services/check-runner.ts';
-import { setNoticeRetryPolicy } from '../../server/services/notices.ts';
+import { setNoticeRetryPolicy } from '../../server/services/notice-sending.ts';
 import { deliverNoticeCopy } from '../../server/services/notice-mail.ts';
 import { NOTICE_CAUTIONS } from '../../shared/notices/cautions.ts';
 import { signedIn, testApp, type Client } from '../helpers/http.ts';
