@@ -1,6 +1,7 @@
-// What a notice shows (figures, zones, boundary, sightings, verdict words, cautions), gathered from live data.
+// What a notice shows (figures, zones, boundary, sightings, verdict words, cautions): gathered from live data for
+// a draft, and stored with the notice when it is sent (the snapshot), which is what everything reads afterwards.
 import { QueryTypes } from 'sequelize';
-import type { MultiPolygon, Position } from 'geojson';
+import type { MultiPolygon } from 'geojson';
 import { sequelize } from '../db.ts';
 import { Notice } from '../models/notice.ts';
 import { PatternCheck } from '../models/pattern-check.ts';
@@ -9,20 +10,21 @@ import { zoneSetInOrganisation } from './zones.ts';
 import { zonesGeoJson } from './zone-export.ts';
 import { NOTICE_CAUTIONS } from '../../shared/notices/cautions.ts';
 import { verdictInWords } from '../../shared/notices/verdict-words.ts';
-import type { NoticeContent } from '../../shared/schemas/notices.ts';
+import type { NoticeContent, NoticeMaterial } from '../../shared/schemas/notices.ts';
 
-export interface NoticeMaterial {
-  content: NoticeContent;
-  boundary: MultiPolygon;
-  zonesGeoJson: ReturnType<typeof zonesGeoJson>;
-  sightings: Position[];
-  zones: Array<{ label: string; geometry: MultiPolygon }>;
-}
+export type { NoticeMaterial };
 
-/** Everything a notice shows, gathered once for the e-mail, the preview and the notice page. */
+/** Everything a notice shows: its snapshot once sent, the live data while it is a draft. */
 export async function noticeMaterial(noticeId: string): Promise<NoticeMaterial> {
   const notice = await Notice.findByPk(noticeId);
   if (!notice) throw notFound('That notice');
+  // Notices sent before snapshots were stored have none; they keep reading live data.
+  return notice.material ?? liveNoticeMaterial(notice);
+}
+
+/** Everything a notice shows, gathered from the field, its sightings, the check and the zones as they are now. */
+export async function liveNoticeMaterial(notice: Notice): Promise<NoticeMaterial> {
+  const noticeId = notice.id;
   const [facts] = await sequelize.query<{ farm_name: string; field_name: string; field_area_m2: number; boundary: string; pest_name: string; author: string; organisation: string }>(
     `SELECT fa.name AS farm_name, f.name AS field_name, f.area_m2 AS field_area_m2, ST_AsGeoJSON(ST_ForcePolygonCCW(f.boundary), 9) AS boundary,
             p.name AS pest_name, u.name AS author, o.name AS organisation

@@ -92,9 +92,11 @@ async function noticeView(notice: Notice): Promise<NoticeView> {
 /** A grower's view: notices (sent ones only) on the farms linked to their account, with their own copy's state. */
 export async function listGrowerNotices(actor: Actor): Promise<GrowerNoticeSummary[]> {
   const rows = await sequelize.query<{ id: string; farm_name: string; field_name: string; pest_name: string; sent_at: Date | null; status: NoticeStatus; zone_count: number; treated_m2: number | null }>(
-    `SELECT n.id, fa.name AS farm_name, f.name AS field_name, p.name AS pest_name, n.sent_at, n.status,
-            (SELECT count(*) FROM zones z WHERE z.zone_set_id = n.zone_set_id)::int AS zone_count,
-            (SELECT ST_Area(ST_Union(z.geometry)::geography, true) FROM zones z WHERE z.zone_set_id = n.zone_set_id) AS treated_m2
+    // A sent notice's snapshot names what it said; notices sent before snapshots fall back to the live rows.
+    `SELECT n.id, COALESCE(n.material->'content'->>'farmName', fa.name) AS farm_name, COALESCE(n.material->'content'->>'fieldName', f.name) AS field_name,
+            COALESCE(n.material->'content'->>'pestName', p.name) AS pest_name, n.sent_at, n.status,
+            COALESCE(jsonb_array_length(n.material->'content'->'zones'), (SELECT count(*) FROM zones z WHERE z.zone_set_id = n.zone_set_id))::int AS zone_count,
+            COALESCE((n.material->'content'->>'totalTreatedM2')::float8, (SELECT ST_Area(ST_Union(z.geometry)::geography, true) FROM zones z WHERE z.zone_set_id = n.zone_set_id)) AS treated_m2
        FROM notices n JOIN fields f ON f.id = n.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = n.pest_id
        JOIN farm_growers g ON g.farm_id = fa.id AND g.user_id = :userId
       WHERE n.organisation_id = :org AND n.status <> 'draft' ORDER BY n.sent_at DESC`,

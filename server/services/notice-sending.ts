@@ -11,6 +11,7 @@ import { badRequest, conflict, notFound } from '../errors.ts';
 import { queue } from '../jobs/queue.ts';
 import { recordAudit } from './audit.ts';
 import { findNotice, getNotice } from './notice-reading.ts';
+import { liveNoticeMaterial } from './notice-material.ts';
 import type { NoticeStatus, DeliveryStatus } from '../../shared/schemas/notices.ts';
 
 export const NOTICE_QUEUE = 'notice-copy';
@@ -34,8 +35,10 @@ export async function sendNotice(actor: Actor, id: string) {
   const notice = await findNotice(actor, id);
   if (notice.status === 'sent') throw conflict('This notice has already gone to every grower contact.');
   if (notice.status === 'sending') throw conflict('This notice is being sent; its status updates as each copy goes out.');
+  // A draft's material becomes the notice's snapshot: what every copy, page and map shows from now on.
+  const snapshot = notice.status === 'draft' ? await liveNoticeMaterial(notice) : null;
   const toQueue = await sequelize.transaction(async (transaction) => {
-    if (notice.status === 'draft') {
+    if (snapshot) {
       const contacts = await sequelize.query<{ name: string; email: string }>(
         `SELECT c.name, c.email FROM farm_contacts c JOIN fields f ON f.farm_id = c.farm_id WHERE f.id = :fieldId ORDER BY c.name`,
         { replacements: { fieldId: notice.fieldId }, type: QueryTypes.SELECT, transaction },
@@ -47,7 +50,7 @@ export async function sendNotice(actor: Actor, id: string) {
         await NoticeRecipient.create({ id: recipientId, noticeId: notice.id, contactName: contact.name, email: contact.email, messageId: messageIdFor(notice.id, recipientId) }, { transaction });
         ids.push(recipientId);
       }
-      await notice.update({ status: 'sending', sentAt: new Date() }, { transaction });
+      await notice.update({ status: 'sending', sentAt: new Date(), material: snapshot }, { transaction });
       await recordAudit(actor, 'send', 'notice', notice.id, { recipients: contacts.length }, transaction);
       return ids;
     }

@@ -1,7 +1,7 @@
 // The zone-notice API's contract: requests (zod) and the answers' types, for the adviser, grower and notice page.
 import { z } from 'zod';
 import { calendarDateSchema } from './calendar-date.ts';
-import type { FeatureCollection, MultiPolygon } from 'geojson';
+import type { FeatureCollection, MultiPolygon, Position } from 'geojson';
 
 export const noticeStatuses = ['draft', 'sending', 'sent', 'partly-failed'] as const;
 export type NoticeStatus = (typeof noticeStatuses)[number];
@@ -98,6 +98,17 @@ export interface NoticeContent {
   adviserName: string;
   organisationName: string;
   cautions: readonly string[];
+}
+
+/** What a notice shows, as stored with it when it is sent (the snapshot) or gathered live for a draft. */
+export interface NoticeMaterial {
+  content: NoticeContent;
+  boundary: MultiPolygon;
+  /** RFC 7946 FeatureCollection; each feature's properties hold its zone-table row. */
+  zonesGeoJson: FeatureCollection<MultiPolygon, NoticeZoneRow>;
+  /** [longitude, latitude] of each sighting with the pest found, for the map. */
+  sightings: Position[];
+  zones: Array<{ label: string; geometry: MultiPolygon }>;
 }
 
 export interface NoticeLinkResponse {

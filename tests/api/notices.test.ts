@@ -423,3 +423,52 @@ describe('notice access and follow-up', () => {
     expect(theirs.body.unacknowledgedNotices.map((n: { noticeId: string }) => n.noticeId)).not.toContain(unread.id);
   });
 });
+
+describe('a sent notice is a snapshot', () => {
+  it('shows on its page, its map and a retried e-mail what was sent, after the field, its sightings and zones change', async () => {
+    const later = await makeCheckedField(org, adviser, { seed: 7 });
+    const laterZones = await acceptProposedZones(adviser, later);
+    await addContacts(later.field.farmId, [{ name: 'Bea Headland', email: `bea-${org.id.slice(0, 8)}@farm.example` }]);
+    const notice = (await adviser.post('/api/notices', { fieldId: later.field.id, zoneSetId: laterZones.id, recommendation: 'Spot-spray both zones this week.' }).expect(201)).body.notice;
+    await adviser.post(`/api/notices/${notice.id}/send`).expect(202);
+    const view = await waitFor('the copy accepted', async () => {
+      const v = await getNotice(notice.id);
+      return v.status === 'sent' ? v : null;
+    });
+    const recipient = view.recipients[0];
+    const [sentMail] = await mailTo(recipient.email);
+    const token = tokenIn(sentMail);
+    const pageAsSent = (await publicGet(`/api/notice-links/${token}`).expect(200)).body.notice;
+    const mapAsSent = (await adviser.get(`/api/notices/${notice.id}/map.png`).buffer(true).expect(200)).body as Buffer;
+
+    // The field grows, every sighting behind the check is deleted, one zone is reshaped and the other removed.
+    await sequelize.query('UPDATE fields SET boundary = ST_Multi(ST_Expand(boundary, 0.002)) WHERE id = :id', { replacements: { id: later.field.id } });
+    await sequelize.query('UPDATE sightings SET deleted_at = now() WHERE id = ANY(CAST(:ids AS uuid[]))', { replacements: { ids: `{${later.sightingIds.join(',')}}` } });
+    const [first, ...rest] = laterZones.zones;
+    await sequelize.query("UPDATE zones SET geometry = ST_Multi(ST_Buffer(geometry, 0.0003)), label = 'Reshaped' WHERE id = :id", { replacements: { id: first.id } });
+    if (rest.length) await sequelize.query('DELETE FROM zones WHERE id = ANY(CAST(:ids AS uuid[]))', { replacements: { ids: `{${rest.map((z) => z.id).join(',')}}` } });
+    const [field] = await sequelize.query<{ area_m2: number }>('SELECT area_m2 FROM fields WHERE id = :id', { replacements: { id: later.field.id }, type: QueryTypes.SELECT });
+    expect(field.area_m2).toBeGreaterThan(pageAsSent.fieldAreaM2 * 1.5);
+
+    const pageNow = (await publicGet(`/api/notice-links/${token}`).expect(200)).body.notice;
+    expect(pageNow).toEqual(pageAsSent);
+    expect(pageNow.walkDates).toEqual(['2026-07-01', '2026-07-03']);
+    expect(pageNow.zones.map((z: { label: string }) => z.label)).toEqual(laterZones.zones.map((z) => z.label));
+    const mapNow = (await adviser.get(`/api/notices/${notice.id}/map.png`).buffer(true).expect(200)).body as Buffer;
+    expect(mapNow.equals(mapAsSent)).toBe(true);
+
+    // A retry composes from the snapshot too: the field's area and zone table as they were sent.
+    await sequelize.query("UPDATE notice_recipients SET status = 'failed', smtp_accepted_at = NULL, last_error = 'retried by the test' WHERE id = :id", { replacements: { id: recipient.id } });
+    expect(await deliverNoticeCopy(recipient.id)).toBe('sent');
+    const retried = (await mailTo(recipient.email)).at(-1)!;
+    expect(retried.text).toContain(`(${(pageAsSent.fieldAreaM2 / 10_000).toFixed(2)} ha,`);
+    for (const zone of laterZones.zones) expect(retried.text).toContain(`${zone.label}: ${(zone.areaM2 / 10_000).toFixed(2)} ha`);
+    expect(retried.text).not.toContain('Reshaped');
+
+    // A draft written now reads the field as it is.
+    const draft = (await adviser.post('/api/notices', { fieldId: later.field.id, zoneSetId: laterZones.id, recommendation: 'Spot-spray the reshaped zone.' }).expect(201)).body.notice;
+    const preview = (await adviser.get(`/api/notices/${draft.id}/preview`).expect(200)).body;
+    expect(preview.text).toContain(`(${(field.area_m2 / 10_000).toFixed(2)} ha,`);
+    expect(preview.text).toContain('Reshaped: ');
+  });
+});
