@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { requireRole, actor } from '../middleware/access.ts';
 import { parse } from '../middleware/validate.ts';
 import { listGrowerNotices } from '../services/notice-reading.ts';
-import { acknowledgeGrowerNotice, growerNoticeMachineFile, growerNoticeMap, growerNoticePage } from '../services/grower-notices.ts';
+import { acknowledgeGrowerNotice, growerNoticeMachineFile, growerNoticeMap, growerNoticePage, openGrowerNotice } from '../services/grower-notices.ts';
 import { sendMachineFile } from './machine-file-response.ts';
 
 /** What a signed-in grower sees of the notices: those for their own farms, with their own copy's state. */
@@ -34,4 +34,8 @@ growerRouter.get('/notices/:id/zones.shp.zip', async (req, res) => {
 
 growerRouter.post('/notices/:id/acknowledge', async (req, res) => {
   res.json(await acknowledgeGrowerNotice(actor(req), parse(idParam, req.params).id));
+});
+
+growerRouter.post('/notices/:id/opened', async (req, res) => {
+  res.json(await openGrowerNotice(actor(req), parse(idParam, req.params).id));
 });

@@ -2,7 +2,7 @@ import { Router } from 'express';
 import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
 import { z } from 'zod';
 import { AppError } from '../errors.ts';
-import { acknowledge, linkRefused, mapForLink, noticeForLink, resolveNoticeToken } from '../services/notice-links.ts';
+import { acknowledge, linkRefused, mapForLink, markOpened, noticeForLink, resolveNoticeToken } from '../services/notice-links.ts';
 import { noticeMachineFile } from '../services/zone-files/zone-machine-files.ts';
 import { sendMachineFile } from './machine-file-response.ts';
 
@@ -30,6 +30,13 @@ const token = (params: unknown) => {
 
 noticeLinksRouter.get('/:token', async (req, res) => {
   res.json({ notice: await noticeForLink(token(req.params)) });
+});
+
+// The page reports that it was opened (not the GET: mail scanners and previews fetch links by themselves).
+noticeLinksRouter.post('/:token/opened', async (req, res) => {
+  const copy = await resolveNoticeToken(token(req.params));
+  const { openedAt, alreadyOpened } = await markOpened(copy.recipientId);
+  res.json({ openedAt: openedAt.toISOString(), alreadyOpened });
 });
 
 noticeLinksRouter.post('/:token/acknowledge', async (req, res) => {

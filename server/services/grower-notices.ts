@@ -7,7 +7,7 @@ import { AppError, notFound } from '../errors.ts';
 import { NoticeRecipient } from '../models/notice-recipient.ts';
 import { acknowledge, markOpened, noticeMapImage, noticePageContent } from './notice-links.ts';
 import { noticeMachineFile, type MachineFileKind } from './zone-files/zone-machine-files.ts';
-import type { AcknowledgeResponse, NoticeLinkResponse } from '../../shared/schemas/notices.ts';
+import type { AcknowledgeResponse, NoticeLinkResponse, OpenedResponse } from '../../shared/schemas/notices.ts';
 
 /** The sent notice, when it is about a farm linked to this grower; any other id (another farm, another organisation, a draft) is not found. */
 async function findGrowerNotice(actor: Actor, noticeId: string) {
@@ -22,10 +22,9 @@ async function findGrowerNotice(actor: Actor, noticeId: string) {
   return { noticeId: row.id, copy };
 }
 
-/** The notice page's content for the grower; opening it counts as opening their own copy, when they have one. */
+/** The notice page's content for the grower; reading it changes nothing (the page reports its opening itself). */
 export async function growerNoticePage(actor: Actor, noticeId: string): Promise<NoticeLinkResponse['notice']> {
   const { copy } = await findGrowerNotice(actor, noticeId);
-  if (copy) await markOpened(copy.id);
   return noticePageContent(
     noticeId,
     { name: copy?.contactName ?? actor.name, acknowledgedAt: copy?.acknowledgedAt ?? null },
@@ -42,6 +41,14 @@ export async function growerNoticeMap(actor: Actor, noticeId: string): Promise<B
 export async function growerNoticeMachineFile(actor: Actor, noticeId: string, kind: MachineFileKind) {
   await findGrowerNotice(actor, noticeId);
   return noticeMachineFile(noticeId, kind);
+}
+
+/** Records that the grower opened their own copy (the first time only); a grower who holds no copy has nothing to record. */
+export async function openGrowerNotice(actor: Actor, noticeId: string): Promise<OpenedResponse> {
+  const { copy } = await findGrowerNotice(actor, noticeId);
+  if (!copy) return { openedAt: null, alreadyOpened: false };
+  const { openedAt, alreadyOpened } = await markOpened(copy.id);
+  return { openedAt: openedAt.toISOString(), alreadyOpened };
 }
 
 /** Acknowledges the grower's own copy (once; a second time answers with the first time). */

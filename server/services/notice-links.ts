@@ -54,9 +54,15 @@ export async function resolveNoticeToken(token: string): Promise<LinkedCopy> {
   return { recipientId: row.id, noticeId: row.notice_id, contactName: row.contact_name, openedAt: row.opened_at, acknowledgedAt: row.acknowledged_at };
 }
 
-/** Records the first opening of the notice page; later openings change nothing. */
-export async function markOpened(recipientId: string) {
-  await sequelize.query(`UPDATE notice_recipients SET opened_at = now(), updated_at = now() WHERE id = :id AND opened_at IS NULL`, { replacements: { id: recipientId } });
+/** Records the first opening of the notice page; later openings change nothing and answer with the first one's time. */
+export async function markOpened(recipientId: string): Promise<{ openedAt: Date; alreadyOpened: boolean }> {
+  const updated = await sequelize.query<{ opened_at: Date }>(
+    `UPDATE notice_recipients SET opened_at = now(), updated_at = now() WHERE id = :id AND opened_at IS NULL RETURNING opened_at`,
+    { replacements: { id: recipientId }, type: QueryTypes.SELECT },
+  );
+  if (updated.length) return { openedAt: updated[0].opened_at, alreadyOpened: false };
+  const [row] = await sequelize.query<{ opened_at: Date }>('SELECT opened_at FROM notice_recipients WHERE id = :id', { replacements: { id: recipientId }, type: QueryTypes.SELECT });
+  return { openedAt: row.opened_at, alreadyOpened: true };
 }
 
 /** Records the acknowledgement once; a second one answers with the first one's time. */
@@ -88,10 +94,9 @@ export async function noticePageContent(noticeId: string, reader: { name: string
   };
 }
 
-/** What the notice page shows for a token, marking the first opening. */
+/** What the notice page shows for a token; reading it changes nothing (the page reports its opening itself). */
 export async function noticeForLink(token: string): Promise<NoticeLinkResponse['notice']> {
   const copy = await resolveNoticeToken(token);
-  await markOpened(copy.recipientId);
   return noticePageContent(copy.noticeId, { name: copy.contactName, acknowledgedAt: copy.acknowledgedAt }, `/api/notice-links/${token}`);
 }
 

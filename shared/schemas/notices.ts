@@ -124,6 +124,11 @@ export interface NoticeLinkResponse {
     zoneFiles: { taskData: string; shapefile: string };
   };
 }
+/** The page's report that it was opened: the copy's first opening (null when the reader holds no copy). */
+export interface OpenedResponse {
+  openedAt: string | null;
+  alreadyOpened: boolean;
+}
 export interface AcknowledgeResponse {
   acknowledgedAt: string;
   alreadyAcknowledged: boolean;

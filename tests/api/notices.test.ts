@@ -209,7 +209,7 @@ describe('zone notice e-mail', () => {
     expect(near(centre, [0xfb, 0xf8, 0xf0], 3)).toBe(false);
   });
 
-  it('links to a notice page that opens without sign-in and records the opening', async () => {
+  it('links to a notice page that opens without sign-in; the page, not the GET, records the opening', async () => {
     const { mail, recipient } = delivered.messages[0];
     const token = tokenIn(mail[0]);
     expect(mail[0].text).toContain(`${config.publicUrl}/n/${token}`);
@@ -223,8 +223,13 @@ describe('zone notice e-mail', () => {
     const png = await publicGet(page.body.notice.mapPath).expect(200);
     expect(png.headers['content-type']).toBe('image/png');
     expect((await Jimp.read(png.body)).bitmap.width).toBeGreaterThan(200);
-    const view = await getNotice(delivered.notice.id);
-    expect(view.recipients.find((r: { id: string }) => r.id === recipient.id).state).toBe('opened');
+    const stateOf = async () => (await getNotice(delivered.notice.id)).recipients.find((r: { id: string }) => r.id === recipient.id);
+    expect(await stateOf()).toMatchObject({ state: 'sent', openedAt: null });
+    const opened = await publicPost(`/api/notice-links/${token}/opened`).expect(200);
+    expect(opened.body.alreadyOpened).toBe(false);
+    const again = await publicPost(`/api/notice-links/${token}/opened`).expect(200);
+    expect(again.body).toEqual({ openedAt: opened.body.openedAt, alreadyOpened: true });
+    expect(await stateOf()).toMatchObject({ state: 'opened', openedAt: opened.body.openedAt });
   });
 
   it('takes an acknowledgement without a session or CSRF token, and a second one changes nothing', async () => {
@@ -308,6 +313,7 @@ describe('notice links', () => {
     expect(res.status).toBe(404);
     expect(res.body.error.message).toMatch(/^This notice link is not valid: .+\.$/);
     expect((await publicPost(`/api/notice-links/${token}/acknowledge`)).status).toBe(404);
+    expect((await publicPost(`/api/notice-links/${token}/opened`)).status).toBe(404);
   };
 
   it('refuses a tampered token', async () => {

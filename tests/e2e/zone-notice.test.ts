@@ -139,6 +139,9 @@ describe('zone notice in the browser', () => {
     await growerPage.getByRole('heading', { level: 1, name: /on Long meadow/ }).waitFor();
     for (const caution of NOTICE_CAUTIONS) await growerPage.getByText(caution).waitFor();
     await growerPage.getByText(/Spot-treat zones 1 and 2 only/).waitFor();
+    // The page reports its own opening once it has loaded (the GET records nothing): the adviser sees "opened".
+    await adviserPage.reload();
+    await state.getByText('opened', { exact: true }).waitFor();
 
     // The zone table's hectares match turf's area of the GeoJSON attachment (turf 7 `area`, spherical; the
     // server measures on the ellipsoid, so the two agree to well under 1 %).

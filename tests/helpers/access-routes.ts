@@ -129,6 +129,7 @@ export const scoutingRoutes: AccessRow[] = [
   row('GET', '/api/notice-links/{noticeToken}/zones.taskdata.zip', everyone(200)),
   row('GET', '/api/notice-links/{noticeToken}/zones.shp.zip', everyone(200)),
   row('POST', '/api/notice-links/{noticeToken}/acknowledge', everyone(200)),
+  row('POST', '/api/notice-links/{noticeToken}/opened', everyone(200), undefined, 'the page reports its opening; the token is the credential'),
   row('GET', '/api/notice-links/{recipient}.not-the-secret', everyone(404)),
 
   row('GET', '/api/grower/notices', growerOnly(200)),
@@ -136,5 +137,6 @@ export const scoutingRoutes: AccessRow[] = [
   row('GET', '/api/grower/notices/{notice}/map.png', growerOnly(200)),
   row('GET', '/api/grower/notices/{notice}/zones.taskdata.zip', growerOnly(200)),
   row('GET', '/api/grower/notices/{notice}/zones.shp.zip', growerOnly(200)),
+  row('POST', '/api/grower/notices/{notice}/opened', growerOnly(200), undefined, "the grower holds no copy of it, so nothing is recorded"),
   row('POST', '/api/grower/notices/{notice}/acknowledge', growerOnly(409), undefined, "the grower's address is not among the notice's copies, so there is no copy of theirs to acknowledge"),
 ];
