@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import { calendarDateSchema } from './calendar-date.ts';
 import type { FeatureCollection, MultiPolygon, Position } from 'geojson';
+import type { NoticeQuestionView } from './notice-questions.ts';
 
 export const noticeStatuses = ['draft', 'sending', 'sent', 'partly-failed'] as const;
 export type NoticeStatus = (typeof noticeStatuses)[number];
@@ -122,6 +123,8 @@ export interface NoticeLinkResponse {
     mapPath: string;
     /** Sprayer-ready files of the zones: ISO 11783-10 task data and a shapefile, each zipped. */
     zoneFiles: { taskData: string; shapefile: string };
+    /** The questions this reader asked on the notice, with the adviser's answers. */
+    questions: NoticeQuestionView[];
   };
 }
 /** The page's report that it was opened: the copy's first opening (null when the reader holds no copy). */
