@@ -9,11 +9,13 @@ import { errorMessage } from '../../../lib/form-errors.ts';
 import { useAcknowledgeGrowerNotice } from '../api/acknowledge-grower-notice.ts';
 import { useGrowerNotice } from '../api/get-grower-notice.ts';
 import { useReportGrowerNoticeOpened } from '../api/report-grower-notice-opened.ts';
+import { useAskGrowerNoticeQuestion } from '../api/ask-grower-notice-question.ts';
 
 export function GrowerNoticePage() {
   const { noticeId = '' } = useParams();
   const notice = useGrowerNotice(noticeId);
   const acknowledge = useAcknowledgeGrowerNotice(noticeId);
+  const ask = useAskGrowerNoticeQuestion(noticeId);
   const { mutate: reportOpened } = useReportGrowerNoticeOpened(noticeId);
   // Once per visit, when the notice has loaded (the ref keeps React's doubled effects to one report).
   const reported = useRef(false);
@@ -30,6 +32,7 @@ export function GrowerNoticePage() {
       <NoticeView
         notice={notice.data}
         acknowledge={{ onAcknowledge: () => acknowledge.mutate(), busy: acknowledge.isPending, error: acknowledge.isError ? errorMessage(acknowledge.error) : undefined }}
+        ask={{ onAsk: (text, sent) => ask.mutate(text, { onSuccess: sent }), busy: ask.isPending, error: ask.isError ? errorMessage(ask.error) : undefined }}
       />
     </div>
   );

@@ -9,6 +9,7 @@ import { errorMessage } from '../../../lib/form-errors.ts';
 import { useNoticeLink } from '../api/get-notice-link.ts';
 import { useAcknowledgeNotice } from '../api/acknowledge-notice.ts';
 import { useReportNoticeOpened } from '../api/report-notice-opened.ts';
+import { useAskNoticeQuestion } from '../api/ask-notice-question.ts';
 
 function Shell({ organisation, children }: { organisation?: string; children: ReactNode }) {
   return (
@@ -51,6 +52,7 @@ export function PublicNoticePage() {
   const { token = '' } = useParams();
   const notice = useNoticeLink(token);
   const acknowledge = useAcknowledgeNotice(token);
+  const ask = useAskNoticeQuestion(token);
   const { mutate: reportOpened } = useReportNoticeOpened(token);
   // Once per visit, when the notice has loaded (the ref keeps React's doubled effects to one report).
   const reported = useRef(false);
@@ -70,6 +72,7 @@ export function PublicNoticePage() {
       <NoticeView
         notice={notice.data}
         acknowledge={{ onAcknowledge: () => acknowledge.mutate(), busy: acknowledge.isPending, error: acknowledge.isError ? errorMessage(acknowledge.error) : undefined }}
+        ask={{ onAsk: (text, sent) => ask.mutate(text, { onSuccess: sent }), busy: ask.isPending, error: ask.isError ? errorMessage(ask.error) : undefined }}
       />
     </Shell>
   );
