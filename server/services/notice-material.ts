@@ -8,6 +8,7 @@ import { PatternCheck } from '../models/pattern-check.ts';
 import { notFound } from '../errors.ts';
 import { zoneSetInOrganisation } from './zones.ts';
 import { zonesGeoJson } from './zone-export.ts';
+import { zoneLocation } from './zone-locations.ts';
 import { NOTICE_CAUTIONS } from '../../shared/notices/cautions.ts';
 import { verdictInWords } from '../../shared/notices/verdict-words.ts';
 import type { NoticeContent, NoticeMaterial } from '../../shared/schemas/notices.ts';
@@ -48,6 +49,7 @@ export async function liveNoticeMaterial(notice: Notice): Promise<NoticeMaterial
       WHERE ${sightingFilter} AND s.deleted_at IS NULL AND s.status = 'placed' AND (s.count IS NULL OR s.count > 0)`,
     { replacements, type: QueryTypes.SELECT },
   );
+  const boundary = JSON.parse(facts.boundary) as MultiPolygon;
   const content: NoticeContent = {
     farmName: facts.farm_name,
     fieldName: facts.field_name,
@@ -55,7 +57,7 @@ export async function liveNoticeMaterial(notice: Notice): Promise<NoticeMaterial
     pestName: facts.pest_name,
     walkDates: walks.map((w) => w.walked_on),
     verdict: verdictInWords(check?.result ?? null),
-    zones: zoneSet.zones.map((z) => ({ label: z.label, areaM2: z.areaM2, areaHa: z.areaHa, areaAc: z.areaAc, shareOfField: z.shareOfField, sightingsInside: z.sightingsInside })),
+    zones: zoneSet.zones.map((z) => ({ label: z.label, areaM2: z.areaM2, areaHa: z.areaHa, areaAc: z.areaAc, shareOfField: z.shareOfField, sightingsInside: z.sightingsInside, location: zoneLocation(z.geometry, boundary) })),
     totalTreatedM2: zoneSet.totalTreatedM2,
     untreatedShare: zoneSet.untreatedShare,
     recommendation: notice.recommendation,
@@ -66,7 +68,7 @@ export async function liveNoticeMaterial(notice: Notice): Promise<NoticeMaterial
   };
   return {
     content,
-    boundary: JSON.parse(facts.boundary) as MultiPolygon,
+    boundary,
     zonesGeoJson: zonesGeoJson(zoneSet),
     sightings: points.map((p) => [p.lon, p.lat]),
     zones: zoneSet.zones.map((z) => ({ label: z.label, geometry: z.geometry })),

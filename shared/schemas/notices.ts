@@ -73,7 +73,19 @@ export interface NoticePreviewResponse {
   mapPath: string;
 }
 
+/** How to find a zone in the field: its centre, and how far and which way it lies from the nearest field corner. */
+export interface ZoneLocation {
+  centre: { lat: number; lon: number };
+  nearestCorner: { lat: number; lon: number };
+  distanceM: number;
+  /** Degrees clockwise from true north, from the corner towards the centre. */
+  bearingDeg: number;
+  direction: 'N' | 'NE' | 'E' | 'SE' | 'S' | 'SW' | 'W' | 'NW';
+}
+
 export interface NoticeZoneRow {
+  /** Absent in notices sent before zone locations were kept. */
+  location?: ZoneLocation;
   label: string;
   areaM2: number;
   areaHa: number;
