@@ -8,7 +8,7 @@ import { densitySurface } from '../../shared/analysis/density.ts';
 import { createPlanarField, fieldToCoordinates, isInsideField, type PlanarField } from '../../shared/analysis/field-geometry.ts';
 import { nearestNeighbourTest } from '../../shared/analysis/nearest-neighbour.ts';
 import { nearestNeighbourDistances } from '../../shared/analysis/nearest-neighbour-index.ts';
-import { createMonteCarloPool } from '../../shared/analysis/parallel/monte-carlo-pool.ts';
+import { createMonteCarloPool } from '../../server/services/monte-carlo/monte-carlo-pool.ts';
 import { utmProjectionFor } from '../../shared/analysis/projection.ts';
 import { quadratTest } from '../../shared/analysis/quadrat.ts';
 import { createRandom } from '../../shared/analysis/random.ts';

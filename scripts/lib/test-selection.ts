@@ -3,12 +3,8 @@ export type TestProject = 'unit' | 'api' | 'e2e' | 'faults';
 
 export const ALL_PROJECTS: readonly TestProject[] = ['unit', 'api', 'e2e', 'faults'];
 
+// Folders of their own project; every other folder under tests/ is the unit project's (as in vite.config.ts).
 const PROJECT_FOLDERS: ReadonlyArray<[string, TestProject]> = [
-  ['tests/analysis', 'unit'],
-  ['tests/thresholds', 'unit'],
-  ['tests/scripts', 'unit'],
-  ['tests/client', 'unit'],
-  ['tests/shared', 'unit'],
   ['tests/api', 'api'],
   ['tests/e2e', 'e2e'],
   ['tests/faults', 'faults'],
@@ -26,7 +22,9 @@ export interface TestNeeds {
 
 function projectOfPath(arg: string): TestProject | null {
   const normalised = arg.replace(/^\.\//, '');
-  return PROJECT_FOLDERS.find(([folder]) => normalised === folder || normalised.startsWith(`${folder}/`))?.[1] ?? null;
+  const own = PROJECT_FOLDERS.find(([folder]) => normalised === folder || normalised.startsWith(`${folder}/`))?.[1];
+  if (own) return own;
+  return normalised.startsWith('tests/') && !normalised.startsWith('tests/helpers') && !normalised.startsWith('tests/fixtures') ? 'unit' : null;
 }
 
 /** Reads `--project X` and file or folder arguments; anything it cannot place asks for every project. */

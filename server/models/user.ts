@@ -1,6 +1,7 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
 import { sequelize } from '../db.ts';
 import type { Role } from '../../shared/schemas/roles.ts';
+import type { UserView } from '../../shared/schemas/users.ts';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<string>;
@@ -13,7 +14,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare createdAt: CreationOptional<Date>;
 
   /** The shape every API answer uses: never the password hash. */
-  toPublic() {
+  toPublic(): UserView {
     return {
       id: this.id,
       organisationId: this.organisationId,

@@ -5,10 +5,9 @@ import { csrfTokenFor, generateCsrfToken } from '../auth/csrf.ts';
 import { parse } from '../middleware/validate.ts';
 import { forgotPasswordSchema, setPasswordSchema, signInSchema } from '../../shared/schemas/auth.ts';
 import { AppError } from '../errors.ts';
-import { requestPasswordReset, setPasswordWithToken } from '../services/users.ts';
+import { currentUser, requestPasswordReset, setPasswordWithToken } from '../services/users.ts';
 import { config } from '../config.ts';
 import { PostgresRequestLimitStore } from '../auth/request-limit-store.ts';
-import { User } from '../models/user.ts';
 
 export const authRouter = Router();
 
@@ -47,7 +46,6 @@ const forgotLimiter = rateLimit({
   handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many requests; wait 15 minutes and try again.')),
 });
 
-const publicUser = async (actor: Actor) => (await User.findByPk(actor.id))?.toPublic();
 
 // A visitor's token lives in a signed cookie, so asking for one writes no session row.
 authRouter.get('/csrf', (req, res) => {
@@ -55,7 +53,7 @@ authRouter.get('/csrf', (req, res) => {
 });
 
 authRouter.get('/me', async (req, res) => {
-  res.json({ user: req.user ? await publicUser(req.user) : null });
+  res.json({ user: req.user ? await currentUser(req.user) : null });
 });
 
 function regenerate(req: Request) {
@@ -75,7 +73,7 @@ authRouter.post('/sign-in', signInAddressLimiter, signInLimiter, async (req, res
     // A fresh session id at sign-in, so a session id planted before sign-in is worthless.
     await regenerate(req);
     await logIn(req, actor);
-    res.json({ user: await publicUser(actor), csrfToken: generateCsrfToken(req, true) });
+    res.json({ user: await currentUser(actor), csrfToken: generateCsrfToken(req, true) });
   } catch (error) {
     next(error);
   }

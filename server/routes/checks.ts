@@ -6,6 +6,7 @@ import { AppError, fromZod } from '../errors.ts';
 import { checkRequestSchema, sensitivityRequestSchema, type CheckRequest } from '../../shared/schemas/checks.ts';
 import { getCheckAnswer, requestCheck } from '../services/checks.ts';
 import { sensitivityStrip } from '../services/sensitivity.ts';
+import { checkDensityGrid } from '../services/check-density.ts';
 import type { SerialisedAnswer } from '../services/check-answer-cache.ts';
 
 // Scouts never see checks; growers see only what a zone notice shows them, so both are refused here.
@@ -33,7 +34,7 @@ function parseCheckRequest(body: unknown, schema = checkRequestSchema): CheckReq
 
 checksRouter.post('/', requireRole('adviser', 'admin'), async (req, res) => {
   const outcome = await requestCheck(actor(req), parseCheckRequest(req.body));
-  res.status(outcome.httpStatus).json({ check: outcome.check });
+  res.status(outcome.httpStatus).type('json').send(outcome.json);
 });
 
 checksRouter.post('/sensitivity', requireRole('adviser', 'admin'), async (req, res) => {
@@ -56,4 +57,11 @@ function sendSerialised(req: Request, res: Response, answer: SerialisedAnswer) {
 
 checksRouter.get('/:id', requireRole('adviser', 'admin'), async (req, res) => {
   sendSerialised(req, res, await getCheckAnswer(actor(req), parse(idParam, req.params).id));
+});
+
+/** The density grid as 64-bit little-endian floats (row-major from the south, NaN outside the field), fetched when the map shows it. */
+checksRouter.get('/:id/density', requireRole('adviser', 'admin'), async (req, res) => {
+  const bytes = await checkDensityGrid(actor(req), parse(idParam, req.params).id);
+  res.type('application/octet-stream').setHeader('Cache-Control', 'private, no-cache');
+  res.send(bytes);
 });

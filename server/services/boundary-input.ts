@@ -1,12 +1,10 @@
-import { DOMParser } from '@xmldom/xmldom';
 import type { MultiPolygon } from 'geojson';
 import { QueryTypes } from 'sequelize';
 import { sequelize } from '../db.ts';
-import { boundaryFromGeoJson, parseBoundaryText } from '../../shared/boundary/parse-boundary.ts';
-import { validateBoundary } from '../../shared/boundary/validate-boundary.ts';
 import { fault } from '../../shared/boundary/boundary-faults.ts';
+import { runInAnalysisThread } from './analysis-pool.ts';
 
-// Faults turf's kinks check cannot see, found by PostGIS: a hole outside its shell, parts that overlap, and the like.
+// Faults the sweep-line crossing check cannot see, found by PostGIS: a hole outside its shell, parts that overlap, and the like.
 function postgisFault({ reason, x, y }: { reason: string | null; x: number | null; y: number | null }) {
   const near = x !== null && y !== null ? ` near (${x.toFixed(6)}, ${y.toFixed(6)})` : '';
   if (/hole lies outside shell/i.test(reason ?? '')) {
@@ -51,21 +49,13 @@ function jsonOrNothing(text: string): unknown {
   }
 }
 
-/** Reads a boundary from a GeoJSON value or a file's text and checks it, in code and then in PostGIS. */
+/** Reads a boundary from a GeoJSON value or a file's text and checks it, on an analysis thread and then in PostGIS. */
 export async function readBoundary(input: { boundary?: unknown; boundaryFile?: string }): Promise<MultiPolygon> {
-  let boundary: MultiPolygon;
+  // Checked before the thread's parser walks the value, so a badly nested file gets a message rather than a crash.
   if (input.boundaryFile !== undefined) {
     if (/^\s*[[{]/.test(input.boundaryFile)) refuseDeepNesting(jsonOrNothing(input.boundaryFile));
-    boundary = parseBoundaryText(input.boundaryFile, DOMParser as never);
-  } else if (input.boundary !== undefined) {
-    refuseDeepNesting(input.boundary);
-    boundary = boundaryFromGeoJson(input.boundary);
-  }
-  else throw fault('not-polygon', 'Add a boundary: upload a GeoJSON or KML file, or draw it on the map.');
-  // Checked before anything walks the coordinates, so a badly nested file gets a message rather than a crash.
-  validateBoundary(boundary);
-  // Keep longitude and latitude only: heights in a KML file are not part of a field's outline.
-  boundary = { type: 'MultiPolygon', coordinates: boundary.coordinates.map((p) => p.map((r) => r.map(([x, y]) => [x, y]))) };
+  } else if (input.boundary !== undefined) refuseDeepNesting(input.boundary);
+  const { boundary } = await runInAnalysisThread({ kind: 'boundary', input: { boundary: input.boundary, boundaryFile: input.boundaryFile } });
   const [check] = await sequelize.query<{ valid: boolean; reason: string | null; x: number | null; y: number | null }>(
     `SELECT d.valid, d.reason, ST_X(d.location) AS x, ST_Y(d.location) AS y
        FROM ST_IsValidDetail(ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326)) d`,

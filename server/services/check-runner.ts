@@ -6,11 +6,13 @@ import type { Feature, FeatureCollection, MultiPolygon, Point } from 'geojson';
 import { sequelize } from '../db.ts';
 import { Field } from '../models/field.ts';
 import { PatternCheck } from '../models/pattern-check.ts';
-import { analyse, planSimulations, type AnalysisResult } from '../../shared/analysis/analyse.ts';
+import { planSimulations } from '../../shared/analysis/analyse.ts';
 import { AnalysisInputError } from '../../shared/analysis/errors.ts';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
-import { createMonteCarloPool, type MonteCarloPool } from '../../shared/analysis/parallel/monte-carlo-pool.ts';
+import { createMonteCarloPool, type MonteCarloPool } from './monte-carlo/monte-carlo-pool.ts';
 import { BACKGROUND_THREAD_NICE } from './background-priority.ts';
+import { closeAnalysisPool, runInAnalysisThread } from './analysis-pool.ts';
+import type { SplitResult } from './check-figures.ts';
 
 export interface StoredSighting {
   id: string;
@@ -107,24 +109,25 @@ export const checkWork = (options: AnalysisOptions, sightings: number) => option
 
 let pool: MonteCarloPool | null = null;
 
-/** Stops the simulation threads (tests and shutdown); the next heavy check starts them again. */
+/** Stops the simulation and analysis threads (tests and shutdown); the next check starts them again. */
 export async function closeSimulationPool() {
   const running = pool;
   pool = null;
-  await running?.close();
+  await Promise.all([running?.close(), closeAnalysisPool()]);
 }
 
 /**
- * Runs the engine: small checks with plain analyse(), heavy ones with their simulations on worker threads
- * (same figures, the engine guarantees it). Progress follows the simulation plans as they finish.
+ * Runs the engine on an analysis thread: small checks in one go, heavy ones with their simulations spread over the
+ * Monte Carlo threads first (same figures, the engine guarantees it). Progress follows the simulation plans as they
+ * finish. Answers the figures and the density grid apart (check-figures.ts).
  */
 export async function runAnalysis(
   boundary: MultiPolygon,
   sightings: FeatureCollection<Point, SightingProperties>,
   options: AnalysisOptions,
   onProgress: (share: number) => Promise<void> = async () => {},
-): Promise<AnalysisResult> {
-  if (checkWork(options, sightings.features.length) <= INLINE_WORK_LIMIT) return analyse(boundary, sightings, options);
+): Promise<SplitResult> {
+  if (checkWork(options, sightings.features.length) <= INLINE_WORK_LIMIT) return runInAnalysisThread({ kind: 'check', boundary, sightings, options });
   const plans = planSimulations(boundary, sightings, options);
   pool ??= createMonteCarloPool({ niceIncrement: BACKGROUND_THREAD_NICE });
   // Ripley's envelope costs several times the nearest-neighbour simulations, hence the uneven shares. Progress
@@ -137,7 +140,8 @@ export async function runAnalysis(
   const nearest = plans.nearestNeighbour ? await pool.run(plans.nearestNeighbour, within(0, 0.25)) : null;
   const ripley = plans.ripley ? await pool.run(plans.ripley, within(0.25, 0.85)) : null;
   await reported;
-  return analyse(boundary, sightings, options, { meanNearestDistances: nearest?.meanNearestDistances, ripleyL: ripley?.ripleyL });
+  const precomputed = { meanNearestDistances: nearest?.meanNearestDistances, ripleyL: ripley?.ripleyL };
+  return runInAnalysisThread({ kind: 'check', boundary, sightings, options, precomputed });
 }
 
 /** Progress writes are throttled: a check reports at most every 5 %. */
@@ -148,6 +152,26 @@ function progressWriter(checkId: string) {
     last = share;
     await PatternCheck.update({ progress: Math.min(0.99, Math.max(0, share)) }, { where: { id: checkId, status: 'running' } });
   };
+}
+
+/** Stores the figures as the thread serialised them (never parsed on this thread) and the density grid beside them. */
+async function storeResult(checkId: string, split: SplitResult) {
+  await sequelize.transaction(async (transaction) => {
+    if (split.densityGrid) {
+      const bytes = Buffer.from(split.densityGrid.buffer, split.densityGrid.byteOffset, split.densityGrid.byteLength);
+      await sequelize.query(
+        `INSERT INTO pattern_check_density_grids (check_id, cells, values_f64le) VALUES (:checkId, :cells, :bytes)
+         ON CONFLICT (check_id) DO UPDATE SET cells = EXCLUDED.cells, values_f64le = EXCLUDED.values_f64le`,
+        { replacements: { checkId, cells: split.densityGrid.length, bytes }, transaction },
+      );
+    } else {
+      await sequelize.query('DELETE FROM pattern_check_density_grids WHERE check_id = :checkId', { replacements: { checkId }, transaction });
+    }
+    await sequelize.query(
+      `UPDATE pattern_checks SET status = 'done', progress = 1, result = CAST(:figures AS jsonb), error = NULL, finished_at = now(), updated_at = now() WHERE id = :checkId`,
+      { replacements: { checkId, figures: split.figuresJson }, transaction },
+    );
+  });
 }
 
 /**
@@ -165,8 +189,8 @@ export async function runStoredCheck(checkId: string): Promise<AnalysisInputErro
       throw new Error('The sightings changed after this check was queued; run the check again to include the changes.');
     }
     const boundary = await fieldBoundary(check.fieldId);
-    const result = await runAnalysis(boundary, sightingsCollection(sightings), check.options as AnalysisOptions, progressWriter(check.id));
-    await check.update({ status: 'done', progress: 1, result: JSON.parse(JSON.stringify(result)), error: null, finishedAt: new Date() });
+    const split = await runAnalysis(boundary, sightingsCollection(sightings), check.options as AnalysisOptions, progressWriter(check.id));
+    await storeResult(check.id, split);
     return null;
   } catch (error) {
     await check.update({ status: 'failed', error: (error as Error).message || 'The check failed.', finishedAt: new Date() });

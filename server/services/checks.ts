@@ -13,8 +13,11 @@ import { checkWork, INLINE_WORK_LIMIT, optionsHash, runStoredCheck, sightingsHas
 import { enqueueCheck } from '../jobs/check-worker.ts';
 import { ENGINE_VERSION } from '../../shared/analysis/version.ts';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
-import type { CheckRequest, CheckSummary, CheckView, Spread } from '../../shared/schemas/checks.ts';
+import type { CheckRequest, CheckSummary, CheckView } from '../../shared/schemas/checks.ts';
+import type { AnalysisResult } from '../../shared/analysis/analyse.ts';
+import type { SpreadVerdict } from '../../shared/analysis/spread.ts';
 import { cachedAnswer, serialise, type SerialisedAnswer } from './check-answer-cache.ts';
+import { assertCheckWithinBudget, fieldExtent, INLINE_WORK_UNITS } from './check-budget.ts';
 
 const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
 
@@ -36,7 +39,8 @@ function presentCheck(check: PatternCheck, people: Map<string, { id: string; nam
     engineVersion: check.engineVersion,
     status: check.status,
     progress: check.progress,
-    result: check.result ?? null,
+    // The stored JSONB is analyse()'s answer, exactly as it returned it.
+    result: (check.result as AnalysisResult | null) ?? null,
     error: check.error ?? null,
     createdBy: people.get(check.createdBy) ?? { id: check.createdBy, name: '' },
     createdAt: iso(check.createdAt)!,
@@ -58,7 +62,8 @@ const isStale = (check: PatternCheck) =>
   (check.status === 'queued' || check.status === 'running') && Date.now() - new Date(check.updatedAt).getTime() > STALE_AFTER_MS;
 
 export interface CheckOutcome {
-  check: CheckView;
+  /** `{ check }` already serialised, its figures spliced in as stored. */
+  json: string;
   /** 200 stored, 201 computed now, 202 queued. */
   httpStatus: 200 | 201 | 202;
 }
@@ -66,9 +71,11 @@ export interface CheckOutcome {
 /** Finds the stored check with exactly these inputs, or stores a new one and runs it (inline or queued). */
 export async function requestCheck(actor: Actor, request: CheckRequest): Promise<CheckOutcome> {
   assertGeographic(request.options);
-  await findVisibleField(actor, request.fieldId);
+  const field = await findVisibleField(actor, request.fieldId);
   await findPest(actor, request.pestId);
   const sightings = await sightingsInWindow(request);
+  // Refused before any row exists, so an over-budget request leaves nothing behind.
+  const work = assertCheckWithinBudget(request.options, sightings.length, fieldExtent(field.boundary, field.areaM2));
   const key = {
     fieldId: request.fieldId,
     pestId: request.pestId,
@@ -80,7 +87,7 @@ export async function requestCheck(actor: Actor, request: CheckRequest): Promise
   };
 
   const stored = await PatternCheck.findOne({ where: key });
-  if (stored && stored.status !== 'failed' && !isStale(stored)) return { check: await present(stored, true), httpStatus: 200 };
+  if (stored && stored.status !== 'failed' && !isStale(stored)) return { json: await checkAnswerJson(actor, stored.id, true), httpStatus: 200 };
 
   let check: PatternCheck;
   if (stored) {
@@ -97,22 +104,22 @@ export async function requestCheck(actor: Actor, request: CheckRequest): Promise
       },
     );
     // Two identical requests at once: the second finds the first's row.
-    if (!inserted) return { check: await present((await PatternCheck.findOne({ where: key }))!, true), httpStatus: 200 };
+    if (!inserted) return { json: await checkAnswerJson(actor, (await PatternCheck.findOne({ where: key, attributes: ['id'] }))!.id, true), httpStatus: 200 };
     check = (await PatternCheck.findByPk(inserted.id))!;
     await recordAudit(actor, 'run', 'pattern-check', check.id, { fieldId: key.fieldId, pestId: key.pestId, sightings: sightings.length });
   }
 
-  if (checkWork(request.options, sightings.length) <= INLINE_WORK_LIMIT) {
+  if (checkWork(request.options, sightings.length) <= INLINE_WORK_LIMIT && work.total <= INLINE_WORK_UNITS) {
     const inputError = await runStoredCheck(check.id);
     if (inputError) {
       // Input the engine cannot analyse (e.g. a zero area basis) is the adviser's to fix: answer it, keep no row.
       await PatternCheck.destroy({ where: { id: check.id } });
       throw badRequest(inputError.message);
     }
-    return { check: await present((await check.reload())!, false), httpStatus: 201 };
+    return { json: await checkAnswerJson(actor, check.id, false), httpStatus: 201 };
   }
   await enqueueCheck(check.id);
-  return { check: await present(check, false), httpStatus: 202 };
+  return { json: await checkAnswerJson(actor, check.id, false), httpStatus: 202 };
 }
 
 /** One check of the actor's organisation (another organisation's id simply is not found). */
@@ -120,6 +127,25 @@ export async function getCheck(actor: Actor, id: string): Promise<CheckView> {
   const check = await PatternCheck.findOne({ where: { id, organisationId: actor.organisationId } });
   if (!check) throw notFound('That pattern check');
   return present(check);
+}
+
+/** The stored figures as text: spliced into the answer as they are, never parsed and re-serialised on this thread. */
+async function storedFiguresText(id: string): Promise<string | null> {
+  const [row] = await sequelize.query<{ figures: string | null }>('SELECT result::text AS figures FROM pattern_checks WHERE id = :id', {
+    replacements: { id },
+    type: QueryTypes.SELECT,
+  });
+  return row?.figures ?? null;
+}
+
+/** `{ check }` as JSON, its result the stored text itself. */
+async function checkAnswerJson(actor: Actor, id: string, reused?: boolean): Promise<string> {
+  const attributes = Object.keys(PatternCheck.getAttributes()).filter((name) => name !== 'result');
+  const check = await PatternCheck.findOne({ where: { id, organisationId: actor.organisationId }, attributes });
+  if (!check) throw notFound('That pattern check');
+  const { result: _omitted, ...view } = await present(check, reused);
+  const figures = await storedFiguresText(id);
+  return `{"check":${JSON.stringify(view).slice(0, -1)},"result":${figures ?? 'null'}}}`;
 }
 
 /**
@@ -134,11 +160,11 @@ export async function getCheckAnswer(actor: Actor, id: string): Promise<Serialis
     { replacements: { id, org: actor.organisationId }, type: QueryTypes.SELECT },
   );
   if (!stored) throw notFound('That pattern check');
-  const build = async () => JSON.stringify({ check: await getCheck(actor, id) });
+  const build = () => checkAnswerJson(actor, id);
   return stored.status === 'done' ? cachedAnswer(id, stored.version, build) : serialise(await build());
 }
 
-type SpreadOf = { spread?: { verdict?: Spread }; n?: number };
+type SpreadOf = { spread?: { verdict?: SpreadVerdict }; n?: number };
 
 export async function summarise(checks: PatternCheck[]): Promise<CheckSummary[]> {
   const people = await peopleById(checks.map((c) => c.createdBy));

@@ -7,12 +7,12 @@ import { FarmGrower } from '../models/farm-grower.ts';
 import { User } from '../models/user.ts';
 import '../models/associations.ts';
 import type { Actor } from '../auth/passport.ts';
-import type { FarmInput } from '../../shared/schemas/farms.ts';
+import type { FarmInput, FarmView } from '../../shared/schemas/farms.ts';
 import { badRequest, conflict, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { visibleFarmIds } from './scope.ts';
 
-function present(farm: Farm, actor: Actor) {
+function present(farm: Farm, actor: Actor): FarmView {
   const showContacts = actor.role === 'admin' || actor.role === 'adviser' || actor.role === 'grower';
   return {
     id: farm.id,

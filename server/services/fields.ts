@@ -7,23 +7,13 @@ import { FieldAssignment } from '../models/field-assignment.ts';
 import { User } from '../models/user.ts';
 import '../models/associations.ts';
 import type { Actor } from '../auth/passport.ts';
-import type { FieldCreateInput } from '../../shared/schemas/fields.ts';
+import type { FieldCreateInput, FieldView } from '../../shared/schemas/fields.ts';
 import { badRequest, conflict, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { visibleFieldIds } from './scope.ts';
 import { readBoundary } from './boundary-input.ts';
 
-export interface FieldSummary {
-  id: string;
-  farmId: string;
-  farmName: string;
-  name: string;
-  crop: string;
-  season: number;
-  areaM2: number;
-  boundary: MultiPolygon;
-  scoutIds?: string[];
-}
+export type FieldSummary = FieldView;
 
 const stripCrs = (g: MultiPolygon & { crs?: unknown }): MultiPolygon => ({ type: 'MultiPolygon', coordinates: g.coordinates });
 

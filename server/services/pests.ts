@@ -1,11 +1,11 @@
 import { sequelize } from '../db.ts';
 import { Pest } from '../models/pest.ts';
 import type { Actor } from '../auth/passport.ts';
-import type { PestInput } from '../../shared/schemas/pests.ts';
+import type { PestInput, PestView } from '../../shared/schemas/pests.ts';
 import { notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 
-const present = (p: Pest) => ({
+const present = (p: Pest): PestView => ({
   id: p.id,
   name: p.name,
   kind: p.kind,
@@ -16,7 +16,6 @@ const present = (p: Pest) => ({
   thresholdSource: p.thresholdSource,
   active: p.active,
 });
-export type PestView = ReturnType<typeof present>;
 
 export async function listPests(actor: Actor, options: { includeInactive?: boolean } = {}) {
   const pests = await Pest.findAll({

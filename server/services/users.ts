@@ -12,6 +12,11 @@ import { sendInvitation, sendInvitationDeclined, sendPasswordReset } from './acc
 import { hashPassword } from '../auth/passwords.ts';
 import { passwordWeakness } from '../auth/password-strength.ts';
 
+/** The signed-in person as the client sees them (null once the account is gone). */
+export async function currentUser(actor: Actor) {
+  return (await User.findByPk(actor.id))?.toPublic() ?? null;
+}
+
 export async function listUsers(actor: Actor) {
   const users = await User.findAll({ where: { organisationId: actor.organisationId }, order: [['name', 'ASC']] });
   return users.map((u) => u.toPublic());

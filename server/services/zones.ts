@@ -12,12 +12,13 @@ import { recordAudit } from './audit.ts';
 import { findVisibleField } from './fields.ts';
 import { visibleFieldIds } from './scope.ts';
 import { fieldBoundary, sightingsByIds } from './check-runner.ts';
+import { storedDensityValues } from './check-density.ts';
 import { createPlanarField, isInsideField, type PlanarField } from '../../shared/analysis/field-geometry.ts';
 import { boundaryCentroid, utmProjectionFor, type Projection } from '../../shared/analysis/projection.ts';
 import { DEFAULT_MARGIN_M, DEFAULT_MIN_ZONE_AREA_M2, densityThresholdPerHa, zonesFromDensity, zonesFromQuadrat, type PlanarZone } from '../../shared/analysis/zones.ts';
 import type { DensityResult } from '../../shared/analysis/density.ts';
 import type { QuadratResult } from '../../shared/analysis/quadrat.ts';
-import { validateBoundary } from '../../shared/boundary/validate-boundary.ts';
+import { runInAnalysisThread } from './analysis-pool.ts';
 import { BoundaryError } from '../../shared/boundary/boundary-faults.ts';
 import { toAcres, toHectares } from '../../shared/units/area.ts';
 import type { ProposedZoneProperties, ZoneProposalRequest, ZoneProposalResponse, ZoneSetCreateRequest, ZoneSetView, ZoneView } from '../../shared/schemas/zones.ts';
@@ -45,7 +46,7 @@ async function findCheck(actor: Actor, checkId: string) {
 export async function proposeZones(actor: Actor, checkId: string, input: ZoneProposalRequest): Promise<ZoneProposalResponse['zones']> {
   const check = await findCheck(actor, checkId);
   if (check.status !== 'done' || !check.result) throw conflict('This check has not finished yet; propose zones once its result is in.');
-  const result = check.result as { density: DensityResult | null; quadrat: QuadratResult | null; area: { boundaryM2: number } };
+  const result = check.result as { density: (Omit<DensityResult, 'perHa'> & { perHa?: DensityResult['perHa'] }) | null; quadrat: QuadratResult | null; area: { boundaryM2: number } };
   const boundary = await fieldBoundary(check.fieldId);
   const { projection, originX, originY, field } = planarFrame(boundary);
   const marginM = input.marginM ?? DEFAULT_MARGIN_M;
@@ -54,8 +55,9 @@ export async function proposeZones(actor: Actor, checkId: string, input: ZonePro
   let threshold: number;
   let note: string;
   if (input.source === 'density') {
-    if (!result.density) throw badRequest('This check has no density surface (no sightings inside the field), so it cannot propose density zones.');
-    const local = { ...result.density, originX: result.density.originX - originX, originY: result.density.originY - originY };
+    const perHa = result.density ? (result.density.perHa ?? (await storedDensityValues(check.id))) : null;
+    if (!result.density || !perHa) throw badRequest('This check has no density surface (no sightings inside the field), so it cannot propose density zones.');
+    const local = { ...result.density, perHa, originX: result.density.originX - originX, originY: result.density.originY - originY };
     threshold = densityThresholdPerHa(local, input.threshold === undefined ? {} : { densityThresholdPerHa: input.threshold });
     planar = zonesFromDensity(field, local, { densityThresholdPerHa: threshold, marginM, minZoneAreaM2 });
     note = `Density of at least ${threshold.toFixed(1)} sightings per ha, ${marginM} m margin, zones under ${minZoneAreaM2} m² dropped.`;
@@ -96,10 +98,10 @@ const asMultiPolygon = (geometry: Polygon | MultiPolygon): MultiPolygon => ({
   coordinates: (geometry.type === 'Polygon' ? [geometry.coordinates] : geometry.coordinates).map((p) => p.map((r) => r.map(([x, y]) => [x, y]))),
 });
 
-/** The shape checks of a field boundary, except its size limits: a zone's size is judged after clipping. */
-function validateZoneShape(geometry: MultiPolygon, label: string) {
+/** The shape checks of a field boundary (on an analysis thread), except its size limits: a zone's size is judged after clipping. */
+async function validateZoneShape(geometry: MultiPolygon, label: string) {
   try {
-    validateBoundary(geometry);
+    await runInAnalysisThread({ kind: 'boundary', input: { boundary: geometry } });
   } catch (error) {
     if (error instanceof BoundaryError && (error.fault.code === 'area-too-small' || error.fault.code === 'area-too-large')) return;
     if (error instanceof BoundaryError) throw badRequest(`${label}: ${error.message}`, { zones: `${label}: ${error.message}` });
@@ -163,12 +165,13 @@ export async function createZoneSet(actor: Actor, fieldId: string, input: ZoneSe
     if (check.fieldId !== fieldId || check.pestId !== input.pestId) throw badRequest('That check is for another field or pest; attach the check these zones came from.', { checkId: 'That check is for another field or pest.' });
     sightingIds = check.sightingIds;
   }
-  const drawn = input.zones.features.map((feature, index) => {
+  const drawn: Array<{ label: string; geometry: MultiPolygon }> = [];
+  for (const [index, feature] of input.zones.features.entries()) {
     const label = feature.properties?.label ?? `Zone ${index + 1}`;
     const geometry = asMultiPolygon(feature.geometry as Polygon | MultiPolygon);
-    validateZoneShape(geometry, label);
-    return { label, geometry };
-  });
+    await validateZoneShape(geometry, label);
+    drawn.push({ label, geometry });
+  }
   const result = await sequelize.transaction(async (transaction) => {
     const { kept, adjustments } = await clipToField(fieldId, drawn, DEFAULT_MIN_ZONE_AREA_M2, transaction);
     if (kept.length === 0) throw badRequest(`No zone is left inside the field: ${adjustments.join(' ')}`, { zones: adjustments.join(' ') });

@@ -4,6 +4,7 @@ import type { NearestNeighbourResult } from './nearest-neighbour.ts';
 import type { QuadratResult } from './quadrat.ts';
 import type { RipleyResult } from './ripley.ts';
 
+/** The pattern check's verdict: the one declaration that the API, the e-mail and the screens import. */
 export type SpreadVerdict = 'clustered' | 'random' | 'regular' | 'too-few';
 
 export interface SpreadResult {

@@ -5,6 +5,7 @@ export type BoundaryFaultCode =
   | 'ring-not-closed'
   | 'ring-too-short'
   | 'self-intersecting'
+  | 'too-many-corners'
   | 'hole-outside-shell'
   | 'out-of-range'
   | 'swapped-coordinates'

@@ -1,4 +1,5 @@
-import { area as turfArea, kinks as turfKinks, polygon as turfPolygon } from '@turf/turf';
+import { area as turfArea, polygon as turfPolygon } from '@turf/turf';
+import sweeplineIntersections from 'sweepline-intersections';
 import type { MultiPolygon, Position } from 'geojson';
 import { fault } from './boundary-faults.ts';
 import { SQUARE_METRES_PER_HECTARE } from '../units/area.ts';
@@ -6,6 +7,13 @@ import { SQUARE_METRES_PER_HECTARE } from '../units/area.ts';
 // Plausible field sizes: below 0.05 ha is a garden plot or a drawing slip, above 5,000 ha is a region.
 export const MIN_FIELD_M2 = 0.05 * SQUARE_METRES_PER_HECTARE;
 export const MAX_FIELD_M2 = 5000 * SQUARE_METRES_PER_HECTARE;
+
+/**
+ * The most corners a boundary or zone may have (all rings and parts together). A field traced by GPS at 1 m spacing
+ * around a 250 ha square has about 6,300; the crossing check's worst case (long interleaved edges) grows with the
+ * square of the corners, so the limit also bounds how long one upload can keep a thread busy.
+ */
+export const MAX_BOUNDARY_CORNERS = 20_000;
 
 const samePosition = (a: Position, b: Position) => a[0] === b[0] && a[1] === b[1];
 
@@ -40,6 +48,18 @@ function checkRange(positions: Position[]) {
   throw fault('out-of-range', `Position (${outOfRange[0]}, ${outOfRange[1]}) is outside WGS 84: longitude must be within ±180° and latitude within ±90°.`);
 }
 
+/** A ring's corners: its positions without the closing repeat of the first. */
+const cornerCount = (boundary: MultiPolygon) => boundary.coordinates.reduce((sum, polygon) => sum + polygon.reduce((inner, ring) => inner + ring.length - 1, 0), 0);
+
+function checkCornerCount(boundary: MultiPolygon) {
+  const corners = cornerCount(boundary);
+  if (corners <= MAX_BOUNDARY_CORNERS) return;
+  throw fault(
+    'too-many-corners',
+    `This boundary has ${corners.toLocaleString('en')} corners; Patchwise takes at most ${MAX_BOUNDARY_CORNERS.toLocaleString('en')} — simplify it (for example to one corner every metre or two) and upload again.`,
+  );
+}
+
 /** Checks a MultiPolygon in WGS 84 and returns its area in m² on the sphere (turf), throwing a BoundaryError for each fault. */
 export function validateBoundary(boundary: MultiPolygon): { areaM2: number } {
   if (boundary.coordinates.length === 0) throw fault('not-polygon', 'The boundary holds no polygon.');
@@ -47,12 +67,14 @@ export function validateBoundary(boundary: MultiPolygon): { areaM2: number } {
     if (!Array.isArray(polygon)) throw fault('unparseable', `Polygon ${p + 1} is not a list of rings; check the brackets of the coordinates.`);
     polygon.forEach((ring, r) => checkRing(ring, `${r === 0 ? 'The outer ring' : `Hole ${r}`} of polygon ${p + 1}`));
   });
+  checkCornerCount(boundary);
   const positions = boundary.coordinates.flat(2);
   checkRange(positions);
   boundary.coordinates.forEach((polygon, p) => {
-    const crossings = turfKinks(turfPolygon(polygon));
-    if (crossings.features.length > 0) {
-      const [x, y] = crossings.features[0].geometry.coordinates;
+    // A sweep over the edges sorted by x: each edge is tested only against the edges its x-extent overlaps.
+    const crossings = sweeplineIntersections(turfPolygon(polygon), false);
+    if (crossings.length > 0) {
+      const [x, y] = crossings[0];
       throw fault('self-intersecting', `Polygon ${p + 1} crosses itself near (${x.toFixed(6)}, ${y.toFixed(6)}); redraw the boundary so its edges do not cross.`);
     }
   });

@@ -1,7 +1,5 @@
 // The spread verdict and its key figures in plain words, from a stored check result (the engine's own figures).
-import { formatP } from '../analysis/spread.ts';
-
-type Spread = 'clustered' | 'random' | 'regular' | 'too-few';
+import { formatP, type SpreadVerdict as Spread } from '../analysis/spread.ts';
 
 interface StoredResult {
   n?: number;

@@ -2,6 +2,8 @@
 // adviser's screens. Check options are the engine's own schema, so the API accepts exactly what the engine does.
 import { z } from 'zod';
 import { analysisOptionsSchema } from '../analysis/options.ts';
+import type { AnalysisResult } from '../analysis/analyse.ts';
+import type { SpreadVerdict } from '../analysis/spread.ts';
 import { calendarDateSchema } from './calendar-date.ts';
 import type { ThresholdStatus } from '../thresholds/threshold-status.ts';
 import type { UnacknowledgedNotice } from './notices.ts';
@@ -44,8 +46,6 @@ export interface PersonRef {
   name: string;
 }
 
-export type Spread = 'clustered' | 'random' | 'regular' | 'too-few';
-
 export interface CheckView {
   id: string;
   fieldId: string;
@@ -59,7 +59,7 @@ export interface CheckView {
   status: CheckStatus;
   progress: number;
   /** The engine's result, exactly as analyse() returned it. */
-  result: Record<string, unknown> | null;
+  result: AnalysisResult | null;
   error: string | null;
   createdBy: PersonRef;
   createdAt: string;
@@ -77,7 +77,7 @@ export interface CheckSummary {
   to: string | null;
   status: CheckStatus;
   progress: number;
-  verdict: Spread | null;
+  verdict: SpreadVerdict | null;
   n: number | null;
   engineVersion: string;
   createdBy: PersonRef;
@@ -98,7 +98,7 @@ export interface SensitivityRow {
   cellSizeFactor: number;
   areaBasis: 'boundary' | 'bbox' | 'hull';
   /** null when the engine could not run this variant (see error). */
-  verdict: Spread | null;
+  verdict: SpreadVerdict | null;
   /** Clark–Evans figures on this area basis. */
   R: number | null;
   z: number | null;

@@ -19,3 +19,19 @@ export const farmSchema = z.object({
     .default([]),
 });
 export type FarmInput = z.infer<typeof farmSchema>;
+
+/** A farm as the API answers it; `growerUserIds` only for admins, only on a single farm. */
+export const farmViewSchema = z.object({
+  id: z.uuid(),
+  name: z.string(),
+  contacts: z.array(farmContactSchema.extend({ id: z.uuid().optional() })),
+  growerUserIds: z.array(z.uuid()).optional(),
+});
+export type FarmView = z.infer<typeof farmViewSchema>;
+export type FarmContactView = FarmView['contacts'][number];
+export interface FarmResponse {
+  farm: FarmView;
+}
+export interface FarmListResponse {
+  farms: FarmView[];
+}

@@ -15,3 +15,29 @@ export const fieldCreateSchema = fieldDetailsSchema.extend({
 });
 export const fieldUpdateSchema = fieldCreateSchema.partial().omit({ farmId: true });
 export type FieldCreateInput = z.infer<typeof fieldCreateSchema>;
+
+// RFC 7946 MultiPolygon: rings of [lon, lat] positions.
+const multiPolygonSchema = z.object({
+  type: z.literal('MultiPolygon'),
+  coordinates: z.array(z.array(z.array(z.array(z.number())))),
+});
+
+/** A field as the API answers it; `scoutIds` only for admins and advisers. */
+export const fieldViewSchema = z.object({
+  id: z.uuid(),
+  farmId: z.uuid(),
+  farmName: z.string(),
+  name: z.string(),
+  crop: z.string(),
+  season: z.number().int(),
+  areaM2: z.number(),
+  boundary: multiPolygonSchema,
+  scoutIds: z.array(z.uuid()).optional(),
+});
+export type FieldView = z.infer<typeof fieldViewSchema>;
+export interface FieldResponse {
+  field: FieldView;
+}
+export interface FieldListResponse {
+  fields: FieldView[];
+}

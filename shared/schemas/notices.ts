@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { calendarDateSchema } from './calendar-date.ts';
 import type { FeatureCollection, MultiPolygon, Position } from 'geojson';
 import type { NoticeQuestionView } from './notice-questions.ts';
+import type { VerdictWords } from '../notices/verdict-words.ts';
 
 export const noticeStatuses = ['draft', 'sending', 'sent', 'partly-failed'] as const;
 export type NoticeStatus = (typeof noticeStatuses)[number];
@@ -102,7 +103,7 @@ export interface NoticeContent {
   pestName: string;
   /** YYYY-MM-DD, oldest first. */
   walkDates: string[];
-  verdict: { spread: 'clustered' | 'random' | 'regular' | 'too-few' | null; headline: string; figures: string[] };
+  verdict: VerdictWords;
   zones: NoticeZoneRow[];
   totalTreatedM2: number;
   untreatedShare: number;

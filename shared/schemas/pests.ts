@@ -30,3 +30,13 @@ export const pestUpdateSchema = z
   .object(pestFields)
   .partial()
   .refine((v) => Object.keys(v).length > 0, { error: 'Change at least one detail of the pest.' });
+
+/** A library entry as the API answers it. */
+export const pestViewSchema = z.object({ id: z.uuid(), ...pestFields });
+export type PestView = z.infer<typeof pestViewSchema>;
+export interface PestResponse {
+  pest: PestView;
+}
+export interface PestListResponse {
+  pests: PestView[];
+}

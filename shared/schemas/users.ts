@@ -22,3 +22,21 @@ export const updateUserSchema = z
 export const assignmentSchema = z.object({
   userId: z.uuid({ error: 'Choose a user.' }),
 });
+
+/** A user as the API answers it; `invited` while no password has been set. */
+export const userViewSchema = z.object({
+  id: z.uuid(),
+  organisationId: z.uuid(),
+  name: z.string(),
+  email: z.string(),
+  role: roleSchema,
+  active: z.boolean(),
+  invited: z.boolean(),
+});
+export type UserView = z.infer<typeof userViewSchema>;
+export interface UserResponse {
+  user: UserView;
+}
+export interface UserListResponse {
+  users: UserView[];
+}

@@ -94,5 +94,10 @@ export async function api<T>(path: string, options: RequestOptions = {}): Promis
   return (await res.json()) as T;
 }
 
-/** The current CSRF token, for requests sent outside `api()` (an XMLHttpRequest upload that reports progress). */
-export const csrfTokenForUpload = () => currentCsrfToken();
+/** GETs a binary answer (a density grid) as raw bytes; errors come back as JSON like everywhere else. */
+export async function apiBytes(path: string, options: Pick<RequestOptions, 'signal'> = {}): Promise<ArrayBuffer> {
+  const res = await send(path, { signal: options.signal });
+  if (!res.ok) throw await toApiError(res);
+  return res.arrayBuffer();
+}
+

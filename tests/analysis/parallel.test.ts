@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { fieldAreaM2 } from '../../shared/analysis/area.ts';
 import { fieldToCoordinates } from '../../shared/analysis/field-geometry.ts';
 import { runSimulations, type SimulationPlan } from '../../shared/analysis/monte-carlo.ts';
-import { createMonteCarloPool } from '../../shared/analysis/parallel/monte-carlo-pool.ts';
+import { createMonteCarloPool } from '../../server/services/monte-carlo/monte-carlo-pool.ts';
 import { irregularField } from './patterns.ts';
 import { mainThreadNice, threadNices } from '../helpers/thread-priority.ts';
 

@@ -1,7 +1,7 @@
 // Each boundary fault is refused with its own code and a sentence that says what to fix, and stores nothing;
 // each accepted form (GeoJSON wrappers, KML) creates a field.
 import { beforeAll, describe, expect, it } from 'vitest';
-import { area as turfArea } from '@turf/turf';
+import { area as turfArea, circle as turfCircle } from '@turf/turf';
 import type { Polygon } from 'geojson';
 import { signedIn, type Client } from '../helpers/http.ts';
 import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
@@ -52,12 +52,23 @@ async function refusal(boundary: { boundary?: unknown; boundaryFile?: string }) 
 const shift = (r: number[][], dx: number, dy: number) => r.map(([x, y]) => [x + dx, y + dy]);
 const [sw, se, ne, nw] = ring;
 
+/** A circle of 400 m radius drawn by turf with this many corners (plus the closing repeat). */
+const circleOf = (corners: number) => turfCircle([lon, lat], 0.4, { steps: corners }).geometry;
+const crossedCircle = () => {
+  const shape = circleOf(19_000);
+  const r = shape.coordinates[0];
+  [r[7000], r[7001]] = [r[7001], r[7000]];
+  return shape;
+};
+
 const faults: Array<[string, string, { boundary?: unknown; boundaryFile?: string }, RegExp]> = [
   ['a Point', 'not-polygon', { boundary: { type: 'Point', coordinates: [lon, lat] } }, /Point, not a polygon/],
   ['a LineString', 'not-polygon', { boundary: { type: 'LineString', coordinates: [sw, se, ne] } }, /LineString, not a polygon/],
   ['a ring whose last position does not repeat its first', 'ring-not-closed', { boundary: { type: 'Polygon', coordinates: [[sw, se, ne, nw]] } }, /not closed/],
   ['a ring of only two corners', 'ring-too-short', { boundary: { type: 'Polygon', coordinates: [[sw, ne, sw]] } }, /fewer than 4 positions/],
   ['a bow-tie that crosses itself', 'self-intersecting', { boundary: { type: 'Polygon', coordinates: [[sw, ne, se, nw, sw]] } }, /crosses itself/],
+  ['a 19,000-corner circle with two neighbouring corners swapped', 'self-intersecting', { boundary: crossedCircle() }, /crosses itself/],
+  ['a circle of 20,001 corners, over the limit', 'too-many-corners', { boundary: circleOf(20_001) }, /^This boundary has 20,001 corners; Patchwise takes at most 20,000 — simplify it .*and upload again\.$/],
   ['a longitude beyond 180°', 'out-of-range', { boundary: degreeRectangle(179.999, 10, 0.004, 0.004) }, /outside WGS 84/],
   ['a latitude beyond 90° that is not a swap', 'out-of-range', { boundary: degreeRectangle(120, 90.001, 0.004, 0.004) }, /outside WGS 84/],
   ['latitude and longitude given the wrong way round', 'swapped-coordinates', { boundary: { type: 'Polygon', coordinates: [ring.map(([x, y]) => [y, x])] } }, /look swapped/],
@@ -87,6 +98,11 @@ describe('boundary faults', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/Add a boundary/);
     expect(stored).toBe(0);
+  });
+
+  it('accepts a 19,000-corner circle, under the corner limit', async () => {
+    const res = await admin.post('/api/fields', fieldBody({ boundary: circleOf(19_000) })).expect(201);
+    expect(res.body.field.boundary.coordinates[0][0]).toHaveLength(19_001);
   });
 
   it('keeps longitude and latitude only when positions carry a height', async () => {

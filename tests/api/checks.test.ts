@@ -13,6 +13,7 @@ import { startWorkers } from '../../server/jobs/workers.ts';
 import { stopQueue } from '../../server/jobs/queue.ts';
 import '../../server/jobs/all-workers.ts';
 import { closeSimulationPool, INLINE_WORK_LIMIT } from '../../server/services/check-runner.ts';
+import { withDensityGrid } from '../helpers/density-grid.ts';
 
 const { jStat } = jstat as unknown as { jStat: { tci(mean: number, alpha: number, sd: number, n: number): [number, number] } };
 
@@ -86,7 +87,7 @@ describe('running a pattern check', () => {
 
     // No second computation: the page's figures are the engine's own, run here on the same inputs.
     const reference = analyse(field.boundary, engineSightings(sightingIds, points), options);
-    expect(withoutTimings(check.result)).toEqual(withoutTimings(reference));
+    expect(withoutTimings(await withDensityGrid(adviser, check))).toEqual(withoutTimings(reference));
     expect(check.result.spread.verdict).toBe('clustered');
   });
 
@@ -125,7 +126,7 @@ describe('running a pattern check', () => {
     expect(third.sightingIds).toEqual(second.sightingIds);
     expect(third.sightingsHash).not.toBe(second.sightingsHash);
     const reference = analyse(field.boundary, engineSightings([...sightingIds, newId], [{ ...points[0], count: 40 }, ...points.slice(1), added]), body.options);
-    expect(withoutTimings(third.result)).toEqual(withoutTimings(reference));
+    expect(withoutTimings(await withDensityGrid(adviser, third))).toEqual(withoutTimings(reference));
   });
 
   it('refuses invalid options with an error that names the option', async () => {
@@ -215,7 +216,7 @@ describe('heavy checks', () => {
 
     // Simulations ran on worker threads; the single-threaded engine gives the same figures.
     const reference = analyse(field.boundary, engineSightings(sightingIds, points), options);
-    expect(withoutTimings(check.result)).toEqual(withoutTimings(reference));
+    expect(withoutTimings(await withDensityGrid(adviser, check))).toEqual(withoutTimings(reference));
   });
 });
 

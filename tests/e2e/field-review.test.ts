@@ -109,6 +109,10 @@ describe('field review in the browser', () => {
   it('shows a Clustered verdict with its figures and chart, changes with the area basis, and exports the filtered rows', async () => {
     const adviser = demoUsers.find((u) => u.role === 'adviser')!;
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 }, acceptDownloads: true });
+    const gridRequests: string[] = [];
+    page.on('request', (request) => {
+      if (/\/api\/checks\/[^/]+\/density$/.test(new URL(request.url()).pathname)) gridRequests.push(request.url());
+    });
     await page.goto(`${server.url}/sign-in`);
     await page.getByLabel('E-mail address').fill(adviser.email);
     await page.getByLabel('Password').fill(DEMO_PASSWORD);
@@ -138,6 +142,12 @@ describe('field review in the browser', () => {
     const chart = page.locator('[data-chart="l-function"] svg.recharts-surface[role="application"]');
     await chart.waitFor();
     expect(await page.locator('[data-chart="l-function"] .recharts-line').count()).toBeGreaterThanOrEqual(2);
+
+    // The density grid is not part of the check's answer: it is fetched once the density layer is switched on.
+    expect(gridRequests).toHaveLength(0);
+    await page.getByRole('checkbox', { name: 'Density surface' }).check();
+    await page.locator('img.density-surface').waitFor({ timeout: 30_000 });
+    expect(gridRequests).toHaveLength(1);
 
     await page.getByLabel('Area basis').selectOption('bbox');
     await page.getByRole('button', { name: 'Run check' }).click();

@@ -100,6 +100,7 @@ export const scoutingRoutes: AccessRow[] = [
   row('POST', '/api/checks', deskOnly(200), { fieldId: '{checkedField}', pestId: '{checkedPest}', options: { simulations: 99, seed: 5 } }, 'the stored check is reused'),
   row('POST', '/api/checks/sensitivity', deskOnly(200), { fieldId: '{checkedField}', pestId: '{checkedPest}' }),
   row('GET', '/api/checks/{check}', deskOnly(200)),
+  row('GET', '/api/checks/{check}/density', deskOnly(200)),
   row('GET', '/api/fields/{checkedField}/checks', deskOnly(200)),
   row('GET', '/api/fields/{checkedField}/threshold-status', deskOnly(200)),
   row('GET', '/api/fields/{checkedField}/history', deskOnly(200)),

@@ -27,3 +27,9 @@ describe('what npm test starts for the suites asked for', () => {
     expect(testNeeds(['tests/api', '-t', 'refuses a boundary']).projects).toEqual(['api']);
   });
 });
+
+describe('a new test folder', () => {
+  it('belongs to the unit project unless it is api, e2e or faults', () => {
+    expect(testNeeds(['tests/boundary/validate-boundary.test.ts'])).toMatchObject({ projects: ['unit'], database: false });
+  });
+});

@@ -4,9 +4,9 @@ import type { ReactNode } from 'react';
 import { PageFrame } from '../../components/page-frame.tsx';
 import { useSignedInUser } from '../../lib/auth.ts';
 import { useUsers } from '../../features/admin/api/get-users.ts';
-import { useFarms } from '../../features/admin/api/get-farms.ts';
+import { useFarms } from '../../lib/api/get-farms.ts';
 import { usePests } from '../../lib/api/get-pests.ts';
-import { useFields } from '../../features/fields/api/get-fields.ts';
+import { useFields } from '../../lib/api/get-fields.ts';
 
 function Tile({ to, label, count, detail }: { to: string; label: string; count: { isPending: boolean; isError: boolean; value?: number }; detail: ReactNode }) {
   return (

@@ -2,7 +2,7 @@ import { Link, useNavigate, useParams } from 'react-router';
 import { PageFrame, Panel } from '../../components/page-frame.tsx';
 import { ErrorState, LoadingState } from '../../components/query-states.tsx';
 import { useUsers } from '../../features/admin/api/get-users.ts';
-import { useField } from '../../features/fields/api/get-field.ts';
+import { useField } from '../../lib/api/get-field.ts';
 import { FieldForm } from '../../features/fields/components/field-form.tsx';
 import { FieldScoutsPanel } from '../../features/fields/components/field-scouts-panel.tsx';
 

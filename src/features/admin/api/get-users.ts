@@ -1,7 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
-import type { User } from '../../../types/api.ts';
+import type { UserListResponse } from '@shared/schemas/users.ts';
 
-export const getUsers = () => api<{ users: User[] }>('/api/users').then((r) => r.users);
-export const usersQueryOptions = () => queryOptions({ queryKey: ['users'], queryFn: getUsers });
+export const getUsers = () => api<UserListResponse>('/api/users').then((r) => r.users);
+export const usersQueryKey = ['users'] as const;
+export const usersQueryOptions = () => queryOptions({ queryKey: usersQueryKey, queryFn: getUsers });
 export const useUsers = () => useQuery(usersQueryOptions());

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
 import { api } from '../../../lib/api-client.ts';
+import { usersQueryKey } from './get-users.ts';
 import type { inviteUserSchema } from '@shared/schemas/users.ts';
 
 export type InviteUserInput = z.infer<typeof inviteUserSchema>;
@@ -10,5 +11,5 @@ export const inviteUser = (input: InviteUserInput) => api<{ message: string }>('
 
 export function useInviteUser() {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: inviteUser, onSettled: () => queryClient.invalidateQueries({ queryKey: ['users'] }) });
+  return useMutation({ mutationFn: inviteUser, onSettled: () => queryClient.invalidateQueries({ queryKey: usersQueryKey }) });
 }

@@ -2,7 +2,7 @@
 import { Button } from '../../../components/button.tsx';
 import { TextField } from '../../../components/form-field.tsx';
 import type { FieldErrors } from '../../../lib/form-errors.ts';
-import type { FarmContact } from '../../../types/api.ts';
+import type { FarmContactView as FarmContact } from '@shared/schemas/farms.ts';
 
 export function ContactsEditor({ contacts, errors, onChange }: { contacts: FarmContact[]; errors: FieldErrors; onChange: (contacts: FarmContact[]) => void }) {
   const edit = (index: number, change: Partial<FarmContact>) => onChange(contacts.map((c, i) => (i === index ? { ...c, ...change } : c)));

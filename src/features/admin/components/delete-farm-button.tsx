@@ -5,7 +5,7 @@ import { Button } from '../../../components/button.tsx';
 import { ConfirmDialog } from '../../../components/confirm-dialog.tsx';
 import { FormMessage } from '../../../components/form-field.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
-import type { Farm } from '../../../types/api.ts';
+import type { FarmView as Farm } from '@shared/schemas/farms.ts';
 import { useDeleteFarm } from '../api/delete-farm.ts';
 
 export function DeleteFarmButton({ farm }: { farm: Farm }) {

@@ -3,7 +3,7 @@ import { farmSchema } from '@shared/schemas/farms.ts';
 import { Button } from '../../../components/button.tsx';
 import { FormMessage, TextField } from '../../../components/form-field.tsx';
 import { checkForm, errorMessage, serverFieldErrors, type FieldErrors } from '../../../lib/form-errors.ts';
-import type { Farm, FarmContact } from '../../../types/api.ts';
+import type { FarmView as Farm, FarmContactView as FarmContact } from '@shared/schemas/farms.ts';
 import { useCreateFarm } from '../api/create-farm.ts';
 import { useUpdateFarm } from '../api/update-farm.ts';
 import { ContactsEditor } from './contacts-editor.tsx';

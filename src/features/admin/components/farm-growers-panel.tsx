@@ -5,7 +5,7 @@ import { Button } from '../../../components/button.tsx';
 import { FormMessage, SelectField } from '../../../components/form-field.tsx';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
-import type { Farm } from '../../../types/api.ts';
+import type { FarmView as Farm } from '@shared/schemas/farms.ts';
 import { useUsers } from '../api/get-users.ts';
 import { useLinkGrower } from '../api/link-grower.ts';
 import { useUnlinkGrower } from '../api/unlink-grower.ts';

@@ -5,8 +5,8 @@ import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { Button } from '../../../components/button.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { TableFrame } from '../../../components/table-frame.tsx';
-import type { Farm } from '../../../types/api.ts';
-import { useFarms } from '../api/get-farms.ts';
+import type { FarmView as Farm } from '@shared/schemas/farms.ts';
+import { useFarms } from '../../../lib/api/get-farms.ts';
 import { FarmForm } from './farm-form.tsx';
 
 const column = createColumnHelper<Farm>();

@@ -3,7 +3,7 @@ import { pestKinds, pestSchema, pestUpdateSchema, thresholdBases } from '@shared
 import { Button } from '../../../components/button.tsx';
 import { FormMessage, SelectField, TextAreaField, TextField } from '../../../components/form-field.tsx';
 import { checkForm, errorMessage, serverFieldErrors, type FieldErrors } from '../../../lib/form-errors.ts';
-import type { Pest } from '../../../types/api.ts';
+import type { PestView as Pest } from '@shared/schemas/pests.ts';
 import { useCreatePest } from '../api/create-pest.ts';
 import { useUpdatePest } from '../api/update-pest.ts';
 import { thresholdBasisLabel } from './threshold-text.tsx';

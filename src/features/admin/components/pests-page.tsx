@@ -7,7 +7,7 @@ import { FormMessage } from '../../../components/form-field.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { TableFrame } from '../../../components/table-frame.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
-import type { Pest } from '../../../types/api.ts';
+import type { PestView as Pest } from '@shared/schemas/pests.ts';
 import { usePests } from '../../../lib/api/get-pests.ts';
 import { useUpdatePest } from '../api/update-pest.ts';
 import { PestForm } from './pest-form.tsx';

@@ -1,4 +1,4 @@
-import type { Pest } from '../../../types/api.ts';
+import type { PestView as Pest } from '@shared/schemas/pests.ts';
 
 const basisLabels: Record<Pest['thresholdBasis'], string> = { mean: 'mean count per stop', incidence: 'share of stops infested' };
 export const thresholdBasisLabel = (basis: Pest['thresholdBasis']) => basisLabels[basis];

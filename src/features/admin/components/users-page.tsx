@@ -8,7 +8,7 @@ import { EmptyState, ErrorState, LoadingState } from '../../../components/query-
 import { TableFrame } from '../../../components/table-frame.tsx';
 import { useSignedInUser } from '../../../lib/auth.ts';
 import { errorMessage } from '../../../lib/form-errors.ts';
-import type { User } from '../../../types/api.ts';
+import type { UserView as User } from '@shared/schemas/users.ts';
 import { useUsers } from '../api/get-users.ts';
 import { useUpdateUser } from '../api/update-user.ts';
 import { useResendInvitation } from '../api/resend-invitation.ts';

@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api, setCsrfToken } from '../../../lib/api-client.ts';
 import { meQueryKey } from '../../../lib/query-client.ts';
-import type { User } from '../../../types/api.ts';
+import type { UserView } from '@shared/schemas/users.ts';
 
 export const signIn = (input: { email: string; password: string }) =>
-  api<{ user: User; csrfToken: string }>('/api/auth/sign-in', { method: 'POST', body: input });
+  api<{ user: UserView; csrfToken: string }>('/api/auth/sign-in', { method: 'POST', body: input });
 
 export function useSignIn() {
   const queryClient = useQueryClient();

@@ -3,8 +3,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import type { CheckRequestInput, CheckResponse } from '@shared/schemas/checks.ts';
-import { checkQueryKey } from './get-check.ts';
-import { fieldChecksQueryKey } from './get-field-checks.ts';
+import { checkQueryKey } from '../../../lib/api/get-check.ts';
 import { fieldHistoryQueryKey } from './get-field-history.ts';
 
 export const runCheck = (request: CheckRequestInput) => api<CheckResponse>('/api/checks', { method: 'POST', body: request }).then((r) => r.check);
@@ -15,11 +14,8 @@ export function useRunCheck() {
     mutationFn: runCheck,
     onSuccess: (check) => {
       queryClient.setQueryData(checkQueryKey(check.id), check);
-      // A new stored check appears in the field's check list and its history.
-      if (!check.reused) {
-        void queryClient.invalidateQueries({ queryKey: fieldChecksQueryKey(check.fieldId) });
-        void queryClient.invalidateQueries({ queryKey: fieldHistoryQueryKey(check.fieldId) });
-      }
+      // A new stored check appears in the field's history (its list of past checks).
+      if (!check.reused) void queryClient.invalidateQueries({ queryKey: fieldHistoryQueryKey(check.fieldId) });
     },
   });
 }

@@ -1,6 +1,5 @@
 // Run a pattern check for the chosen pest and window, follow it while it runs, and read its verdict.
 import { useState } from 'react';
-import type { AnalysisResult } from '@shared/analysis/analyse.ts';
 import type { CheckRequestInput, CheckView } from '@shared/schemas/checks.ts';
 import { Button } from '../../../components/button.tsx';
 import { Panel } from '../../../components/page-frame.tsx';
@@ -8,8 +7,9 @@ import { ErrorState, EmptyState, LoadingState } from '../../../components/query-
 import { FormMessage } from '../../../components/form-field.tsx';
 import { errorMessage, serverFieldErrors, type FieldErrors } from '../../../lib/form-errors.ts';
 import { useRunCheck } from '../api/run-check.ts';
-import type { useCheck } from '../api/get-check.ts';
-import { CheckOptionsForm, optionsFromDraft, type CheckOptionsDraft } from './check-options-form.tsx';
+import type { useCheck } from '../../../lib/api/get-check.ts';
+import { CheckOptionsForm } from './check-options-form.tsx';
+import { optionsFromDraft, type CheckOptionsDraft } from '../check-options-draft.ts';
 import { VerdictSummary } from './verdict-summary.tsx';
 
 export function CheckPanel({ window, draft, onDraftChange, check, onCheckOpened }: {
@@ -57,7 +57,7 @@ export function CheckPanel({ window, draft, onDraftChange, check, onCheckOpened 
         ) : current?.status === 'failed' ? (
           <FormMessage>{current.error ?? 'The check failed; run it again.'}</FormMessage>
         ) : current?.result ? (
-          <VerdictSummary check={current} result={current.result as unknown as AnalysisResult} />
+          <VerdictSummary check={current} result={current.result} />
         ) : null}
       </div>
     </Panel>

@@ -1,14 +1,14 @@
 // The season so far: sightings and mean count per walk for the pest, and the field's past checks.
+import { lazy, Suspense } from 'react';
 import { Link } from 'react-router';
 import type { CheckSummary } from '@shared/schemas/checks.ts';
-import { Bar, CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { Panel } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
-import palette from '../../../../tailwind.config.ts';
 import { useFieldHistory } from '../api/get-field-history.ts';
 import { dateTime, spreadLabels } from '../utils/figures.ts';
+import { ChartPlaceholder } from './chart-placeholder.tsx';
 
-const { patch, field } = palette.theme.extend.colors;
+const WalkHistoryChart = lazy(() => import('./walk-history-chart.tsx').then((m) => ({ default: m.WalkHistoryChart })));
 
 export function FieldHistoryPanel({ fieldId, pestId, reviewHref }: { fieldId: string; pestId?: string; reviewHref: (check: CheckSummary) => string }) {
   const history = useFieldHistory(fieldId, pestId);
@@ -25,18 +25,9 @@ export function FieldHistoryPanel({ fieldId, pestId, reviewHref }: { fieldId: st
           <EmptyState title="No walks yet this season" />
         ) : (
           <figure className="h-56" aria-label="Sightings and mean count per walk">
-            <ResponsiveContainer width="100%" height="100%">
-              <ComposedChart data={rows} margin={{ top: 8, right: 8, bottom: 4, left: 0 }}>
-                <CartesianGrid stroke="#ebdcb4" strokeDasharray="3 3" />
-                <XAxis dataKey="walkedOn" tick={{ fontSize: 11 }} />
-                <YAxis yAxisId="sightings" tick={{ fontSize: 11 }} width={36} allowDecimals={false} />
-                <YAxis yAxisId="mean" orientation="right" tick={{ fontSize: 11 }} width={36} />
-                <Tooltip />
-                <Legend verticalAlign="top" height={22} iconSize={10} wrapperStyle={{ fontSize: 11 }} />
-                <Bar yAxisId="sightings" dataKey="sightings" name="Sightings" fill={field[400]} isAnimationActive={false} />
-                <Line yAxisId="mean" dataKey="meanCount" name="Mean count per stop" stroke={patch[600]} strokeWidth={2} isAnimationActive={false} connectNulls />
-              </ComposedChart>
-            </ResponsiveContainer>
+            <Suspense fallback={<ChartPlaceholder />}>
+              <WalkHistoryChart rows={rows} />
+            </Suspense>
           </figure>
         )}
         <div>

@@ -2,18 +2,17 @@
 // the threshold status and the season — for one field, pest and date window (kept in the address).
 import { lazy, Suspense, useCallback, useEffect, useMemo, useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router';
-import type { AnalysisResult } from '@shared/analysis/analyse.ts';
 import type { CheckView } from '@shared/schemas/checks.ts';
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { AreaText } from '../../../components/area-text.tsx';
-import { useField } from '../api/get-field.ts';
+import { useField } from '../../../lib/api/get-field.ts';
 import { usePests } from '../../../lib/api/get-pests.ts';
-import { useFieldSightings } from '../api/get-field-sightings.ts';
-import { useCheck } from '../api/get-check.ts';
+import { useSightings } from '../../../lib/api/get-sightings.ts';
+import { useCheck } from '../../../lib/api/get-check.ts';
 import { CheckPanel } from './check-panel.tsx';
 import { CheckEvidence } from './check-evidence.tsx';
-import { defaultDraft, optionsFromDraft, type CheckOptionsDraft } from './check-options-form.tsx';
+import { defaultDraft, optionsFromDraft, type CheckOptionsDraft } from '../check-options-draft.ts';
 import { ReviewToolbar, type ReviewWindow } from './review-toolbar.tsx';
 import { SensitivityStrip } from './sensitivity-strip.tsx';
 import { ThresholdStatusPanel } from './threshold-status-panel.tsx';
@@ -39,7 +38,7 @@ export function FieldReviewPage() {
   const from = params.get('from') ?? undefined;
   const to = params.get('to') ?? undefined;
   const checkId = params.get('check');
-  const sightings = useFieldSightings({ fieldId, from, to });
+  const sightings = useSightings({ fieldId, from, to, status: 'placed' });
   const check = useCheck(checkId);
   const [draft, setDraft] = useState<CheckOptionsDraft>(defaultDraft);
   const [selectedId, setSelectedId] = useState<string | null>(null);
@@ -64,7 +63,7 @@ export function FieldReviewPage() {
   const window = pestId ? { fieldId, pestId, from, to } : null;
   const built = optionsFromDraft(draft);
   const request = window && built.ok ? { ...window, options: { ...built.options } } : null;
-  const result = check.data?.status === 'done' && check.data.result && check.data.pestId === pestId ? (check.data.result as unknown as AnalysisResult) : null;
+  const result = check.data?.status === 'done' && check.data.result && check.data.pestId === pestId ? check.data.result : null;
 
   if (field.isPending || pests.isPending) return <PageFrame title="Field review"><LoadingState label="Loading the field…" /></PageFrame>;
   if (field.isError) return <PageFrame title="Field review"><ErrorState error={field.error} onRetry={() => field.refetch()} /></PageFrame>;
@@ -93,7 +92,7 @@ export function FieldReviewPage() {
             <ErrorState error={sightings.error} onRetry={() => sightings.refetch()} />
           ) : (
             <Suspense fallback={<div className="flex h-[40rem] items-center justify-center rounded-lg bg-straw-100"><LoadingState label="Loading the map…" /></div>}>
-              <ReviewMap field={f} sightings={pestSightings} result={result} selectedId={selectedId} onSelect={setSelectedId} />
+              <ReviewMap field={f} sightings={pestSightings} result={result} checkId={result ? (check.data?.id ?? null) : null} selectedId={selectedId} onSelect={setSelectedId} />
             </Suspense>
           )}
         </Panel>

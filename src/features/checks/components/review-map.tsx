@@ -5,7 +5,7 @@ import { GeoJSON, Popup } from 'react-leaflet';
 import type { SightingView } from '@shared/schemas/sightings.ts';
 import type { AnalysisResult } from '@shared/analysis/analyse.ts';
 import { MapFrame } from '../../../components/map-frame.tsx';
-import type { Field } from '../../../types/api.ts';
+import type { FieldView as Field } from '@shared/schemas/fields.ts';
 import palette from '../../../../tailwind.config.ts';
 import { planarToLonLat } from '../utils/planar-to-lonlat.ts';
 import { fixed } from '../utils/figures.ts';
@@ -18,10 +18,12 @@ const { patch } = palette.theme.extend.colors;
 type LayerKey = 'sightings' | 'quadrat' | 'density' | 'zones';
 const layerLabels: Record<LayerKey, string> = { sightings: 'Sightings', quadrat: 'Quadrat grid', density: 'Density surface', zones: 'Proposed zones' };
 
-export function ReviewMap({ field, sightings, result, selectedId, onSelect }: {
+export function ReviewMap({ field, sightings, result, checkId, selectedId, onSelect }: {
   field: Field;
   sightings: SightingView[];
   result: AnalysisResult | null;
+  /** The check the result belongs to: its density grid is fetched only when that layer is switched on. */
+  checkId: string | null;
   selectedId: string | null;
   onSelect: (id: string | null) => void;
 }) {
@@ -54,7 +56,7 @@ export function ReviewMap({ field, sightings, result, selectedId, onSelect }: {
         {!result && <span className="text-xs text-soil-600">Run a check to see its grid, surface and zones.</span>}
       </fieldset>
       <MapFrame boundaries={[{ id: field.id, geometry: field.boundary, label: field.name }]} label={`Map of ${field.name} with ${sightings.length} sightings`} className="h-[38rem]">
-        {shown.density && result?.density && toLonLat && <DensityLayer density={result.density} toLonLat={toLonLat} />}
+        {shown.density && result?.density && checkId && toLonLat && <DensityLayer checkId={checkId} density={result.density} toLonLat={toLonLat} />}
         {shown.quadrat && result?.quadrat && toLonLat && <QuadratGridLayer quadrat={result.quadrat} boundary={field.boundary} toLonLat={toLonLat} />}
         {shown.zones && result && result.zones.features.length > 0 && (
           <GeoJSON key={JSON.stringify(result.zones.features.map((f) => f.properties.areaM2))} data={result.zones} style={{ color: patch[700], weight: 2.5, dashArray: '6 4', fillColor: patch[400], fillOpacity: 0.18 }} />

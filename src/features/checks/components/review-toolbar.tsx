@@ -1,5 +1,5 @@
 // The pest and date window under review: everything on the page follows these three choices.
-import type { Pest } from '../../../types/api.ts';
+import type { PestView as Pest } from '@shared/schemas/pests.ts';
 
 const controlClass = 'block rounded-md border-0 bg-white px-2.5 py-1.5 text-sm text-soil-900 ring-1 ring-inset ring-soil-300 focus:ring-2 focus:ring-field-600';
 

@@ -5,6 +5,7 @@ import { Panel } from '../../../components/page-frame.tsx';
 import { ErrorState } from '../../../components/query-states.tsx';
 import { useRunSensitivity } from '../api/run-sensitivity.ts';
 import { fixed, metres, pText, spreadLabels } from '../utils/figures.ts';
+import type { SpreadVerdict } from '@shared/analysis/spread.ts';
 
 const bases = [
   { key: 'boundary', label: 'Field boundary' },
@@ -12,7 +13,7 @@ const bases = [
   { key: 'hull', label: 'Convex hull' },
 ] as const;
 
-const verdictTone = { clustered: 'bg-patch-100 text-patch-700', random: 'bg-field-50 text-field-800', regular: 'bg-straw-100 text-soil-800', 'too-few': 'bg-soil-300/30 text-soil-700' } as const;
+const verdictTone: Record<SpreadVerdict, string> = { clustered: 'bg-patch-100 text-patch-700', random: 'bg-field-50 text-field-800', regular: 'bg-straw-100 text-soil-800', 'too-few': 'bg-soil-300/30 text-soil-700' };
 
 function StripCell({ row }: { row: SensitivityRow | undefined }) {
   if (!row) return <td className="px-2 py-1.5 text-soil-400">—</td>;

@@ -2,8 +2,8 @@
 // input saves, Escape puts the old value back.
 import { useEffect, useState } from 'react';
 import type { SightingView } from '@shared/schemas/sightings.ts';
-import type { Pest } from '../../../types/api.ts';
-import type { useUpdateSighting } from '../api/update-sighting.ts';
+import type { PestView as Pest } from '@shared/schemas/pests.ts';
+import type { useUpdateSighting } from '../../../lib/api/update-sighting.ts';
 
 type Update = ReturnType<typeof useUpdateSighting>;
 const editorClass = 'rounded border-0 bg-transparent px-1 py-0.5 text-sm ring-1 ring-inset ring-transparent hover:ring-soil-300 focus:bg-white focus:ring-2 focus:ring-field-600 disabled:opacity-60';

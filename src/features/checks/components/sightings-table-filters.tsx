@@ -1,7 +1,7 @@
 // Filters for the review table; the choices come from the sightings themselves, so none leads nowhere.
 import { useMemo } from 'react';
 import type { SightingView } from '@shared/schemas/sightings.ts';
-import type { Pest } from '../../../types/api.ts';
+import type { PestView as Pest } from '@shared/schemas/pests.ts';
 
 export interface TableFilters {
   pestId?: string;

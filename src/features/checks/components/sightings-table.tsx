@@ -17,8 +17,9 @@ import { TableGrid } from '../../../components/table-frame.tsx';
 import { Button } from '../../../components/button.tsx';
 import { FormMessage } from '../../../components/form-field.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
-import type { Pest } from '../../../types/api.ts';
-import { useUpdateSighting } from '../api/update-sighting.ts';
+import type { PestView as Pest } from '@shared/schemas/pests.ts';
+import { useUpdateSighting } from '../../../lib/api/update-sighting.ts';
+import { fieldSightingsQueryKey } from '../../../lib/api/get-sightings.ts';
 import { dateTime } from '../utils/figures.ts';
 import { positionSourceText } from '../utils/position-source-text.ts';
 import { downloadText, sightingsCsv, sightingsGeoJson } from '../utils/sightings-export.ts';
@@ -50,7 +51,7 @@ export function SightingsTable({ fieldId, fieldName, sightings, pests, filters, 
   selectedId: string | null;
   onShowOnMap: (id: string) => void;
 }) {
-  const update = useUpdateSighting(fieldId);
+  const update = useUpdateSighting(fieldSightingsQueryKey(fieldId));
   const [sorting, setSorting] = useState<SortingState>([{ id: 'walkedOn', desc: true }]);
   const [rowSelection, setRowSelection] = useState<RowSelectionState>({});
 

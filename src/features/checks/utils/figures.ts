@@ -1,4 +1,5 @@
 // Formatting of the engine's figures for screen: digits and units only, never a new computation.
+import type { SpreadVerdict } from '@shared/analysis/spread.ts';
 
 const blank = '—';
 
@@ -36,12 +37,12 @@ export const areaBasisLabels = {
   custom: 'Custom area',
 } as const;
 
-export const spreadLabels = {
+export const spreadLabels: Record<SpreadVerdict, string> = {
   clustered: 'Clustered',
   random: 'Random',
   regular: 'Regular',
   'too-few': 'Too few sightings',
-} as const;
+};
 
 export function dateTime(iso: string | null): string {
   if (!iso) return blank;

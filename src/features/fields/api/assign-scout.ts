@@ -1,5 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
+import { fieldQueryKey } from '../../../lib/api/get-field.ts';
+import { fieldListsQueryKey } from '../../../lib/api/get-fields.ts';
 
 export const assignScout = ({ fieldId, userId }: { fieldId: string; userId: string }) =>
   api<void>(`/api/fields/${fieldId}/scouts`, { method: 'POST', body: { userId } });
@@ -9,6 +11,6 @@ export function useAssignScout() {
   return useMutation({
     mutationFn: assignScout,
     onSuccess: (_r, { fieldId }) =>
-      Promise.all([queryClient.invalidateQueries({ queryKey: ['fields', 'detail', fieldId] }), queryClient.invalidateQueries({ queryKey: ['fields', 'list'] })]),
+      Promise.all([queryClient.invalidateQueries({ queryKey: fieldQueryKey(fieldId) }), queryClient.invalidateQueries({ queryKey: fieldListsQueryKey })]),
   });
 }

@@ -7,7 +7,7 @@ import { MapFrame } from '../../../components/map-frame.tsx';
 import { AreaText } from '../../../components/area-text.tsx';
 import { ButtonLink } from '../../../components/button.tsx';
 import { useSignedInUser } from '../../../lib/auth.ts';
-import { useField } from '../api/get-field.ts';
+import { useField } from '../../../lib/api/get-field.ts';
 
 function Fact({ label, children }: { label: string; children: ReactNode }) {
   return (

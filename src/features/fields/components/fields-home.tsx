@@ -5,8 +5,8 @@ import { PageFrame } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { TableFrame } from '../../../components/table-frame.tsx';
 import { AreaText } from '../../../components/area-text.tsx';
-import type { Field } from '../../../types/api.ts';
-import { useFields } from '../api/get-fields.ts';
+import type { FieldView as Field } from '@shared/schemas/fields.ts';
+import { useFields } from '../../../lib/api/get-fields.ts';
 
 const column = createColumnHelper<Field>();
 const columns = [
@@ -47,22 +47,5 @@ export function AdviserFieldsHome() {
         <TableFrame caption="Fields" columns={columns} rows={fields.data} rowId={(f) => f.id} initialSort={[{ id: 'farmName', desc: false }]} />
       )}
     </PageFrame>
-  );
-}
-
-export function FieldCard({ field }: { field: Field }) {
-  return (
-    <li>
-      <Link
-        to={`/fields/${field.id}`}
-        className="block min-h-16 rounded-xl bg-white p-4 shadow-sm ring-1 ring-soil-300/60 hover:ring-field-500 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600 active:bg-field-50"
-      >
-        <span className="block text-lg font-semibold text-field-900">{field.name}</span>
-        <span className="mt-0.5 block text-sm text-soil-700">
-          {field.farmName} · {field.crop} {field.season}
-        </span>
-        <AreaText m2={field.areaM2} className="mt-1 block text-sm" />
-      </Link>
-    </li>
   );
 }

@@ -4,9 +4,9 @@ import type { GrowerNoticeSummary, RecipientState } from '@shared/schemas/notice
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { AreaText } from '../../../components/area-text.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
-import type { Field } from '../../../types/api.ts';
-import { useGrowerFarms } from '../api/get-grower-farms.ts';
-import { useGrowerFields } from '../api/get-grower-fields.ts';
+import type { FieldView as Field } from '@shared/schemas/fields.ts';
+import { useFarms } from '../../../lib/api/get-farms.ts';
+import { useFields } from '../../../lib/api/get-fields.ts';
 import { useGrowerNotices } from '../api/get-grower-notices.ts';
 
 const copyWords: Record<RecipientState, string> = {
@@ -56,8 +56,8 @@ function FarmFields({ fields }: { fields: Field[] }) {
 }
 
 export function GrowerHome() {
-  const farms = useGrowerFarms();
-  const fields = useGrowerFields();
+  const farms = useFarms();
+  const fields = useFields();
   const notices = useGrowerNotices();
   return (
     <PageFrame title="My farms" eyebrow="Your farms, fields and the notices your adviser sent">

@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import type { AcknowledgeResponse } from '@shared/schemas/notices.ts';
-import type { LinkedNotice } from './get-notice-link.ts';
+import { noticeLinkQueryKey, type LinkedNotice } from './get-notice-link.ts';
 
 export const acknowledgeNotice = (token: string) => api<AcknowledgeResponse>(`/api/notice-links/${encodeURIComponent(token)}/acknowledge`, { method: 'POST' });
 
@@ -11,6 +11,6 @@ export function useAcknowledgeNotice(token: string) {
   return useMutation({
     mutationFn: () => acknowledgeNotice(token),
     onSuccess: ({ acknowledgedAt }) =>
-      queryClient.setQueryData<LinkedNotice>(['notice-links', token], (notice) => (notice ? { ...notice, acknowledgedAt } : notice)),
+      queryClient.setQueryData<LinkedNotice>(noticeLinkQueryKey(token), (notice) => (notice ? { ...notice, acknowledgedAt } : notice)),
   });
 }

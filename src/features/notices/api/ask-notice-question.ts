@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import type { NoticeQuestionResponse } from '@shared/schemas/notice-questions.ts';
-import type { LinkedNotice } from './get-notice-link.ts';
+import { noticeLinkQueryKey, type LinkedNotice } from './get-notice-link.ts';
 
 export const askNoticeQuestion = (token: string, text: string) =>
   api<NoticeQuestionResponse>(`/api/notice-links/${encodeURIComponent(token)}/questions`, { method: 'POST', body: { text } });
@@ -12,6 +12,6 @@ export function useAskNoticeQuestion(token: string) {
   return useMutation({
     mutationFn: (text: string) => askNoticeQuestion(token, text),
     onSuccess: ({ question }) =>
-      queryClient.setQueryData<LinkedNotice>(['notice-links', token], (notice) => (notice ? { ...notice, questions: [...notice.questions, question] } : notice)),
+      queryClient.setQueryData<LinkedNotice>(noticeLinkQueryKey(token), (notice) => (notice ? { ...notice, questions: [...notice.questions, question] } : notice)),
   });
 }

@@ -1,6 +1,8 @@
 // Saving the adviser's recommendation as a draft notice for one accepted zone set.
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
+import { noticeQueryKey } from './get-notice.ts';
+import { noticeListsQueryKey } from './get-notices.ts';
 import type { NoticeCreateRequest, NoticeResponse } from '@shared/schemas/notices.ts';
 
 export const createNotice = (request: NoticeCreateRequest) => api<NoticeResponse>('/api/notices', { method: 'POST', body: request }).then((r) => r.notice);
@@ -10,8 +12,8 @@ export function useCreateNotice() {
   return useMutation({
     mutationFn: createNotice,
     onSuccess: (notice) => {
-      queryClient.setQueryData(['notices', 'detail', notice.id], notice);
-      return queryClient.invalidateQueries({ queryKey: ['notices', 'list'] });
+      queryClient.setQueryData(noticeQueryKey(notice.id), notice);
+      return queryClient.invalidateQueries({ queryKey: noticeListsQueryKey });
     },
   });
 }

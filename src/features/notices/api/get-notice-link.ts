@@ -6,5 +6,6 @@ import type { NoticeLinkResponse } from '@shared/schemas/notices.ts';
 export type LinkedNotice = NoticeLinkResponse['notice'];
 
 export const getNoticeLink = (token: string) => api<NoticeLinkResponse>(`/api/notice-links/${encodeURIComponent(token)}`).then((r) => r.notice);
-export const noticeLinkQueryOptions = (token: string) => queryOptions({ queryKey: ['notice-links', token], queryFn: () => getNoticeLink(token), staleTime: Infinity });
+export const noticeLinkQueryKey = (token: string) => ['notice-links', token] as const;
+export const noticeLinkQueryOptions = (token: string) => queryOptions({ queryKey: noticeLinkQueryKey(token), queryFn: () => getNoticeLink(token), staleTime: Infinity });
 export const useNoticeLink = (token: string) => useQuery(noticeLinkQueryOptions(token));

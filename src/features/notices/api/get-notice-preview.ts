@@ -2,9 +2,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import type { NoticePreviewResponse } from '@shared/schemas/notices.ts';
+import { noticeQueryKey } from './get-notice.ts';
 
 export const getNoticePreview = (id: string) => api<NoticePreviewResponse>(`/api/notices/${id}/preview`);
-export const noticePreviewQueryOptions = (id: string) => queryOptions({ queryKey: ['notices', 'detail', id, 'preview'], queryFn: () => getNoticePreview(id) });
+export const noticePreviewQueryOptions = (id: string) => queryOptions({ queryKey: [...noticeQueryKey(id), 'preview'], queryFn: () => getNoticePreview(id) });
 export const useNoticePreview = (id: string, enabled = true) => useQuery({ ...noticePreviewQueryOptions(id), enabled });
 
 async function asDataUrl(blob: Blob) {
@@ -23,5 +24,5 @@ export const getNoticeMapDataUrl = async (mapPath: string) => {
   return asDataUrl(await res.blob());
 };
 export const noticeMapQueryOptions = (id: string, mapPath: string) =>
-  queryOptions({ queryKey: ['notices', 'detail', id, 'map'], queryFn: () => getNoticeMapDataUrl(mapPath), staleTime: Infinity });
+  queryOptions({ queryKey: [...noticeQueryKey(id), 'map'], queryFn: () => getNoticeMapDataUrl(mapPath), staleTime: Infinity });
 export const useNoticeMap = (id: string, mapPath: string | undefined) => useQuery({ ...noticeMapQueryOptions(id, mapPath ?? ''), enabled: Boolean(mapPath) });

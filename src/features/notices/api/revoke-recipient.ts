@@ -1,6 +1,7 @@
 // Withdraws one recipient's notice link (an unsent copy is then not sent).
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
+import { noticeQueryKey } from './get-notice.ts';
 import type { NoticeResponse } from '@shared/schemas/notices.ts';
 
 export const revokeRecipient = ({ noticeId, recipientId }: { noticeId: string; recipientId: string }) =>
@@ -10,6 +11,6 @@ export function useRevokeRecipient() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: revokeRecipient,
-    onSuccess: (notice) => queryClient.setQueryData(['notices', 'detail', notice.id], notice),
+    onSuccess: (notice) => queryClient.setQueryData(noticeQueryKey(notice.id), notice),
   });
 }

@@ -1,6 +1,8 @@
 // Queues one copy per grower contact (or the copies that failed, on a re-send).
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
+import { noticeQueryKey } from './get-notice.ts';
+import { noticeListsQueryKey } from './get-notices.ts';
 import type { NoticeResponse } from '@shared/schemas/notices.ts';
 
 export const sendNotice = (id: string) => api<NoticeResponse>(`/api/notices/${id}/send`, { method: 'POST' }).then((r) => r.notice);
@@ -10,8 +12,8 @@ export function useSendNotice() {
   return useMutation({
     mutationFn: sendNotice,
     onSuccess: (notice) => {
-      queryClient.setQueryData(['notices', 'detail', notice.id], notice);
-      return queryClient.invalidateQueries({ queryKey: ['notices', 'list'] });
+      queryClient.setQueryData(noticeQueryKey(notice.id), notice);
+      return queryClient.invalidateQueries({ queryKey: noticeListsQueryKey });
     },
   });
 }

@@ -8,7 +8,7 @@ import { Button } from '../../../components/button.tsx';
 import { FormMessage, TextAreaField, TextField } from '../../../components/form-field.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { checkForm, errorMessage, serverFieldErrors, type FieldErrors } from '../../../lib/form-errors.ts';
-import { useNoticeZoneSet } from '../api/get-notice-zone-set.ts';
+import { useZoneSet } from '../../../lib/api/get-zone-set.ts';
 import { useCreateNotice } from '../api/create-notice.ts';
 import { NoticeZoneTable } from '../../../components/notice-view/notice-zone-table.tsx';
 import { FieldNoticesPanel } from './field-notices-panel.tsx';
@@ -18,7 +18,7 @@ export function ComposeNoticePage() {
   const [search] = useSearchParams();
   const zoneSetId = search.get('zoneSetId');
   const checkId = search.get('checkId') ?? undefined;
-  const zoneSet = useNoticeZoneSet(zoneSetId);
+  const zoneSet = useZoneSet(zoneSetId);
   const create = useCreateNotice();
   const navigate = useNavigate();
   const [recommendation, setRecommendation] = useState('');

@@ -6,7 +6,7 @@ import { MapFrame, type MapBoundary } from '../../../components/map-frame.tsx';
 import { Button } from '../../../components/button.tsx';
 import { FormMessage } from '../../../components/form-field.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
-import { useUpdateSighting } from '../api/update-sighting.ts';
+import { useUpdateSighting } from '../../../lib/api/update-sighting.ts';
 import { PinByCoordinates } from './pin-by-coordinates.tsx';
 import { PinPicker } from './pin-picker.tsx';
 import { SightingMarkers } from './sighting-markers.tsx';

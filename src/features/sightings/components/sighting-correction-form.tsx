@@ -3,11 +3,11 @@
 import { useState, type FormEvent } from 'react';
 import type { QueryKey } from '@tanstack/react-query';
 import type { SightingUpdateInput, SightingView } from '@shared/schemas/sightings.ts';
-import type { Pest } from '../../../types/api.ts';
+import type { PestView as Pest } from '@shared/schemas/pests.ts';
 import { Button } from '../../../components/button.tsx';
 import { FormMessage, SelectField, TextField } from '../../../components/form-field.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
-import { useUpdateSighting } from '../api/update-sighting.ts';
+import { useUpdateSighting } from '../../../lib/api/update-sighting.ts';
 
 /** What the scout changed, or a sentence saying what to fix in the count. */
 function changeFrom(sighting: SightingView, pestId: string, countText: string): SightingUpdateInput | string {

@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { Link } from 'react-router';
 import type { QueryKey } from '@tanstack/react-query';
 import type { SightingView } from '@shared/schemas/sightings.ts';
-import type { Pest } from '../../../types/api.ts';
+import type { PestView as Pest } from '@shared/schemas/pests.ts';
 import { Button } from '../../../components/button.tsx';
 import { SightingThumbnail } from './sighting-thumbnail.tsx';
 import { SightingCorrectionForm } from './sighting-correction-form.tsx';

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import type { WalkCreateInput, WalkView } from '@shared/schemas/walks.ts';
+import { walksQueryKey } from './get-walks.ts';
 
 export const createWalk = (input: WalkCreateInput) => api<{ walk: WalkView }>('/api/walks', { method: 'POST', body: input });
 
@@ -8,6 +9,6 @@ export function useCreateWalk() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createWalk,
-    onSuccess: ({ walk }) => queryClient.invalidateQueries({ queryKey: ['walks', 'list', { fieldId: walk.fieldId }] }),
+    onSuccess: ({ walk }) => queryClient.invalidateQueries({ queryKey: walksQueryKey(walk.fieldId) }),
   });
 }

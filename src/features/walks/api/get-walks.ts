@@ -4,6 +4,10 @@ import type { WalkListResponse } from '@shared/schemas/walks.ts';
 
 export const getWalks = (fieldId: string) => api<WalkListResponse>('/api/walks', { query: { fieldId } });
 
-export const walksQueryOptions = (fieldId: string) => queryOptions({ queryKey: ['walks', 'list', { fieldId }], queryFn: () => getWalks(fieldId) });
+/** Every field's walk list (a photo uploaded without a walk may start one on any field). */
+export const walkListsQueryKey = ['walks', 'list'] as const;
+export const walksQueryKey = (fieldId: string) => [...walkListsQueryKey, { fieldId }] as const;
+
+export const walksQueryOptions = (fieldId: string) => queryOptions({ queryKey: walksQueryKey(fieldId), queryFn: () => getWalks(fieldId) });
 
 export const useWalks = (fieldId: string) => useQuery(walksQueryOptions(fieldId));

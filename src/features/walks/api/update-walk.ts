@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import type { WalkUpdateInput, WalkView } from '@shared/schemas/walks.ts';
 import { walkQueryKey } from './get-walk.ts';
+import { walksQueryKey } from './get-walks.ts';
 
 export const updateWalk = (walkId: string, input: WalkUpdateInput) => api<{ walk: WalkView }>(`/api/walks/${encodeURIComponent(walkId)}`, { method: 'PATCH', body: input });
 
@@ -12,7 +13,7 @@ export function useUpdateWalk(walkId: string) {
     onSuccess: ({ walk }) =>
       Promise.all([
         queryClient.invalidateQueries({ queryKey: walkQueryKey(walkId) }),
-        queryClient.invalidateQueries({ queryKey: ['walks', 'list', { fieldId: walk.fieldId }] }),
+        queryClient.invalidateQueries({ queryKey: walksQueryKey(walk.fieldId) }),
       ]),
   });
 }

@@ -9,7 +9,7 @@ import { AreaText } from '../../../components/area-text.tsx';
 import { ErrorState, LoadingState, EmptyState } from '../../../components/query-states.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
 import { useSignedInUser } from '../../../lib/auth.ts';
-import { fieldQueryOptions } from '../../fields/api/get-field.ts';
+import { fieldQueryOptions } from '../../../lib/api/get-field.ts';
 import { useWalks } from '../api/get-walks.ts';
 import { useCreateWalk } from '../api/create-walk.ts';
 import { scoutPaths } from '../paths.ts';

@@ -4,7 +4,7 @@ import { PageFrame } from '../../../components/page-frame.tsx';
 import { ButtonLink } from '../../../components/button.tsx';
 import { AreaText } from '../../../components/area-text.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
-import { useFields } from '../../fields/api/get-fields.ts';
+import { useFields } from '../../../lib/api/get-fields.ts';
 import { scoutPaths } from '../paths.ts';
 
 export function MyFieldsPage() {

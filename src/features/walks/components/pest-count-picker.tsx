@@ -1,5 +1,5 @@
 // What the batch is about: the pest (from the pest library, with its count unit) and a count for every photo.
-import type { Pest } from '../../../types/api.ts';
+import type { PestView as Pest } from '@shared/schemas/pests.ts';
 import { SelectField, TextField } from '../../../components/form-field.tsx';
 
 export function PestCountPicker({

@@ -4,7 +4,7 @@ import { PageFrame } from '../../../components/page-frame.tsx';
 import { ButtonLink } from '../../../components/button.tsx';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { useQuery } from '@tanstack/react-query';
-import { fieldQueryOptions } from '../../fields/api/get-field.ts';
+import { fieldQueryOptions } from '../../../lib/api/get-field.ts';
 import { PinSightingPanel } from '../../sightings/components/pin-sighting-panel.tsx';
 import { useWalk, walkQueryKey } from '../api/get-walk.ts';
 import { scoutPaths } from '../paths.ts';

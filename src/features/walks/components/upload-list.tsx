@@ -1,4 +1,4 @@
-import type { UploadEntry } from '../hooks/upload-store.ts';
+import type { UploadEntry } from '../upload-queue.ts';
 import { UploadRow } from './upload-row.tsx';
 
 export function UploadList({ entries, pinnedIds, canRetry, onRetry, onRemove, onCount, batchCount, linkToWalk }: {

@@ -2,7 +2,7 @@
 import { Link } from 'react-router';
 import type { PhotoOutcome } from '@shared/schemas/sightings.ts';
 import { Button, buttonClass } from '../../../components/button.tsx';
-import type { UploadEntry } from '../hooks/upload-store.ts';
+import type { UploadEntry } from '../upload-queue.ts';
 import { scoutPaths } from '../paths.ts';
 
 const metres = new Intl.NumberFormat('en', { maximumFractionDigits: 0 });

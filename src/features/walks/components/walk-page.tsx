@@ -3,7 +3,7 @@ import { useParams } from 'react-router';
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { useQuery } from '@tanstack/react-query';
-import { fieldQueryOptions } from '../../fields/api/get-field.ts';
+import { fieldQueryOptions } from '../../../lib/api/get-field.ts';
 import { usePests } from '../../../lib/api/get-pests.ts';
 import { SightingList } from '../../sightings/components/sighting-list.tsx';
 import { useWalk, walkQueryKey } from '../api/get-walk.ts';

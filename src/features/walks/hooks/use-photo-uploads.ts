@@ -3,7 +3,9 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { csrfTokenForUpload, uploadPhoto, PhotoUploadError } from '../api/upload-photo.ts';
 import { walkQueryKey } from '../api/get-walk.ts';
-import { loadEntries, newClientId, saveEntries, type UploadEntry } from './upload-store.ts';
+import { walkListsQueryKey } from '../api/get-walks.ts';
+import { countFor, drainQueue, entriesToSend, failed, readyEntry, withChange, type BatchTags, type UploadEntry } from '../upload-queue.ts';
+import { loadEntries, newClientId, saveEntries } from './upload-store.ts';
 
 const PARALLEL_UPLOADS = 2;
 
@@ -11,17 +13,6 @@ export interface UploadTarget {
   /** Photos go into this walk; without it the server finds the field and walk from each photo's position. */
   walkId?: string;
   fieldId?: string;
-}
-
-export interface BatchTags {
-  pestId: string;
-  /** The batch count; a per-photo count overrides it. */
-  count: string;
-}
-
-function countFor(entry: UploadEntry, batch: BatchTags): number | undefined {
-  const text = entry.count.trim() || batch.count.trim();
-  return text === '' ? undefined : Number(text);
 }
 
 export function usePhotoUploads(target: UploadTarget) {
@@ -35,7 +26,7 @@ export function usePhotoUploads(target: UploadTarget) {
   useEffect(() => saveEntries(scope, entries), [scope, entries]);
 
   const patch = useCallback((clientId: string, change: Partial<UploadEntry>) => {
-    setEntries((list) => list.map((e) => (e.clientId === clientId ? { ...e, ...change } : e)));
+    setEntries((list) => withChange(list, clientId, change));
   }, []);
 
   const addFiles = useCallback((chosen: FileList | File[]) => {
@@ -43,7 +34,7 @@ export function usePhotoUploads(target: UploadTarget) {
     for (const file of Array.from(chosen)) {
       const clientId = newClientId();
       files.current.set(clientId, file);
-      added.push({ clientId, fileName: file.name, sizeBytes: file.size, state: 'ready', progress: 0, count: '' });
+      added.push(readyEntry(clientId, file));
     }
     setEntries((list) => [...list, ...added]);
   }, []);
@@ -68,10 +59,11 @@ export function usePhotoUploads(target: UploadTarget) {
         files.current.delete(entry.clientId);
         const walkId = outcome.walkId ?? target.walkId;
         if (walkId) void queryClient.invalidateQueries({ queryKey: walkQueryKey(walkId) });
-        void queryClient.invalidateQueries({ queryKey: ['walks', 'list'] });
+        // A photo without a walk may have started one on whichever field it fell in.
+        void queryClient.invalidateQueries({ queryKey: walkListsQueryKey });
       } catch (error) {
         const retryable = error instanceof PhotoUploadError ? error.retryable : true;
-        patch(entry.clientId, { state: 'failed', error: { message: (error as Error).message, retryable } });
+        patch(entry.clientId, failed((error as Error).message, retryable));
       }
     },
     [patch, queryClient, target.walkId, target.fieldId],
@@ -80,11 +72,7 @@ export function usePhotoUploads(target: UploadTarget) {
   /** Sends the given photos (all ready ones by default) a few at a time. */
   const send = useCallback(
     async (batch: BatchTags, only?: string[]) => {
-      const queue = entriesRef.current.filter((e) => (only ? only.includes(e.clientId) : e.state === 'ready'));
-      const worker = async () => {
-        for (let next = queue.shift(); next; next = queue.shift()) await sendOne(next, batch);
-      };
-      await Promise.all(Array.from({ length: PARALLEL_UPLOADS }, worker));
+      await drainQueue(entriesToSend(entriesRef.current, only), PARALLEL_UPLOADS, (entry) => sendOne(entry, batch));
     },
     [sendOne],
   );

@@ -3,10 +3,9 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import type { ZoneSetListResponse } from '@shared/schemas/zones.ts';
 
-export type ZoneSetSummary = ZoneSetListResponse['zoneSets'][number];
-
 export const getZoneSets = (fieldId: string) => api<ZoneSetListResponse>(`/api/fields/${fieldId}/zone-sets`).then((r) => r.zoneSets);
-export const zoneSetsQueryOptions = (fieldId: string) => queryOptions({ queryKey: ['zone-sets', 'list', fieldId], queryFn: () => getZoneSets(fieldId) });
+export const zoneSetsQueryKey = (fieldId: string) => ['zone-sets', 'list', fieldId] as const;
+export const zoneSetsQueryOptions = (fieldId: string) => queryOptions({ queryKey: zoneSetsQueryKey(fieldId), queryFn: () => getZoneSets(fieldId) });
 export const useZoneSets = (fieldId: string) => useQuery(zoneSetsQueryOptions(fieldId));
 
 /** Where a version downloads as a file (the server names it). */

@@ -5,7 +5,7 @@ import L from 'leaflet';
 import type { MultiPolygon, Polygon } from 'geojson';
 import { useMap } from 'react-leaflet';
 import { addPolygonEditing } from '../../../components/map-editing.ts';
-import type { WorkingZone } from './working-zones.ts';
+import type { WorkingZone } from '../working-zones.ts';
 
 export const zoneStyle: L.PathOptions = { color: '#9a3f14', weight: 2, fillColor: '#f08a4b', fillOpacity: 0.4 };
 

@@ -11,10 +11,10 @@ import { Button, ButtonLink } from '../../../components/button.tsx';
 import { FormMessage, SelectField } from '../../../components/form-field.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
-import { useZoneField } from '../api/get-zone-field.ts';
-import { useZoneCheck } from '../api/get-zone-check.ts';
-import { useZonePests } from '../api/get-zone-pests.ts';
-import { useZoneSightings } from '../api/get-zone-sightings.ts';
+import { useField } from '../../../lib/api/get-field.ts';
+import { useCheck } from '../../../lib/api/get-check.ts';
+import { usePests } from '../../../lib/api/get-pests.ts';
+import { useSightings } from '../../../lib/api/get-sightings.ts';
 import { useZoneProposal, type ZoneProposal } from '../api/propose-zones.ts';
 import { useCreateZoneSet } from '../api/create-zone-set.ts';
 import { ProposalControls } from './proposal-controls.tsx';
@@ -22,7 +22,7 @@ import { NewProposalChoice } from './new-proposal-choice.tsx';
 import { ZoneEditLayer, type ZoneEditHandlers } from './zone-edit-layer.tsx';
 import { ZoneTable } from './zone-table.tsx';
 import { ZoneVersionsPanel } from './zone-versions-panel.tsx';
-import { newZoneKey, nextZoneLabel, treatedAreaM2, zoneFigures, zonesForAcceptance, zonesFromProposal, type SightingPoint, type WorkingZone } from './working-zones.ts';
+import { addDrawnZone, foundSightingPoints, removeZone, reshapeZone, treatedAreaM2, zoneFigures, zonesForAcceptance, zonesFromProposal, type WorkingZone } from '../working-zones.ts';
 
 const percent = new Intl.NumberFormat('en', { style: 'percent', maximumFractionDigits: 1 });
 
@@ -30,13 +30,13 @@ export function ZoneEditorPage() {
   const { fieldId = '' } = useParams();
   const [search] = useSearchParams();
   const checkId = search.get('checkId');
-  const field = useZoneField(fieldId);
-  const check = useZoneCheck(checkId);
-  const pests = useZonePests();
+  const field = useField(fieldId);
+  const check = useCheck(checkId);
+  const pests = usePests(false);
   const [chosenPestId, setChosenPestId] = useState('');
   const pestId = check.data?.pestId ?? (checkId ? null : chosenPestId || null);
   const pest = pests.data?.find((p) => p.id === pestId) ?? null;
-  const sightings = useZoneSightings(fieldId, pestId);
+  const sightings = useSightings({ fieldId, pestId: pestId ?? undefined, status: 'placed' }, Boolean(pestId));
 
   const [request, setRequest] = useState<ZoneProposalRequest>({ source: 'density' });
   const onRequest = useCallback((next: ZoneProposalRequest) => setRequest(next), []);
@@ -77,28 +77,21 @@ export function ZoneEditorPage() {
     () => ({
       onReshape: (key, geometry) => {
         markHandEdited();
-        setZones((all) => all.map((z) => (z.key === key ? { ...z, geometry, origin: z.origin === 'drawn' ? 'drawn' : 'edited', proposed: undefined } : z)));
+        setZones((all) => reshapeZone(all, key, geometry));
       },
       onRemove: (key) => {
         markHandEdited();
-        setZones((all) => all.filter((z) => z.key !== key));
+        setZones((all) => removeZone(all, key));
       },
       onDraw: (geometry) => {
         markHandEdited();
-        const all = zonesNow.current;
-        replaceZones([...all, { key: newZoneKey(), label: nextZoneLabel(all), geometry, origin: 'drawn' }]);
+        replaceZones(addDrawnZone(zonesNow.current, geometry));
       },
     }),
     [replaceZones],
   );
 
-  // Sightings where the pest was found: those of the check, or all on the field for zones drawn without one.
-  const points = useMemo<SightingPoint[]>(() => {
-    const inCheck = check.data ? new Set(check.data.sightingIds) : null;
-    return (sightings.data ?? [])
-      .filter((s) => s.position && s.count !== 0 && (!inCheck || inCheck.has(s.id)))
-      .map((s) => [s.position!.lon, s.position!.lat]);
-  }, [sightings.data, check.data]);
+  const points = useMemo(() => foundSightingPoints(sightings.data ?? [], check.data?.sightingIds ?? null), [sightings.data, check.data]);
 
   const accept = useCreateZoneSet();
   const fieldAreaM2 = field.data?.areaM2 ?? 0;
@@ -206,7 +199,7 @@ export function ZoneEditorPage() {
             rows={rows}
             onDelete={(key) => {
               markHandEdited();
-              replaceZones(zones.filter((z) => z.key !== key));
+              replaceZones(removeZone(zones, key));
             }}
           />
         )}

@@ -3,7 +3,7 @@ import { createColumnHelper } from '@tanstack/react-table';
 import { toAcres, toHectares } from '@shared/units/area.ts';
 import { TableFrame } from '../../../components/table-frame.tsx';
 import { Button } from '../../../components/button.tsx';
-import type { WorkingZone, ZoneFigures } from './working-zones.ts';
+import type { WorkingZone, ZoneFigures } from '../working-zones.ts';
 
 export interface ZoneRow {
   zone: WorkingZone;

@@ -1,11 +1,16 @@
-// The density surface as one image over the field: the engine's grid painted cell by cell on a canvas
-// in the single-hue density ramp; cells outside the field (null) stay transparent, which clips it.
+// The density surface as one image over the field: the engine's grid (fetched apart from the check's figures when
+// this layer opens) painted cell by cell on a canvas in the single-hue density ramp; cells outside the field (NaN)
+// stay transparent, which clips it.
 import { useMemo } from 'react';
 import { ImageOverlay } from 'react-leaflet';
 import type { LatLngBoundsExpression } from 'leaflet';
 import type { DensityResult } from '@shared/analysis/density.ts';
 import palette from '../../../../../tailwind.config.ts';
 import type { ToLonLat } from '../../utils/planar-to-lonlat.ts';
+import { useDensityGrid } from '../../api/get-density-grid.ts';
+
+/** The density figures the check carries; the grid itself comes from its own route. */
+type DensityFigures = Pick<DensityResult, 'cols' | 'rows' | 'cellSizeM' | 'originX' | 'originY' | 'maxPerHa'>;
 
 export const densityRamp = Object.values(palette.theme.extend.colors.density);
 
@@ -20,7 +25,7 @@ export function rampIndex(value: number, max: number) {
   return Math.min(densityRamp.length - 1, Math.floor((value / max) * densityRamp.length));
 }
 
-function paint(density: DensityResult): string | null {
+function paint(density: DensityFigures, perHa: Float64Array): string | null {
   const canvas = document.createElement('canvas');
   canvas.width = density.cols;
   canvas.height = density.rows;
@@ -30,8 +35,8 @@ function paint(density: DensityResult): string | null {
   const colours = densityRamp.map(rgb);
   for (let row = 0; row < density.rows; row++) {
     for (let col = 0; col < density.cols; col++) {
-      const value = density.perHa[row * density.cols + col];
-      if (value === null || value <= 0) continue;
+      const value = perHa[row * density.cols + col];
+      if (!(value > 0)) continue;
       // The engine's rows run from the south; the image's from the top.
       const offset = ((density.rows - 1 - row) * density.cols + col) * 4;
       const [r, g, b] = colours[rampIndex(value, density.maxPerHa)];
@@ -45,9 +50,11 @@ function paint(density: DensityResult): string | null {
   return canvas.toDataURL('image/png');
 }
 
-export function DensityLayer({ density, toLonLat }: { density: DensityResult; toLonLat: ToLonLat }) {
+export function DensityLayer({ checkId, density, toLonLat }: { checkId: string; density: DensityFigures; toLonLat: ToLonLat }) {
+  const grid = useDensityGrid(checkId);
   const picture = useMemo(() => {
-    const url = paint(density);
+    if (!grid.data || grid.data.length !== density.cols * density.rows) return null;
+    const url = paint(density, grid.data);
     const [west, south] = toLonLat(density.originX, density.originY);
     const [east, north] = toLonLat(density.originX + density.cols * density.cellSizeM, density.originY + density.rows * density.cellSizeM);
     const bounds: LatLngBoundsExpression = [
@@ -55,7 +62,7 @@ export function DensityLayer({ density, toLonLat }: { density: DensityResult; to
       [north, east],
     ];
     return url ? { url, bounds } : null;
-  }, [density, toLonLat]);
+  }, [density, toLonLat, grid.data]);
   if (!picture) return null;
   return <ImageOverlay key={picture.url.length + String(picture.bounds)} url={picture.url} bounds={picture.bounds} opacity={0.85} className="density-surface" />;
 }

@@ -1,0 +1,54 @@
+// A check's stored answer in two parts: the figures (JSON) and the density grid (binary), so reading a check
+// never drags the grid along and the figures stay within a stated size.
+import type { AnalysisResult } from '../../shared/analysis/analyse.ts';
+import type { DensityResult } from '../../shared/analysis/density.ts';
+
+/** The most bytes a check's stored figures may take (JSON, density grid excluded); 5,000 sightings take about 1 MB. */
+export const MAX_FIGURES_BYTES = 4 * 1024 * 1024;
+
+/** The density figures as stored and served: everything but the grid, which has a route of its own. */
+export type StoredDensity = Omit<DensityResult, 'perHa'>;
+
+export interface SplitResult {
+  figuresJson: string;
+  /** Row-major from the south, sightings per ha as the engine computed them (64-bit); NaN where the cell centre lies outside the field. */
+  densityGrid: Float64Array | null;
+  figuresBytes: number;
+}
+
+/** Splits the engine's result into its figures and its density grid, without changing any figure. */
+export function splitResult(result: AnalysisResult): SplitResult {
+  const density = result.density;
+  let densityGrid: Float64Array | null = null;
+  let storedDensity: StoredDensity | null = null;
+  if (density) {
+    const { perHa, ...rest } = density;
+    densityGrid = Float64Array.from(perHa, (value) => (value === null ? Number.NaN : value));
+    storedDensity = rest;
+  }
+  const figuresJson = JSON.stringify({ ...result, density: storedDensity });
+  return { figuresJson, densityGrid, figuresBytes: Buffer.byteLength(figuresJson, 'utf8') };
+}
+
+/** The largest parts of the figures, for the sentence that says which option to change. */
+function largestPart(result: AnalysisResult): string {
+  const sizes: Array<[string, number]> = [
+    ['quadrat cells (choose a larger quadrat cell size)', JSON.stringify(result.quadrat ?? null).length],
+    ['per-stop figures (check fewer sightings, for example a shorter date window)', JSON.stringify(result.counts ?? null).length],
+    ['Ripley figures (give fewer Ripley radii)', JSON.stringify(result.ripley ?? null).length],
+    ['proposed zones (raise the zone threshold or the smallest zone area)', JSON.stringify(result.zones ?? null).length],
+  ];
+  return sizes.sort((a, b) => b[1] - a[1])[0][0];
+}
+
+/** The sentence for figures over the bound, or null when they fit. */
+export function oversizeMessage(result: AnalysisResult, figuresBytes: number): string | null {
+  if (figuresBytes <= MAX_FIGURES_BYTES) return null;
+  const mb = (bytes: number) => (bytes / (1024 * 1024)).toFixed(1);
+  return `This check's figures would take ${mb(figuresBytes)} MB, over the ${mb(MAX_FIGURES_BYTES)} MB a check may store; most of it is ${largestPart(result)}.`;
+}
+
+/** The stored grid back as the engine's perHa list (null outside the field), for code that needs the surface. */
+export function densityValues(grid: Float64Array): (number | null)[] {
+  return Array.from(grid, (value) => (Number.isNaN(value) ? null : value));
+}

@@ -1,0 +1,31 @@
+// Sightings (bars) and mean count per stop (line) for each walk of the season: recharts, loaded only when
+// the history panel has walks to show.
+import { Bar, CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
+import palette from '../../../../tailwind.config.ts';
+
+const { patch, field } = palette.theme.extend.colors;
+
+export interface WalkHistoryRow {
+  walkedOn: string;
+  scout: string;
+  sightings: number;
+  stops: number;
+  meanCount: number | null;
+}
+
+export function WalkHistoryChart({ rows }: { rows: WalkHistoryRow[] }) {
+  return (
+    <ResponsiveContainer width="100%" height="100%">
+      <ComposedChart data={rows} margin={{ top: 8, right: 8, bottom: 4, left: 0 }}>
+        <CartesianGrid stroke="#ebdcb4" strokeDasharray="3 3" />
+        <XAxis dataKey="walkedOn" tick={{ fontSize: 11 }} />
+        <YAxis yAxisId="sightings" tick={{ fontSize: 11 }} width={36} allowDecimals={false} />
+        <YAxis yAxisId="mean" orientation="right" tick={{ fontSize: 11 }} width={36} />
+        <Tooltip />
+        <Legend verticalAlign="top" height={22} iconSize={10} wrapperStyle={{ fontSize: 11 }} />
+        <Bar yAxisId="sightings" dataKey="sightings" name="Sightings" fill={field[400]} isAnimationActive={false} />
+        <Line yAxisId="mean" dataKey="meanCount" name="Mean count per stop" stroke={patch[600]} strokeWidth={2} isAnimationActive={false} connectNulls />
+      </ComposedChart>
+    </ResponsiveContainer>
+  );
+}

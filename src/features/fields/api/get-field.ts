@@ -1,7 +1,0 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client.ts';
-import type { Field } from '../../../types/api.ts';
-
-export const getField = (id: string) => api<{ field: Field }>(`/api/fields/${id}`).then((r) => r.field);
-export const fieldQueryOptions = (id: string) => queryOptions({ queryKey: ['fields', 'detail', id], queryFn: () => getField(id) });
-export const useField = (id: string) => useQuery(fieldQueryOptions(id));
