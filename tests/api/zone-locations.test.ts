@@ -9,10 +9,14 @@ import { compassPoint } from '../../server/services/zone-locations.ts';
 import { signedIn, type Client } from '../helpers/http.ts';
 import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
 import { makeField, makePest } from '../helpers/sightings.ts';
+import { addContacts } from '../helpers/zones.ts';
+import { QueryTypes } from 'sequelize';
+import { sequelize } from '../../server/db.ts';
 
 let org: TestOrganisation;
 let adviser: Client;
 let noticeId: string;
+let farmId: string;
 
 /** A small square (0.0004° × 0.0003°) around a centre, so the centre is its centroid by symmetry. */
 const square = (lon: number, lat: number): Polygon => ({
@@ -39,6 +43,7 @@ beforeAll(async () => {
   org = await makeOrganisation('Zone locations');
   adviser = await signedIn(org.users.adviser.email);
   const field = await makeField(org);
+  farmId = field.farmId;
   const pest = await makePest(org);
   const zones = { type: 'FeatureCollection', features: expected.map((z) => ({ type: 'Feature', properties: { label: z.label }, geometry: square(z.centre.lon, z.centre.lat) })) };
   const zoneSet = (await adviser.post(`/api/fields/${field.id}/zone-sets`, { pestId: pest.id, zones }).expect(201)).body.zoneSet;
@@ -72,6 +77,17 @@ describe('where each zone of a notice is', () => {
     expect(html).toContain('>Centre (lat, lon)</th>');
     expect(html).toContain('>41.20050, -96.59900</td>');
     expect(html).toContain('>100 m NE of the field corner at 41.20000, -96.60000</td>');
+  });
+
+  it('keeps the locations in the snapshot stored when the notice is sent', async () => {
+    await addContacts(farmId, [{ name: 'Dot Furrow', email: `dot-${org.id.slice(0, 8)}@farm.example` }]);
+    await adviser.post(`/api/notices/${noticeId}/send`).expect(202);
+    const [row] = await sequelize.query<{ locations: Array<{ distanceM: number; direction: string }> }>(
+      `SELECT jsonb_path_query_array(material, '$.content.zones[*].location') AS locations FROM notices WHERE id = :noticeId`,
+      { replacements: { noticeId }, type: QueryTypes.SELECT },
+    );
+    expect(row.locations.map((l) => l.direction)).toEqual(expected.map((z) => z.direction));
+    row.locations.forEach((l, i) => expect(Math.abs(l.distanceM - expected[i].distanceM)).toBeLessThan(0.05));
   });
 
   it.each([
