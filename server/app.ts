@@ -82,10 +82,11 @@ export function createApp(options: AppOptions = {}): Express {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
-  // The one public POST: a grower acknowledging a notice from the e-mailed link, without a session. Exempt from
-  // CSRF only because the unguessable token in the path is itself the credential (a forged request cannot know it).
-  const noticeAcknowledgement = /^\/notice-links\/[^/]+\/acknowledge$/;
-  app.use('/api', (req, res, next) => (req.method === 'POST' && noticeAcknowledgement.test(req.path) ? next() : csrfProtection(req, res, next)));
+  // The public POSTs of the e-mailed link, without a session: a grower acknowledging a notice, and the page recording
+  // its opening. Exempt from CSRF only because the unguessable token in the path is itself the credential (a forged
+  // request cannot know it).
+  const noticeLinkPost = /^\/notice-links\/[^/]+\/(acknowledge|opened)$/;
+  app.use('/api', (req, res, next) => (req.method === 'POST' && noticeLinkPost.test(req.path) ? next() : csrfProtection(req, res, next)));
 
   app.use('/api/auth', authRouter);
   app.use('/api/config', configRouter);

@@ -1,6 +1,6 @@
 // Sends zone-notice copies from the queue; a thrown error makes pg-boss retry with the copy's back-off.
 import { defineWorker } from './workers.ts';
-import { NOTICE_QUEUE } from '../services/notices.ts';
+import { NOTICE_QUEUE } from '../services/notice-sending.ts';
 import { deliverNoticeCopy } from '../services/notice-mail.ts';
 
 defineWorker({

@@ -1,6 +1,6 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional } from 'sequelize';
 import { sequelize } from '../db.ts';
-import type { NoticeStatus } from '../../shared/schemas/notices.ts';
+import type { NoticeMaterial, NoticeStatus } from '../../shared/schemas/notices.ts';
 
 /** A zone notice: the adviser's message to a farm's grower contacts about one zone set. */
 export class Notice extends Model<InferAttributes<Notice>, InferCreationAttributes<Notice>> {
@@ -16,6 +16,8 @@ export class Notice extends Model<InferAttributes<Notice>, InferCreationAttribut
   declare status: CreationOptional<NoticeStatus>;
   declare createdBy: string;
   declare sentAt: CreationOptional<Date | null>;
+  /** The snapshot of what the notice showed when it was sent; null for drafts. */
+  declare material: CreationOptional<NoticeMaterial | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -33,6 +35,7 @@ Notice.init(
     status: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'draft' },
     createdBy: { type: DataTypes.UUID, allowNull: false },
     sentAt: { type: DataTypes.DATE, allowNull: true },
+    material: { type: DataTypes.JSONB, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

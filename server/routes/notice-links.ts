@@ -2,7 +2,10 @@ import { Router } from 'express';
 import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
 import { z } from 'zod';
 import { AppError } from '../errors.ts';
-import { acknowledge, linkRefused, mapForLink, noticeForLink, resolveNoticeToken } from '../services/notice-links.ts';
+import { acknowledge, linkAsker, linkRefused, mapForLink, markOpened, noticeForLink, resolveNoticeToken } from '../services/notice-links.ts';
+import { askQuestion } from '../services/notice-questions.ts';
+import { parse } from '../middleware/validate.ts';
+import { noticeQuestionSchema } from '../../shared/schemas/notice-questions.ts';
 import { noticeMachineFile } from '../services/zone-files/zone-machine-files.ts';
 import { sendMachineFile } from './machine-file-response.ts';
 
@@ -32,10 +35,23 @@ noticeLinksRouter.get('/:token', async (req, res) => {
   res.json({ notice: await noticeForLink(token(req.params)) });
 });
 
+// The page reports that it was opened (not the GET: mail scanners and previews fetch links by themselves).
+noticeLinksRouter.post('/:token/opened', async (req, res) => {
+  const copy = await resolveNoticeToken(token(req.params));
+  const { openedAt, alreadyOpened } = await markOpened(copy.recipientId);
+  res.json({ openedAt: openedAt.toISOString(), alreadyOpened });
+});
+
 noticeLinksRouter.post('/:token/acknowledge', async (req, res) => {
   const copy = await resolveNoticeToken(token(req.params));
   const { acknowledgedAt, alreadyAcknowledged } = await acknowledge(copy.recipientId);
   res.json({ acknowledgedAt: acknowledgedAt.toISOString(), alreadyAcknowledged });
+});
+
+noticeLinksRouter.post('/:token/questions', async (req, res) => {
+  const copy = await resolveNoticeToken(token(req.params));
+  const { text } = parse(noticeQuestionSchema, req.body);
+  res.status(201).json(await askQuestion(copy.noticeId, linkAsker(copy), text));
 });
 
 noticeLinksRouter.get('/:token/map.png', async (req, res) => {

@@ -3,7 +3,12 @@ import { z } from 'zod';
 import { requireRole, actor } from '../middleware/access.ts';
 import { parse } from '../middleware/validate.ts';
 import { noticeCreateSchema } from '../../shared/schemas/notices.ts';
-import { createNotice, getNotice, listNotices, noticeMaterial, revokeRecipient, sendNotice } from '../services/notices.ts';
+import { createNotice } from '../services/notice-drafts.ts';
+import { getNotice, listNotices } from '../services/notice-reading.ts';
+import { noticeMaterial } from '../services/notice-material.ts';
+import { revokeRecipient, sendNotice } from '../services/notice-sending.ts';
+import { answerQuestion, listNoticeQuestions } from '../services/notice-questions.ts';
+import { noticeAnswerSchema } from '../../shared/schemas/notice-questions.ts';
 import { composeNoticeMail, PREVIEW_LINK } from '../services/notice-mail.ts';
 import { renderNoticeMap } from '../services/notice-map.ts';
 
@@ -11,6 +16,7 @@ import { renderNoticeMap } from '../services/notice-map.ts';
 export const noticesRouter = Router();
 const idParam = z.object({ id: z.uuid({ error: 'That notice id is not valid.' }) });
 const recipientParam = idParam.extend({ rid: z.uuid({ error: 'That recipient id is not valid.' }) });
+const questionParam = idParam.extend({ qid: z.uuid({ error: 'That question id is not valid.' }) });
 const listQuery = z.object({ fieldId: z.uuid({ error: 'That field id is not valid.' }).optional() });
 
 noticesRouter.use(requireRole('admin', 'adviser'));
@@ -46,4 +52,13 @@ noticesRouter.post('/:id/send', async (req, res) => {
 noticesRouter.post('/:id/recipients/:rid/revoke', async (req, res) => {
   const { id, rid } = parse(recipientParam, req.params);
   res.json({ notice: await revokeRecipient(actor(req), id, rid) });
+});
+
+noticesRouter.get('/:id/questions', async (req, res) => {
+  res.json({ questions: await listNoticeQuestions(actor(req), parse(idParam, req.params).id) });
+});
+
+noticesRouter.post('/:id/questions/:qid/answer', async (req, res) => {
+  const { id, qid } = parse(questionParam, req.params);
+  res.json(await answerQuestion(actor(req), id, qid, parse(noticeAnswerSchema, req.body).text));
 });

@@ -5,7 +5,8 @@ import type { Actor } from '../auth/passport.ts';
 import { thresholdStatus } from '../../shared/thresholds/threshold-status.ts';
 import type { ThresholdBasis } from '../../shared/schemas/pests.ts';
 import type { AttentionField, AttentionResponse } from '../../shared/schemas/checks.ts';
-import { listUnacknowledgedNotices } from './notices.ts';
+import { listUnacknowledgedNotices } from './notice-reading.ts';
+import { listWaitingGrowerQuestions } from './notice-questions.ts';
 
 interface LatestCheckRow {
   checkId: string;
@@ -121,5 +122,7 @@ export async function fieldsNeedingAttention(actor: Actor): Promise<AttentionRes
   }));
   // Sent notices that no grower has acknowledged yet.
   const unacknowledgedNotices = await listUnacknowledgedNotices(actor);
-  return { clusteredAboveThreshold, notYetChecked, unacknowledgedNotices };
+  // Grower questions on notices that no adviser has answered yet.
+  const growerQuestions = await listWaitingGrowerQuestions(actor);
+  return { clusteredAboveThreshold, notYetChecked, unacknowledgedNotices, growerQuestions };
 }

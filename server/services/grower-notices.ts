@@ -7,10 +7,11 @@ import { AppError, notFound } from '../errors.ts';
 import { NoticeRecipient } from '../models/notice-recipient.ts';
 import { acknowledge, markOpened, noticeMapImage, noticePageContent } from './notice-links.ts';
 import { noticeMachineFile, type MachineFileKind } from './zone-files/zone-machine-files.ts';
-import type { AcknowledgeResponse, NoticeLinkResponse } from '../../shared/schemas/notices.ts';
+import { askQuestion, type Asker } from './notice-questions.ts';
+import type { AcknowledgeResponse, NoticeLinkResponse, OpenedResponse } from '../../shared/schemas/notices.ts';
 
 /** The sent notice, when it is about a farm linked to this grower; any other id (another farm, another organisation, a draft) is not found. */
-async function findGrowerNotice(actor: Actor, noticeId: string) {
+export async function findGrowerNotice(actor: Actor, noticeId: string) {
   const [row] = await sequelize.query<{ id: string }>(
     `SELECT n.id FROM notices n JOIN fields f ON f.id = n.field_id
        JOIN farm_growers g ON g.farm_id = f.farm_id AND g.user_id = :userId
@@ -22,13 +23,21 @@ async function findGrowerNotice(actor: Actor, noticeId: string) {
   return { noticeId: row.id, copy };
 }
 
-/** The notice page's content for the grower; opening it counts as opening their own copy, when they have one. */
+/** The signed-in grower, under their copy's name when they hold one. */
+const growerAsker = (actor: Actor, copy: NoticeRecipient | null): Asker => ({ name: copy?.contactName ?? actor.name, email: actor.email, recipientId: copy?.id ?? null, userId: actor.id });
+
+/** The grower's question or comment on a notice of their own farm, e-mailed to its adviser. */
+export async function askGrowerQuestion(actor: Actor, noticeId: string, text: string) {
+  const { copy } = await findGrowerNotice(actor, noticeId);
+  return askQuestion(noticeId, growerAsker(actor, copy), text);
+}
+
+/** The notice page's content for the grower; reading it changes nothing (the page reports its opening itself). */
 export async function growerNoticePage(actor: Actor, noticeId: string): Promise<NoticeLinkResponse['notice']> {
   const { copy } = await findGrowerNotice(actor, noticeId);
-  if (copy) await markOpened(copy.id);
   return noticePageContent(
     noticeId,
-    { name: copy?.contactName ?? actor.name, acknowledgedAt: copy?.acknowledgedAt ?? null },
+    { name: copy?.contactName ?? actor.name, acknowledgedAt: copy?.acknowledgedAt ?? null, asker: growerAsker(actor, copy) },
     `/api/grower/notices/${noticeId}`,
   );
 }
@@ -42,6 +51,14 @@ export async function growerNoticeMap(actor: Actor, noticeId: string): Promise<B
 export async function growerNoticeMachineFile(actor: Actor, noticeId: string, kind: MachineFileKind) {
   await findGrowerNotice(actor, noticeId);
   return noticeMachineFile(noticeId, kind);
+}
+
+/** Records that the grower opened their own copy (the first time only); a grower who holds no copy has nothing to record. */
+export async function openGrowerNotice(actor: Actor, noticeId: string): Promise<OpenedResponse> {
+  const { copy } = await findGrowerNotice(actor, noticeId);
+  if (!copy) return { openedAt: null, alreadyOpened: false };
+  const { openedAt, alreadyOpened } = await markOpened(copy.id);
+  return { openedAt: openedAt.toISOString(), alreadyOpened };
 }
 
 /** Acknowledges the grower's own copy (once; a second time answers with the first time). */

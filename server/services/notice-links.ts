@@ -6,11 +6,12 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { sequelize } from '../db.ts';
 import { AppError } from '../errors.ts';
 import { Notice } from '../models/notice.ts';
-import { noticeMaterial } from './notices.ts';
+import { noticeMaterial } from './notice-material.ts';
 import { renderNoticeMap } from './notice-map.ts';
 import { cachedNoticeMap } from './notice-map-cache.ts';
 import { noticeMachineFilePaths } from './zone-files/zone-machine-files.ts';
 import type { NoticeLinkResponse } from '../../shared/schemas/notices.ts';
+import { readerQuestions, type Asker } from './notice-questions.ts';
 
 /** Common practice for such links: long enough for a season's re-scout, short enough to go stale. */
 export const NOTICE_LINK_DAYS = 60;
@@ -35,6 +36,7 @@ export interface LinkedCopy {
   recipientId: string;
   noticeId: string;
   contactName: string;
+  email: string;
   openedAt: Date | null;
   acknowledgedAt: Date | null;
 }
@@ -43,20 +45,26 @@ export interface LinkedCopy {
 export async function resolveNoticeToken(token: string): Promise<LinkedCopy> {
   const shape = TOKEN_SHAPE.exec(token);
   if (!shape) throw linkRefused();
-  const [row] = await sequelize.query<{ id: string; notice_id: string; contact_name: string; token_hash: string | null; opened_at: Date | null; acknowledged_at: Date | null }>(
-    `SELECT id, notice_id, contact_name, token_hash, opened_at, acknowledged_at FROM notice_recipients
+  const [row] = await sequelize.query<{ id: string; notice_id: string; contact_name: string; email: string; token_hash: string | null; opened_at: Date | null; acknowledged_at: Date | null }>(
+    `SELECT id, notice_id, contact_name, email, token_hash, opened_at, acknowledged_at FROM notice_recipients
       WHERE id = :id AND revoked_at IS NULL AND token_expires_at > now()`,
     { replacements: { id: shape[1] }, type: QueryTypes.SELECT },
   );
   if (!row?.token_hash) throw linkRefused();
   const given = Buffer.from(sha256(token), 'hex');
   if (!crypto.timingSafeEqual(given, Buffer.from(row.token_hash, 'hex'))) throw linkRefused();
-  return { recipientId: row.id, noticeId: row.notice_id, contactName: row.contact_name, openedAt: row.opened_at, acknowledgedAt: row.acknowledged_at };
+  return { recipientId: row.id, noticeId: row.notice_id, contactName: row.contact_name, email: row.email, openedAt: row.opened_at, acknowledgedAt: row.acknowledged_at };
 }
 
-/** Records the first opening of the notice page; later openings change nothing. */
-export async function markOpened(recipientId: string) {
-  await sequelize.query(`UPDATE notice_recipients SET opened_at = now(), updated_at = now() WHERE id = :id AND opened_at IS NULL`, { replacements: { id: recipientId } });
+/** Records the first opening of the notice page; later openings change nothing and answer with the first one's time. */
+export async function markOpened(recipientId: string): Promise<{ openedAt: Date; alreadyOpened: boolean }> {
+  const updated = await sequelize.query<{ opened_at: Date }>(
+    `UPDATE notice_recipients SET opened_at = now(), updated_at = now() WHERE id = :id AND opened_at IS NULL RETURNING opened_at`,
+    { replacements: { id: recipientId }, type: QueryTypes.SELECT },
+  );
+  if (updated.length) return { openedAt: updated[0].opened_at, alreadyOpened: false };
+  const [row] = await sequelize.query<{ opened_at: Date }>('SELECT opened_at FROM notice_recipients WHERE id = :id', { replacements: { id: recipientId }, type: QueryTypes.SELECT });
+  return { openedAt: row.opened_at, alreadyOpened: true };
 }
 
 /** Records the acknowledgement once; a second one answers with the first one's time. */
@@ -73,8 +81,9 @@ export async function acknowledge(recipientId: string): Promise<{ acknowledgedAt
 
 /** What the notice page shows of one notice to one reader: the copy's contact, or a signed-in grower of the farm. */
 /** `basePath` is the reader's path to this notice, under which its map image and zone files are served. */
-export async function noticePageContent(noticeId: string, reader: { name: string; acknowledgedAt: Date | null }, basePath: string): Promise<NoticeLinkResponse['notice']> {
+export async function noticePageContent(noticeId: string, reader: { name: string; acknowledgedAt: Date | null; asker: Asker }, basePath: string): Promise<NoticeLinkResponse['notice']> {
   const material = await noticeMaterial(noticeId);
+  const questions = await readerQuestions(noticeId, reader.asker);
   const notice = await Notice.findByPk(noticeId);
   return {
     ...material.content,
@@ -85,15 +94,18 @@ export async function noticePageContent(noticeId: string, reader: { name: string
     boundary: material.boundary,
     mapPath: `${basePath}/map.png`,
     zoneFiles: noticeMachineFilePaths(basePath),
+    questions,
   };
 }
 
-/** What the notice page shows for a token, marking the first opening. */
+/** What the notice page shows for a token; reading it changes nothing (the page reports its opening itself). */
 export async function noticeForLink(token: string): Promise<NoticeLinkResponse['notice']> {
   const copy = await resolveNoticeToken(token);
-  await markOpened(copy.recipientId);
-  return noticePageContent(copy.noticeId, { name: copy.contactName, acknowledgedAt: copy.acknowledgedAt }, `/api/notice-links/${token}`);
+  return noticePageContent(copy.noticeId, { name: copy.contactName, acknowledgedAt: copy.acknowledgedAt, asker: linkAsker(copy) }, `/api/notice-links/${token}`);
 }
+
+/** The contact of a copy, asking through its link. */
+export const linkAsker = (copy: LinkedCopy): Asker => ({ name: copy.contactName, email: copy.email, recipientId: copy.recipientId, userId: null });
 
 /** A notice's map image, as the e-mail and the notice page carry it: drawn once per notice version. */
 export async function noticeMapImage(noticeId: string): Promise<Buffer> {

@@ -9,8 +9,10 @@ import { escapeHtml } from './escape-html.ts';
 import { issueNoticeToken } from './notice-links.ts';
 import { renderNoticeMap } from './notice-map.ts';
 import { organisationHeader } from '../mail/organisation-header.ts';
-import { noticeMaterial, refreshNoticeStatus, type NoticeMaterial } from './notices.ts';
+import { noticeMaterial, type NoticeMaterial } from './notice-material.ts';
+import { refreshNoticeStatus } from './notice-sending.ts';
 import { MACHINE_FILE_CAUTION } from '../../shared/notices/cautions.ts';
+import { fromCornerText, latLonText } from '../../shared/notices/zone-location-words.ts';
 import { noticeMachineFilePaths } from './zone-files/zone-machine-files.ts';
 import type { NoticeContent } from '../../shared/schemas/notices.ts';
 
@@ -29,7 +31,11 @@ function walkDatesText(c: NoticeContent) {
 }
 
 export function noticeText(c: NoticeContent, link: string): string {
-  const rows = c.zones.map((z) => `  ${z.label}: ${ha(z.areaM2)} ha (${ac(z.areaM2)} ac), ${percent(z.shareOfField)} of the field, ${z.sightingsInside} sighting${z.sightingsInside === 1 ? '' : 's'}`);
+  const rows = c.zones.map(
+    (z) =>
+      `  ${z.label}: ${ha(z.areaM2)} ha (${ac(z.areaM2)} ac), ${percent(z.shareOfField)} of the field, ${z.sightingsInside} sighting${z.sightingsInside === 1 ? '' : 's'}` +
+      (z.location ? `; centre ${latLonText(z.location.centre)}, ${fromCornerText(z.location)}` : ''),
+  );
   return [
     `Zone notice from ${c.organisationName}`,
     '',
@@ -71,7 +77,11 @@ export function noticeHtml(c: NoticeContent, link: string, mapSrc = `cid:${MAP_C
   const cell = 'style="padding:4px 8px;border-bottom:1px solid #ebdcb4;text-align:left"';
   const num = 'style="padding:4px 8px;border-bottom:1px solid #ebdcb4;text-align:right"';
   const rows = c.zones
-    .map((z) => `<tr><td ${cell}>${e(z.label)}</td><td ${num}>${ha(z.areaM2)}</td><td ${num}>${ac(z.areaM2)}</td><td ${num}>${percent(z.shareOfField)}</td><td ${num}>${z.sightingsInside}</td></tr>`)
+    .map(
+      (z) =>
+        `<tr><td ${cell}>${e(z.label)}</td><td ${num}>${ha(z.areaM2)}</td><td ${num}>${ac(z.areaM2)}</td><td ${num}>${percent(z.shareOfField)}</td><td ${num}>${z.sightingsInside}</td>` +
+        `<td ${cell}>${z.location ? e(latLonText(z.location.centre)) : ''}</td><td ${cell}>${z.location ? e(fromCornerText(z.location)) : ''}</td></tr>`,
+    )
     .join('');
   const paragraphs = (text: string) => text.split(/\n{2,}/).map((p) => `<p style="margin:0 0 8px">${e(p).replace(/\n/g, '<br>')}</p>`).join('');
   return `<!doctype html>
@@ -91,7 +101,7 @@ export function noticeHtml(c: NoticeContent, link: string, mapSrc = `cid:${MAP_C
 <img src="${e(mapSrc)}" alt="Map of ${e(c.fieldName)} with the treatment zones and sightings" width="640" style="max-width:100%;height:auto;border:1px solid #ebdcb4">
 <h2 style="font-size:17px;color:#2f5d3a">Treatment zones</h2>
 <table style="border-collapse:collapse;margin-bottom:6px">
-<thead><tr><th ${cell}>Zone</th><th ${num}>ha</th><th ${num}>ac</th><th ${num}>Share of field</th><th ${num}>Sightings</th></tr></thead>
+<thead><tr><th ${cell}>Zone</th><th ${num}>ha</th><th ${num}>ac</th><th ${num}>Share of field</th><th ${num}>Sightings</th><th ${cell}>Centre (lat, lon)</th><th ${cell}>From the nearest corner</th></tr></thead>
 <tbody>${rows}</tbody>
 </table>
 <p style="margin:0 0 12px">Total to treat: ${ha(c.totalTreatedM2)} ha (${ac(c.totalTreatedM2)} ac); ${percent(c.untreatedShare)} of the field is left untreated.</p>

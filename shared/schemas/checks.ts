@@ -7,6 +7,7 @@ import type { SpreadVerdict } from '../analysis/spread.ts';
 import { calendarDateSchema } from './calendar-date.ts';
 import type { ThresholdStatus } from '../thresholds/threshold-status.ts';
 import type { UnacknowledgedNotice } from './notices.ts';
+import type { WaitingGrowerQuestion } from './notice-questions.ts';
 
 export const checkStatuses = ['queued', 'running', 'done', 'failed'] as const;
 export type CheckStatus = (typeof checkStatuses)[number];
@@ -170,4 +171,6 @@ export interface AttentionResponse {
   clusteredAboveThreshold: AttentionField[];
   notYetChecked: AttentionField[];
   unacknowledgedNotices: UnacknowledgedNotice[];
+  /** Grower questions on notices waiting for an answer, oldest first. */
+  growerQuestions: WaitingGrowerQuestion[];
 }

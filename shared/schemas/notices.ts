@@ -1,7 +1,8 @@
 // The zone-notice API's contract: requests (zod) and the answers' types, for the adviser, grower and notice page.
 import { z } from 'zod';
 import { calendarDateSchema } from './calendar-date.ts';
-import type { FeatureCollection, MultiPolygon } from 'geojson';
+import type { FeatureCollection, MultiPolygon, Position } from 'geojson';
+import type { NoticeQuestionView } from './notice-questions.ts';
 import type { VerdictWords } from '../notices/verdict-words.ts';
 
 export const noticeStatuses = ['draft', 'sending', 'sent', 'partly-failed'] as const;
@@ -73,7 +74,19 @@ export interface NoticePreviewResponse {
   mapPath: string;
 }
 
+/** How to find a zone in the field: its centre, and how far and which way it lies from the nearest field corner. */
+export interface ZoneLocation {
+  centre: { lat: number; lon: number };
+  nearestCorner: { lat: number; lon: number };
+  distanceM: number;
+  /** Degrees clockwise from true north, from the corner towards the centre. */
+  bearingDeg: number;
+  direction: 'N' | 'NE' | 'E' | 'SE' | 'S' | 'SW' | 'W' | 'NW';
+}
+
 export interface NoticeZoneRow {
+  /** Absent in notices sent before zone locations were kept. */
+  location?: ZoneLocation;
   label: string;
   areaM2: number;
   areaHa: number;
@@ -101,6 +114,17 @@ export interface NoticeContent {
   cautions: readonly string[];
 }
 
+/** What a notice shows, as stored with it when it is sent (the snapshot) or gathered live for a draft. */
+export interface NoticeMaterial {
+  content: NoticeContent;
+  boundary: MultiPolygon;
+  /** RFC 7946 FeatureCollection; each feature's properties hold its zone-table row. */
+  zonesGeoJson: FeatureCollection<MultiPolygon, NoticeZoneRow>;
+  /** [longitude, latitude] of each sighting with the pest found, for the map. */
+  sightings: Position[];
+  zones: Array<{ label: string; geometry: MultiPolygon }>;
+}
+
 export interface NoticeLinkResponse {
   notice: NoticeContent & {
     sentAt: string | null;
@@ -112,7 +136,14 @@ export interface NoticeLinkResponse {
     mapPath: string;
     /** Sprayer-ready files of the zones: ISO 11783-10 task data and a shapefile, each zipped. */
     zoneFiles: { taskData: string; shapefile: string };
+    /** The questions this reader asked on the notice, with the adviser's answers. */
+    questions: NoticeQuestionView[];
   };
+}
+/** The page's report that it was opened: the copy's first opening (null when the reader holds no copy). */
+export interface OpenedResponse {
+  openedAt: string | null;
+  alreadyOpened: boolean;
 }
 export interface AcknowledgeResponse {
   acknowledgedAt: string;

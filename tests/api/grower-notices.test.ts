@@ -88,11 +88,23 @@ afterAll(async () => {
 });
 
 describe('a grower opening a notice from their home', () => {
-  it('counts the opening as the grower opening their own copy', async () => {
+  it('counts the page’s report of its opening, not the GET, as the grower opening their own copy', async () => {
     const myCopy = async () => (await grower.get('/api/grower/notices').expect(200)).body.notices.find((n: { id: string }) => n.id === ownNotice).myCopy;
     expect((await myCopy()).openedAt).toBeNull();
     await grower.get(`/api/grower/notices/${ownNotice}`).expect(200);
-    expect(await myCopy()).toMatchObject({ state: 'opened', acknowledgedAt: null });
+    expect((await myCopy()).openedAt).toBeNull();
+    const opened = await grower.post(`/api/grower/notices/${ownNotice}/opened`).expect(200);
+    expect(opened.body.alreadyOpened).toBe(false);
+    expect(await myCopy()).toMatchObject({ state: 'opened', openedAt: opened.body.openedAt, acknowledgedAt: null });
+    const again = await grower.post(`/api/grower/notices/${ownNotice}/opened`).expect(200);
+    expect(again.body).toEqual({ openedAt: opened.body.openedAt, alreadyOpened: true });
+  });
+
+  it('records nothing when the grower opens a notice that went to the farm’s other contacts', async () => {
+    const res = await grower.post(`/api/grower/notices/${othersNotice}/opened`).expect(200);
+    expect(res.body).toEqual({ openedAt: null, alreadyOpened: false });
+    const recipients = (await adviser.get(`/api/notices/${othersNotice}`).expect(200)).body.notice.recipients;
+    expect(recipients.every((r: { openedAt: string | null }) => r.openedAt === null)).toBe(true);
   });
 
   it('shows the grower their own notice with the same content the e-mailed link opens', async () => {
@@ -129,6 +141,7 @@ describe('a grower opening a notice from their home', () => {
   ])('answers 404 for %s', async (_label, id) => {
     for (const url of [`/api/grower/notices/${id()}`, `/api/grower/notices/${id()}/map.png`]) expect((await grower.get(url)).status, url).toBe(404);
     expect((await grower.post(`/api/grower/notices/${id()}/acknowledge`)).status).toBe(404);
+    expect((await grower.post(`/api/grower/notices/${id()}/opened`)).status).toBe(404);
   });
 
   it('refuses a notice id that is not an id, saying so', async () => {
@@ -166,6 +179,7 @@ describe('who may use the grower notice routes', () => {
     expect((await client().get(`/api/grower/notices/${ownNotice}`)).status).toBe(403);
     expect((await client().get(`/api/grower/notices/${ownNotice}/map.png`)).status).toBe(403);
     expect((await client().post(`/api/grower/notices/${ownNotice}/acknowledge`)).status).toBe(403);
+    expect((await client().post(`/api/grower/notices/${ownNotice}/opened`)).status).toBe(403);
   });
 
   it('asks a visitor who is not signed in to sign in', async () => {

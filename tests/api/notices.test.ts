@@ -16,7 +16,7 @@ import { startWorkers } from '../../server/jobs/workers.ts';
 import { stopQueue } from '../../server/jobs/queue.ts';
 import '../../server/jobs/all-workers.ts';
 import { closeSimulationPool } from '../../server/services/check-runner.ts';
-import { setNoticeRetryPolicy } from '../../server/services/notices.ts';
+import { setNoticeRetryPolicy } from '../../server/services/notice-sending.ts';
 import { deliverNoticeCopy } from '../../server/services/notice-mail.ts';
 import { NOTICE_CAUTIONS } from '../../shared/notices/cautions.ts';
 import { signedIn, testApp, type Client } from '../helpers/http.ts';
@@ -210,7 +210,7 @@ describe('zone notice e-mail', () => {
     expect(near(centre, [0xfb, 0xf8, 0xf0], 3)).toBe(false);
   });
 
-  it('links to a notice page that opens without sign-in and records the opening', async () => {
+  it('links to a notice page that opens without sign-in; the page, not the GET, records the opening', async () => {
     const { mail, recipient } = delivered.messages[0];
     const token = tokenIn(mail[0]);
     expect(mail[0].text).toContain(`${config.publicUrl}/n/${token}`);
@@ -224,8 +224,13 @@ describe('zone notice e-mail', () => {
     const png = await publicGet(page.body.notice.mapPath).expect(200);
     expect(png.headers['content-type']).toBe('image/png');
     expect((await Jimp.read(png.body)).bitmap.width).toBeGreaterThan(200);
-    const view = await getNotice(delivered.notice.id);
-    expect(view.recipients.find((r: { id: string }) => r.id === recipient.id).state).toBe('opened');
+    const stateOf = async () => (await getNotice(delivered.notice.id)).recipients.find((r: { id: string }) => r.id === recipient.id);
+    expect(await stateOf()).toMatchObject({ state: 'sent', openedAt: null });
+    const opened = await publicPost(`/api/notice-links/${token}/opened`).expect(200);
+    expect(opened.body.alreadyOpened).toBe(false);
+    const again = await publicPost(`/api/notice-links/${token}/opened`).expect(200);
+    expect(again.body).toEqual({ openedAt: opened.body.openedAt, alreadyOpened: true });
+    expect(await stateOf()).toMatchObject({ state: 'opened', openedAt: opened.body.openedAt });
   });
 
   it('takes an acknowledgement without a session or CSRF token, and a second one changes nothing', async () => {
@@ -309,6 +314,7 @@ describe('notice links', () => {
     expect(res.status).toBe(404);
     expect(res.body.error.message).toMatch(/^This notice link is not valid: .+\.$/);
     expect((await publicPost(`/api/notice-links/${token}/acknowledge`)).status).toBe(404);
+    expect((await publicPost(`/api/notice-links/${token}/opened`)).status).toBe(404);
   };
 
   it('refuses a tampered token', async () => {
@@ -422,5 +428,54 @@ describe('notice access and follow-up', () => {
     expect(res.body.unacknowledgedNotices.find((n: { noticeId: string }) => n.noticeId === unread.id).message).toMatch(/no grower has acknowledged it yet/);
     const theirs = await outsider.get('/api/advisers/attention').expect(200);
     expect(theirs.body.unacknowledgedNotices.map((n: { noticeId: string }) => n.noticeId)).not.toContain(unread.id);
+  });
+});
+
+describe('a sent notice is a snapshot', () => {
+  it('shows on its page, its map and a retried e-mail what was sent, after the field, its sightings and zones change', async () => {
+    const later = await makeCheckedField(org, adviser, { seed: 7 });
+    const laterZones = await acceptProposedZones(adviser, later);
+    await addContacts(later.field.farmId, [{ name: 'Bea Headland', email: `bea-${org.id.slice(0, 8)}@farm.example` }]);
+    const notice = (await adviser.post('/api/notices', { fieldId: later.field.id, zoneSetId: laterZones.id, recommendation: 'Spot-spray both zones this week.' }).expect(201)).body.notice;
+    await adviser.post(`/api/notices/${notice.id}/send`).expect(202);
+    const view = await waitFor('the copy accepted', async () => {
+      const v = await getNotice(notice.id);
+      return v.status === 'sent' ? v : null;
+    });
+    const recipient = view.recipients[0];
+    const [sentMail] = await mailTo(recipient.email);
+    const token = tokenIn(sentMail);
+    const pageAsSent = (await publicGet(`/api/notice-links/${token}`).expect(200)).body.notice;
+    const mapAsSent = (await adviser.get(`/api/notices/${notice.id}/map.png`).buffer(true).expect(200)).body as Buffer;
+
+    // The field grows, every sighting behind the check is deleted, one zone is reshaped and the other removed.
+    await sequelize.query('UPDATE fields SET boundary = ST_Multi(ST_Expand(boundary, 0.002)) WHERE id = :id', { replacements: { id: later.field.id } });
+    await sequelize.query('UPDATE sightings SET deleted_at = now() WHERE id = ANY(CAST(:ids AS uuid[]))', { replacements: { ids: `{${later.sightingIds.join(',')}}` } });
+    const [first, ...rest] = laterZones.zones;
+    await sequelize.query("UPDATE zones SET geometry = ST_Multi(ST_Buffer(geometry, 0.0003)), label = 'Reshaped' WHERE id = :id", { replacements: { id: first.id } });
+    if (rest.length) await sequelize.query('DELETE FROM zones WHERE id = ANY(CAST(:ids AS uuid[]))', { replacements: { ids: `{${rest.map((z) => z.id).join(',')}}` } });
+    const [field] = await sequelize.query<{ area_m2: number }>('SELECT area_m2 FROM fields WHERE id = :id', { replacements: { id: later.field.id }, type: QueryTypes.SELECT });
+    expect(field.area_m2).toBeGreaterThan(pageAsSent.fieldAreaM2 * 1.5);
+
+    const pageNow = (await publicGet(`/api/notice-links/${token}`).expect(200)).body.notice;
+    expect(pageNow).toEqual(pageAsSent);
+    expect(pageNow.walkDates).toEqual(['2026-07-01', '2026-07-03']);
+    expect(pageNow.zones.map((z: { label: string }) => z.label)).toEqual(laterZones.zones.map((z) => z.label));
+    const mapNow = (await adviser.get(`/api/notices/${notice.id}/map.png`).buffer(true).expect(200)).body as Buffer;
+    expect(mapNow.equals(mapAsSent)).toBe(true);
+
+    // A retry composes from the snapshot too: the field's area and zone table as they were sent.
+    await sequelize.query("UPDATE notice_recipients SET status = 'failed', smtp_accepted_at = NULL, last_error = 'retried by the test' WHERE id = :id", { replacements: { id: recipient.id } });
+    expect(await deliverNoticeCopy(recipient.id)).toBe('sent');
+    const retried = (await mailTo(recipient.email)).at(-1)!;
+    expect(retried.text).toContain(`(${(pageAsSent.fieldAreaM2 / 10_000).toFixed(2)} ha,`);
+    for (const zone of laterZones.zones) expect(retried.text).toContain(`${zone.label}: ${(zone.areaM2 / 10_000).toFixed(2)} ha`);
+    expect(retried.text).not.toContain('Reshaped');
+
+    // A draft written now reads the field as it is.
+    const draft = (await adviser.post('/api/notices', { fieldId: later.field.id, zoneSetId: laterZones.id, recommendation: 'Spot-spray the reshaped zone.' }).expect(201)).body.notice;
+    const preview = (await adviser.get(`/api/notices/${draft.id}/preview`).expect(200)).body;
+    expect(preview.text).toContain(`(${(field.area_m2 / 10_000).toFixed(2)} ha,`);
+    expect(preview.text).toContain('Reshaped: ');
   });
 });

@@ -16,7 +16,7 @@ import { TEST_FIELD_CORNER, TEST_FIELD_SIZE } from '../helpers/sightings.ts';
 import { makeCheckedField, storedZones, type ScoutedCheck } from '../helpers/zones.ts';
 import { issueNoticeToken } from '../../server/services/notice-links.ts';
 import { composeNoticeMail } from '../../server/services/notice-mail.ts';
-import { noticeMaterial } from '../../server/services/notices.ts';
+import { noticeMaterial } from '../../server/services/notice-material.ts';
 
 let org: TestOrganisation;
 let adviser: Client;

@@ -139,6 +139,9 @@ describe('zone notice in the browser', () => {
     await growerPage.getByRole('heading', { level: 1, name: /on Long meadow/ }).waitFor();
     for (const caution of NOTICE_CAUTIONS) await growerPage.getByText(caution).waitFor();
     await growerPage.getByText(/Spot-treat zones 1 and 2 only/).waitFor();
+    // The page reports its own opening once it has loaded (the GET records nothing): the adviser sees "opened".
+    await adviserPage.reload();
+    await state.getByText('opened', { exact: true }).waitFor();
 
     // The zone table's hectares match turf's area of the GeoJSON attachment (turf 7 `area`, spherical; the
     // server measures on the ellipsoid, so the two agree to well under 1 %).
@@ -165,10 +168,24 @@ describe('zone notice in the browser', () => {
     expect(await growerPage.getByRole('button', { name: 'Acknowledge' }).count()).toBe(0);
     await shot(growerPage, '6-acknowledged');
 
+    // The grower asks a question from the same page; it waits there for the adviser's answer.
+    const question = 'Does zone 2 take in the wet corner by the gate?';
+    await growerPage.getByLabel('Ask a question or leave a comment').fill(question);
+    await growerPage.getByRole('button', { name: /^Send to / }).click();
+    await growerPage.getByRole('list', { name: 'Your questions' }).getByText(question).waitFor();
+
     // The adviser's status page now says acknowledged.
     await adviserPage.reload();
     await state.getByText('acknowledged', { exact: true }).waitFor();
     await shot(adviserPage, '7-notice-status');
+    // …lists the grower's question, and the adviser answers it there; the grower's page shows the answer.
+    const asked = adviserPage.getByRole('list', { name: 'Grower questions' });
+    await asked.getByText(question).waitFor();
+    await asked.getByLabel(/^Answer /).fill('Yes: the east half of zone 2 is the wet corner.');
+    await asked.getByRole('button', { name: 'Send the answer' }).click();
+    await asked.getByText(/^Answered by /).waitFor();
+    await growerPage.reload();
+    await growerPage.getByText('Yes: the east half of zone 2 is the wet corner.').waitFor();
 
     // The grower, signed in, sees the notice among their farm's notices with its state.
     const growerHome = await browser.newPage({ viewport: { width: 900, height: 900 } });

@@ -19,7 +19,7 @@ import { QueryTypes } from 'sequelize';
 import { sequelize } from '../../server/db.ts';
 import { stopQueue } from '../../server/jobs/queue.ts';
 import { closeSimulationPool } from '../../server/services/check-runner.ts';
-import { NOTICE_QUEUE, setNoticeRetryPolicy } from '../../server/services/notices.ts';
+import { NOTICE_QUEUE, setNoticeRetryPolicy } from '../../server/services/notice-sending.ts';
 import { signedIn, type Client } from '../helpers/http.ts';
 import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
 import { messagesTo } from '../helpers/mailbox.ts';

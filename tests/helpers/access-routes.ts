@@ -124,12 +124,16 @@ export const scoutingRoutes: AccessRow[] = [
   row('GET', '/api/notices/{notice}/map.png', deskOnly(200)),
   row('POST', '/api/notices/{newDraftNotice}/send', deskOnly(202), undefined, 'a fresh draft per caller'),
   row('POST', '/api/notices/{notice}/recipients/{spareRecipient}/revoke', deskOnly(200)),
+  row('GET', '/api/notices/{notice}/questions', deskOnly(200)),
+  row('POST', '/api/notices/{notice}/questions/{newQuestion}/answer', deskOnly(200), { text: 'Yes: keep the usual buffer to the ditch, as the label says.' }, 'a fresh question per caller'),
 
   row('GET', '/api/notice-links/{noticeToken}', everyone(200), undefined, 'the token in the e-mailed link is the credential'),
   row('GET', '/api/notice-links/{noticeToken}/map.png', everyone(200)),
   row('GET', '/api/notice-links/{noticeToken}/zones.taskdata.zip', everyone(200)),
   row('GET', '/api/notice-links/{noticeToken}/zones.shp.zip', everyone(200)),
   row('POST', '/api/notice-links/{noticeToken}/acknowledge', everyone(200)),
+  row('POST', '/api/notice-links/{noticeToken}/questions', everyone(201), { text: 'Is the headland included in zone 1?' }, 'the token is the credential; the visitor sends the CSRF token of their cookie'),
+  row('POST', '/api/notice-links/{noticeToken}/opened', everyone(200), undefined, 'the page reports its opening; the token is the credential'),
   row('GET', '/api/notice-links/{recipient}.not-the-secret', everyone(404)),
 
   row('GET', '/api/grower/notices', growerOnly(200)),
@@ -137,5 +141,7 @@ export const scoutingRoutes: AccessRow[] = [
   row('GET', '/api/grower/notices/{notice}/map.png', growerOnly(200)),
   row('GET', '/api/grower/notices/{notice}/zones.taskdata.zip', growerOnly(200)),
   row('GET', '/api/grower/notices/{notice}/zones.shp.zip', growerOnly(200)),
+  row('POST', '/api/grower/notices/{notice}/questions', growerOnly(201), { text: 'Can the zones wait until after the rain?' }, "the notice's farm is linked to the grower"),
+  row('POST', '/api/grower/notices/{notice}/opened', growerOnly(200), undefined, "the grower holds no copy of it, so nothing is recorded"),
   row('POST', '/api/grower/notices/{notice}/acknowledge', growerOnly(409), undefined, "the grower's address is not among the notice's copies, so there is no copy of theirs to acknowledge"),
 ];

@@ -8,6 +8,7 @@ import { makeThumbnail } from '../../server/services/thumbnails.ts';
 import { buildAccessWorld, type AccessWorld } from './access-matrix.ts';
 import { plainField } from './boundary-shapes.ts';
 import { makeJpeg, uploadPhotos } from './photos.ts';
+import { anonymous } from './http.ts';
 import { acceptProposedZones, addContacts, linkGrower, makeCheckedField } from './zones.ts';
 
 export interface ScoutingIds {
@@ -82,6 +83,9 @@ export async function buildScoutingWorld(): Promise<ScoutingWorld> {
     await clients.scout.delete(`/api/sightings/${id}`).expect(204);
     return id;
   };
+  // A fresh unanswered grower question per caller, asked through the copy's link (a question is answered once).
+  world.makers.newQuestion = async () =>
+    (await (await anonymous()).post(`/api/notice-links/${noticeToken}/questions`, { text: 'Does the margin by the ditch need a wider buffer?' }).expect(201)).body.question.id as string;
   world.makers.newDraftNotice = async () =>
     (await clients.adviser.post('/api/notices', { fieldId: checked.field.id, zoneSetId: zoneSet.id, recommendation }).expect(201)).body.notice.id as string;
 

@@ -7,6 +7,7 @@ import { AreaText } from '../area-text.tsx';
 import { Button } from '../button.tsx';
 import { AcknowledgeBox, type AcknowledgeControl } from './acknowledge-box.tsx';
 import { NoticeMap } from './notice-map.tsx';
+import { NoticeQuestions, type QuestionControl } from './notice-questions.tsx';
 import { NoticeZoneTable } from './notice-zone-table.tsx';
 
 export type NoticePageContent = NoticeLinkResponse['notice'];
@@ -45,7 +46,7 @@ function ZonesDownload({ notice }: { notice: NoticePageContent }) {
   );
 }
 
-export function NoticeView({ notice: n, acknowledge }: { notice: NoticePageContent; acknowledge: AcknowledgeControl }) {
+export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePageContent; acknowledge: AcknowledgeControl; ask: QuestionControl }) {
   useEffect(() => {
     document.title = `${n.pestName} on ${n.fieldName} · Zone notice`;
   }, [n.pestName, n.fieldName]);
@@ -104,8 +105,10 @@ export function NoticeView({ notice: n, acknowledge }: { notice: NoticePageConte
         </ul>
       </section>
 
+      <NoticeQuestions questions={n.questions} adviserName={n.adviserName} control={ask} />
+
       <footer className="border-t border-straw-300 pt-4 text-sm text-soil-700">
-        From {n.adviserName}, {n.organisationName}. Questions about this notice go to your adviser; this page is read-only.
+        From {n.adviserName}, {n.organisationName}. Questions about this notice go to your adviser; apart from them, this page is read-only.
       </footer>
     </>
   );

@@ -1,6 +1,7 @@
 // The zone table as the grower reads it: area in hectares and acres, share of the field, sightings inside.
 import { toAcres, toHectares } from '@shared/units/area.ts';
 import type { NoticeZoneRow } from '@shared/schemas/notices.ts';
+import { fromCornerText, latLonText } from '@shared/notices/zone-location-words.ts';
 
 const two = new Intl.NumberFormat('en', { minimumFractionDigits: 2, maximumFractionDigits: 2 });
 const percent = new Intl.NumberFormat('en', { style: 'percent', maximumFractionDigits: 1 });
@@ -17,6 +18,8 @@ export function NoticeZoneTable({ zones, totalTreatedM2, untreatedShare }: { zon
             <th scope="col" className="px-3 py-2 text-right">Area (ac)</th>
             <th scope="col" className="px-3 py-2 text-right">Share of field</th>
             <th scope="col" className="px-3 py-2 text-right">Sightings inside</th>
+            <th scope="col" className="px-3 py-2">Centre (lat, lon)</th>
+            <th scope="col" className="px-3 py-2">From the nearest corner</th>
           </tr>
         </thead>
         <tbody className="divide-y divide-straw-200 bg-white">
@@ -27,6 +30,8 @@ export function NoticeZoneTable({ zones, totalTreatedM2, untreatedShare }: { zon
               <td className="px-3 py-2 text-right tabular-nums">{two.format(z.areaAc)}</td>
               <td className="px-3 py-2 text-right tabular-nums">{percent.format(z.shareOfField)}</td>
               <td className="px-3 py-2 text-right tabular-nums">{z.sightingsInside}</td>
+              <td className="px-3 py-2 tabular-nums">{z.location ? latLonText(z.location.centre) : '—'}</td>
+              <td className="px-3 py-2">{z.location ? fromCornerText(z.location) : '—'}</td>
             </tr>
           ))}
         </tbody>
@@ -36,7 +41,7 @@ export function NoticeZoneTable({ zones, totalTreatedM2, untreatedShare }: { zon
             <td className="px-3 py-2 text-right tabular-nums">{two.format(toHectares(totalTreatedM2))}</td>
             <td className="px-3 py-2 text-right tabular-nums">{two.format(toAcres(totalTreatedM2))}</td>
             <td className="px-3 py-2 text-right tabular-nums">{percent.format(1 - untreatedShare)}</td>
-            <td className="px-3 py-2" />
+            <td className="px-3 py-2" colSpan={3} />
           </tr>
         </tfoot>
       </table>

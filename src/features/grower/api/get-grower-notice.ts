@@ -1,4 +1,4 @@
-// One notice about the grower's own farms, as the notice page shows it; opening it marks their own copy opened.
+// One notice about the grower's own farms, as the notice page shows it; reading it changes nothing.
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import type { NoticeLinkResponse } from '@shared/schemas/notices.ts';

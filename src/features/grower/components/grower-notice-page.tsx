@@ -1,4 +1,5 @@
 // A zone notice opened from the signed-in grower's home: the same view the e-mailed link opens, inside the app.
+import { useEffect, useRef } from 'react';
 import { useParams } from 'react-router';
 import { ButtonLink } from '../../../components/button.tsx';
 import { NoticeView } from '../../../components/notice-view/notice-view.tsx';
@@ -7,11 +8,22 @@ import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
 import { useAcknowledgeGrowerNotice } from '../api/acknowledge-grower-notice.ts';
 import { useGrowerNotice } from '../api/get-grower-notice.ts';
+import { useReportGrowerNoticeOpened } from '../api/report-grower-notice-opened.ts';
+import { useAskGrowerNoticeQuestion } from '../api/ask-grower-notice-question.ts';
 
 export function GrowerNoticePage() {
   const { noticeId = '' } = useParams();
   const notice = useGrowerNotice(noticeId);
   const acknowledge = useAcknowledgeGrowerNotice(noticeId);
+  const ask = useAskGrowerNoticeQuestion(noticeId);
+  const { mutate: reportOpened } = useReportGrowerNoticeOpened(noticeId);
+  // Once per visit, when the notice has loaded (the ref keeps React's doubled effects to one report).
+  const reported = useRef(false);
+  useEffect(() => {
+    if (!notice.data || reported.current) return;
+    reported.current = true;
+    reportOpened();
+  }, [notice.data, reportOpened]);
   if (notice.isPending) return <PageFrame title="Zone notice"><LoadingState label="Opening the notice…" /></PageFrame>;
   if (notice.isError) return <PageFrame title="Zone notice"><ErrorState error={notice.error} onRetry={() => notice.refetch()} /></PageFrame>;
   return (
@@ -20,6 +32,7 @@ export function GrowerNoticePage() {
       <NoticeView
         notice={notice.data}
         acknowledge={{ onAcknowledge: () => acknowledge.mutate(), busy: acknowledge.isPending, error: acknowledge.isError ? errorMessage(acknowledge.error) : undefined }}
+        ask={{ onAsk: (text, sent) => ask.mutate(text, { onSuccess: sent }), busy: ask.isPending, error: ask.isError ? errorMessage(ask.error) : undefined }}
       />
     </div>
   );

@@ -10,6 +10,7 @@ import { isStillSending, useNotice } from '../api/get-notice.ts';
 import { useSendNotice } from '../api/send-notice.ts';
 import { NoticePreview } from './notice-preview.tsx';
 import { RecipientsTable } from './recipients-table.tsx';
+import { NoticeQuestionsPanel } from './notice-questions-panel.tsx';
 
 const statusWords = { draft: 'Draft, not sent', sending: 'Sending', sent: 'Sent to every contact', 'partly-failed': 'Some copies failed' } as const;
 
@@ -59,6 +60,8 @@ export function NoticePage() {
         <p className="whitespace-pre-wrap text-soil-900">{n.recommendation}</p>
         {n.rescoutOn && <p className="mt-2 text-sm text-soil-700">Re-scout on {new Date(`${n.rescoutOn}T12:00:00`).toLocaleDateString(undefined, { dateStyle: 'long' })}.</p>}
       </Panel>
+
+      {n.status !== 'draft' && <NoticeQuestionsPanel noticeId={n.id} />}
 
       {n.status === 'draft' ? (
         <Panel title="Preview">

@@ -1,6 +1,6 @@
 // The grower's notice page, opened from the e-mailed link without signing in: the notice view inside a plain
 // frame of its own, or a plain explanation when the link opens nothing.
-import { useEffect, type ReactNode } from 'react';
+import { useEffect, useRef, type ReactNode } from 'react';
 import { useParams } from 'react-router';
 import { LoadingState } from '../../../components/query-states.tsx';
 import { NoticeView } from '../../../components/notice-view/notice-view.tsx';
@@ -8,6 +8,8 @@ import { ApiError } from '../../../lib/api-client.ts';
 import { errorMessage } from '../../../lib/form-errors.ts';
 import { useNoticeLink } from '../api/get-notice-link.ts';
 import { useAcknowledgeNotice } from '../api/acknowledge-notice.ts';
+import { useReportNoticeOpened } from '../api/report-notice-opened.ts';
+import { useAskNoticeQuestion } from '../api/ask-notice-question.ts';
 
 function Shell({ organisation, children }: { organisation?: string; children: ReactNode }) {
   return (
@@ -50,6 +52,15 @@ export function PublicNoticePage() {
   const { token = '' } = useParams();
   const notice = useNoticeLink(token);
   const acknowledge = useAcknowledgeNotice(token);
+  const ask = useAskNoticeQuestion(token);
+  const { mutate: reportOpened } = useReportNoticeOpened(token);
+  // Once per visit, when the notice has loaded (the ref keeps React's doubled effects to one report).
+  const reported = useRef(false);
+  useEffect(() => {
+    if (!notice.data || reported.current) return;
+    reported.current = true;
+    reportOpened();
+  }, [notice.data, reportOpened]);
   useEffect(() => {
     if (!notice.data) document.title = 'Zone notice · Patchwise';
   }, [notice.data]);
@@ -61,6 +72,7 @@ export function PublicNoticePage() {
       <NoticeView
         notice={notice.data}
         acknowledge={{ onAcknowledge: () => acknowledge.mutate(), busy: acknowledge.isPending, error: acknowledge.isError ? errorMessage(acknowledge.error) : undefined }}
+        ask={{ onAsk: (text, sent) => ask.mutate(text, { onSuccess: sent }), busy: ask.isPending, error: ask.isError ? errorMessage(ask.error) : undefined }}
       />
     </Shell>
   );

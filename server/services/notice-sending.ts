@@ -1,0 +1,99 @@
+// Sending a zone notice: queueing one copy per grower contact, re-sending failed copies, each copy's
+// status rolled up into the notice's, and withdrawing a copy's link.
+import crypto from 'node:crypto';
+import { QueryTypes } from 'sequelize';
+import { sequelize } from '../db.ts';
+import { config } from '../config.ts';
+import type { Actor } from '../auth/passport.ts';
+import { Notice } from '../models/notice.ts';
+import { NoticeRecipient } from '../models/notice-recipient.ts';
+import { badRequest, conflict, notFound } from '../errors.ts';
+import { queue } from '../jobs/queue.ts';
+import { recordAudit } from './audit.ts';
+import { findNotice, getNotice } from './notice-reading.ts';
+import { liveNoticeMaterial } from './notice-material.ts';
+import type { NoticeStatus, DeliveryStatus } from '../../shared/schemas/notices.ts';
+
+export const NOTICE_QUEUE = 'notice-copy';
+
+/** Retries with exponential back-off: 6 attempts over roughly an hour at the defaults (pg-boss doubles the delay each time). */
+export const noticeRetryPolicy = { retryLimit: 5, retryDelay: 60, retryBackoff: true };
+
+/** Tests shorten the back-off; production keeps the defaults. */
+export function setNoticeRetryPolicy(policy: Partial<typeof noticeRetryPolicy>) {
+  Object.assign(noticeRetryPolicy, policy);
+}
+
+/** Our own Message-ID, fixed when the copy is queued so that every attempt carries the same one. */
+function messageIdFor(noticeId: string, recipientId: string) {
+  const domain = /@([^>\s]+)>?\s*$/.exec(config.mailFrom)?.[1] ?? 'patchwise.local';
+  return `<notice-${noticeId}.${recipientId}@${domain}>`;
+}
+
+/** Queues one copy per grower contact of the farm (a draft), or the copies that finally failed (a re-send). */
+export async function sendNotice(actor: Actor, id: string) {
+  const notice = await findNotice(actor, id);
+  if (notice.status === 'sent') throw conflict('This notice has already gone to every grower contact.');
+  if (notice.status === 'sending') throw conflict('This notice is being sent; its status updates as each copy goes out.');
+  // A draft's material becomes the notice's snapshot: what every copy, page and map shows from now on.
+  const snapshot = notice.status === 'draft' ? await liveNoticeMaterial(notice) : null;
+  const toQueue = await sequelize.transaction(async (transaction) => {
+    if (snapshot) {
+      const contacts = await sequelize.query<{ name: string; email: string }>(
+        `SELECT c.name, c.email FROM farm_contacts c JOIN fields f ON f.farm_id = c.farm_id WHERE f.id = :fieldId ORDER BY c.name`,
+        { replacements: { fieldId: notice.fieldId }, type: QueryTypes.SELECT, transaction },
+      );
+      if (contacts.length === 0) throw badRequest('This farm has no grower contacts yet; add one to the farm (name and e-mail), then send the notice.');
+      const ids: string[] = [];
+      for (const contact of contacts) {
+        const recipientId = crypto.randomUUID();
+        await NoticeRecipient.create({ id: recipientId, noticeId: notice.id, contactName: contact.name, email: contact.email, messageId: messageIdFor(notice.id, recipientId) }, { transaction });
+        ids.push(recipientId);
+      }
+      await notice.update({ status: 'sending', sentAt: new Date(), material: snapshot }, { transaction });
+      await recordAudit(actor, 'send', 'notice', notice.id, { recipients: contacts.length }, transaction);
+      return ids;
+    }
+    const failed = await NoticeRecipient.findAll({ where: { noticeId: notice.id, status: 'failed', revokedAt: null }, transaction });
+    if (failed.length === 0) throw conflict('No copy of this notice is waiting to be sent again.');
+    await NoticeRecipient.update({ status: 'queued', attempts: 0, lastError: null }, { where: { id: failed.map((r) => r.id) }, transaction });
+    await notice.update({ status: 'sending' }, { transaction });
+    await recordAudit(actor, 'resend', 'notice', notice.id, { recipients: failed.length }, transaction);
+    return failed.map((r) => r.id);
+  });
+  // Jobs go in after the commit so a worker always finds its recipient row.
+  const boss = await queue();
+  await boss.createQueue(NOTICE_QUEUE);
+  for (const recipientId of toQueue) await boss.send(NOTICE_QUEUE, { recipientId }, { ...noticeRetryPolicy });
+  return getNotice(actor, id);
+}
+
+/** Recomputes a notice's overall status from its copies: sending while any copy may still go out. */
+export async function refreshNoticeStatus(noticeId: string) {
+  // The notice row is locked first, so two copies finishing at once cannot write their verdicts out of order.
+  await sequelize.transaction(async (transaction) => {
+    const locked = await Notice.findByPk(noticeId, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!locked) return;
+    const rows = await NoticeRecipient.findAll({ where: { noticeId }, attributes: ['status', 'attempts', 'revokedAt'], transaction });
+    if (rows.length === 0) return;
+    const totalAttempts = noticeRetryPolicy.retryLimit + 1;
+    const pending = (s: DeliveryStatus, attempts: number) => s === 'queued' || s === 'sending' || (s === 'failed' && attempts < totalAttempts);
+    let status: NoticeStatus;
+    if (rows.every((r) => r.status === 'sent')) status = 'sent';
+    else if (rows.some((r) => !r.revokedAt && pending(r.status, r.attempts))) status = 'sending';
+    else status = 'partly-failed';
+    if (locked.status !== status) await locked.update({ status }, { transaction });
+  });
+}
+
+/** Withdraws one copy's link; an unsent copy is not sent. */
+export async function revokeRecipient(actor: Actor, noticeId: string, recipientId: string) {
+  const notice = await findNotice(actor, noticeId);
+  const recipient = await NoticeRecipient.findOne({ where: { id: recipientId, noticeId: notice.id } });
+  if (!recipient) throw notFound('That recipient');
+  await sequelize.transaction(async (transaction) => {
+    if (!recipient.revokedAt) await recipient.update({ revokedAt: new Date() }, { transaction });
+    await recordAudit(actor, 'revoke-link', 'notice', notice.id, { recipientId }, transaction);
+  });
+  return getNotice(actor, noticeId);
+}
