@@ -22,6 +22,7 @@ import { runInAnalysisThread } from './analysis-pool.ts';
 import { BoundaryError } from '../../shared/boundary/boundary-faults.ts';
 import { toAcres, toHectares } from '../../shared/units/area.ts';
 import type { ProposedZoneProperties, ZoneProposalRequest, ZoneProposalResponse, ZoneSetCreateRequest, ZoneSetView, ZoneView } from '../../shared/schemas/zones.ts';
+import { liveSighting } from './live-sightings.ts';
 
 /** The field in the engine's planar frame: UTM of the centroid, relative to the south-west corner (as analyse() does). */
 function planarFrame(boundary: MultiPolygon): { projection: Projection; originX: number; originY: number; field: PlanarField } {
@@ -202,7 +203,7 @@ export async function createZoneSet(actor: Actor, fieldId: string, input: ZoneSe
         `INSERT INTO zones (zone_set_id, position, label, geometry, share_of_field, sightings_inside)
          SELECT :zoneSetId, :position, :label, g, LEAST(1, ST_Area(g::geography, true) / NULLIF(f.area_m2, 0)),
                 (SELECT count(*) FROM sightings s
-                  WHERE s.field_id = f.id AND s.pest_id = :pestId AND s.deleted_at IS NULL AND s.status = 'placed'
+                  WHERE s.field_id = f.id AND s.pest_id = :pestId AND ${liveSighting('s')}
                     AND (s.count IS NULL OR s.count > 0) AND ST_Covers(g, s.position)
                     AND (CAST(:ids AS uuid[]) IS NULL OR s.id = ANY(CAST(:ids AS uuid[]))))
            FROM (SELECT ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326) AS g) z, fields f WHERE f.id = :fieldId`,
