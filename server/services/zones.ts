@@ -13,8 +13,9 @@ import { findVisibleField } from './fields.ts';
 import { visibleFieldIds } from './scope.ts';
 import { fieldBoundary, sightingsByIds } from './check-runner.ts';
 import { storedDensityValues } from './check-density.ts';
-import { createPlanarField, isInsideField, type PlanarField } from '../../shared/analysis/field-geometry.ts';
-import { boundaryCentroid, utmProjectionFor, type Projection } from '../../shared/analysis/projection.ts';
+import { createPlanarField } from '../../shared/analysis/field-geometry.ts';
+import { planarFrame, zoneFeature } from '../../shared/analysis/planar-frame.ts';
+import { boundaryCentroid, utmProjectionFor } from '../../shared/analysis/projection.ts';
 import { DEFAULT_MARGIN_M, DEFAULT_MIN_ZONE_AREA_M2, densityThresholdPerHa, zonesFromDensity, zonesFromQuadrat, type PlanarZone } from '../../shared/analysis/zones.ts';
 import type { DensityResult } from '../../shared/analysis/density.ts';
 import type { QuadratResult } from '../../shared/analysis/quadrat.ts';
@@ -24,16 +25,11 @@ import { toAcres, toHectares } from '../../shared/units/area.ts';
 import type { ProposedZoneProperties, ZoneProposalRequest, ZoneProposalResponse, ZoneSetCreateRequest, ZoneSetView, ZoneView } from '../../shared/schemas/zones.ts';
 import { liveSighting } from './live-sightings.ts';
 
-/** The field in the engine's planar frame: UTM of the centroid, relative to the south-west corner (as analyse() does). */
-function planarFrame(boundary: MultiPolygon): { projection: Projection; originX: number; originY: number; field: PlanarField } {
+/** The field in the engine's own planar frame (UTM of the centroid, origin at the south-west corner), as analyse() uses. */
+function fieldFrame(boundary: MultiPolygon) {
   const [lon, lat] = boundaryCentroid(boundary.coordinates);
-  const projection = utmProjectionFor(lon, lat);
-  const projected = boundary.coordinates.map((polygon) => polygon.map((ring) => ring.map(([x, y]) => projection.forward(x, y))));
-  const all = projected.flat(2);
-  const originX = Math.floor(Math.min(...all.map((p) => p[0])));
-  const originY = Math.floor(Math.min(...all.map((p) => p[1])));
-  const field = createPlanarField(projected.map((polygon) => polygon.map((ring) => ring.map(([x, y]) => [x - originX, y - originY]))));
-  return { projection, originX, originY, field };
+  const frame = planarFrame(boundary.coordinates, utmProjectionFor(lon, lat));
+  return { ...frame, field: createPlanarField(frame.local) };
 }
 
 async function findCheck(actor: Actor, checkId: string) {
@@ -59,7 +55,8 @@ export async function proposeZones(actor: Actor, checkId: string, input: ZonePro
     return { type: 'FeatureCollection', features: result.zones.features, source: input.source, threshold: 0, marginM: DEFAULT_MARGIN_M, minZoneAreaM2: DEFAULT_MIN_ZONE_AREA_M2, note: result.zones.note };
   }
   const boundary = await fieldBoundary(check.fieldId);
-  const { projection, originX, originY, field } = planarFrame(boundary);
+  const frame = fieldFrame(boundary);
+  const { projection, originX, originY, field } = frame;
   const marginM = input.marginM ?? DEFAULT_MARGIN_M;
   const minZoneAreaM2 = input.minZoneAreaM2 ?? DEFAULT_MIN_ZONE_AREA_M2;
   let planar: PlanarZone[];
@@ -81,26 +78,14 @@ export async function proposeZones(actor: Actor, checkId: string, input: ZonePro
     note = `Quadrat cells whose mean count per sighting exceeds ${threshold}${pest ? ` ${pest.countUnit}` : ''}, ${marginM} m margin, zones under ${minZoneAreaM2} m² dropped.`;
   }
   // Sightings inside a zone: the check's own sightings with the pest found (count above 0, or no count).
-  const sightings = (await sightingsByIds(check.sightingIds)).filter((s) => s.count !== 0).map((s) => {
+  const found = (await sightingsByIds(check.sightingIds)).filter((s) => s.count !== 0);
+  const located = new Float64Array(found.length * 2);
+  found.forEach((s, i) => {
     const [x, y] = projection.forward(s.lon, s.lat);
-    return [x - originX, y - originY];
+    located[i * 2] = x - originX;
+    located[i * 2 + 1] = y - originY;
   });
-  const fieldAreaM2 = result.area.boundaryM2;
-  const features = planar.map((zone, index): Feature<Polygon, ProposedZoneProperties> => {
-    const shape = createPlanarField([zone.rings]);
-    return {
-      type: 'Feature',
-      properties: {
-        zone: index + 1,
-        areaM2: zone.areaM2,
-        areaHa: toHectares(zone.areaM2),
-        areaAc: toAcres(zone.areaM2),
-        shareOfField: zone.areaM2 / fieldAreaM2,
-        sightings: sightings.filter(([x, y]) => isInsideField(shape, x, y)).length,
-      },
-      geometry: { type: 'Polygon', coordinates: zone.rings.map((ring) => ring.map(([x, y]) => projection.inverse(x + originX, y + originY))) },
-    };
-  });
+  const features: Feature<Polygon, ProposedZoneProperties>[] = planar.map((zone, index) => zoneFeature(frame, zone, index, located, result.area.boundaryM2));
   return { type: 'FeatureCollection', features, source: input.source, threshold, marginM, minZoneAreaM2, note };
 }
 
