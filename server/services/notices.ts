@@ -13,7 +13,7 @@ import { badRequest, conflict, notFound } from '../errors.ts';
 import { queue } from '../jobs/queue.ts';
 import { recordAudit } from './audit.ts';
 import { findVisibleField } from './fields.ts';
-import { zoneSetInOrganisation } from './zones.ts';
+import { zoneSetInOrganisation } from './zone-sets.ts';
 import { zonesGeoJson } from './zone-export.ts';
 import { NOTICE_CAUTIONS } from '../../shared/notices/cautions.ts';
 import { verdictInWords } from '../../shared/notices/verdict-words.ts';
