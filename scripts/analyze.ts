@@ -1,6 +1,8 @@
 // Command-line pattern check: npm run analyze -- --boundary FIELD.geojson --sightings POINTS.geojson [options]
-// Prints the result JSON on stdout; bad input exits with status 2 and one sentence on stderr.
+// Prints the result JSON on stdout; bad input exits with status 2 and one sentence on stderr. runAnalyzeCli() is the
+// same command as a function, so tests run it in-process.
 import { readFileSync } from 'node:fs';
+import { pathToFileURL } from 'node:url';
 import { parseArgs } from 'node:util';
 import { analyse } from '../shared/analysis/analyse.ts';
 import { AnalysisInputError } from '../shared/analysis/errors.ts';
@@ -8,9 +10,10 @@ import type { AnalysisOptionsInput } from '../shared/analysis/options.ts';
 
 class UsageError extends Error {}
 
-function fail(message: string): never {
-  process.stderr.write(`${message}\n`);
-  process.exit(2);
+export interface CliOutcome {
+  status: number;
+  stdout: string;
+  stderr: string;
 }
 
 function number(flag: string, value: string | undefined): number | undefined {
@@ -72,11 +75,12 @@ function joinNegativeValues(argv: string[]): string[] {
   return out;
 }
 
-function main(): void {
+/** The command on its arguments (without node and the script): what it would print and its exit status. */
+export function runAnalyzeCli(argv: string[]): CliOutcome {
   let parsed;
   try {
     parsed = parseArgs({
-      args: joinNegativeValues(process.argv.slice(2)),
+      args: joinNegativeValues(argv),
       options: {
         boundary: { type: 'string' },
         sightings: { type: 'string' },
@@ -101,7 +105,7 @@ function main(): void {
       allowPositionals: false,
     });
   } catch (error) {
-    fail(`${(error as Error).message.split('\n')[0].replace(/\.?$/, '.')} Run with --boundary FIELD.geojson --sightings POINTS.geojson.`);
+    return { status: 2, stdout: '', stderr: `${(error as Error).message.split('\n')[0].replace(/\.?$/, '.')} Run with --boundary FIELD.geojson --sightings POINTS.geojson.\n` };
   }
   try {
     const boundary = readGeoJson('boundary', parsed.values.boundary);
@@ -111,12 +115,17 @@ function main(): void {
     if (result.n < 2) {
       throw new UsageError(`Fewer than 2 sightings lie inside the boundary (${result.excluded.count} outside were left out); a pattern check needs at least 2.`);
     }
-    if (result.excluded.count > 0) process.stderr.write(`${result.excluded.count} sighting${result.excluded.count === 1 ? '' : 's'} outside the boundary ${result.excluded.count === 1 ? 'was' : 'were'} left out.\n`);
-    process.stdout.write(`${JSON.stringify(result, null, parsed.values.pretty ? 2 : undefined)}\n`);
+    const stderr = result.excluded.count > 0 ? `${result.excluded.count} sighting${result.excluded.count === 1 ? '' : 's'} outside the boundary ${result.excluded.count === 1 ? 'was' : 'were'} left out.\n` : '';
+    return { status: 0, stdout: `${JSON.stringify(result, null, parsed.values.pretty ? 2 : undefined)}\n`, stderr };
   } catch (error) {
-    if (error instanceof UsageError || error instanceof AnalysisInputError) fail(error.message);
+    if (error instanceof UsageError || error instanceof AnalysisInputError) return { status: 2, stdout: '', stderr: `${error.message}\n` };
     throw error;
   }
 }
 
-main();
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  const outcome = runAnalyzeCli(process.argv.slice(2));
+  process.stdout.write(outcome.stdout);
+  process.stderr.write(outcome.stderr);
+  process.exitCode = outcome.status;
+}

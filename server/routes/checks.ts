@@ -32,9 +32,12 @@ function parseCheckRequest(body: unknown, schema = checkRequestSchema): CheckReq
   return result.data;
 }
 
+// 200 an identical check was stored already, 201 computed in this request, 202 queued (poll the check).
+const statusFor = { stored: 200, computed: 201, queued: 202 } as const;
+
 checksRouter.post('/', requireRole('adviser', 'admin'), async (req, res) => {
   const outcome = await requestCheck(actor(req), parseCheckRequest(req.body));
-  res.status(outcome.httpStatus).type('json').send(outcome.json);
+  res.status(statusFor[outcome.happened]).type('json').send(outcome.json);
 });
 
 checksRouter.post('/sensitivity', requireRole('adviser', 'admin'), async (req, res) => {

@@ -7,6 +7,7 @@ import type { ThresholdBasis } from '../../shared/schemas/pests.ts';
 import type { AttentionField, AttentionResponse } from '../../shared/schemas/checks.ts';
 import { listUnacknowledgedNotices } from './notice-reading.ts';
 import { listWaitingGrowerQuestions } from './notice-questions.ts';
+import { liveSighting } from './live-sightings.ts';
 
 interface LatestCheckRow {
   checkId: string;
@@ -71,7 +72,7 @@ async function uncheckedSightings(organisationId: string): Promise<UncheckedRow[
        JOIN farms fa ON fa.id = f.farm_id
        JOIN pests p ON p.id = s.pest_id
        LEFT JOIN latest l ON l.field_id = s.field_id AND l.pest_id = s.pest_id
-      WHERE s.organisation_id = :org AND s.deleted_at IS NULL AND s.status = 'placed'
+      WHERE s.organisation_id = :org AND ${liveSighting('s')}
         AND (l.id IS NULL OR greatest(s.created_at, s.updated_at) > l.created_at)
       GROUP BY f.id, fa.name, p.id, l.id
       ORDER BY fa.name, f.name, p.name`,

@@ -13,6 +13,7 @@ import { createMonteCarloPool, type MonteCarloPool } from './monte-carlo/monte-c
 import { BACKGROUND_THREAD_NICE } from './background-priority.ts';
 import { closeAnalysisPool, runInAnalysisThread } from './analysis-pool.ts';
 import type { SplitResult } from './check-figures.ts';
+import { liveSighting } from './live-sightings.ts';
 
 export interface StoredSighting {
   id: string;
@@ -42,7 +43,7 @@ export async function sightingsInWindow(window: SightingWindow): Promise<StoredS
   return sequelize.query<StoredSighting>(
     `SELECT ${sightingColumns}
        FROM sightings s JOIN walks w ON w.id = s.walk_id
-      WHERE s.field_id = :fieldId AND s.pest_id = :pestId AND s.deleted_at IS NULL AND s.status = 'placed'
+      WHERE s.field_id = :fieldId AND s.pest_id = :pestId AND ${liveSighting('s')}
         AND (CAST(:from AS date) IS NULL OR w.walked_on >= CAST(:from AS date))
         AND (CAST(:to AS date) IS NULL OR w.walked_on <= CAST(:to AS date))
       ORDER BY s.id`,
@@ -55,7 +56,7 @@ export async function sightingsByIds(ids: string[]): Promise<StoredSighting[]> {
   if (ids.length === 0) return [];
   return sequelize.query<StoredSighting>(
     `SELECT ${sightingColumns} FROM sightings s
-      WHERE s.id = ANY(CAST(:ids AS uuid[])) AND s.deleted_at IS NULL AND s.status = 'placed' ORDER BY s.id`,
+      WHERE s.id = ANY(CAST(:ids AS uuid[])) AND ${liveSighting('s')} ORDER BY s.id`,
     { replacements: { ids: `{${ids.join(',')}}` }, type: QueryTypes.SELECT },
   );
 }

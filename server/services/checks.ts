@@ -67,8 +67,8 @@ const isStale = (check: PatternCheck) =>
 export interface CheckOutcome {
   /** `{ check }` already serialised, its figures spliced in as stored. */
   json: string;
-  /** 200 stored, 201 computed now, 202 queued. */
-  httpStatus: 200 | 201 | 202;
+  /** What happened: an identical check was already stored, this one was computed now, or it waits in the queue. */
+  happened: 'stored' | 'computed' | 'queued';
 }
 
 /** Finds the stored check with exactly these inputs, or stores a new one and runs it (inline or queued). */
@@ -90,7 +90,7 @@ export async function requestCheck(actor: Actor, request: CheckRequest): Promise
   };
 
   const stored = await PatternCheck.findOne({ where: key });
-  if (stored && stored.status !== 'failed' && !isStale(stored)) return { json: await checkAnswerJson(actor, stored.id, true), httpStatus: 200 };
+  if (stored && stored.status !== 'failed' && !isStale(stored)) return { json: await checkAnswerJson(actor, stored.id, true), happened: 'stored' };
 
   let check: PatternCheck;
   if (stored) {
@@ -107,7 +107,7 @@ export async function requestCheck(actor: Actor, request: CheckRequest): Promise
       },
     );
     // Two identical requests at once: the second finds the first's row.
-    if (!inserted) return { json: await checkAnswerJson(actor, (await PatternCheck.findOne({ where: key, attributes: ['id'] }))!.id, true), httpStatus: 200 };
+    if (!inserted) return { json: await checkAnswerJson(actor, (await PatternCheck.findOne({ where: key, attributes: ['id'] }))!.id, true), happened: 'stored' };
     check = (await PatternCheck.findByPk(inserted.id))!;
     await recordAudit(actor, 'run', 'pattern-check', check.id, { fieldId: key.fieldId, pestId: key.pestId, sightings: sightings.length });
   }
@@ -119,10 +119,10 @@ export async function requestCheck(actor: Actor, request: CheckRequest): Promise
       await PatternCheck.destroy({ where: { id: check.id } });
       throw badRequest(inputError.message);
     }
-    return { json: await checkAnswerJson(actor, check.id, false), httpStatus: 201 };
+    return { json: await checkAnswerJson(actor, check.id, false), happened: 'computed' };
   }
   await enqueueCheck(check.id);
-  return { json: await checkAnswerJson(actor, check.id, false), httpStatus: 202 };
+  return { json: await checkAnswerJson(actor, check.id, false), happened: 'queued' };
 }
 
 /** One check of the actor's organisation (another organisation's id simply is not found). */

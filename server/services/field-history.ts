@@ -5,6 +5,7 @@ import type { Actor } from '../auth/passport.ts';
 import { findVisibleField } from './fields.ts';
 import { fieldCheckSummaries } from './checks.ts';
 import type { FieldHistoryResponse, HistoryWalk } from '../../shared/schemas/checks.ts';
+import { liveSighting } from './live-sightings.ts';
 
 interface WalkPestRow {
   walkId: string;
@@ -29,7 +30,7 @@ export async function fieldHistory(actor: Actor, fieldId: string, pestId?: strin
             avg(s.count) AS "meanCount"
        FROM walks w
        JOIN users u ON u.id = w.scout_id
-       LEFT JOIN sightings s ON s.walk_id = w.id AND s.deleted_at IS NULL AND s.status = 'placed'
+       LEFT JOIN sightings s ON s.walk_id = w.id AND ${liveSighting('s')}
                              AND (CAST(:pestId AS uuid) IS NULL OR s.pest_id = CAST(:pestId AS uuid))
        LEFT JOIN pests p ON p.id = s.pest_id
       WHERE w.field_id = :fieldId

@@ -6,7 +6,8 @@ import { sequelize } from '../db.ts';
 import { Notice } from '../models/notice.ts';
 import { PatternCheck } from '../models/pattern-check.ts';
 import { notFound } from '../errors.ts';
-import { zoneSetInOrganisation } from './zones.ts';
+import { zoneSetInOrganisation } from './zone-sets.ts';
+import { liveSighting } from './live-sightings.ts';
 import { zonesGeoJson } from './zone-export.ts';
 import { zoneLocation } from './zone-locations.ts';
 import { NOTICE_CAUTIONS } from '../../shared/notices/cautions.ts';
@@ -46,7 +47,7 @@ export async function liveNoticeMaterial(notice: Notice): Promise<NoticeMaterial
   );
   const points = await sequelize.query<{ lon: number; lat: number }>(
     `SELECT ST_X(s.position) AS lon, ST_Y(s.position) AS lat FROM sightings s
-      WHERE ${sightingFilter} AND s.deleted_at IS NULL AND s.status = 'placed' AND (s.count IS NULL OR s.count > 0)`,
+      WHERE ${sightingFilter} AND ${liveSighting('s')} AND (s.count IS NULL OR s.count > 0)`,
     { replacements, type: QueryTypes.SELECT },
   );
   const boundary = JSON.parse(facts.boundary) as MultiPolygon;

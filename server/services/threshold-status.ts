@@ -6,6 +6,7 @@ import { findVisibleField } from './fields.ts';
 import { thresholdStatus } from '../../shared/thresholds/threshold-status.ts';
 import type { ThresholdBasis } from '../../shared/schemas/pests.ts';
 import type { WalkThresholdStatus } from '../../shared/schemas/checks.ts';
+import { liveSighting } from './live-sightings.ts';
 
 interface StopRow {
   walkId: string;
@@ -26,7 +27,7 @@ export async function stopsByWalkAndPest(fieldId: string, filter: { pestId?: str
             p.count_unit AS "countUnit", p.action_threshold AS "actionThreshold", p.threshold_basis AS "thresholdBasis",
             p.threshold_source AS "thresholdSource", array_agg(s.count ORDER BY s.id) AS counts
        FROM sightings s JOIN walks w ON w.id = s.walk_id JOIN pests p ON p.id = s.pest_id
-      WHERE s.field_id = :fieldId AND s.deleted_at IS NULL AND s.status = 'placed'
+      WHERE s.field_id = :fieldId AND ${liveSighting('s')}
         AND (CAST(:pestId AS uuid) IS NULL OR s.pest_id = CAST(:pestId AS uuid))
         AND (CAST(:walkId AS uuid) IS NULL OR s.walk_id = CAST(:walkId AS uuid))
       GROUP BY w.id, w.walked_on, p.id

@@ -6,7 +6,7 @@ import { searchCoverage, type CoverageResult } from './coverage.ts';
 import { densitySurface, type DensityResult } from './density.ts';
 import { normalTwoSided } from './distributions.ts';
 import { AnalysisInputError } from './errors.ts';
-import { createPlanarField, fieldToCoordinates, isInsideField, snapInsideField, type PlanarField } from './field-geometry.ts';
+import { createPlanarField, fieldToCoordinates, snapInsideField, type PlanarField } from './field-geometry.ts';
 import { randomLabellingTest, type RandomLabellingResult } from './labelling.ts';
 import { mergeStops, type PlacedSighting, type StopMerge } from './stops.ts';
 import { abundanceZones, stopSurface, type ZoneBasis } from './abundance-zones.ts';
@@ -21,11 +21,12 @@ import { runSimulations, type SimulationPlan } from './monte-carlo.ts';
 import { nearestNeighbourTest, type NearestNeighbourResult } from './nearest-neighbour.ts';
 import { analysisOptionsSchema, type AnalysisOptions, type AnalysisOptionsInput } from './options.ts';
 import { boundaryCentroid, planarProjection, utmProjectionFor, type Projection } from './projection.ts';
+import { planarFrame, zoneFeature } from './planar-frame.ts';
 import { quadratTest, type QuadratResult } from './quadrat.ts';
 import { defaultRipleyRadii, ripleyK, ripleyResult, type RipleyResult } from './ripley.ts';
 import { formatP, spreadVerdict, stopsVerdict, type CheckDesign, type Evidence, type SpreadResult } from './spread.ts';
 import { ENGINE_VERSION } from './version.ts';
-import { densityThresholdPerHa, zonesFromDensity, type PlanarZone } from './zones.ts';
+import { densityThresholdPerHa, zonesFromDensity } from './zones.ts';
 
 export { analysisOptionsSchema };
 export type { AnalysisOptions, AnalysisOptionsInput };
@@ -33,8 +34,6 @@ export type { AnalysisOptions, AnalysisOptionsInput };
 export type BoundaryInput = Polygon | MultiPolygon | Feature<Polygon | MultiPolygon> | FeatureCollection<Polygon | MultiPolygon>;
 export type SightingsInput = FeatureCollection<Point, { count?: number | null; id?: string } | null>;
 
-const M2_PER_HA = 10_000;
-const M2_PER_AC = 4046.8564224;
 
 export interface ZoneProperties {
   zone: number;
@@ -168,17 +167,7 @@ function prepare(boundary: unknown, sightings: unknown, optionsInput: AnalysisOp
     const [lon, lat] = boundaryCentroid(polygons);
     projection = utmProjectionFor(lon, lat);
   }
-  const projected = polygons.map((polygon) => polygon.map((ring) => ring.map(([x, y]) => projection.forward(x, y))));
-  // Work relative to the boundary's south-west corner so areas keep full precision.
-  let originX = Infinity;
-  let originY = Infinity;
-  for (const polygon of projected) for (const ring of polygon) for (const [x, y] of ring) {
-    originX = Math.min(originX, x);
-    originY = Math.min(originY, y);
-  }
-  originX = Math.floor(originX);
-  originY = Math.floor(originY);
-  const local = projected.map((polygon) => polygon.map((ring) => ring.map(([x, y]) => [x - originX, y - originY])));
+  const { originX, originY, local } = planarFrame(polygons, projection);
   refuseOverlappingParts(local);
   const field = createPlanarField(local);
   const placed: PlacedSighting[] = [];
@@ -573,7 +562,7 @@ function stopZones(prepared: Prepared, scouted: ScoutedArea, spread: SpreadResul
     note: `${rule}; ${options.zones.marginM} m margin, kept inside the scouted area (${scouted.rule}); zones under ${options.zones.minZoneAreaM2} m² dropped. The rest of the field is not scouted.`,
     features: planar.map((zone, index) => {
       const feature = zoneFeature(prepared, { rings: zone.rings, areaM2: zone.areaM2 }, index, prepared.located, prepared.area.boundaryM2);
-      feature.properties = {
+      const properties: ZoneProperties = {
         ...feature.properties,
         stopCount: zone.stops.length,
         stops: zone.stops.map((i) => prepared.stopIds[i]),
@@ -581,28 +570,8 @@ function stopZones(prepared: Prepared, scouted: ScoutedArea, spread: SpreadResul
         threshold,
         basis: surface.basis,
       };
-      return feature;
+      return { ...feature, properties };
     }),
   };
 }
 
-function zoneFeature(prepared: Prepared, zone: PlanarZone, index: number, located: Float64Array, fieldAreaM2: number): Feature<Polygon, ZoneProperties> {
-  const shape = createPlanarField([zone.rings]);
-  let inside = 0;
-  for (let i = 0; i < located.length; i += 2) if (isInsideField(shape, located[i], located[i + 1])) inside++;
-  return {
-    type: 'Feature',
-    properties: {
-      zone: index + 1,
-      areaM2: zone.areaM2,
-      areaHa: zone.areaM2 / M2_PER_HA,
-      areaAc: zone.areaM2 / M2_PER_AC,
-      shareOfField: zone.areaM2 / fieldAreaM2,
-      sightings: inside,
-    },
-    geometry: {
-      type: 'Polygon',
-      coordinates: zone.rings.map((ring) => ring.map(([x, y]) => prepared.projection.inverse(x + prepared.originX, y + prepared.originY))),
-    },
-  };
-}

@@ -3,11 +3,19 @@ import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
+import { runAnalyzeCli } from '../../scripts/analyze.ts';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const fixture = (name: string) => `tests/fixtures/analysis/${name}`;
 
+// In-process, through the command's own entry: the same parsing, output and exit status without a process each.
 function analyze(...args: string[]) {
+  const run = runAnalyzeCli(args);
+  return { status: run.status, stdout: run.stdout, stderr: run.stderr.trim() };
+}
+
+// One real process, to show the command prints and exits as the function says.
+function analyzeInProcess(...args: string[]) {
   const run = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/analyze.ts', ...args], { cwd: root, encoding: 'utf8' });
   return { status: run.status, stdout: run.stdout, stderr: run.stderr.trim() };
 }
@@ -72,4 +80,15 @@ describe('npm run analyze', () => {
       expectOneSentence(run.stderr, message);
     });
   }
+
+  it('runs as a command: the result on stdout with status 0, and status 2 with one sentence for bad input', () => {
+    const good = analyzeInProcess('--boundary', fixture('lattice-field.geojson'), '--sightings', fixture('lattice-sightings.geojson'), '--planar', '--simulations', '9');
+    expect(good.status).toBe(0);
+    const withoutTimings = (text: string) => JSON.parse(text, (key, value) => (key === 'timingsMs' ? undefined : value));
+    const inProcess = analyze('--boundary', fixture('lattice-field.geojson'), '--sightings', fixture('lattice-sightings.geojson'), '--planar', '--simulations', '9');
+    expect(withoutTimings(good.stdout)).toEqual(withoutTimings(inProcess.stdout));
+    const bad = analyzeInProcess('--boundary', fixture('not-geojson.geojson'), '--sightings', fixture('sightings.geojson'));
+    expect(bad.status).toBe(2);
+    expectOneSentence(bad.stderr, /not GeoJSON/);
+  });
 });

@@ -5,6 +5,7 @@ import { QueryTypes } from 'sequelize';
 import { sequelize } from '../../db.ts';
 import { conflict } from '../../errors.ts';
 import type { ZoneSetView } from '../../../shared/schemas/zones.ts';
+import { liveSighting } from '../live-sightings.ts';
 
 export interface ZoneFileZone {
   number: number;
@@ -53,7 +54,7 @@ export async function zoneFileSource(zoneSet: ZoneSetView): Promise<ZoneFileSour
   const perZone = await sequelize.query<{ zone_id: string; stops: number; mean_count: number | null }>(
     `SELECT z.id AS zone_id, count(s.id)::int AS stops, avg(s.count) AS mean_count
        FROM zones z LEFT JOIN sightings s
-         ON ${stopsFilter} AND s.deleted_at IS NULL AND s.status = 'placed' AND ST_Covers(z.geometry, s.position)
+         ON ${stopsFilter} AND ${liveSighting('s')} AND ST_Covers(z.geometry, s.position)
       WHERE z.zone_set_id = :zoneSetId GROUP BY z.id`,
     { replacements: { ids: `{${(facts.sighting_ids ?? []).join(',')}}`, fieldId: zoneSet.fieldId, pestId: zoneSet.pestId, zoneSetId: zoneSet.id }, type: QueryTypes.SELECT },
   );

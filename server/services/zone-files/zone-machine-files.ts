@@ -4,7 +4,7 @@ import type { ZoneSetView } from '../../../shared/schemas/zones.ts';
 import { sequelize } from '../../db.ts';
 import { notFound } from '../../errors.ts';
 import { exportFileName } from '../zone-export.ts';
-import { zoneSetInOrganisation } from '../zones.ts';
+import { zoneSetInOrganisation } from '../zone-sets.ts';
 import { zoneFileSource } from './zone-file-source.ts';
 import { zonesIsoxmlZip } from './zone-isoxml.ts';
 import { zonesShapefileZip } from './zone-shapefile.ts';

@@ -1,107 +1,21 @@
-// Treatment zones: proposals recomputed from a stored check by the engine's zone functions, and accepted,
-// versioned zone sets stored in PostGIS (clipped to the field, slivers dropped, areas on the ellipsoid).
+// Accepted, versioned zone sets stored in PostGIS: clipped to the field, slivers dropped, areas on the ellipsoid.
 import { QueryTypes, type Transaction } from 'sequelize';
-import type { Feature, MultiPolygon, Polygon } from 'geojson';
+import type { MultiPolygon, Polygon } from 'geojson';
 import { sequelize } from '../db.ts';
 import type { Actor } from '../auth/passport.ts';
-import { PatternCheck } from '../models/pattern-check.ts';
 import { Pest } from '../models/pest.ts';
 import { ZoneSet } from '../models/zone-set.ts';
-import { badRequest, conflict, notFound } from '../errors.ts';
+import { badRequest, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { findVisibleField } from './fields.ts';
 import { visibleFieldIds } from './scope.ts';
-import { fieldBoundary, sightingsByIds } from './check-runner.ts';
-import { storedDensityValues } from './check-density.ts';
-import { createPlanarField, isInsideField, type PlanarField } from '../../shared/analysis/field-geometry.ts';
-import { boundaryCentroid, utmProjectionFor, type Projection } from '../../shared/analysis/projection.ts';
-import { DEFAULT_MARGIN_M, DEFAULT_MIN_ZONE_AREA_M2, densityThresholdPerHa, zonesFromDensity, zonesFromQuadrat, type PlanarZone } from '../../shared/analysis/zones.ts';
-import type { DensityResult } from '../../shared/analysis/density.ts';
-import type { QuadratResult } from '../../shared/analysis/quadrat.ts';
+import { DEFAULT_MIN_ZONE_AREA_M2 } from '../../shared/analysis/zones.ts';
 import { runInAnalysisThread } from './analysis-pool.ts';
 import { BoundaryError } from '../../shared/boundary/boundary-faults.ts';
 import { toAcres, toHectares } from '../../shared/units/area.ts';
-import type { ProposedZoneProperties, ZoneProposalRequest, ZoneProposalResponse, ZoneSetCreateRequest, ZoneSetView, ZoneView } from '../../shared/schemas/zones.ts';
-
-/** The field in the engine's planar frame: UTM of the centroid, relative to the south-west corner (as analyse() does). */
-function planarFrame(boundary: MultiPolygon): { projection: Projection; originX: number; originY: number; field: PlanarField } {
-  const [lon, lat] = boundaryCentroid(boundary.coordinates);
-  const projection = utmProjectionFor(lon, lat);
-  const projected = boundary.coordinates.map((polygon) => polygon.map((ring) => ring.map(([x, y]) => projection.forward(x, y))));
-  const all = projected.flat(2);
-  const originX = Math.floor(Math.min(...all.map((p) => p[0])));
-  const originY = Math.floor(Math.min(...all.map((p) => p[1])));
-  const field = createPlanarField(projected.map((polygon) => polygon.map((ring) => ring.map(([x, y]) => [x - originX, y - originY]))));
-  return { projection, originX, originY, field };
-}
-
-async function findCheck(actor: Actor, checkId: string) {
-  const check = await PatternCheck.findOne({ where: { id: checkId, organisationId: actor.organisationId } });
-  if (!check) throw notFound('That pattern check');
-  await findVisibleField(actor, check.fieldId);
-  return check;
-}
-
-/** Zones proposed from a stored check: its density surface or quadrat cells, re-thresholded, merged, buffered and clipped by the engine. */
-export async function proposeZones(actor: Actor, checkId: string, input: ZoneProposalRequest): Promise<ZoneProposalResponse['zones']> {
-  const check = await findCheck(actor, checkId);
-  if (check.status !== 'done' || !check.result) throw conflict('This check has not finished yet; propose zones once its result is in.');
-  const result = check.result as {
-    density: (Omit<DensityResult, 'perHa'> & { perHa?: DensityResult['perHa'] }) | null;
-    quadrat: QuadratResult | null;
-    area: { boundaryM2: number };
-    design?: 'stops' | 'whole-field';
-    zones?: { features: Feature<Polygon, ProposedZoneProperties>[]; note: string };
-  };
-  // A stops-design check drew its zones from abundance among the stops, inside the scouted area: those are its proposal.
-  if (input.source === 'density' && result.design === 'stops' && result.zones && input.threshold === undefined && input.marginM === undefined && input.minZoneAreaM2 === undefined) {
-    return { type: 'FeatureCollection', features: result.zones.features, source: input.source, threshold: 0, marginM: DEFAULT_MARGIN_M, minZoneAreaM2: DEFAULT_MIN_ZONE_AREA_M2, note: result.zones.note };
-  }
-  const boundary = await fieldBoundary(check.fieldId);
-  const { projection, originX, originY, field } = planarFrame(boundary);
-  const marginM = input.marginM ?? DEFAULT_MARGIN_M;
-  const minZoneAreaM2 = input.minZoneAreaM2 ?? DEFAULT_MIN_ZONE_AREA_M2;
-  let planar: PlanarZone[];
-  let threshold: number;
-  let note: string;
-  if (input.source === 'density') {
-    const perHa = result.density ? (result.density.perHa ?? (await storedDensityValues(check.id))) : null;
-    if (!result.density || !perHa) throw badRequest('This check has no density surface (no sightings inside the field), so it cannot propose density zones.');
-    const local = { ...result.density, perHa, originX: result.density.originX - originX, originY: result.density.originY - originY };
-    threshold = densityThresholdPerHa(local, input.threshold === undefined ? {} : { densityThresholdPerHa: input.threshold });
-    planar = zonesFromDensity(field, local, { densityThresholdPerHa: threshold, marginM, minZoneAreaM2 });
-    note = `Density of at least ${threshold.toFixed(1)} sightings per ha, ${marginM} m margin, zones under ${minZoneAreaM2} m² dropped.`;
-  } else {
-    if (!result.quadrat) throw badRequest('This check has no quadrat counts (fewer than 2 sightings), so it cannot propose quadrat zones.');
-    const pest = await Pest.findOne({ where: { id: check.pestId, organisationId: actor.organisationId } });
-    threshold = input.threshold ?? pest?.actionThreshold ?? 0;
-    const grid = { ...result.quadrat.grid, originX: result.quadrat.grid.originX - originX, originY: result.quadrat.grid.originY - originY };
-    planar = zonesFromQuadrat(field, { ...result.quadrat, grid }, { actionThreshold: threshold, marginM, minZoneAreaM2 });
-    note = `Quadrat cells whose mean count per sighting exceeds ${threshold}${pest ? ` ${pest.countUnit}` : ''}, ${marginM} m margin, zones under ${minZoneAreaM2} m² dropped.`;
-  }
-  // Sightings inside a zone: the check's own sightings with the pest found (count above 0, or no count).
-  const sightings = (await sightingsByIds(check.sightingIds)).filter((s) => s.count !== 0).map((s) => {
-    const [x, y] = projection.forward(s.lon, s.lat);
-    return [x - originX, y - originY];
-  });
-  const fieldAreaM2 = result.area.boundaryM2;
-  const features = planar.map((zone, index): Feature<Polygon, ProposedZoneProperties> => {
-    const shape = createPlanarField([zone.rings]);
-    return {
-      type: 'Feature',
-      properties: {
-        zone: index + 1,
-        areaM2: zone.areaM2,
-        areaHa: toHectares(zone.areaM2),
-        areaAc: toAcres(zone.areaM2),
-        shareOfField: zone.areaM2 / fieldAreaM2,
-        sightings: sightings.filter(([x, y]) => isInsideField(shape, x, y)).length,
-      },
-      geometry: { type: 'Polygon', coordinates: zone.rings.map((ring) => ring.map(([x, y]) => projection.inverse(x + originX, y + originY))) },
-    };
-  });
-  return { type: 'FeatureCollection', features, source: input.source, threshold, marginM, minZoneAreaM2, note };
-}
+import type { ZoneSetCreateRequest, ZoneSetView, ZoneView } from '../../shared/schemas/zones.ts';
+import { liveSighting } from './live-sightings.ts';
+import { findCheck } from './zone-proposals.ts';
 
 const asMultiPolygon = (geometry: Polygon | MultiPolygon): MultiPolygon => ({
   type: 'MultiPolygon',
@@ -202,7 +116,7 @@ export async function createZoneSet(actor: Actor, fieldId: string, input: ZoneSe
         `INSERT INTO zones (zone_set_id, position, label, geometry, share_of_field, sightings_inside)
          SELECT :zoneSetId, :position, :label, g, LEAST(1, ST_Area(g::geography, true) / NULLIF(f.area_m2, 0)),
                 (SELECT count(*) FROM sightings s
-                  WHERE s.field_id = f.id AND s.pest_id = :pestId AND s.deleted_at IS NULL AND s.status = 'placed'
+                  WHERE s.field_id = f.id AND s.pest_id = :pestId AND ${liveSighting('s')}
                     AND (s.count IS NULL OR s.count > 0) AND ST_Covers(g, s.position)
                     AND (CAST(:ids AS uuid[]) IS NULL OR s.id = ANY(CAST(:ids AS uuid[]))))
            FROM (SELECT ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326) AS g) z, fields f WHERE f.id = :fieldId`,
