@@ -1,5 +1,5 @@
 // The adviser's home: what needs attention now — clustered pests above their threshold, sightings not yet
-// checked, notices the grower has not acknowledged — each with a link straight to the field's review.
+// checked, notices the grower has not acknowledged, questions growers asked — each with a link straight to its page.
 import type { ReactNode } from 'react';
 import { Link } from 'react-router';
 import type { AttentionField } from '@shared/schemas/checks.ts';
@@ -56,10 +56,30 @@ export function AdviserHome() {
         <LoadingState label="Looking for fields that need you…" />
       ) : attention.isError ? (
         <ErrorState error={attention.error} onRetry={() => attention.refetch()} />
-      ) : attention.data.clusteredAboveThreshold.length + attention.data.notYetChecked.length + attention.data.unacknowledgedNotices.length === 0 ? (
+      ) : attention.data.clusteredAboveThreshold.length + attention.data.notYetChecked.length + attention.data.unacknowledgedNotices.length + attention.data.growerQuestions.length === 0 ? (
         <EmptyState title="Nothing needs you right now">Every field’s sightings are checked, no patchy pest is above its threshold and every notice is acknowledged.</EmptyState>
       ) : (
         <div className="grid items-start gap-5 xl:grid-cols-2">
+          {attention.data.growerQuestions.length > 0 && (
+            <Section title="Questions from growers" count={attention.data.growerQuestions.length} tone="bg-patch-100 text-patch-800" empty="No grower is waiting for an answer.">
+              {attention.data.growerQuestions.map((q) => (
+                <li key={q.questionId} className="flex flex-wrap items-start justify-between gap-x-4 gap-y-1 py-2.5" data-attention="grower-question">
+                  <div className="min-w-0">
+                    <p className="font-medium text-soil-900">
+                      {q.fieldName} <span className="font-normal text-soil-600">· {q.farmName}</span> <span className="text-patch-700">· {q.pestName}</span>
+                    </p>
+                    <p className="whitespace-pre-line text-sm text-soil-700">“{q.message}”</p>
+                    <p className="text-xs text-soil-600">
+                      {q.askerName}, {new Date(q.askedAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}
+                    </p>
+                  </div>
+                  <Link to={`/notices/${q.noticeId}`} className="shrink-0 rounded-md bg-field-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-field-600">
+                    Answer
+                  </Link>
+                </li>
+              ))}
+            </Section>
+          )}
           <Section title="Patchy and above threshold" count={attention.data.clusteredAboveThreshold.length} tone="bg-patch-600 text-white" empty="No clustered pest is above its action threshold.">
             {attention.data.clusteredAboveThreshold.map((item) => (
               <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action="Review zones" />
