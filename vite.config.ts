@@ -21,11 +21,20 @@ export default defineConfig({
       {
         extends: true,
         // Every other folder of tests/ (engine, shared rules, client logic, the tooling's own logic): no database, build or network.
-        test: { name: 'unit', ...inOrder(0), include: ['tests/**/*.test.ts'], exclude: ['tests/api/**', 'tests/e2e/**', 'tests/faults/**', '**/node_modules/**'], testTimeout: 30_000 },
+        test: {
+          name: 'unit',
+          ...inOrder(0),
+          include: ['tests/**/*.test.ts'],
+          exclude: ['tests/api/**', 'tests/e2e/**', 'tests/faults/**', '**/node_modules/**'],
+          testTimeout: 30_000,
+        },
       },
       { extends: true, test: { name: 'api', ...inOrder(1), include: ['tests/api/**/*.test.ts'], globalSetup: ['tests/global-setup.ts'], ...serialSuite } },
       { extends: true, test: { name: 'e2e', ...inOrder(2), include: ['tests/e2e/**/*.test.ts'], globalSetup: ['tests/global-setup.ts'], ...serialSuite } },
-      { extends: true, test: { name: 'faults', ...inOrder(3), include: ['tests/faults/**/*.test.ts'], globalSetup: ['tests/global-setup.ts'], ...serialSuite } },
+      {
+        extends: true,
+        test: { name: 'faults', ...inOrder(3), include: ['tests/faults/**/*.test.ts'], globalSetup: ['tests/global-setup.ts'], ...serialSuite },
+      },
     ],
   },
 });

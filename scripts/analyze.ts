@@ -105,17 +105,27 @@ export function runAnalyzeCli(argv: string[]): CliOutcome {
       allowPositionals: false,
     });
   } catch (error) {
-    return { status: 2, stdout: '', stderr: `${(error as Error).message.split('\n')[0].replace(/\.?$/, '.')} Run with --boundary FIELD.geojson --sightings POINTS.geojson.\n` };
+    return {
+      status: 2,
+      stdout: '',
+      stderr: `${(error as Error).message.split('\n')[0].replace(/\.?$/, '.')} Run with --boundary FIELD.geojson --sightings POINTS.geojson.\n`,
+    };
   }
   try {
     const boundary = readGeoJson('boundary', parsed.values.boundary);
     const sightings = readGeoJson('sightings', parsed.values.sightings);
     const result = analyse(boundary, sightings, optionsFrom(parsed.values));
-    if (result.n + result.emptyStops + result.excluded.count < 2) throw new UsageError('The sightings file holds fewer than 2 points; a pattern check needs at least 2.');
+    if (result.n + result.emptyStops + result.excluded.count < 2)
+      throw new UsageError('The sightings file holds fewer than 2 points; a pattern check needs at least 2.');
     if (result.n < 2) {
-      throw new UsageError(`Fewer than 2 sightings lie inside the boundary (${result.excluded.count} outside were left out); a pattern check needs at least 2.`);
+      throw new UsageError(
+        `Fewer than 2 sightings lie inside the boundary (${result.excluded.count} outside were left out); a pattern check needs at least 2.`,
+      );
     }
-    const stderr = result.excluded.count > 0 ? `${result.excluded.count} sighting${result.excluded.count === 1 ? '' : 's'} outside the boundary ${result.excluded.count === 1 ? 'was' : 'were'} left out.\n` : '';
+    const stderr =
+      result.excluded.count > 0
+        ? `${result.excluded.count} sighting${result.excluded.count === 1 ? '' : 's'} outside the boundary ${result.excluded.count === 1 ? 'was' : 'were'} left out.\n`
+        : '';
     return { status: 0, stdout: `${JSON.stringify(result, null, parsed.values.pretty ? 2 : undefined)}\n`, stderr };
   } catch (error) {
     if (error instanceof UsageError || error instanceof AnalysisInputError) return { status: 2, stdout: '', stderr: `${error.message}\n` };

@@ -22,7 +22,9 @@ const children: ChildProcess[] = [
 
 console.log(`
 Patchwise (development): client with hot reload at http://127.0.0.1:5173, API on port ${process.env.PORT ?? localDefaults.appPort}
-Demo accounts (password for all: ${demoAccounts()[0].password}): ${demoAccounts().map((a) => a.email).join(', ')}
+Demo accounts (password for all: ${demoAccounts()[0].password}): ${demoAccounts()
+  .map((a) => a.email)
+  .join(', ')}
 Press Ctrl-C to stop.`);
 
 let stopping = false;
@@ -35,4 +37,10 @@ async function stop() {
 }
 process.on('SIGINT', stop);
 process.on('SIGTERM', stop);
-for (const child of children) child.on('exit', (code) => { if (!stopping) { console.error(`A development process stopped (exit ${code}); stopping the rest.`); void stop(); } });
+for (const child of children)
+  child.on('exit', (code) => {
+    if (!stopping) {
+      console.error(`A development process stopped (exit ${code}); stopping the rest.`);
+      void stop();
+    }
+  });

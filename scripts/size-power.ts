@@ -29,7 +29,9 @@ for (const [name, stops] of Object.entries(walks)) {
     if (analyse(squareField, stopsCollection(stops, labels), { planar: true, seed: s, simulations, alpha }).spread.verdict === 'clustered') clustered++;
   }
   const [lo, hi] = wilson(clustered, runs);
-  rows.push(`| ${name}, ${stops.length} stops 20 m apart | pest at a random 30 % of stops | ${pct(clustered / runs)} (${pct(lo)}–${pct(hi)}) | at most 7 % | ${clustered / runs <= 0.07 ? 'yes' : 'NO'} |`);
+  rows.push(
+    `| ${name}, ${stops.length} stops 20 m apart | pest at a random 30 % of stops | ${pct(clustered / runs)} (${pct(lo)}–${pct(hi)}) | at most 7 % | ${clustered / runs <= 0.07 ? 'yes' : 'NO'} |`,
+  );
 }
 
 for (const [name, stops] of Object.entries(walks)) {
@@ -39,7 +41,9 @@ for (const [name, stops] of Object.entries(walks)) {
     if (analyse(squareField, stopsCollection(stops, labels), { planar: true, seed: s, simulations, alpha }).spread.verdict === 'clustered') clustered++;
   }
   const [lo, hi] = wilson(clustered, runs);
-  rows.push(`| ${name}, ${stops.length} stops 20 m apart | one patch: the 10 % of stops nearest a random stop infested with p = 0.8, the rest with p = 0.1 | ${pct(clustered / runs)} (${pct(lo)}–${pct(hi)}) | at least 80 % | ${clustered / runs >= 0.8 ? 'yes' : 'NO'} |`);
+  rows.push(
+    `| ${name}, ${stops.length} stops 20 m apart | one patch: the 10 % of stops nearest a random stop infested with p = 0.8, the rest with p = 0.1 | ${pct(clustered / runs)} (${pct(lo)}–${pct(hi)}) | at least 80 % | ${clustered / runs >= 0.8 ? 'yes' : 'NO'} |`,
+  );
 }
 
 {
@@ -50,15 +54,21 @@ for (const [name, stops] of Object.entries(walks)) {
     for (let k = 0; k < 25; k++) {
       const x = 999 * random();
       const y = 1000 * random();
-      for (const dx of [0, 1]) features.push({ type: 'Feature' as const, properties: { id: `p${k}-${dx}` }, geometry: { type: 'Point' as const, coordinates: [x + dx, y] } });
+      for (const dx of [0, 1])
+        features.push({ type: 'Feature' as const, properties: { id: `p${k}-${dx}` }, geometry: { type: 'Point' as const, coordinates: [x + dx, y] } });
     }
-    if (analyse(squareField, { type: 'FeatureCollection', features }, { planar: true, seed: s, simulations, alpha }).spread.verdict === 'clustered') clustered++;
+    if (analyse(squareField, { type: 'FeatureCollection', features }, { planar: true, seed: s, simulations, alpha }).spread.verdict === 'clustered')
+      clustered++;
   }
   const [lo, hi] = wilson(clustered, runs);
-  rows.push(`| 25 random spots, each photographed twice 1 m apart (photos only) | complete spatial randomness | ${pct(clustered / runs)} (${pct(lo)}–${pct(hi)}) | at most 7 % | ${clustered / runs <= 0.07 ? 'yes' : 'NO'} |`);
+  rows.push(
+    `| 25 random spots, each photographed twice 1 m apart (photos only) | complete spatial randomness | ${pct(clustered / runs)} (${pct(lo)}–${pct(hi)}) | at most 7 % | ${clustered / runs <= 0.07 ? 'yes' : 'NO'} |`,
+  );
 }
 
-console.log(`Share of checks reading "Clustered" at α = ${alpha}, ${simulations} relabellings (or CSR simulations), ${runs} walks per row, 1 km square field; 95 % Wilson interval in brackets.\n`);
+console.log(
+  `Share of checks reading "Clustered" at α = ${alpha}, ${simulations} relabellings (or CSR simulations), ${runs} walks per row, 1 km square field; 95 % Wilson interval in brackets.\n`,
+);
 console.log('| walk | truth | "Clustered" | target | met |');
 console.log('| --- | --- | --- | --- | --- |');
 for (const row of rows) console.log(row);

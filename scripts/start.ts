@@ -23,7 +23,9 @@ Patchwise is running at ${config.publicUrl}
 ${stack.seeded ? 'Demo scenario seeded.' : 'Demo scenario already present.'}${stack.catcher ? ` Mail catcher on smtp://127.0.0.1:${stack.catcher.port} (read it at ${config.publicUrl}/admin/mailbox).` : ''}
 
 Demo accounts (password for all: ${demoAccounts()[0].password}):
-${demoAccounts().map((a) => `  ${a.role.padEnd(8)} ${a.email}`).join('\n')}
+${demoAccounts()
+  .map((a) => `  ${a.role.padEnd(8)} ${a.email}`)
+  .join('\n')}
 
 Press Ctrl-C to stop.`);
 

@@ -29,7 +29,12 @@ function cleanUp() {
 
 function summaryFrom(file: string) {
   if (!fs.existsSync(file)) return null;
-  const report = JSON.parse(fs.readFileSync(file, 'utf8')) as { numPassedTests: number; numFailedTests: number; numTotalTestSuites: number; testResults: Array<{ status: string; message?: string; name: string }> };
+  const report = JSON.parse(fs.readFileSync(file, 'utf8')) as {
+    numPassedTests: number;
+    numFailedTests: number;
+    numTotalTestSuites: number;
+    testResults: Array<{ status: string; message?: string; name: string }>;
+  };
   // A file that fails to load counts as a failure even though none of its tests ran.
   const brokenFiles = report.testResults.filter((r) => r.status === 'failed' && r.message && !r.message.includes('Test failed')).length;
   return { passed: report.numPassedTests, failed: report.numFailedTests, brokenFiles };
@@ -76,7 +81,10 @@ try {
 
   if (needs.clientBuild) {
     console.log('Building the client…');
-    const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn', '--outDir', env.CLIENT_DIR!, '--emptyOutDir'], { env: { ...env, NODE_ENV: 'production' }, stdio: 'inherit' });
+    const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn', '--outDir', env.CLIENT_DIR!, '--emptyOutDir'], {
+      env: { ...env, NODE_ENV: 'production' },
+      stdio: 'inherit',
+    });
     if (build.status !== 0) throw new Error('The client build failed.');
   }
 
@@ -88,7 +96,10 @@ try {
 
   const reportFile = path.join(workDir, 'vitest-report.json');
   const projectArgs = vitestArgs.some((a) => a === '--project' || a.startsWith('--project=')) ? [] : needs.projects.flatMap((p) => ['--project', p]);
-  const vitest = spawn('npx', ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`, ...projectArgs, ...vitestArgs], { env, stdio: 'inherit' });
+  const vitest = spawn('npx', ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`, ...projectArgs, ...vitestArgs], {
+    env,
+    stdio: 'inherit',
+  });
   const vitestCode: number = await new Promise((resolve) => vitest.on('exit', (code) => resolve(code ?? 1)));
   const summary = summaryFrom(reportFile);
   const failed = (summary?.failed ?? 0) + (summary?.brokenFiles ?? 0) + (summary ? 0 : 1);

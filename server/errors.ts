@@ -59,9 +59,15 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (err instanceof AppError) error = err;
   else if (err instanceof ZodError) error = fromZod(err);
   else if (err instanceof BoundaryError) error = new AppError(400, `boundary_${err.fault.code}`, err.message, { boundary: err.message });
-  else if (err?.type === 'entity.too.large') error = new AppError(413, 'too_large', `The request body is larger than the ${Math.round((err.limit ?? 0) / 1_048_576) || 6} MB limit; send less at a time.`);
+  else if (err?.type === 'entity.too.large')
+    error = new AppError(
+      413,
+      'too_large',
+      `The request body is larger than the ${Math.round((err.limit ?? 0) / 1_048_576) || 6} MB limit; send less at a time.`,
+    );
   else if (err?.type === 'entity.parse.failed') error = badRequest('The request body is not valid JSON.');
-  else if (err?.code === 'EBADCSRFTOKEN' || err?.code === 'invalid_csrf') error = new AppError(403, 'csrf', 'This form has expired: reload the page and try again.');
+  else if (err?.code === 'EBADCSRFTOKEN' || err?.code === 'invalid_csrf')
+    error = new AppError(403, 'csrf', 'This form has expired: reload the page and try again.');
   else if (isDatabaseUnavailable(err)) error = new AppError(503, 'unavailable', 'Patchwise cannot reach its database right now; try again in a minute.');
   else error = fromDatabase(err) ?? new AppError(500, 'internal', 'Something went wrong on our side; the team has been told.');
   if (error.status >= 500 && error.code === 'internal') {

@@ -78,7 +78,14 @@ export async function run(): Promise<BenchTable> {
     const oursMs = medianTime(ours, 5);
     const result = ours();
     if (n === 20000 && skip20k) {
-      rows.push({ case: `nearest-neighbour test, n = ${n}`, ours: ms(oursMs), reference: 'skipped (BENCH_SKIP_TURF_20K=1)', ratio: '', target: '≥ 1000× faster than turf', agreement: '' });
+      rows.push({
+        case: `nearest-neighbour test, n = ${n}`,
+        ours: ms(oursMs),
+        reference: 'skipped (BENCH_SKIP_TURF_20K=1)',
+        ratio: '',
+        target: '≥ 1000× faster than turf',
+        agreement: '',
+      });
       continue;
     }
     const points = featureCollection(lonLat.map((c) => point(c)));
@@ -96,7 +103,14 @@ export async function run(): Promise<BenchTable> {
   }
 
   const big = simulateCsr(field, 100_000, random);
-  rows.push({ case: 'nearest-neighbour pass, n = 100,000', ours: ms(medianTime(() => nearestNeighbourDistances(big), 7)), reference: 'compiled ≈ 45 ms; plain JS k-d tree ≈ 110 ms', ratio: '', target: '≤ 50 ms', agreement: '' });
+  rows.push({
+    case: 'nearest-neighbour pass, n = 100,000',
+    ours: ms(medianTime(() => nearestNeighbourDistances(big), 7)),
+    reference: 'compiled ≈ 45 ms; plain JS k-d tree ≈ 110 ms',
+    ratio: '',
+    target: '≤ 50 ms',
+    agreement: '',
+  });
 
   const pool = createMonteCarloPool();
   try {
@@ -105,11 +119,25 @@ export async function run(): Promise<BenchTable> {
     for (const n of [200, 1000]) {
       const started = performance.now();
       await pool.run({ fieldCoordinates: coordinates, n, seed: 'bench', simulations: 999, nearestNeighbour: true, ripley: null });
-      rows.push({ case: `Monte Carlo nearest-neighbour, 999 simulations, n = ${n}`, ours: ms(performance.now() - started), reference: '', ratio: '', target: '', agreement: `${pool.threads} worker threads` });
+      rows.push({
+        case: `Monte Carlo nearest-neighbour, 999 simulations, n = ${n}`,
+        ours: ms(performance.now() - started),
+        reference: '',
+        ratio: '',
+        target: '',
+        agreement: `${pool.threads} worker threads`,
+      });
     }
     for (const n of [200, 1000]) {
       const started = performance.now();
-      await pool.run({ fieldCoordinates: coordinates, n, seed: 'bench', simulations: 999, nearestNeighbour: false, ripley: { radiiM: defaultRipleyRadii(field), correction: 'isotropic', areaM2: area } });
+      await pool.run({
+        fieldCoordinates: coordinates,
+        n,
+        seed: 'bench',
+        simulations: 999,
+        nearestNeighbour: false,
+        ripley: { radiiM: defaultRipleyRadii(field), correction: 'isotropic', areaM2: area },
+      });
       rows.push({
         case: `Ripley K envelope (isotropic), 999 simulations, n = ${n}`,
         ours: ms(performance.now() - started),
@@ -136,7 +164,14 @@ export async function run(): Promise<BenchTable> {
     return quadratTest(field, inside.subarray(0, kept), area);
   };
   const quadrat = quadratRun();
-  rows.push({ case: 'quadrat test, 100,000 points, irregular 40 ha field', ours: ms(medianTime(quadratRun, 5)), reference: 'compiled ≈ 0.45 s', ratio: '', target: '≤ 0.4 s', agreement: `${quadrat.cells.length} clipped cells, χ² ${quadrat.chiSquare.toFixed(0)} on ${quadrat.df} df` });
+  rows.push({
+    case: 'quadrat test, 100,000 points, irregular 40 ha field',
+    ours: ms(medianTime(quadratRun, 5)),
+    reference: 'compiled ≈ 0.45 s',
+    ratio: '',
+    target: '≤ 0.4 s',
+    agreement: `${quadrat.cells.length} clipped cells, χ² ${quadrat.chiSquare.toFixed(0)} on ${quadrat.df} df`,
+  });
 
   const field50 = irregularField(50);
   const dense = simulateCsr(field50, 100_000, random);

@@ -112,13 +112,23 @@ async function measure(): Promise<BenchTable> {
     initCluster(cluster);
     startCluster(cluster);
     await ensureDatabase(cluster, 'patchwise_bench');
-    Object.assign(process.env, { DATABASE_URL: databaseUrl(cluster, 'patchwise_bench'), UPLOAD_DIR: path.join(workDir, 'uploads'), NODE_ENV: 'test', MAIL_CATCHER: 'off' });
-    const migrate = spawnSync('node', ['--import', 'tsx', 'scripts/migrate.ts'], { cwd: projectRoot, env: process.env, stdio: ['ignore', 'ignore', 'inherit'] });
+    Object.assign(process.env, {
+      DATABASE_URL: databaseUrl(cluster, 'patchwise_bench'),
+      UPLOAD_DIR: path.join(workDir, 'uploads'),
+      NODE_ENV: 'test',
+      MAIL_CATCHER: 'off',
+    });
+    const migrate = spawnSync('node', ['--import', 'tsx', 'scripts/migrate.ts'], {
+      cwd: projectRoot,
+      env: process.env,
+      stdio: ['ignore', 'ignore', 'inherit'],
+    });
     if (migrate.status !== 0) throw new Error('migrations failed');
 
     // Server modules read their configuration on import: load them only now.
     const { config } = await import('../../server/config.ts');
-    if (config.databaseUrl !== process.env.DATABASE_URL) throw new Error('server configuration was loaded before the bench set its database; run this bench on its own');
+    if (config.databaseUrl !== process.env.DATABASE_URL)
+      throw new Error('server configuration was loaded before the bench set its database; run this bench on its own');
     const { sequelize } = await import('../../server/db.ts');
     const { createApp } = await import('../../server/app.ts');
     const { hashPassword } = await import('../../server/auth/passwords.ts');
@@ -127,27 +137,53 @@ async function measure(): Promise<BenchTable> {
     await import('../../server/jobs/thumbnail-worker.ts');
     const { renderInPool, closeThumbnailPool, thumbnailThreads } = await import('../../server/services/thumbnail-pool.ts');
     const { geotag } = await import('../seed/seed-photos.ts');
-    cleanUps.push(() => sequelize.close(), () => closeThumbnailPool(), () => stopQueue());
+    cleanUps.push(
+      () => sequelize.close(),
+      () => closeThumbnailPool(),
+      () => stopQueue(),
+    );
 
     // An organisation with one 2 km × 2 km field and its scout.
     const passwordHash = await hashPassword(PASSWORD);
     const q = <T extends object>(sql: string, replacements: Record<string, unknown>) => sequelize.query<T>(sql, { replacements, type: 'SELECT' as never });
     const [org] = await q<{ id: string }>(`INSERT INTO organisations (name) VALUES ('Bench advisory') RETURNING id`, {});
-    const [scout] = await q<{ id: string }>(`INSERT INTO users (organisation_id, name, email, role, password_hash) VALUES (:org, 'Bench scout', 'scout@bench.example', 'scout', :passwordHash) RETURNING id`, { org: org.id, passwordHash });
+    const [scout] = await q<{ id: string }>(
+      `INSERT INTO users (organisation_id, name, email, role, password_hash) VALUES (:org, 'Bench scout', 'scout@bench.example', 'scout', :passwordHash) RETURNING id`,
+      { org: org.id, passwordHash },
+    );
     const [farm] = await q<{ id: string }>(`INSERT INTO farms (organisation_id, name) VALUES (:org, 'Bench farm') RETURNING id`, { org: org.id });
-    const ring = [[0, 0], [0.024, 0], [0.024, 0.018], [0, 0.018], [0, 0]].map(([dx, dy]) => [FIELD_SW.lon + dx, FIELD_SW.lat + dy]);
+    const ring = [
+      [0, 0],
+      [0.024, 0],
+      [0.024, 0.018],
+      [0, 0.018],
+      [0, 0],
+    ].map(([dx, dy]) => [FIELD_SW.lon + dx, FIELD_SW.lat + dy]);
     const [field] = await q<{ id: string }>(
       `INSERT INTO fields (organisation_id, farm_id, name, crop, season, boundary) VALUES (:org, :farm, 'Bench field', 'soybean', 2026, ST_Multi(ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326))) RETURNING id`,
       { org: org.id, farm: farm.id, geojson: JSON.stringify({ type: 'Polygon', coordinates: [ring] }) },
     );
     await q(`INSERT INTO field_assignments (field_id, user_id) VALUES (:field, :scout) RETURNING field_id`, { field: field.id, scout: scout.id });
-    const [pest] = await q<{ id: string }>(`INSERT INTO pests (organisation_id, name, kind, count_unit, action_threshold, threshold_source) VALUES (:org, 'Bench aphid', 'insect', 'aphids per plant', 250, 'bench only') RETURNING id`, { org: org.id });
+    const [pest] = await q<{ id: string }>(
+      `INSERT INTO pests (organisation_id, name, kind, count_unit, action_threshold, threshold_source) VALUES (:org, 'Bench aphid', 'insect', 'aphids per plant', 250, 'bench only') RETURNING id`,
+      { org: org.id },
+    );
 
     console.error(`ingest bench: generating ${count} photos of ${WIDTH} × ${HEIGHT}…`);
     const { jpeg, thumbnail } = await basePhoto();
     // One picture, many positions: each photo's EXIF (and so its SHA-256) differs, as in a real walk.
     const photoAt = (i: number, withThumbnail: boolean) =>
-      geotag(jpeg, { lon: FIELD_SW.lon + 0.001 + ((i * 37) % 220) * 0.0001, lat: FIELD_SW.lat + 0.001 + Math.floor(i / 7) * 0.00008, accuracyM: 4, takenAt: `2026:07:14 ${String(8 + Math.floor(i / 60)).padStart(2, '0')}:${String(i % 60).padStart(2, '0')}:00`, offset: '-05:00' }, withThumbnail ? thumbnail : undefined);
+      geotag(
+        jpeg,
+        {
+          lon: FIELD_SW.lon + 0.001 + ((i * 37) % 220) * 0.0001,
+          lat: FIELD_SW.lat + 0.001 + Math.floor(i / 7) * 0.00008,
+          accuracyM: 4,
+          takenAt: `2026:07:14 ${String(8 + Math.floor(i / 60)).padStart(2, '0')}:${String(i % 60).padStart(2, '0')}:00`,
+          offset: '-05:00',
+        },
+        withThumbnail ? thumbnail : undefined,
+      );
     const photos = Array.from({ length: count }, (_, i) => photoAt(i, true));
 
     const app = createApp({ clientDir: path.join(workDir, 'no-client') });
@@ -181,7 +217,10 @@ async function measure(): Promise<BenchTable> {
     photos.forEach((bytes, i) => fs.writeFileSync(path.join(photoDir, `bench-${String(i).padStart(4, '0')}.jpg`), bytes));
     const started = performance.now();
     const placed = await new Promise<number>((resolve, reject) => {
-      const uploader = new Worker(UPLOADER, { eval: true, workerData: { base, cookie: session.cookie, csrf: session.csrf, pestId: pest.id, photoDir, batch: BATCH } });
+      const uploader = new Worker(UPLOADER, {
+        eval: true,
+        workerData: { base, cookie: session.cookie, csrf: session.csrf, pestId: pest.id, photoDir, batch: BATCH },
+      });
       uploader.once('message', resolve);
       uploader.once('error', reject);
     });
@@ -221,12 +260,32 @@ async function measure(): Promise<BenchTable> {
       title: `Photo ingest: ${count} photos of ${WIDTH} × ${HEIGHT} (${round(jpeg.length / 1e6, 1)} MB each) through POST /api/photos, ${threads} thumbnail threads`,
       rows: [
         { measure: 'photos placed', value: placed, note: `of ${count}` },
-        { measure: 'photos/s to placed', value: round(placed / placedSeconds), note: `${round(placedSeconds, 1)} s for the batch; each photo is placed when its request answers` },
-        { measure: 'photos/s to thumbnail ready', value: round(thumbnailRate), note: `${thumbnails} ready (${failed} failed) ${round(readySeconds, 1)} s after the first upload; target ≥ 5` },
-        { measure: 'thumbnails/s, full decode path (no EXIF thumbnail)', value: round(decodeRate), note: `${decodeSample.length} photos, mozjpeg (@jsquash/jpeg) → jimp` },
+        {
+          measure: 'photos/s to placed',
+          value: round(placed / placedSeconds),
+          note: `${round(placedSeconds, 1)} s for the batch; each photo is placed when its request answers`,
+        },
+        {
+          measure: 'photos/s to thumbnail ready',
+          value: round(thumbnailRate),
+          note: `${thumbnails} ready (${failed} failed) ${round(readySeconds, 1)} s after the first upload; target ≥ 5`,
+        },
+        {
+          measure: 'thumbnails/s, full decode path (no EXIF thumbnail)',
+          value: round(decodeRate),
+          note: `${decodeSample.length} photos, mozjpeg (@jsquash/jpeg) → jimp`,
+        },
         { measure: 'photos/s, plain jimp read → resize → write', value: round(plainRate, 3), note: `${plainSample.length} photos, one thread` },
-        { measure: 'thumbnail pipeline ÷ plain jimp', value: round(thumbnailRate / plainRate, 1), note: `full decode path: ${round(decodeRate / plainRate, 1)}×; target ≥ 4×` },
-        { measure: 'p95 GET /api/walks during ingestion (ms)', value: round(percentile(latencies, 95), 1), note: `${latencies.length} reads (${failedReads} failed), median ${round(percentile(latencies, 50), 1)} ms, max ${round(Math.max(...latencies), 1)} ms; target < 100` },
+        {
+          measure: 'thumbnail pipeline ÷ plain jimp',
+          value: round(thumbnailRate / plainRate, 1),
+          note: `full decode path: ${round(decodeRate / plainRate, 1)}×; target ≥ 4×`,
+        },
+        {
+          measure: 'p95 GET /api/walks during ingestion (ms)',
+          value: round(percentile(latencies, 95), 1),
+          note: `${latencies.length} reads (${failedReads} failed), median ${round(percentile(latencies, 50), 1)} ms, max ${round(Math.max(...latencies), 1)} ms; target < 100`,
+        },
       ],
     };
   } finally {

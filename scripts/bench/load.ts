@@ -40,7 +40,11 @@ async function getJson<T>(baseUrl: string, session: BenchSession, path: string):
 }
 
 async function postJson<T>(baseUrl: string, session: BenchSession, path: string, body: object): Promise<T> {
-  const res = await fetch(`${baseUrl}${path}`, { method: 'POST', headers: { cookie: session.cookie, 'x-csrf-token': session.csrf, 'content-type': 'application/json' }, body: JSON.stringify(body) });
+  const res = await fetch(`${baseUrl}${path}`, {
+    method: 'POST',
+    headers: { cookie: session.cookie, 'x-csrf-token': session.csrf, 'content-type': 'application/json' },
+    body: JSON.stringify(body),
+  });
   if (!res.ok) throw new Error(`POST ${path}: ${res.status} ${await res.text()}`);
   return (await res.json()) as T;
 }
@@ -68,7 +72,13 @@ interface RouteLoad {
 const fixed = (v: number, digits = 1) => Number(v.toFixed(digits));
 const mb = (bytes: number) => bytes / 2 ** 20;
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
-const toPoint = (seconds: number, m: ServerMemory) => ({ seconds, heapMb: mb(m.heapUsed), externalMb: mb(m.external), arrayBuffersMb: mb(m.arrayBuffers), rssMb: mb(m.rss) });
+const toPoint = (seconds: number, m: ServerMemory) => ({
+  seconds,
+  heapMb: mb(m.heapUsed),
+  externalMb: mb(m.external),
+  arrayBuffersMb: mb(m.arrayBuffers),
+  rssMb: mb(m.rss),
+});
 type SamplePoint = ReturnType<typeof toPoint>;
 
 /** Samples the server's memory on a fixed 5 s schedule until `stop()`; a slow answer (GC under load) delays only its own sample. */
@@ -111,7 +121,18 @@ export async function run(): Promise<BenchTable[]> {
     const { makeJpeg } = await import('../../tests/helpers/photos.ts');
     const { sequelize } = await import('../../server/db.ts');
     const { ids } = await seedDemo();
-    const basePhotos = await Promise.all(pointsInsideField('even', BASE_PHOTOS).map((gps, i) => makeJpeg({ gps: { ...gps, accuracyM: 4 }, markSeed: 1000 + i, width: 160, height: 120, dateTimeOriginal: '2026:07:02 10:00:00', offsetTimeOriginal: '-05:00' })));
+    const basePhotos = await Promise.all(
+      pointsInsideField('even', BASE_PHOTOS).map((gps, i) =>
+        makeJpeg({
+          gps: { ...gps, accuracyM: 4 },
+          markSeed: 1000 + i,
+          width: 160,
+          height: 120,
+          dateTimeOriginal: '2026:07:02 10:00:00',
+          offsetTimeOriginal: '-05:00',
+        }),
+      ),
+    );
     await sequelize.close();
 
     server = await startLoadServer(process.env);
@@ -123,7 +144,11 @@ export async function run(): Promise<BenchTable[]> {
     const sightingsPath = `/api/sightings?fieldId=${fieldId}`;
     const sightingsAtStart = (await getJson<{ sightings: Array<{ pestId: string }> }>(baseUrl, adviser, sightingsPath)).sightings;
     const pestId = sightingsAtStart[0]?.pestId ?? ids.pests['Soybean aphid'];
-    const stored = await postJson<{ check: { id: string; status: string } }>(baseUrl, adviser, '/api/checks', { fieldId, pestId, options: { simulations: 99, seed: 1 } });
+    const stored = await postJson<{ check: { id: string; status: string } }>(baseUrl, adviser, '/api/checks', {
+      fieldId,
+      pestId,
+      options: { simulations: 99, seed: 1 },
+    });
     if (stored.check.status !== 'done') throw new Error(`the check to read back did not finish inline (status ${stored.check.status})`);
 
     const readRoutes = [
@@ -155,14 +180,24 @@ export async function run(): Promise<BenchTable[]> {
     const before = toPoint(0, await server.memory());
     const startedAt = performance.now();
     const sampler = sampleMemoryEvery(server, startedAt);
-    const runs = readRoutes.map((route) => start(route.label, { connections: READERS_PER_ROUTE, headers: { cookie: adviser.cookie, 'accept-encoding': 'gzip' }, requests: [{ method: 'GET', path: route.path }] }));
+    const runs = readRoutes.map((route) =>
+      start(route.label, {
+        connections: READERS_PER_ROUTE,
+        headers: { cookie: adviser.cookie, 'accept-encoding': 'gzip' },
+        requests: [{ method: 'GET', path: route.path }],
+      }),
+    );
     const uploads = start('POST /api/photos (1 photo each)', {
       connections: UPLOADERS,
       requests: [
         {
           method: 'POST',
           path: '/api/photos',
-          setupRequest: (request) => ({ ...request, headers: { ...request.headers, cookie: scout.cookie, 'x-csrf-token': scout.csrf, 'content-type': form.contentType }, body: form.next() }),
+          setupRequest: (request) => ({
+            ...request,
+            headers: { ...request.headers, cookie: scout.cookie, 'x-csrf-token': scout.csrf, 'content-type': form.contentType },
+            body: form.next(),
+          }),
           onResponse: (status, body) => {
             const outcome = status === 200 ? ((JSON.parse(body) as { results: Array<{ outcome: string }> }).results[0]?.outcome ?? 'none') : `HTTP ${status}`;
             const upload = loads.find((l) => l.label.startsWith('POST'))!;
@@ -197,10 +232,23 @@ export async function run(): Promise<BenchTable[]> {
       };
     });
     const totals = loads.reduce(
-      (sum, l) => ({ requests: sum.requests + l.result!.requests.total, errors: sum.errors + l.result!.errors, timeouts: sum.timeouts + l.result!.timeouts, non2xx: sum.non2xx + l.result!.non2xx }),
+      (sum, l) => ({
+        requests: sum.requests + l.result!.requests.total,
+        errors: sum.errors + l.result!.errors,
+        timeouts: sum.timeouts + l.result!.timeouts,
+        non2xx: sum.non2xx + l.result!.non2xx,
+      }),
       { requests: 0, errors: 0, timeouts: 0, non2xx: 0 },
     );
-    rows.push({ route: `all routes, ${seconds} s`, clients: READERS_PER_ROUTE * readRoutes.length + UPLOADERS, 'req/s': fixed(totals.requests / seconds), requests: totals.requests, errors: totals.errors, timeouts: totals.timeouts, 'non-2xx': totals.non2xx });
+    rows.push({
+      route: `all routes, ${seconds} s`,
+      clients: READERS_PER_ROUTE * readRoutes.length + UPLOADERS,
+      'req/s': fixed(totals.requests / seconds),
+      requests: totals.requests,
+      errors: totals.errors,
+      timeouts: totals.timeouts,
+      'non-2xx': totals.non2xx,
+    });
     const latency: BenchTable = {
       title: `Load: ${READERS_PER_ROUTE * readRoutes.length} readers and ${UPLOADERS} uploaders for ${seconds} s on loopback (demo data; server in its own process, workers off; uploads go to another field, the read field's sightings list had ${sightingsAtStart.length} rows at the start and ${sightingsAtEnd} at the end)`,
       rows,

@@ -68,7 +68,11 @@ export async function run(): Promise<BenchTable> {
   try {
     const distDir = path.join(database.workDir, 'dist');
     // Its own build, so a build running elsewhere in the tree cannot swap chunks under the browser.
-    const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'error', '--outDir', distDir, '--emptyOutDir'], { cwd: projectRoot, env: { ...process.env, NODE_ENV: 'production' }, encoding: 'utf8' });
+    const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'error', '--outDir', distDir, '--emptyOutDir'], {
+      cwd: projectRoot,
+      env: { ...process.env, NODE_ENV: 'production' },
+      encoding: 'utf8',
+    });
     if (build.status !== 0) throw new Error(`The client build failed: ${build.stderr}`);
     process.env.CLIENT_DIR = distDir;
 
@@ -84,7 +88,11 @@ export async function run(): Promise<BenchTable> {
     const stops = benchStops(TEST_FIELD_CORNER, TEST_FIELD_SIZE, createRandom('review-bench'));
     for (let w = 0; w < 4; w++) {
       const walkId = await makeWalk(org, field.id, `2026-07-0${w + 1}`);
-      await addSightings(org, { fieldId: field.id, walkId, pestId: pest.id }, stops.filter((_, i) => i % 4 === w));
+      await addSightings(
+        org,
+        { fieldId: field.id, walkId, pestId: pest.id },
+        stops.filter((_, i) => i % 4 === w),
+      );
     }
 
     const app = createApp();
@@ -111,7 +119,13 @@ export async function run(): Promise<BenchTable> {
       const table = page
         .locator('[data-filtered-count]')
         .waitFor({ timeout: 60_000 })
-        .then(() => page.getByRole('table', { name: /Sightings in/ }).locator('tbody tr').first().waitFor())
+        .then(() =>
+          page
+            .getByRole('table', { name: /Sightings in/ })
+            .locator('tbody tr')
+            .first()
+            .waitFor(),
+        )
         .then(() => tableTimes.push(Date.now() - started));
       // The sightings canvas exists once Leaflet has loaded and the dots are drawn on it.
       const map = page
@@ -135,7 +149,10 @@ export async function run(): Promise<BenchTable> {
     const resultBytes = (await (await fetch(`${base}/api/checks/${check.id}`, { headers: { cookie } })).arrayBuffer()).byteLength;
     const latencies: number[] = [];
     const load = await new Promise<LoadResult>((resolve, reject) => {
-      const instance = autocannon({ url: `${base}/api/checks/${check.id}`, connections: CONCURRENCY, duration: LOAD_SECONDS, headers: { cookie } }, (error, result) => (error ? reject(error) : resolve(result)));
+      const instance = autocannon(
+        { url: `${base}/api/checks/${check.id}`, connections: CONCURRENCY, duration: LOAD_SECONDS, headers: { cookie } },
+        (error, result) => (error ? reject(error) : resolve(result)),
+      );
       // autocannon's summary stops at p90/p97.5; the p95 comes from every response time.
       instance.on('response', (_client, _status, _bytes, responseTimeMs) => latencies.push(responseTimeMs));
     });
@@ -154,8 +171,16 @@ export async function run(): Promise<BenchTable> {
         { measure: 'Map drawn (canvas), median', value: ms(median(mapTimes)), note: `${PAGE_LOADS} loads: ${mapTimes.map(ms).join(', ')}` },
         { measure: 'Table rows shown, median', value: ms(median(tableTimes)), note: `${PAGE_LOADS} loads: ${tableTimes.map(ms).join(', ')}` },
         { measure: 'GET /api/sightings (whole field), one call', value: ms(listMs), note: `${(listBytes / 1024).toFixed(0)} KB of JSON` },
-        { measure: 'Initial JS (gzip)', value: `${initialKb.toFixed(1)} KB`, note: `${chunks.length} chunks; budget ${INITIAL_JS_BUDGET_KB} KB — ${initialKb <= INITIAL_JS_BUDGET_KB ? 'within' : 'OVER'}` },
-        { measure: 'GET /api/checks/:id p95', value: ms(percentile(latencies, 0.95)), note: `${CONCURRENCY} connections, ${LOAD_SECONDS} s, ${load.requests.total} requests, ${load.non2xx} non-2xx, ${(resultBytes / 1024).toFixed(0)} KB each` },
+        {
+          measure: 'Initial JS (gzip)',
+          value: `${initialKb.toFixed(1)} KB`,
+          note: `${chunks.length} chunks; budget ${INITIAL_JS_BUDGET_KB} KB — ${initialKb <= INITIAL_JS_BUDGET_KB ? 'within' : 'OVER'}`,
+        },
+        {
+          measure: 'GET /api/checks/:id p95',
+          value: ms(percentile(latencies, 0.95)),
+          note: `${CONCURRENCY} connections, ${LOAD_SECONDS} s, ${load.requests.total} requests, ${load.non2xx} non-2xx, ${(resultBytes / 1024).toFixed(0)} KB each`,
+        },
       ],
     };
   } finally {

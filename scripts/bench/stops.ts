@@ -60,7 +60,7 @@ export async function run(): Promise<BenchTable> {
       'scan ms': (parts.scan ?? 0).toFixed(0),
       'scouted area + zones ms': ((parts.scouted ?? 0) + (parts.zones ?? 0)).toFixed(0),
       target: '≤ 1000 ms',
-      "spatstat envelope(), rlabel, 999, global": spatstatMs(stops, labels),
+      'spatstat envelope(), rlabel, 999, global': spatstatMs(stops, labels),
     });
   }
   return { title: `Stops design: ${STOPS} stops, ${SIMULATIONS} relabellings, one thread`, rows };

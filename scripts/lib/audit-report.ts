@@ -41,6 +41,8 @@ export function summariseAudit(stdout: string): AuditOutcome {
 export function auditLine(outcome: AuditOutcome): string {
   if (!outcome.checked) return `Dependency audit not checked: the registry's advisory service did not answer (${outcome.reason}).`;
   const counts = SEVERITIES.map((s) => `${outcome.counts[s]} ${s}`).join(', ');
-  const verdict = outcome.blocking.length ? `high or critical: ${outcome.blocking.map((b) => `${b.name} (${b.severity})`).join(', ')}` : 'no high or critical advisory';
+  const verdict = outcome.blocking.length
+    ? `high or critical: ${outcome.blocking.map((b) => `${b.name} (${b.severity})`).join(', ')}`
+    : 'no high or critical advisory';
   return `Dependency audit of the production tree: ${verdict} (${counts}).`;
 }

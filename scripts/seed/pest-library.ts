@@ -49,7 +49,8 @@ export const pestLibrarySeed: PestInput[] = [
     countUnit: 'plants per square metre',
     actionThreshold: 1,
     thresholdBasis: 'mean',
-    thresholdNote: 'Treat before plants reach 6–10 inches tall. The per-area figure of 1 is our starting point (recalled from memory, not from the source); adjust it to local guidance.',
+    thresholdNote:
+      'Treat before plants reach 6–10 inches tall. The per-area figure of 1 is our starting point (recalled from memory, not from the source); adjust it to local guidance.',
     thresholdSource: 'University of Wisconsin pest bulletin (height rule); count figure recalled from memory',
     active: true,
   },
@@ -59,7 +60,8 @@ export const pestLibrarySeed: PestInput[] = [
     countUnit: 'leaves with lesions per plant (third leaf below the ear)',
     actionThreshold: 0.5,
     thresholdBasis: 'incidence',
-    thresholdNote: 'Lesions on the third leaf below the ear at VT–R1 on susceptible hybrids. The 50 % incidence figure is recalled from memory; check local guidance.',
+    thresholdNote:
+      'Lesions on the third leaf below the ear at VT–R1 on susceptible hybrids. The 50 % incidence figure is recalled from memory; check local guidance.',
     thresholdSource: 'Kansas State University Research and Extension (stage rule); incidence figure recalled from memory',
     active: true,
   },

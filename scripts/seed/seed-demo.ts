@@ -38,7 +38,10 @@ export async function seedDemo(): Promise<{ created: boolean; ids: DemoIds }> {
     for (const f of demoFarms) {
       const farm = await Farm.create({ organisationId, name: f.name }, { transaction });
       farms[f.key] = farm.id;
-      await FarmContact.bulkCreate(f.contacts.map((c) => ({ ...c, farmId: farm.id })), { transaction });
+      await FarmContact.bulkCreate(
+        f.contacts.map((c) => ({ ...c, farmId: farm.id })),
+        { transaction },
+      );
       if (f.growerKey) await FarmGrower.create({ farmId: farm.id, userId: users[f.growerKey] }, { transaction });
     }
     const fields: Record<string, string> = {};
@@ -46,7 +49,11 @@ export async function seedDemo(): Promise<{ created: boolean; ids: DemoIds }> {
       const [row] = await sequelize.query<{ id: string }>(
         `INSERT INTO fields (organisation_id, farm_id, name, crop, season, boundary)
          VALUES (:org, :farm, :name, :crop, :season, ST_Multi(ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326))) RETURNING id`,
-        { replacements: { org: organisationId, farm: farms[f.farmKey], name: f.name, crop: f.crop, season: f.season, geojson: JSON.stringify(f.boundary) }, type: QueryTypes.SELECT, transaction },
+        {
+          replacements: { org: organisationId, farm: farms[f.farmKey], name: f.name, crop: f.crop, season: f.season, geojson: JSON.stringify(f.boundary) },
+          type: QueryTypes.SELECT,
+          transaction,
+        },
       );
       fields[f.key] = row.id;
       await FieldAssignment.create({ fieldId: row.id, userId: users.scout }, { transaction });
@@ -67,7 +74,9 @@ async function loadDemoIds(organisationId: string): Promise<DemoIds> {
   const users = Object.fromEntries(
     (await User.findAll({ where: { organisationId } })).map((u) => [demoUsers.find((d) => d.email === u.email)?.key ?? u.email, u.id]),
   );
-  const farms = Object.fromEntries((await Farm.findAll({ where: { organisationId } })).map((f) => [demoFarms.find((d) => d.name === f.name)?.key ?? f.name, f.id]));
+  const farms = Object.fromEntries(
+    (await Farm.findAll({ where: { organisationId } })).map((f) => [demoFarms.find((d) => d.name === f.name)?.key ?? f.name, f.id]),
+  );
   const fieldRows = await sequelize.query<{ id: string; name: string }>('SELECT id, name FROM fields WHERE organisation_id = :organisationId', {
     replacements: { organisationId },
     type: QueryTypes.SELECT,

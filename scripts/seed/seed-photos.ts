@@ -21,7 +21,11 @@ piexifTags.Exif[0x9011] ??= { name: 'OffsetTimeOriginal', type: 'Ascii' };
 type Rational = [number, number];
 function dms(decimal: number): [Rational, Rational, Rational] {
   const steps = Math.round(Math.abs(decimal) * 3600 * 1000);
-  return [[Math.floor(steps / 3_600_000), 1], [Math.floor((steps % 3_600_000) / 60_000), 1], [steps % 60_000, 1000]];
+  return [
+    [Math.floor(steps / 3_600_000), 1],
+    [Math.floor((steps % 3_600_000) / 60_000), 1],
+    [steps % 60_000, 1000],
+  ];
 }
 
 export interface Geotag {
@@ -125,7 +129,13 @@ function patchyPlan(random: Random): PlannedPhoto[] {
 
 /** Empty stops spread along a W walk across the field: common scouting practice (see the design's pest library notes). */
 function wWalkStops(random: Random, widthM: number, heightM: number, stops: number) {
-  const w = [[0.04, 0.94], [0.25, 0.06], [0.5, 0.8], [0.75, 0.06], [0.96, 0.94]].map(([fx, fy]) => [fx * widthM, fy * heightM]);
+  const w = [
+    [0.04, 0.94],
+    [0.25, 0.06],
+    [0.5, 0.8],
+    [0.75, 0.06],
+    [0.96, 0.94],
+  ].map(([fx, fy]) => [fx * widthM, fy * heightM]);
   const legs = w.slice(1).map((b, i) => ({ a: w[i], b, length: Math.hypot(b[0] - w[i][0], b[1] - w[i][1]) }));
   const total = legs.reduce((s, l) => s + l.length, 0);
   const points: Array<{ x: number; y: number }> = [];
@@ -145,14 +155,23 @@ function evenPlan(random: Random): PlannedPhoto[] {
   for (let r = 0; r < rows; r++) {
     for (let c = 0; c < cols; c++) {
       if (plan.length >= 40) break;
-      plan.push({ x: ((c + 0.5) / cols) * 600 + (random() - 0.5) * 30, y: ((r + 0.5) / rows) * 600 + (random() - 0.5) * 30, count: 1 + Math.floor(random() * 6) });
+      plan.push({
+        x: ((c + 0.5) / cols) * 600 + (random() - 0.5) * 30,
+        y: ((r + 0.5) / rows) * 600 + (random() - 0.5) * 30,
+        count: 1 + Math.floor(random() * 6),
+      });
     }
   }
   return plan;
 }
 
 const sparsePlan = (random: Random): PlannedPhoto[] =>
-  [[120, 60], [380, 190], [610, 90], [820, 170]].map(([x, y]) => ({ x: x + (random() - 0.5) * 20, y: y + (random() - 0.5) * 20, count: 2 + Math.floor(random() * 20) }));
+  [
+    [120, 60],
+    [380, 190],
+    [610, 90],
+    [820, 170],
+  ].map(([x, y]) => ({ x: x + (random() - 0.5) * 20, y: y + (random() - 0.5) * 20, count: 2 + Math.floor(random() * 20) }));
 
 function clock(date: string, startMinutes: number, index: number) {
   const minutes = startMinutes + index * 2;
@@ -184,7 +203,19 @@ export async function seedPhotos(ids: DemoIds) {
     const photos = planned.map((p, i) => ({
       fileName: `${run.key}-${String(i + 1).padStart(3, '0')}.jpg`,
       count: p.count,
-      bytes: geotag(bases[i % bases.length], { lon: p.lon, lat: p.lat, accuracyM: 3 + Math.round(random() * 40) / 10, altitudeM: 540 + random() * 6, directionDeg: Math.floor(random() * 360), takenAt: clock(run.date, 9 * 60, i), offset: '-05:00' }, embedded[i % bases.length]),
+      bytes: geotag(
+        bases[i % bases.length],
+        {
+          lon: p.lon,
+          lat: p.lat,
+          accuracyM: 3 + Math.round(random() * 40) / 10,
+          altitudeM: 540 + random() * 6,
+          directionDeg: Math.floor(random() * 360),
+          takenAt: clock(run.date, 9 * 60, i),
+          offset: '-05:00',
+        },
+        embedded[i % bases.length],
+      ),
     }));
     for (let i = 0; i < photos.length; i += 20) {
       const results = await ingestPhotos(actor, { pestId: ids.pests[run.pest], fieldId: ids.fields[run.key] }, photos.slice(i, i + 20));
@@ -196,7 +227,9 @@ export async function seedPhotos(ids: DemoIds) {
     }
     if (run.key === 'patchy' && walkId) {
       // Enough empty stops along the walk that the patches hold under half of all stops: a patchy field, not "everywhere".
-      for (const stop of wWalkStops(random, 800, 500, 90).map((s) => toLonLat(f, s.x, s.y)).filter((p) => insideBoundary(f, p))) {
+      for (const stop of wWalkStops(random, 800, 500, 90)
+        .map((s) => toLonLat(f, s.x, s.y))
+        .filter((p) => insideBoundary(f, p))) {
         stops++;
         await recordEmptyStop(actor, walkId, { pestId: ids.pests[run.pest], ...stop, accuracyM: 4 + Math.round(random() * 30) / 10 });
       }

@@ -23,7 +23,10 @@ export class PostgresRequestLimitStore implements Store {
   }
 
   async get(key: string): Promise<ClientRateLimitInfo | undefined> {
-    const [row] = await sequelize.query<HitRow>('SELECT hits, resets_at FROM request_limit_hits WHERE key = :key AND resets_at > now()', { replacements: { key: this.prefix + key }, type: QueryTypes.SELECT });
+    const [row] = await sequelize.query<HitRow>('SELECT hits, resets_at FROM request_limit_hits WHERE key = :key AND resets_at > now()', {
+      replacements: { key: this.prefix + key },
+      type: QueryTypes.SELECT,
+    });
     return row ? { totalHits: row.hits, resetTime: new Date(row.resets_at) } : undefined;
   }
 
@@ -54,6 +57,8 @@ export class PostgresRequestLimitStore implements Store {
   private async sweepNowAndThen() {
     if (Date.now() - this.lastSweep < this.windowMs) return;
     this.lastSweep = Date.now();
-    await sequelize.query('DELETE FROM request_limit_hits WHERE key LIKE :prefix AND resets_at <= now()', { replacements: { prefix: `${this.prefix.replace(/[\\%_]/g, '\\$&')}%` } });
+    await sequelize.query('DELETE FROM request_limit_hits WHERE key LIKE :prefix AND resets_at <= now()', {
+      replacements: { prefix: `${this.prefix.replace(/[\\%_]/g, '\\$&')}%` },
+    });
   }
 }

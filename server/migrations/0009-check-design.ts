@@ -13,5 +13,7 @@ export const up: MigrationFn = async ({ context: db }) => {
 };
 
 export const down: MigrationFn = async ({ context: db }) => {
-  await db.query('ALTER TABLE pattern_checks DROP COLUMN IF EXISTS design, DROP COLUMN IF EXISTS stop_merges, DROP COLUMN IF EXISTS not_scouted, DROP COLUMN IF EXISTS not_scouted_m2');
+  await db.query(
+    'ALTER TABLE pattern_checks DROP COLUMN IF EXISTS design, DROP COLUMN IF EXISTS stop_merges, DROP COLUMN IF EXISTS not_scouted, DROP COLUMN IF EXISTS not_scouted_m2',
+  );
 };

@@ -14,7 +14,13 @@ FarmContact.init(
     id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
     farmId: { type: DataTypes.UUID, allowNull: false },
     name: { type: DataTypes.TEXT, allowNull: false },
-    email: { type: DataTypes.TEXT, allowNull: false, set(value: string) { this.setDataValue('email', value.trim().toLowerCase()); } },
+    email: {
+      type: DataTypes.TEXT,
+      allowNull: false,
+      set(value: string) {
+        this.setDataValue('email', value.trim().toLowerCase());
+      },
+    },
   },
   { sequelize, tableName: 'farm_contacts' },
 );

@@ -32,7 +32,13 @@ User.init(
     id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
     organisationId: { type: DataTypes.UUID, allowNull: false },
     name: { type: DataTypes.TEXT, allowNull: false },
-    email: { type: DataTypes.TEXT, allowNull: false, set(value: string) { this.setDataValue('email', value.trim().toLowerCase()); } },
+    email: {
+      type: DataTypes.TEXT,
+      allowNull: false,
+      set(value: string) {
+        this.setDataValue('email', value.trim().toLowerCase());
+      },
+    },
     passwordHash: { type: DataTypes.TEXT, allowNull: true },
     role: { type: DataTypes.TEXT, allowNull: false },
     active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },

@@ -33,7 +33,10 @@ const signInLimiter = rateLimit({
   limit: () => config.signInLimitPerWindow,
   standardHeaders: 'draft-7',
   legacyHeaders: false,
-  keyGenerator: (req) => `${clientAddress(req)}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
+  keyGenerator: (req) =>
+    `${clientAddress(req)}|${String(req.body?.email ?? '')
+      .trim()
+      .toLowerCase()}`,
   store: new PostgresRequestLimitStore('sign-in|'),
   handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many sign-in attempts; wait 15 minutes and try again.')),
 });
@@ -41,11 +44,13 @@ const signInLimiter = rateLimit({
 const forgotLimiter = rateLimit({
   windowMs: 15 * 60 * 1000,
   limit: 5,
-  keyGenerator: (req) => `${clientAddress(req)}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
+  keyGenerator: (req) =>
+    `${clientAddress(req)}|${String(req.body?.email ?? '')
+      .trim()
+      .toLowerCase()}`,
   store: new PostgresRequestLimitStore('forgot-password|'),
   handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many requests; wait 15 minutes and try again.')),
 });
-
 
 // A visitor's token lives in a signed cookie, so asking for one writes no session row.
 authRouter.get('/csrf', (req, res) => {

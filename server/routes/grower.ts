@@ -3,7 +3,14 @@ import { z } from 'zod';
 import { requireRole, actor } from '../middleware/access.ts';
 import { parse } from '../middleware/validate.ts';
 import { listGrowerNotices } from '../services/notice-reading.ts';
-import { acknowledgeGrowerNotice, askGrowerQuestion, growerNoticeMachineFile, growerNoticeMap, growerNoticePage, openGrowerNotice } from '../services/grower-notices.ts';
+import {
+  acknowledgeGrowerNotice,
+  askGrowerQuestion,
+  growerNoticeMachineFile,
+  growerNoticeMap,
+  growerNoticePage,
+  openGrowerNotice,
+} from '../services/grower-notices.ts';
 import { noticeQuestionSchema } from '../../shared/schemas/notice-questions.ts';
 import { sendMachineFile } from './machine-file-response.ts';
 

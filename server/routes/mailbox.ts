@@ -24,7 +24,15 @@ mailboxRouter.get('/:id', async (req, res) => {
 });
 
 mailboxRouter.get('/:id/attachments/:index', async (req, res) => {
-  const { id, index } = parse(idParam.extend({ index: z.coerce.number({ error: 'That attachment number is not valid.' }).int({ error: 'That attachment number is not valid.' }).min(0, { error: 'That attachment number is not valid.' }) }), req.params);
+  const { id, index } = parse(
+    idParam.extend({
+      index: z.coerce
+        .number({ error: 'That attachment number is not valid.' })
+        .int({ error: 'That attachment number is not valid.' })
+        .min(0, { error: 'That attachment number is not valid.' }),
+    }),
+    req.params,
+  );
   const attachment = await getAttachment(actor(req), id, index);
   res.setHeader('Content-Type', attachment.contentType);
   res.setHeader('Content-Disposition', `attachment; filename="${attachment.filename.replace(/[^\w.-]/g, '_')}"`);

@@ -39,7 +39,12 @@ const receivePhotos: RequestHandler = (req, res, next) => {
     if (error instanceof AppError) return next(error);
     const code = (error as { code?: string }).code;
     const fileName = (error as { field?: string; filename?: string }).filename;
-    if (code === 'LIMIT_FILE_SIZE') return next(tooLarge(`${fileName ? `“${fileName}”` : 'A photo'} is larger than ${limits.maxFileMb} MB; nothing from this upload was kept. Send it at a smaller size.`));
+    if (code === 'LIMIT_FILE_SIZE')
+      return next(
+        tooLarge(
+          `${fileName ? `“${fileName}”` : 'A photo'} is larger than ${limits.maxFileMb} MB; nothing from this upload was kept. Send it at a smaller size.`,
+        ),
+      );
     if (code === 'LIMIT_FILE_COUNT' || (code === 'LIMIT_UNEXPECTED_FILE' && (error as { field?: string }).field === photoFilePart)) {
       return next(tooLarge(`Send at most ${limits.maxFiles} photos at a time; nothing from this upload was kept.`));
     }
@@ -59,8 +64,10 @@ photosRouter.post(
     const fields = parse(photoUploadFieldsSchema, req.body ?? {});
     const files = (req.files as Express.Multer.File[] | undefined) ?? [];
     if (files.length === 0) throw badRequest(`Choose at least one photo to send (form part “${photoFilePart}”).`);
-    if (fields.counts && fields.counts.length !== files.length) throw badRequest(`Give one count per photo: ${files.length} photos but ${fields.counts.length} counts.`, { counts: 'One count per photo.' });
-    if (fields.clientIds && fields.clientIds.length !== files.length) throw badRequest(`Give one clientId per photo: ${files.length} photos but ${fields.clientIds.length} ids.`, { clientIds: 'One id per photo.' });
+    if (fields.counts && fields.counts.length !== files.length)
+      throw badRequest(`Give one count per photo: ${files.length} photos but ${fields.counts.length} counts.`, { counts: 'One count per photo.' });
+    if (fields.clientIds && fields.clientIds.length !== files.length)
+      throw badRequest(`Give one clientId per photo: ${files.length} photos but ${fields.clientIds.length} ids.`, { clientIds: 'One id per photo.' });
     const results = await ingestPhotos(
       actor(req),
       { pestId: fields.pestId, walkId: fields.walkId, fieldId: fields.fieldId },

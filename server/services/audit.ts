@@ -11,8 +11,5 @@ export async function recordAudit(
   changes: Record<string, unknown> = {},
   transaction?: Transaction,
 ) {
-  await AuditEntry.create(
-    { organisationId: who?.organisationId ?? null, userId: who?.id ?? null, action, entity, entityId, changes },
-    { transaction },
-  );
+  await AuditEntry.create({ organisationId: who?.organisationId ?? null, userId: who?.id ?? null, action, entity, entityId, changes }, { transaction });
 }

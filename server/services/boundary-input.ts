@@ -8,9 +8,15 @@ import { runInAnalysisThread } from './analysis-pool.ts';
 function postgisFault({ reason, x, y }: { reason: string | null; x: number | null; y: number | null }) {
   const near = x !== null && y !== null ? ` near (${x.toFixed(6)}, ${y.toFixed(6)})` : '';
   if (/hole lies outside shell/i.test(reason ?? '')) {
-    return fault('hole-outside-shell', `A hole in the boundary lies outside its outer ring${near}; a hole must sit inside the outline, so remove it or redraw it inside.`);
+    return fault(
+      'hole-outside-shell',
+      `A hole in the boundary lies outside its outer ring${near}; a hole must sit inside the outline, so remove it or redraw it inside.`,
+    );
   }
-  return fault('self-intersecting', `The boundary is not a valid polygon (${reason ?? 'unknown reason'}${near}); check that holes lie inside the outline and parts do not overlap.`);
+  return fault(
+    'self-intersecting',
+    `The boundary is not a valid polygon (${reason ?? 'unknown reason'}${near}); check that holes lie inside the outline and parts do not overlap.`,
+  );
 }
 
 // A field's outline needs a Feature in a FeatureCollection at most, or a GeometryCollection of polygons; a few more
@@ -37,7 +43,10 @@ function collectionDepth(value: unknown) {
 
 function refuseDeepNesting(value: unknown) {
   if (collectionDepth(value) > MAX_COLLECTION_DEPTH) {
-    throw fault('unparseable', `The boundary nests collections more than ${MAX_COLLECTION_DEPTH} levels deep; export the field outline as a plain Polygon or MultiPolygon and upload that.`);
+    throw fault(
+      'unparseable',
+      `The boundary nests collections more than ${MAX_COLLECTION_DEPTH} levels deep; export the field outline as a plain Polygon or MultiPolygon and upload that.`,
+    );
   }
 }
 

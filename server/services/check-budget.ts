@@ -32,7 +32,10 @@ export interface FieldExtent {
 }
 
 export function fieldExtent(boundary: MultiPolygon, areaM2: number): FieldExtent {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
   for (const polygon of boundary.coordinates) {
     for (const [x, y] of polygon[0]) {
       if (x < minX) minX = x;
@@ -83,14 +86,20 @@ const plain = (value: number) => Math.floor(value).toLocaleString('en');
 function checkSizes(work: CheckWork, extent: FieldExtent) {
   if (work.densityCells > MAX_DENSITY_GRID_CELLS) {
     const side = Math.ceil(Math.sqrt((extent.widthM * extent.heightM) / MAX_DENSITY_GRID_CELLS) * 10) / 10;
-    throw badRequest(`Option "densityCellSizeM": this density grid would have ${plain(work.densityCells)} cells, over the ${plain(MAX_DENSITY_GRID_CELLS)} a check may store; use a density cell size of at least ${side} m.`, {
-      'options.densityCellSizeM': `Use at least ${side} m.`,
-    });
+    throw badRequest(
+      `Option "densityCellSizeM": this density grid would have ${plain(work.densityCells)} cells, over the ${plain(MAX_DENSITY_GRID_CELLS)} a check may store; use a density cell size of at least ${side} m.`,
+      {
+        'options.densityCellSizeM': `Use at least ${side} m.`,
+      },
+    );
   }
   if (work.quadratCells > MAX_STORED_QUADRAT_CELLS) {
-    throw badRequest(`Option "cellSizeM" or "grid": the quadrat grid would have about ${plain(work.quadratCells)} cells, over the ${plain(MAX_STORED_QUADRAT_CELLS)} a check may store; choose larger quadrat cells or fewer grid rows and columns.`, {
-      'options.cellSizeM': 'Choose larger quadrat cells.',
-    });
+    throw badRequest(
+      `Option "cellSizeM" or "grid": the quadrat grid would have about ${plain(work.quadratCells)} cells, over the ${plain(MAX_STORED_QUADRAT_CELLS)} a check may store; choose larger quadrat cells or fewer grid rows and columns.`,
+      {
+        'options.cellSizeM': 'Choose larger quadrat cells.',
+      },
+    );
   }
 }
 
@@ -108,9 +117,12 @@ function checkBudget(work: CheckWork, budget: number, runs: number, options: Ana
       maxSimulations >= 19
         ? `reduce "simulations" to at most ${plain(maxSimulations)}${options.radiiM ? ' or give fewer Ripley radii' : ''}`
         : `give fewer Ripley radii ("radiiM") and fewer "simulations", or check fewer sightings (a shorter date window)`;
-    throw badRequest(`Option "simulations": ${lead}; ${hint}.`, { 'options.simulations': `Reduce simulations${maxSimulations >= 19 ? ` to at most ${plain(maxSimulations)}` : ''}.` });
+    throw badRequest(`Option "simulations": ${lead}; ${hint}.`, {
+      'options.simulations': `Reduce simulations${maxSimulations >= 19 ? ` to at most ${plain(maxSimulations)}` : ''}.`,
+    });
   }
-  if (largest === work.density) throw badRequest(`Option "densityCellSizeM": ${lead}; use a larger density cell size.`, { 'options.densityCellSizeM': 'Use a larger density cell size.' });
+  if (largest === work.density)
+    throw badRequest(`Option "densityCellSizeM": ${lead}; use a larger density cell size.`, { 'options.densityCellSizeM': 'Use a larger density cell size.' });
   throw badRequest(`Option "cellSizeM" or "grid": ${lead}; choose larger quadrat cells.`, { 'options.cellSizeM': 'Choose larger quadrat cells.' });
 }
 

@@ -65,9 +65,7 @@ const sha256 = (text: string) => crypto.createHash('sha256').update(text).digest
 
 /** sha256 over the sorted sightings' id, position, count and last edit, one line each. */
 export function sightingsHash(sightings: StoredSighting[]): string {
-  const lines = [...sightings]
-    .sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0))
-    .map((s) => `${s.id}|${s.lon}|${s.lat}|${s.count ?? ''}|${s.updatedAt}`);
+  const lines = [...sightings].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0)).map((s) => `${s.id}|${s.lon}|${s.lat}|${s.count ?? ''}|${s.updatedAt}`);
   return sha256(lines.join('\n'));
 }
 
@@ -89,19 +87,17 @@ export const optionsHash = (options: AnalysisOptions) => sha256(canonicalJson(op
 export function sightingsCollection(sightings: StoredSighting[]): FeatureCollection<Point, SightingProperties> {
   return {
     type: 'FeatureCollection',
-    features: sightings.map(
-      (s): Feature<Point, SightingProperties> => ({
-        type: 'Feature',
-        geometry: { type: 'Point', coordinates: [s.lon, s.lat] },
-        // Walk and GPS accuracy let the engine merge photos of one stop and keep each walk's stops apart.
-        properties: {
-          id: s.id,
-          ...(s.count === null ? {} : { count: s.count }),
-          ...(s.walkId ? { walk: s.walkId } : {}),
-          ...(s.accuracyM == null ? {} : { accuracyM: s.accuracyM }),
-        },
-      }),
-    ),
+    features: sightings.map((s): Feature<Point, SightingProperties> => ({
+      type: 'Feature',
+      geometry: { type: 'Point', coordinates: [s.lon, s.lat] },
+      // Walk and GPS accuracy let the engine merge photos of one stop and keep each walk's stops apart.
+      properties: {
+        id: s.id,
+        ...(s.count === null ? {} : { count: s.count }),
+        ...(s.walkId ? { walk: s.walkId } : {}),
+        ...(s.accuracyM == null ? {} : { accuracyM: s.accuracyM }),
+      },
+    })),
   };
 }
 
@@ -183,7 +179,14 @@ async function storeResult(checkId: string, split: SplitResult) {
               not_scouted = CASE WHEN CAST(:notScouted AS text) IS NULL THEN NULL ELSE ST_Multi(ST_SetSRID(ST_GeomFromGeoJSON(CAST(:notScouted AS text)), 4326)) END
         WHERE id = :checkId`,
       {
-        replacements: { checkId, figures: split.figuresJson, design: design.design, stopMerges: JSON.stringify(design.stopMerges ?? []), notScoutedM2: design.notScoutedM2, notScouted: design.notScouted },
+        replacements: {
+          checkId,
+          figures: split.figuresJson,
+          design: design.design,
+          stopMerges: JSON.stringify(design.stopMerges ?? []),
+          notScoutedM2: design.notScoutedM2,
+          notScouted: design.notScouted,
+        },
         transaction,
       },
     );

@@ -56,7 +56,10 @@ const present = async (check: PatternCheck, reused?: boolean) => presentCheck(ch
 
 /** The planar option is for files already in metres; sightings in the database are always longitude/latitude. */
 function assertGeographic(options: AnalysisOptions) {
-  if (options.planar) throw badRequest('Option planar: stored sightings are longitude/latitude, so a field check cannot use planar coordinates.', { 'options.planar': 'Leave planar off for field checks.' });
+  if (options.planar)
+    throw badRequest('Option planar: stored sightings are longitude/latitude, so a field check cannot use planar coordinates.', {
+      'options.planar': 'Leave planar off for field checks.',
+    });
 }
 
 /** A queued or running check untouched this long lost its worker (a process stopped mid-run); run it again. */
@@ -102,12 +105,19 @@ export async function requestCheck(actor: Actor, request: CheckRequest): Promise
        VALUES (:org, :fieldId, :pestId, :windowFrom, :windowTo, CAST(:options AS jsonb), :optionsHash, CAST(:sightingIds AS uuid[]), :sightingsHash, :engineVersion, :createdBy)
        ON CONFLICT DO NOTHING RETURNING id`,
       {
-        replacements: { ...key, org: actor.organisationId, options: JSON.stringify(request.options), sightingIds: `{${sightings.map((s) => s.id).join(',')}}`, createdBy: actor.id },
+        replacements: {
+          ...key,
+          org: actor.organisationId,
+          options: JSON.stringify(request.options),
+          sightingIds: `{${sightings.map((s) => s.id).join(',')}}`,
+          createdBy: actor.id,
+        },
         type: QueryTypes.SELECT,
       },
     );
     // Two identical requests at once: the second finds the first's row.
-    if (!inserted) return { json: await checkAnswerJson(actor, (await PatternCheck.findOne({ where: key, attributes: ['id'] }))!.id, true), happened: 'stored' };
+    if (!inserted)
+      return { json: await checkAnswerJson(actor, (await PatternCheck.findOne({ where: key, attributes: ['id'] }))!.id, true), happened: 'stored' };
     check = (await PatternCheck.findByPk(inserted.id))!;
     await recordAudit(actor, 'run', 'pattern-check', check.id, { fieldId: key.fieldId, pestId: key.pestId, sightings: sightings.length });
   }
@@ -195,7 +205,19 @@ export async function summarise(checks: PatternCheck[]): Promise<CheckSummary[]>
 }
 
 // Summaries leave the (large) result out of the query: only the verdict and n are read from it.
-const summaryAttributes = ['id', 'fieldId', 'pestId', 'windowFrom', 'windowTo', 'status', 'progress', 'engineVersion', 'createdBy', 'createdAt', 'finishedAt'] as const;
+const summaryAttributes = [
+  'id',
+  'fieldId',
+  'pestId',
+  'windowFrom',
+  'windowTo',
+  'status',
+  'progress',
+  'engineVersion',
+  'createdBy',
+  'createdAt',
+  'finishedAt',
+] as const;
 
 export async function fieldCheckSummaries(fieldId: string, pestId?: string): Promise<CheckSummary[]> {
   const checks = await PatternCheck.findAll({

@@ -28,9 +28,26 @@ export const FUTURE_TOLERANCE_MS = DAY_MS;
 export const OLD_LIMIT_MS = 2 * 365.25 * DAY_MS;
 
 const keptTags = [
-  'Make', 'Model', 'Orientation', 'DateTimeOriginal', 'OffsetTimeOriginal', 'GPSLatitudeRef', 'GPSLatitude', 'GPSLongitudeRef',
-  'GPSLongitude', 'GPSAltitudeRef', 'GPSAltitude', 'GPSHPositioningError', 'GPSImgDirectionRef', 'GPSImgDirection', 'GPSDateStamp',
-  'GPSTimeStamp', 'ImageWidth', 'ImageHeight', 'ExifImageWidth', 'ExifImageHeight',
+  'Make',
+  'Model',
+  'Orientation',
+  'DateTimeOriginal',
+  'OffsetTimeOriginal',
+  'GPSLatitudeRef',
+  'GPSLatitude',
+  'GPSLongitudeRef',
+  'GPSLongitude',
+  'GPSAltitudeRef',
+  'GPSAltitude',
+  'GPSHPositioningError',
+  'GPSImgDirectionRef',
+  'GPSImgDirection',
+  'GPSDateStamp',
+  'GPSTimeStamp',
+  'ImageWidth',
+  'ImageHeight',
+  'ExifImageWidth',
+  'ExifImageHeight',
 ] as const;
 
 type Dms = number[];
@@ -50,8 +67,12 @@ function readPosition(tags: Record<string, unknown>): { position: Position | nul
   const latAbs = decimalFromDms(tags.GPSLatitude);
   const lonAbs = decimalFromDms(tags.GPSLongitude);
   if (latAbs === null || lonAbs === null) return { position: null, problem: 'missing' };
-  const latRef = String(tags.GPSLatitudeRef ?? '').trim().toUpperCase();
-  const lonRef = String(tags.GPSLongitudeRef ?? '').trim().toUpperCase();
+  const latRef = String(tags.GPSLatitudeRef ?? '')
+    .trim()
+    .toUpperCase();
+  const lonRef = String(tags.GPSLongitudeRef ?? '')
+    .trim()
+    .toUpperCase();
   if (!['N', 'S'].includes(latRef) || !['E', 'W'].includes(lonRef)) return { position: null, problem: 'no-reference' };
   const lat = latRef === 'S' ? -latAbs : latAbs;
   const lon = lonRef === 'W' ? -lonAbs : lonAbs;

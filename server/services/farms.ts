@@ -26,7 +26,10 @@ export async function listFarms(actor: Actor) {
   const farms = await Farm.findAll({
     where: { organisationId: actor.organisationId, ...(ids ? { id: { [Op.in]: ids } } : {}) },
     include: [{ model: FarmContact, as: 'contacts' }],
-    order: [['name', 'ASC'], [{ model: FarmContact, as: 'contacts' }, 'name', 'ASC']],
+    order: [
+      ['name', 'ASC'],
+      [{ model: FarmContact, as: 'contacts' }, 'name', 'ASC'],
+    ],
   });
   return farms.map((f) => present(f, actor));
 }
@@ -43,7 +46,10 @@ export async function getFarm(actor: Actor, id: string) {
 export async function createFarm(actor: Actor, input: FarmInput) {
   const farm = await sequelize.transaction(async (transaction) => {
     const farm = await Farm.create({ organisationId: actor.organisationId, name: input.name }, { transaction });
-    await FarmContact.bulkCreate(input.contacts.map((c) => ({ ...c, farmId: farm.id })), { transaction });
+    await FarmContact.bulkCreate(
+      input.contacts.map((c) => ({ ...c, farmId: farm.id })),
+      { transaction },
+    );
     await recordAudit(actor, 'create', 'farm', farm.id, input, transaction);
     return farm;
   });
@@ -57,7 +63,10 @@ export async function updateFarm(actor: Actor, id: string, input: FarmInput) {
     await farm.update({ name: input.name }, { transaction });
     // Contacts are replaced as a set: the form always sends the whole list.
     await FarmContact.destroy({ where: { farmId: id }, transaction });
-    await FarmContact.bulkCreate(input.contacts.map((c) => ({ ...c, farmId: id })), { transaction });
+    await FarmContact.bulkCreate(
+      input.contacts.map((c) => ({ ...c, farmId: id })),
+      { transaction },
+    );
     await recordAudit(actor, 'update', 'farm', id, input, transaction);
   });
   return getFarm(actor, id);
@@ -69,7 +78,8 @@ export async function deleteFarm(actor: Actor, id: string) {
     if (!farm) throw notFound('That farm');
     // Deleting a farm would take its fields and their scouting records with it: its fields go first, one by one.
     const fields = await Field.count({ where: { farmId: id }, transaction });
-    if (fields > 0) throw conflict(`${farm.name} still has ${fields} ${fields === 1 ? 'field' : 'fields'}; delete ${fields === 1 ? 'it' : 'them'} first, then the farm.`);
+    if (fields > 0)
+      throw conflict(`${farm.name} still has ${fields} ${fields === 1 ? 'field' : 'fields'}; delete ${fields === 1 ? 'it' : 'them'} first, then the farm.`);
     await farm.destroy({ transaction });
     await recordAudit(actor, 'delete', 'farm', id, { name: farm.name }, transaction);
   });

@@ -20,9 +20,8 @@ const stripCrs = (g: MultiPolygon & { crs?: unknown }): MultiPolygon => ({ type:
 async function present(fields: Field[], actor: Actor): Promise<FieldSummary[]> {
   const farms = await Farm.findAll({ where: { id: { [Op.in]: [...new Set(fields.map((f) => f.farmId))] } } });
   const farmNames = new Map(farms.map((f) => [f.id, f.name]));
-  const assignments = actor.role === 'admin' || actor.role === 'adviser'
-    ? await FieldAssignment.findAll({ where: { fieldId: { [Op.in]: fields.map((f) => f.id) } } })
-    : [];
+  const assignments =
+    actor.role === 'admin' || actor.role === 'adviser' ? await FieldAssignment.findAll({ where: { fieldId: { [Op.in]: fields.map((f) => f.id) } } }) : [];
   return fields.map((f) => ({
     id: f.id,
     farmId: f.farmId,
@@ -85,7 +84,14 @@ export async function createField(actor: Actor, input: FieldCreateInput) {
       `INSERT INTO fields (organisation_id, farm_id, name, crop, season, boundary)
        VALUES (:org, :farmId, :name, :crop, :season, ST_Multi(ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326))) RETURNING id`,
       {
-        replacements: { org: actor.organisationId, farmId: input.farmId, name: input.name, crop: input.crop, season: input.season, geojson: JSON.stringify(boundary) },
+        replacements: {
+          org: actor.organisationId,
+          farmId: input.farmId,
+          name: input.name,
+          crop: input.crop,
+          season: input.season,
+          geojson: JSON.stringify(boundary),
+        },
         type: QueryTypes.SELECT,
         transaction,
       },
@@ -122,7 +128,10 @@ export async function deleteField(actor: Actor, id: string) {
               (SELECT count(*)::int FROM notices WHERE field_id = :id) AS notices`,
       { replacements: { id }, type: QueryTypes.SELECT, transaction },
     );
-    const held = [record.sightings && counted(record.sightings, 'sighting', 'sightings'), record.notices && counted(record.notices, 'zone notice', 'zone notices')].filter(Boolean);
+    const held = [
+      record.sightings && counted(record.sightings, 'sighting', 'sightings'),
+      record.notices && counted(record.notices, 'zone notice', 'zone notices'),
+    ].filter(Boolean);
     if (held.length) throw conflict(`${field.name} has ${held.join(' and ')} on record, so it is kept; edit its boundary or details instead of deleting it.`);
     await field.destroy({ transaction });
     await recordAudit(actor, 'delete', 'field', id, { name: field.name }, transaction);

@@ -24,7 +24,12 @@ export async function findGrowerNotice(actor: Actor, noticeId: string) {
 }
 
 /** The signed-in grower, under their copy's name when they hold one. */
-const growerAsker = (actor: Actor, copy: NoticeRecipient | null): Asker => ({ name: copy?.contactName ?? actor.name, email: actor.email, recipientId: copy?.id ?? null, userId: actor.id });
+const growerAsker = (actor: Actor, copy: NoticeRecipient | null): Asker => ({
+  name: copy?.contactName ?? actor.name,
+  email: actor.email,
+  recipientId: copy?.id ?? null,
+  userId: actor.id,
+});
 
 /** The grower's question or comment on a notice of their own farm, e-mailed to its adviser. */
 export async function askGrowerQuestion(actor: Actor, noticeId: string, text: string) {
@@ -65,7 +70,11 @@ export async function openGrowerNotice(actor: Actor, noticeId: string): Promise<
 export async function acknowledgeGrowerNotice(actor: Actor, noticeId: string): Promise<AcknowledgeResponse> {
   const { copy } = await findGrowerNotice(actor, noticeId);
   if (!copy) {
-    throw new AppError(409, 'not_a_recipient', `This notice was addressed to the farm's contacts, not to ${actor.email}; one of them acknowledges it from their own copy.`);
+    throw new AppError(
+      409,
+      'not_a_recipient',
+      `This notice was addressed to the farm's contacts, not to ${actor.email}; one of them acknowledges it from their own copy.`,
+    );
   }
   const { acknowledgedAt, alreadyAcknowledged } = await acknowledge(copy.id);
   return { acknowledgedAt: acknowledgedAt.toISOString(), alreadyAcknowledged };

@@ -24,7 +24,8 @@ export async function writableField(actor: Actor, fieldId: string, transaction?:
     transaction,
   });
   if (!field) throw notFound('That field');
-  if (!(await canSeeField(actor, fieldId))) throw forbidden('You are not assigned to that field; ask an adviser to assign you before recording sightings there.');
+  if (!(await canSeeField(actor, fieldId)))
+    throw forbidden('You are not assigned to that field; ask an adviser to assign you before recording sightings there.');
   return field;
 }
 

@@ -27,7 +27,12 @@ export async function fieldsContaining(organisationId: string, position: Positio
 }
 
 /** The nearest of the given fields within the margin (geodesic metres), or null. */
-export async function nearestField(organisationId: string, position: Position, fieldIds: string[] | null, marginM = NEAREST_FIELD_MARGIN_M): Promise<NearestField | null> {
+export async function nearestField(
+  organisationId: string,
+  position: Position,
+  fieldIds: string[] | null,
+  marginM = NEAREST_FIELD_MARGIN_M,
+): Promise<NearestField | null> {
   if (fieldIds && fieldIds.length === 0) return null;
   const [row] = await sequelize.query<NearestField>(
     `SELECT id, name, ST_Distance(boundary::geography, ST_SetSRID(ST_MakePoint(:lon, :lat), 4326)::geography) AS "distanceM"

@@ -43,8 +43,10 @@ interface Context {
 /** Keeps the uploaded name readable as a label: no folders, no control characters, bounded length. */
 export function labelFromFileName(name: string) {
   const base = name.split(/[\\/]/).pop() ?? '';
-  // eslint-disable-next-line no-control-regex -- control characters are exactly what a stored label must lose
-  return base.replace(/[\u0000-\u001f\u007f]/g, '').trim().slice(0, 200);
+  // Control characters are exactly what a stored label must lose.
+  // eslint-disable-next-line no-control-regex
+  const controlCharacters = /[\u0000-\u001f\u007f]/g;
+  return base.replace(controlCharacters, '').trim().slice(0, 200);
 }
 
 /** Today's date where the photo was taken, estimated from the longitude (15° per hour, common practice). */
@@ -61,14 +63,13 @@ async function resolveContext(actor: Actor, request: IngestRequest, now: Date): 
   });
   if (!pest) throw badRequest('Choose a pest from your organisation’s pest library.', { pestId: 'That pest is not in the library.' });
   const walk = request.walkId ? await writableWalk(actor, request.walkId) : null;
-  if (walk && request.fieldId && request.fieldId !== walk.fieldId) throw badRequest('That walk belongs to another field; choose the walk or the field, not both.');
+  if (walk && request.fieldId && request.fieldId !== walk.fieldId)
+    throw badRequest('That walk belongs to another field; choose the walk or the field, not both.');
   const field = walk ? { id: walk.fieldId, name: walk.fieldName } : request.fieldId ? await writableField(actor, request.fieldId) : null;
   return { actor, pestId: request.pestId, walk, field, writableIds: await visibleFieldIds(actor), now };
 }
 
-type Placement =
-  | { kind: 'field'; field: FieldRef; position: Position | null }
-  | { kind: 'outcome'; outcome: Omit<PhotoOutcome, 'fileName' | 'clientId'> };
+type Placement = { kind: 'field'; field: FieldRef; position: Position | null } | { kind: 'outcome'; outcome: Omit<PhotoOutcome, 'fileName' | 'clientId'> };
 
 async function place(context: Context, reading: PhotoReading): Promise<Placement> {
   const { position } = reading;
@@ -90,14 +91,23 @@ async function place(context: Context, reading: PhotoReading): Promise<Placement
   if (!position) {
     return {
       kind: 'outcome',
-      outcome: { outcome: 'rejected', message: `${positionProblemSentence(reading.positionProblem ?? 'missing')}: choose the walk first, then send it again to pin it by hand.` },
+      outcome: {
+        outcome: 'rejected',
+        message: `${positionProblemSentence(reading.positionProblem ?? 'missing')}: choose the walk first, then send it again to pin it by hand.`,
+      },
     };
   }
   const [inside] = await fieldsContaining(context.actor.organisationId, position, context.writableIds);
   if (inside) return { kind: 'field', field: inside, position };
   const [elsewhere] = context.writableIds ? await fieldsContaining(context.actor.organisationId, position, null) : [];
   if (elsewhere) {
-    return { kind: 'outcome', outcome: { outcome: 'rejected', message: 'This photo was taken in a field you are not assigned to; nothing was kept. Ask an adviser to assign you to that field.' } };
+    return {
+      kind: 'outcome',
+      outcome: {
+        outcome: 'rejected',
+        message: 'This photo was taken in a field you are not assigned to; nothing was kept. Ask an adviser to assign you to that field.',
+      },
+    };
   }
   const near = await nearestField(context.actor.organisationId, position, context.writableIds);
   return {
@@ -134,7 +144,15 @@ function duplicateOutcome(field: FieldRef, existing: { id: string; walkId: strin
 
 const isUniqueViolation = (error: unknown) => (error as { parent?: { code?: string } }).parent?.code === '23505';
 
-async function store(context: Context, photo: IncomingPhoto, mimeType: PhotoMimeType, sha256: string, reading: PhotoReading, field: FieldRef, position: Position | null) {
+async function store(
+  context: Context,
+  photo: IncomingPhoto,
+  mimeType: PhotoMimeType,
+  sha256: string,
+  reading: PhotoReading,
+  field: FieldRef,
+  position: Position | null,
+) {
   const { actor } = context;
   const walkedOn = reading.localDate ?? localToday(context.now, position);
   const storageKey = newStorageKey(actor.organisationId, extensionFor[mimeType], context.now);
@@ -146,7 +164,16 @@ async function store(context: Context, photo: IncomingPhoto, mimeType: PhotoMime
         `INSERT INTO photos (organisation_id, uploaded_by, sha256, storage_key, mime_type, byte_size, original_name, exif)
          VALUES (:org, :userId, :sha256, :storageKey, :mimeType, :byteSize, :originalName, CAST(:exif AS jsonb)) RETURNING id`,
         {
-          replacements: { org: actor.organisationId, userId: actor.id, sha256, storageKey, mimeType, byteSize: photo.bytes.length, originalName: labelFromFileName(photo.fileName), exif: JSON.stringify(reading.kept) },
+          replacements: {
+            org: actor.organisationId,
+            userId: actor.id,
+            sha256,
+            storageKey,
+            mimeType,
+            byteSize: photo.bytes.length,
+            originalName: labelFromFileName(photo.fileName),
+            exif: JSON.stringify(reading.kept),
+          },
           type: QueryTypes.SELECT,
           transaction,
         },
@@ -184,7 +211,14 @@ async function store(context: Context, photo: IncomingPhoto, mimeType: PhotoMime
           transaction,
         },
       );
-      await recordAudit(actor, 'create', 'sighting', sighting.id, { photoId: photoRow.id, walkId, fieldId: field.id, status: position ? 'placed' : 'needs-pin' }, transaction);
+      await recordAudit(
+        actor,
+        'create',
+        'sighting',
+        sighting.id,
+        { photoId: photoRow.id, walkId, fieldId: field.id, status: position ? 'placed' : 'needs-pin' },
+        transaction,
+      );
       return { sightingId: sighting.id, photoId: photoRow.id, walkId };
     });
   } catch (error) {
@@ -214,7 +248,12 @@ async function ingestOne(context: Context, photo: IncomingPhoto): Promise<Omit<P
     return duplicateOutcome(field, winner);
   }
   const placed = position !== null;
-  const timeNote = reading.timeFlag === 'future' ? ' Its time is in the future, so it was not trusted.' : reading.timeFlag === 'old' ? ' Its time is over two years old, so it was not trusted.' : '';
+  const timeNote =
+    reading.timeFlag === 'future'
+      ? ' Its time is in the future, so it was not trusted.'
+      : reading.timeFlag === 'old'
+        ? ' Its time is over two years old, so it was not trusted.'
+        : '';
   return {
     outcome: placed ? 'placed' : 'needs-pin',
     message: placed

@@ -59,6 +59,8 @@ export async function getAttachment(viewer: Actor, id: number, index: number) {
   const attachment = parsed.attachments[index];
   if (!attachment) throw notFound('That attachment');
   // Text attachments could carry a link as well; images and binary files are passed on as they are.
-  const content = /^text\/|json|xml/.test(attachment.contentType) ? Buffer.from(hideLinksOfOthers(attachment.content.toString('utf8'), row.envelope_to, viewer.email)) : attachment.content;
+  const content = /^text\/|json|xml/.test(attachment.contentType)
+    ? Buffer.from(hideLinksOfOthers(attachment.content.toString('utf8'), row.envelope_to, viewer.email))
+    : attachment.content;
   return { filename: attachment.filename ?? `attachment-${index}`, contentType: attachment.contentType, content };
 }

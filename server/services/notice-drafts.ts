@@ -13,16 +13,30 @@ import type { NoticeCreateRequest } from '../../shared/schemas/notices.ts';
 export async function createNotice(actor: Actor, input: NoticeCreateRequest) {
   await findVisibleField(actor, input.fieldId);
   const zoneSet = await ZoneSet.findOne({ where: { id: input.zoneSetId, organisationId: actor.organisationId } });
-  if (!zoneSet || zoneSet.fieldId !== input.fieldId) throw badRequest('Choose zones accepted for this field.', { zoneSetId: 'Those zones are not for this field.' });
-  if (zoneSet.status !== 'accepted') throw badRequest(`Zones version ${zoneSet.version} has been replaced by a newer version; write the notice for the current zones.`, { zoneSetId: 'Those zones have been superseded.' });
+  if (!zoneSet || zoneSet.fieldId !== input.fieldId)
+    throw badRequest('Choose zones accepted for this field.', { zoneSetId: 'Those zones are not for this field.' });
+  if (zoneSet.status !== 'accepted')
+    throw badRequest(`Zones version ${zoneSet.version} has been replaced by a newer version; write the notice for the current zones.`, {
+      zoneSetId: 'Those zones have been superseded.',
+    });
   const checkId = input.checkId ?? zoneSet.checkId;
   if (checkId) {
     const check = await PatternCheck.findOne({ where: { id: checkId, organisationId: actor.organisationId } });
-    if (!check || check.fieldId !== input.fieldId || check.pestId !== zoneSet.pestId) throw badRequest('That check is for another field or pest.', { checkId: 'That check is for another field or pest.' });
+    if (!check || check.fieldId !== input.fieldId || check.pestId !== zoneSet.pestId)
+      throw badRequest('That check is for another field or pest.', { checkId: 'That check is for another field or pest.' });
   }
   const notice = await sequelize.transaction(async (transaction) => {
     const created = await Notice.create(
-      { organisationId: actor.organisationId, fieldId: input.fieldId, zoneSetId: zoneSet.id, checkId: checkId ?? null, pestId: zoneSet.pestId, recommendation: input.recommendation, rescoutOn: input.rescoutOn ?? null, createdBy: actor.id },
+      {
+        organisationId: actor.organisationId,
+        fieldId: input.fieldId,
+        zoneSetId: zoneSet.id,
+        checkId: checkId ?? null,
+        pestId: zoneSet.pestId,
+        recommendation: input.recommendation,
+        rescoutOn: input.rescoutOn ?? null,
+        createdBy: actor.id,
+      },
       { transaction },
     );
     await recordAudit(actor, 'create', 'notice', created.id, { fieldId: input.fieldId, zoneSetId: zoneSet.id }, transaction);

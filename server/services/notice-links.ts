@@ -20,7 +20,11 @@ const sha256 = (text: string) => crypto.createHash('sha256').update(text).digest
 const TOKEN_SHAPE = /^([0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12})\.([A-Za-z0-9_-]{43})$/;
 
 export const linkRefused = () =>
-  new AppError(404, 'notice_link_not_found', 'This notice link is not valid: it may have expired or been withdrawn. Ask your adviser to send the notice again.');
+  new AppError(
+    404,
+    'notice_link_not_found',
+    'This notice link is not valid: it may have expired or been withdrawn. Ask your adviser to send the notice again.',
+  );
 
 /** A fresh token for a recipient (replacing any earlier one); returns the raw token for the e-mail. */
 export async function issueNoticeToken(recipientId: string, transaction?: Transaction): Promise<string> {
@@ -45,7 +49,15 @@ export interface LinkedCopy {
 export async function resolveNoticeToken(token: string): Promise<LinkedCopy> {
   const shape = TOKEN_SHAPE.exec(token);
   if (!shape) throw linkRefused();
-  const [row] = await sequelize.query<{ id: string; notice_id: string; contact_name: string; email: string; token_hash: string | null; opened_at: Date | null; acknowledged_at: Date | null }>(
+  const [row] = await sequelize.query<{
+    id: string;
+    notice_id: string;
+    contact_name: string;
+    email: string;
+    token_hash: string | null;
+    opened_at: Date | null;
+    acknowledged_at: Date | null;
+  }>(
     `SELECT id, notice_id, contact_name, email, token_hash, opened_at, acknowledged_at FROM notice_recipients
       WHERE id = :id AND revoked_at IS NULL AND token_expires_at > now()`,
     { replacements: { id: shape[1] }, type: QueryTypes.SELECT },
@@ -53,7 +65,14 @@ export async function resolveNoticeToken(token: string): Promise<LinkedCopy> {
   if (!row?.token_hash) throw linkRefused();
   const given = Buffer.from(sha256(token), 'hex');
   if (!crypto.timingSafeEqual(given, Buffer.from(row.token_hash, 'hex'))) throw linkRefused();
-  return { recipientId: row.id, noticeId: row.notice_id, contactName: row.contact_name, email: row.email, openedAt: row.opened_at, acknowledgedAt: row.acknowledged_at };
+  return {
+    recipientId: row.id,
+    noticeId: row.notice_id,
+    contactName: row.contact_name,
+    email: row.email,
+    openedAt: row.opened_at,
+    acknowledgedAt: row.acknowledged_at,
+  };
 }
 
 /** Records the first opening of the notice page; later openings change nothing and answer with the first one's time. */
@@ -63,7 +82,10 @@ export async function markOpened(recipientId: string): Promise<{ openedAt: Date;
     { replacements: { id: recipientId }, type: QueryTypes.SELECT },
   );
   if (updated.length) return { openedAt: updated[0].opened_at, alreadyOpened: false };
-  const [row] = await sequelize.query<{ opened_at: Date }>('SELECT opened_at FROM notice_recipients WHERE id = :id', { replacements: { id: recipientId }, type: QueryTypes.SELECT });
+  const [row] = await sequelize.query<{ opened_at: Date }>('SELECT opened_at FROM notice_recipients WHERE id = :id', {
+    replacements: { id: recipientId },
+    type: QueryTypes.SELECT,
+  });
   return { openedAt: row.opened_at, alreadyOpened: true };
 }
 
@@ -75,13 +97,20 @@ export async function acknowledge(recipientId: string): Promise<{ acknowledgedAt
     { replacements: { id: recipientId }, type: QueryTypes.SELECT },
   );
   if (updated.length) return { acknowledgedAt: updated[0].acknowledged_at, alreadyAcknowledged: false };
-  const [row] = await sequelize.query<{ acknowledged_at: Date }>('SELECT acknowledged_at FROM notice_recipients WHERE id = :id', { replacements: { id: recipientId }, type: QueryTypes.SELECT });
+  const [row] = await sequelize.query<{ acknowledged_at: Date }>('SELECT acknowledged_at FROM notice_recipients WHERE id = :id', {
+    replacements: { id: recipientId },
+    type: QueryTypes.SELECT,
+  });
   return { acknowledgedAt: row.acknowledged_at, alreadyAcknowledged: true };
 }
 
 /** What the notice page shows of one notice to one reader: the copy's contact, or a signed-in grower of the farm. */
 /** `basePath` is the reader's path to this notice, under which its map image and zone files are served. */
-export async function noticePageContent(noticeId: string, reader: { name: string; acknowledgedAt: Date | null; asker: Asker }, basePath: string): Promise<NoticeLinkResponse['notice']> {
+export async function noticePageContent(
+  noticeId: string,
+  reader: { name: string; acknowledgedAt: Date | null; asker: Asker },
+  basePath: string,
+): Promise<NoticeLinkResponse['notice']> {
   const material = await noticeMaterial(noticeId);
   const questions = await readerQuestions(noticeId, reader.asker);
   const notice = await Notice.findByPk(noticeId);
@@ -101,7 +130,11 @@ export async function noticePageContent(noticeId: string, reader: { name: string
 /** What the notice page shows for a token; reading it changes nothing (the page reports its opening itself). */
 export async function noticeForLink(token: string): Promise<NoticeLinkResponse['notice']> {
   const copy = await resolveNoticeToken(token);
-  return noticePageContent(copy.noticeId, { name: copy.contactName, acknowledgedAt: copy.acknowledgedAt, asker: linkAsker(copy) }, `/api/notice-links/${token}`);
+  return noticePageContent(
+    copy.noticeId,
+    { name: copy.contactName, acknowledgedAt: copy.acknowledgedAt, asker: linkAsker(copy) },
+    `/api/notice-links/${token}`,
+  );
 }
 
 /** The contact of a copy, asking through its link. */

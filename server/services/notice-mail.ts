@@ -83,7 +83,11 @@ export function noticeHtml(c: NoticeContent, link: string, mapSrc = `cid:${MAP_C
         `<td ${cell}>${z.location ? e(latLonText(z.location.centre)) : ''}</td><td ${cell}>${z.location ? e(fromCornerText(z.location)) : ''}</td></tr>`,
     )
     .join('');
-  const paragraphs = (text: string) => text.split(/\n{2,}/).map((p) => `<p style="margin:0 0 8px">${e(p).replace(/\n/g, '<br>')}</p>`).join('');
+  const paragraphs = (text: string) =>
+    text
+      .split(/\n{2,}/)
+      .map((p) => `<p style="margin:0 0 8px">${e(p).replace(/\n/g, '<br>')}</p>`)
+      .join('');
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><title>${e(noticeSubject(c))}</title></head>
 <body style="margin:0;padding:16px;background:#fbf8f0;color:#241e19;font-family:'Work Sans',Arial,sans-serif;font-size:15px;line-height:1.45">
@@ -143,7 +147,14 @@ const STALE_SENDING_MINUTES = 15;
  * de-duplicate by Message-ID still show one message. Nothing else can send a second copy.
  */
 export async function deliverNoticeCopy(recipientId: string): Promise<'sent' | 'skipped'> {
-  const [claim] = await sequelize.query<{ notice_id: string; email: string; contact_name: string; message_id: string; attempts: number; organisation_id: string }>(
+  const [claim] = await sequelize.query<{
+    notice_id: string;
+    email: string;
+    contact_name: string;
+    message_id: string;
+    attempts: number;
+    organisation_id: string;
+  }>(
     `UPDATE notice_recipients r SET status = 'sending', attempts = attempts + 1, updated_at = now()
        FROM notices n
       WHERE r.id = :id AND n.id = r.notice_id AND r.smtp_accepted_at IS NULL AND r.revoked_at IS NULL
@@ -173,12 +184,17 @@ export async function deliverNoticeCopy(recipientId: string): Promise<'sent' | '
       headers: organisationHeader(claim.organisation_id),
     });
     // The single statement after SMTP acceptance (see above).
-    await sequelize.query(`UPDATE notice_recipients SET status = 'sent', smtp_accepted_at = now(), last_error = NULL, updated_at = now() WHERE id = :id`, { replacements: { id: recipientId } });
+    await sequelize.query(`UPDATE notice_recipients SET status = 'sent', smtp_accepted_at = now(), last_error = NULL, updated_at = now() WHERE id = :id`, {
+      replacements: { id: recipientId },
+    });
   } catch (error) {
     const reason = (error as Error).message || 'The mail server did not accept the message.';
-    await sequelize.query(`UPDATE notice_recipients SET status = 'failed', last_error = :reason, updated_at = now() WHERE id = :id AND smtp_accepted_at IS NULL`, {
-      replacements: { id: recipientId, reason: `Attempt ${claim.attempts}: ${reason}`.slice(0, 1000) },
-    });
+    await sequelize.query(
+      `UPDATE notice_recipients SET status = 'failed', last_error = :reason, updated_at = now() WHERE id = :id AND smtp_accepted_at IS NULL`,
+      {
+        replacements: { id: recipientId, reason: `Attempt ${claim.attempts}: ${reason}`.slice(0, 1000) },
+      },
+    );
     await refreshNoticeStatus(claim.notice_id);
     throw error;
   }

@@ -52,8 +52,10 @@ export function noticeMapSvg(input: NoticeMapInput): string {
     const cx = outer.reduce((s, p) => s + p[0], 0) / outer.length;
     const cy = outer.reduce((s, p) => s + p[1], 0) / outer.length;
     const [lx, ly] = px([cx, cy]).split(',');
-    return `<path d="${path(xy)}" fill="${colours.zone}" fill-opacity="0.6" stroke="${colours.zoneEdge}" stroke-width="2" fill-rule="evenodd"/>` +
-      `<text x="${lx}" y="${ly}" font-family="DejaVu Sans, sans-serif" font-size="15" font-weight="bold" fill="${colours.text}" text-anchor="middle" dominant-baseline="middle">${escapeXml(zone.label)}</text>`;
+    return (
+      `<path d="${path(xy)}" fill="${colours.zone}" fill-opacity="0.6" stroke="${colours.zoneEdge}" stroke-width="2" fill-rule="evenodd"/>` +
+      `<text x="${lx}" y="${ly}" font-family="DejaVu Sans, sans-serif" font-size="15" font-weight="bold" fill="${colours.text}" text-anchor="middle" dominant-baseline="middle">${escapeXml(zone.label)}</text>`
+    );
   });
   const sightings = input.sightings.map((s) => {
     const [x, y] = px(project(s)).split(',');

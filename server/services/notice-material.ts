@@ -27,7 +27,15 @@ export async function noticeMaterial(noticeId: string): Promise<NoticeMaterial> 
 /** Everything a notice shows, gathered from the field, its sightings, the check and the zones as they are now. */
 export async function liveNoticeMaterial(notice: Notice): Promise<NoticeMaterial> {
   const noticeId = notice.id;
-  const [facts] = await sequelize.query<{ farm_name: string; field_name: string; field_area_m2: number; boundary: string; pest_name: string; author: string; organisation: string }>(
+  const [facts] = await sequelize.query<{
+    farm_name: string;
+    field_name: string;
+    field_area_m2: number;
+    boundary: string;
+    pest_name: string;
+    author: string;
+    organisation: string;
+  }>(
     `SELECT fa.name AS farm_name, f.name AS field_name, f.area_m2 AS field_area_m2, ST_AsGeoJSON(ST_ForcePolygonCCW(f.boundary), 9) AS boundary,
             p.name AS pest_name, u.name AS author, o.name AS organisation
        FROM notices n JOIN fields f ON f.id = n.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = n.pest_id
@@ -58,7 +66,15 @@ export async function liveNoticeMaterial(notice: Notice): Promise<NoticeMaterial
     pestName: facts.pest_name,
     walkDates: walks.map((w) => w.walked_on),
     verdict: verdictInWords(check?.result ?? null),
-    zones: zoneSet.zones.map((z) => ({ label: z.label, areaM2: z.areaM2, areaHa: z.areaHa, areaAc: z.areaAc, shareOfField: z.shareOfField, sightingsInside: z.sightingsInside, location: zoneLocation(z.geometry, boundary) })),
+    zones: zoneSet.zones.map((z) => ({
+      label: z.label,
+      areaM2: z.areaM2,
+      areaHa: z.areaHa,
+      areaAc: z.areaAc,
+      shareOfField: z.shareOfField,
+      sightingsInside: z.sightingsInside,
+      location: zoneLocation(z.geometry, boundary),
+    })),
     totalTreatedM2: zoneSet.totalTreatedM2,
     untreatedShare: zoneSet.untreatedShare,
     recommendation: notice.recommendation,

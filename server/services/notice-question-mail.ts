@@ -16,8 +16,16 @@ export interface QuestionMailFacts {
   question: string;
 }
 
-const paragraphs = (text: string) => text.split(/\n{2,}/).map((p) => `<p>${escapeHtml(p).replace(/\n/g, '<br>')}</p>`).join('');
-const quoted = (text: string) => text.split('\n').map((line) => `> ${line}`).join('\n');
+const paragraphs = (text: string) =>
+  text
+    .split(/\n{2,}/)
+    .map((p) => `<p>${escapeHtml(p).replace(/\n/g, '<br>')}</p>`)
+    .join('');
+const quoted = (text: string) =>
+  text
+    .split('\n')
+    .map((line) => `> ${line}`)
+    .join('\n');
 
 /** Tells the adviser who wrote the notice; a reply goes straight to the grower. */
 export async function mailQuestionToAdviser(facts: QuestionMailFacts, adviser: { name: string; email: string }) {
@@ -28,21 +36,40 @@ export async function mailQuestionToAdviser(facts: QuestionMailFacts, adviser: {
     to: { name: adviser.name, address: adviser.email },
     replyTo: { name: facts.askerName, address: facts.askerEmail },
     subject,
-    text: [`${facts.askerName} <${facts.askerEmail}> wrote about the ${facts.pestName} notice for ${facts.fieldName} (${facts.farmName}):`, '', quoted(facts.question), '', `Answer in Patchwise: ${page}`, 'Or reply to this e-mail to write to the grower directly.'].join('\n'),
+    text: [
+      `${facts.askerName} <${facts.askerEmail}> wrote about the ${facts.pestName} notice for ${facts.fieldName} (${facts.farmName}):`,
+      '',
+      quoted(facts.question),
+      '',
+      `Answer in Patchwise: ${page}`,
+      'Or reply to this e-mail to write to the grower directly.',
+    ].join('\n'),
     html: `<p>${escapeHtml(facts.askerName)} &lt;${escapeHtml(facts.askerEmail)}&gt; wrote about the ${escapeHtml(facts.pestName)} notice for ${escapeHtml(facts.fieldName)} (${escapeHtml(facts.farmName)}):</p><blockquote>${paragraphs(facts.question)}</blockquote><p><a href="${escapeHtml(page)}">Answer in Patchwise</a>, or reply to this e-mail to write to the grower directly.</p>`,
     headers: organisationHeader(facts.organisationId),
   });
 }
 
 /** Sends the adviser's answer to the grower who asked; a reply goes to the adviser. */
-export async function mailAnswerToGrower(facts: QuestionMailFacts, answer: { text: string; adviserName: string; adviserEmail: string; organisationName: string }) {
+export async function mailAnswerToGrower(
+  facts: QuestionMailFacts,
+  answer: { text: string; adviserName: string; adviserEmail: string; organisationName: string },
+) {
   const subject = `Answer from ${answer.adviserName}: ${facts.pestName} notice for ${facts.fieldName}, ${facts.farmName}`;
   await mailTransport().sendMail({
     from: config.mailFrom,
     to: { name: facts.askerName, address: facts.askerEmail },
     replyTo: { name: answer.adviserName, address: answer.adviserEmail },
     subject,
-    text: [`${answer.adviserName} (${answer.organisationName}) answered your question on the ${facts.pestName} notice for ${facts.fieldName}:`, '', answer.text, '', 'You asked:', quoted(facts.question), '', 'The answer is also shown on the notice page.'].join('\n'),
+    text: [
+      `${answer.adviserName} (${answer.organisationName}) answered your question on the ${facts.pestName} notice for ${facts.fieldName}:`,
+      '',
+      answer.text,
+      '',
+      'You asked:',
+      quoted(facts.question),
+      '',
+      'The answer is also shown on the notice page.',
+    ].join('\n'),
     html: `<p>${escapeHtml(answer.adviserName)} (${escapeHtml(answer.organisationName)}) answered your question on the ${escapeHtml(facts.pestName)} notice for ${escapeHtml(facts.fieldName)}:</p>${paragraphs(answer.text)}<p>You asked:</p><blockquote>${paragraphs(facts.question)}</blockquote><p>The answer is also shown on the notice page.</p>`,
     headers: organisationHeader(facts.organisationId),
   });

@@ -52,7 +52,15 @@ export async function readerQuestions(noticeId: string, asker: Pick<Asker, 'emai
 }
 
 async function mailFacts(noticeId: string, question: { askerName: string; askerEmail: string; body: string }) {
-  const [row] = await sequelize.query<{ organisation_id: string; field_name: string; farm_name: string; pest_name: string; organisation_name: string; adviser_name: string; adviser_email: string }>(
+  const [row] = await sequelize.query<{
+    organisation_id: string;
+    field_name: string;
+    farm_name: string;
+    pest_name: string;
+    organisation_name: string;
+    adviser_name: string;
+    adviser_email: string;
+  }>(
     `SELECT n.organisation_id, COALESCE(n.material->'content'->>'fieldName', f.name) AS field_name, COALESCE(n.material->'content'->>'farmName', fa.name) AS farm_name,
             COALESCE(n.material->'content'->>'pestName', p.name) AS pest_name, o.name AS organisation_name, u.name AS adviser_name, u.email AS adviser_email
        FROM notices n JOIN fields f ON f.id = n.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = n.pest_id
@@ -78,7 +86,10 @@ export async function askQuestion(noticeId: string, asker: Asker, text: string):
     `INSERT INTO notice_questions (notice_id, recipient_id, asked_by, asker_name, asker_email, body)
      VALUES (:noticeId, :recipientId, :userId, :name, :email, :text)
      RETURNING id, notice_id, asker_name, asker_email, body, created_at, answer, answered_at, NULL AS adviser_name`,
-    { replacements: { noticeId, recipientId: asker.recipientId, userId: asker.userId, name: asker.name, email: asker.email.toLowerCase(), text }, type: QueryTypes.SELECT },
+    {
+      replacements: { noticeId, recipientId: asker.recipientId, userId: asker.userId, name: asker.name, email: asker.email.toLowerCase(), text },
+      type: QueryTypes.SELECT,
+    },
   );
   const { facts, adviser } = await mailFacts(noticeId, { askerName: row.asker_name, askerEmail: row.asker_email, body: row.body });
   let adviserMailed = false;
@@ -96,19 +107,30 @@ export async function askQuestion(noticeId: string, asker: Asker, text: string):
 /** Every question on a notice of the adviser's organisation, oldest first. */
 export async function listNoticeQuestions(actor: Actor, noticeId: string): Promise<AdviserNoticeQuestionView[]> {
   const notice = await findNotice(actor, noticeId);
-  const rows = await sequelize.query<QuestionRow>(`${SELECT_QUESTIONS} WHERE q.notice_id = :noticeId ORDER BY q.created_at, q.id`, { replacements: { noticeId: notice.id }, type: QueryTypes.SELECT });
+  const rows = await sequelize.query<QuestionRow>(`${SELECT_QUESTIONS} WHERE q.notice_id = :noticeId ORDER BY q.created_at, q.id`, {
+    replacements: { noticeId: notice.id },
+    type: QueryTypes.SELECT,
+  });
   return rows.map((r) => ({ ...questionView(r), askerEmail: r.asker_email }));
 }
 
 /** Records the adviser's answer (once) and e-mails it to the grower who asked; `growerMailed` says whether it went out. */
-export async function answerQuestion(actor: Actor, noticeId: string, questionId: string, text: string): Promise<{ question: AdviserNoticeQuestionView; growerMailed: boolean }> {
+export async function answerQuestion(
+  actor: Actor,
+  noticeId: string,
+  questionId: string,
+  text: string,
+): Promise<{ question: AdviserNoticeQuestionView; growerMailed: boolean }> {
   const notice = await findNotice(actor, noticeId);
   const [updated] = await sequelize.query<{ id: string }>(
     `UPDATE notice_questions SET answer = :text, answered_by = :actorId, answered_at = now(), updated_at = now()
       WHERE id = :questionId AND notice_id = :noticeId AND answered_at IS NULL RETURNING id`,
     { replacements: { text, actorId: actor.id, questionId, noticeId: notice.id }, type: QueryTypes.SELECT },
   );
-  const [row] = await sequelize.query<QuestionRow>(`${SELECT_QUESTIONS} WHERE q.id = :questionId AND q.notice_id = :noticeId`, { replacements: { questionId, noticeId: notice.id }, type: QueryTypes.SELECT });
+  const [row] = await sequelize.query<QuestionRow>(`${SELECT_QUESTIONS} WHERE q.id = :questionId AND q.notice_id = :noticeId`, {
+    replacements: { questionId, noticeId: notice.id },
+    type: QueryTypes.SELECT,
+  });
   if (!row) throw notFound('That question');
   if (!updated) throw conflict('This question has already been answered; the grower has that answer.');
   const { facts, organisationName } = await mailFacts(notice.id, { askerName: row.asker_name, askerEmail: row.asker_email, body: row.body });
@@ -126,7 +148,15 @@ export async function answerQuestion(actor: Actor, noticeId: string, questionId:
 /** Unanswered grower questions in the adviser's organisation, oldest first, for the attention list. */
 export async function listWaitingGrowerQuestions(actor: Actor): Promise<WaitingGrowerQuestion[]> {
   if (actor.role !== 'admin' && actor.role !== 'adviser') return [];
-  const rows = await sequelize.query<{ id: string; notice_id: string; field_name: string; farm_name: string; pest_name: string; asker_name: string; created_at: Date }>(
+  const rows = await sequelize.query<{
+    id: string;
+    notice_id: string;
+    field_name: string;
+    farm_name: string;
+    pest_name: string;
+    asker_name: string;
+    created_at: Date;
+  }>(
     `SELECT q.id, q.notice_id, f.name AS field_name, fa.name AS farm_name, p.name AS pest_name, q.asker_name, q.created_at
        FROM notice_questions q JOIN notices n ON n.id = q.notice_id JOIN fields f ON f.id = n.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = n.pest_id
       WHERE n.organisation_id = :org AND q.answered_at IS NULL ORDER BY q.created_at`,

@@ -91,7 +91,16 @@ async function noticeView(notice: Notice): Promise<NoticeView> {
 
 /** A grower's view: notices (sent ones only) on the farms linked to their account, with their own copy's state. */
 export async function listGrowerNotices(actor: Actor): Promise<GrowerNoticeSummary[]> {
-  const rows = await sequelize.query<{ id: string; farm_name: string; field_name: string; pest_name: string; sent_at: Date | null; status: NoticeStatus; zone_count: number; treated_m2: number | null }>(
+  const rows = await sequelize.query<{
+    id: string;
+    farm_name: string;
+    field_name: string;
+    pest_name: string;
+    sent_at: Date | null;
+    status: NoticeStatus;
+    zone_count: number;
+    treated_m2: number | null;
+  }>(
     // A sent notice's snapshot names what it said; notices sent before snapshots fall back to the live rows.
     `SELECT n.id, COALESCE(n.material->'content'->>'farmName', fa.name) AS farm_name, COALESCE(n.material->'content'->>'fieldName', f.name) AS field_name,
             COALESCE(n.material->'content'->>'pestName', p.name) AS pest_name, n.sent_at, n.status,
@@ -125,7 +134,16 @@ export async function listGrowerNotices(actor: Actor): Promise<GrowerNoticeSumma
  */
 export async function listUnacknowledgedNotices(actor: Actor, olderThanDays = 0): Promise<UnacknowledgedNotice[]> {
   if (actor.role !== 'admin' && actor.role !== 'adviser') return [];
-  const rows = await sequelize.query<{ id: string; field_id: string; field_name: string; farm_name: string; pest_name: string; sent_at: Date; days: number; waiting: number }>(
+  const rows = await sequelize.query<{
+    id: string;
+    field_id: string;
+    field_name: string;
+    farm_name: string;
+    pest_name: string;
+    sent_at: Date;
+    days: number;
+    waiting: number;
+  }>(
     `SELECT n.id, n.field_id, f.name AS field_name, fa.name AS farm_name, p.name AS pest_name, n.sent_at,
             floor(EXTRACT(epoch FROM now() - n.sent_at) / 86400)::int AS days,
             (SELECT count(*) FROM notice_recipients r WHERE r.notice_id = n.id AND r.revoked_at IS NULL)::int AS waiting

@@ -47,7 +47,10 @@ export async function sendNotice(actor: Actor, id: string) {
       const ids: string[] = [];
       for (const contact of contacts) {
         const recipientId = crypto.randomUUID();
-        await NoticeRecipient.create({ id: recipientId, noticeId: notice.id, contactName: contact.name, email: contact.email, messageId: messageIdFor(notice.id, recipientId) }, { transaction });
+        await NoticeRecipient.create(
+          { id: recipientId, noticeId: notice.id, contactName: contact.name, email: contact.email, messageId: messageIdFor(notice.id, recipientId) },
+          { transaction },
+        );
         ids.push(recipientId);
       }
       await notice.update({ status: 'sending', sentAt: new Date(), material: snapshot }, { transaction });

@@ -50,7 +50,10 @@ export function declaredPixels(bytes: Uint8Array): { width: number; height: numb
   try {
     const size = imageSize(bytes);
     const all = [size, ...(size.images ?? [])].filter((s) => s.width && s.height);
-    return all.reduce<{ width: number; height: number } | null>((largest, s) => (!largest || s.width * s.height > largest.width * largest.height ? { width: s.width, height: s.height } : largest), null);
+    return all.reduce<{ width: number; height: number } | null>(
+      (largest, s) => (!largest || s.width * s.height > largest.width * largest.height ? { width: s.width, height: s.height } : largest),
+      null,
+    );
   } catch {
     return null;
   }
@@ -74,7 +77,14 @@ export async function sniffPhotoType(bytes: Uint8Array, maxMegapixels = photoLim
     return { ok: false, message: `This file is ${what}, whatever its name says; send a JPEG, PNG, WebP or HEIC photo.` };
   }
   const mimeType = mime as PhotoMimeType;
-  const complete = mimeType === 'image/jpeg' ? jpegIsComplete(bytes) : mimeType === 'image/png' ? pngIsComplete(bytes) : mimeType === 'image/webp' ? webpIsComplete(bytes) : true;
+  const complete =
+    mimeType === 'image/jpeg'
+      ? jpegIsComplete(bytes)
+      : mimeType === 'image/png'
+        ? pngIsComplete(bytes)
+        : mimeType === 'image/webp'
+          ? webpIsComplete(bytes)
+          : true;
   if (!complete) return { ok: false, message: 'This photo file is incomplete (it was cut off before the end); send it again.' };
   const tooLarge = pixelLimitProblem(bytes, maxMegapixels);
   if (tooLarge) return { ok: false, message: tooLarge };

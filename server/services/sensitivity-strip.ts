@@ -27,7 +27,18 @@ function row(result: AnalysisResult, cellSizeFactor: number, areaBasis: Sensitiv
 }
 
 const failedRow = (error: AnalysisInputError, cellSizeFactor: number, areaBasis: SensitivityRow['areaBasis']): SensitivityRow => ({
-  cellSizeM: null, cellSizeFactor, areaBasis, verdict: null, R: null, z: null, pValue: null, donnellyR: null, monteCarloPValue: null, chiSquare: null, quadratPValue: null, error: error.message,
+  cellSizeM: null,
+  cellSizeFactor,
+  areaBasis,
+  verdict: null,
+  R: null,
+  z: null,
+  pValue: null,
+  donnellyR: null,
+  monteCarloPValue: null,
+  chiSquare: null,
+  quadratPValue: null,
+  error: error.message,
 });
 
 /**

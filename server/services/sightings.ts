@@ -27,7 +27,13 @@ const sightingSelect = `
     JOIN users u ON u.id = s.created_by
     LEFT JOIN photos ph ON ph.id = s.photo_id`;
 
-type SightingRow = Omit<SightingView, 'position' | 'observedAt' | 'createdAt'> & { lon: number | null; lat: number | null; observedAt: Date | null; createdAt: Date; deletedAt: Date | null };
+type SightingRow = Omit<SightingView, 'position' | 'observedAt' | 'createdAt'> & {
+  lon: number | null;
+  lat: number | null;
+  observedAt: Date | null;
+  createdAt: Date;
+  deletedAt: Date | null;
+};
 
 // Spelled out key by key, in the answer's order (the row's columns, then position): rest/spread copies of
 // thousands of rows cost more than the query that read them.
@@ -58,11 +64,14 @@ function present(row: SightingRow): SightingView {
 }
 
 async function querySightings(where: string[], replacements: Record<string, unknown>, transaction?: Transaction) {
-  const rows = await sequelize.query<SightingRow>(`${sightingSelect} WHERE ${where.join(' AND ')} ORDER BY w.walked_on, s.observed_at NULLS LAST, s.created_at`, {
-    replacements,
-    type: QueryTypes.SELECT,
-    transaction,
-  });
+  const rows = await sequelize.query<SightingRow>(
+    `${sightingSelect} WHERE ${where.join(' AND ')} ORDER BY w.walked_on, s.observed_at NULLS LAST, s.created_at`,
+    {
+      replacements,
+      type: QueryTypes.SELECT,
+      transaction,
+    },
+  );
   return rows;
 }
 
@@ -86,7 +95,11 @@ export async function listSightings(actor: Actor, query: SightingListQuery): Pro
 
 async function findVisibleRow(actor: Actor, id: string, options: { deleted?: boolean; transaction?: Transaction } = {}) {
   const ids = await visibleFieldIds(actor);
-  const [row] = await querySightings(['s.id = :id', 's.organisation_id = :org', options.deleted ? 's.deleted_at IS NOT NULL' : 's.deleted_at IS NULL'], { id, org: actor.organisationId }, options.transaction);
+  const [row] = await querySightings(
+    ['s.id = :id', 's.organisation_id = :org', options.deleted ? 's.deleted_at IS NOT NULL' : 's.deleted_at IS NULL'],
+    { id, org: actor.organisationId },
+    options.transaction,
+  );
   if (!row || (ids && !ids.includes(row.fieldId))) throw notFound('That sighting');
   return row;
 }
@@ -160,7 +173,11 @@ export async function deleteSighting(actor: Actor, id: string) {
   assertMayEdit(actor, row);
   await sequelize.transaction(async (transaction) => {
     await sequelize.query('UPDATE sightings SET deleted_at = now(), updated_at = now() WHERE id = :id', { replacements: { id }, transaction });
-    if (row.photoId) await sequelize.query('UPDATE photos SET deleted_at = now(), updated_at = now() WHERE id = :photoId', { replacements: { photoId: row.photoId }, transaction });
+    if (row.photoId)
+      await sequelize.query('UPDATE photos SET deleted_at = now(), updated_at = now() WHERE id = :photoId', {
+        replacements: { photoId: row.photoId },
+        transaction,
+      });
     await recordAudit(actor, 'delete', 'sighting', id, { before: auditShape(present(row)), photoId: row.photoId }, transaction);
   });
 }
@@ -174,7 +191,11 @@ export async function restoreSighting(actor: Actor, id: string) {
   try {
     await sequelize.transaction(async (transaction) => {
       await sequelize.query('UPDATE sightings SET deleted_at = NULL, updated_at = now() WHERE id = :id', { replacements: { id }, transaction });
-      if (row.photoId) await sequelize.query('UPDATE photos SET deleted_at = NULL, updated_at = now() WHERE id = :photoId', { replacements: { photoId: row.photoId }, transaction });
+      if (row.photoId)
+        await sequelize.query('UPDATE photos SET deleted_at = NULL, updated_at = now() WHERE id = :photoId', {
+          replacements: { photoId: row.photoId },
+          transaction,
+        });
       await recordAudit(actor, 'restore', 'sighting', id, {}, transaction);
     });
   } catch (error) {
@@ -200,9 +221,28 @@ export async function recordEmptyStop(actor: Actor, walkId: string, input: WalkS
       `INSERT INTO sightings (organisation_id, field_id, walk_id, pest_id, count, position, position_source, accuracy_m, observed_at, status, created_by)
        VALUES (:org, :fieldId, :walkId, :pestId, 0, ST_SetSRID(ST_MakePoint(:lon, :lat), 4326), 'device', :accuracyM, now(), 'placed', :userId)
        RETURNING id`,
-      { replacements: { org: actor.organisationId, fieldId: walk.fieldId, walkId, pestId: input.pestId, ...position, accuracyM: input.accuracyM, userId: actor.id }, type: QueryTypes.SELECT, transaction },
+      {
+        replacements: {
+          org: actor.organisationId,
+          fieldId: walk.fieldId,
+          walkId,
+          pestId: input.pestId,
+          ...position,
+          accuracyM: input.accuracyM,
+          userId: actor.id,
+        },
+        type: QueryTypes.SELECT,
+        transaction,
+      },
     );
-    await recordAudit(actor, 'create', 'sighting', row.id, { emptyStop: true, walkId, pestId: input.pestId, position, accuracyM: input.accuracyM }, transaction);
+    await recordAudit(
+      actor,
+      'create',
+      'sighting',
+      row.id,
+      { emptyStop: true, walkId, pestId: input.pestId, position, accuracyM: input.accuracyM },
+      transaction,
+    );
     return row.id;
   });
   return getSighting(actor, id);

@@ -30,4 +30,3 @@ export async function requestThumbnails(photoIds: string[]) {
     console.error('thumbnail jobs not queued:', (error as Error).message);
   }
 }
-

@@ -62,13 +62,11 @@ export function applyOrientation(image: JimpImage, orientation: number) {
   else if (orientation === 5) {
     image.rotate(-90);
     mirror();
-  }
-  else if (orientation === 6) image.rotate(-90);
+  } else if (orientation === 6) image.rotate(-90);
   else if (orientation === 7) {
     image.rotate(90);
     mirror();
-  }
-  else if (orientation === 8) image.rotate(90);
+  } else if (orientation === 8) image.rotate(90);
 }
 
 /** The thumbnail's size for a picture of this size: THUMBNAIL_EDGE on the long side, never enlarged. */
@@ -83,7 +81,8 @@ function scaleDown(bitmap: RgbaBitmap): JimpImage {
   const target = thumbnailSize(bitmap.width, bitmap.height);
   const prescaled = boxScaleDown(bitmap, Math.max(bitmap.width, bitmap.height) / (2 * THUMBNAIL_EDGE));
   const image = fromRgba(prescaled.data, prescaled.width, prescaled.height);
-  if (prescaled.width !== target.width || prescaled.height !== target.height) image.resize({ w: target.width, h: target.height, mode: ResizeStrategy.BILINEAR });
+  if (prescaled.width !== target.width || prescaled.height !== target.height)
+    image.resize({ w: target.width, h: target.height, mode: ResizeStrategy.BILINEAR });
   return image;
 }
 

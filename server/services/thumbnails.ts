@@ -19,14 +19,19 @@ export async function makeThumbnail(photoId: string): Promise<ThumbnailResult> {
     rendered = await renderInPool({ path: storedPath(photo.storageKey), mimeType: photo.mimeType, orientation });
   } catch (error) {
     const reason = (error as Error).message?.slice(0, 500) || 'The photo could not be decoded.';
-    await sequelize.query(`UPDATE photos SET thumbnail_status = 'failed', thumbnail_error = :reason, updated_at = now() WHERE id = :photoId`, { replacements: { photoId, reason } });
+    await sequelize.query(`UPDATE photos SET thumbnail_status = 'failed', thumbnail_error = :reason, updated_at = now() WHERE id = :photoId`, {
+      replacements: { photoId, reason },
+    });
     return { status: 'failed', reason };
   }
   const thumbnailKey = thumbnailKeyFor(photo.storageKey);
   await writeStored(thumbnailKey, rendered.bytes);
-  await sequelize.query(`UPDATE photos SET thumbnail_status = 'ready', thumbnail_key = :thumbnailKey, thumbnail_error = NULL, updated_at = now() WHERE id = :photoId`, {
-    replacements: { photoId, thumbnailKey },
-  });
+  await sequelize.query(
+    `UPDATE photos SET thumbnail_status = 'ready', thumbnail_key = :thumbnailKey, thumbnail_error = NULL, updated_at = now() WHERE id = :photoId`,
+    {
+      replacements: { photoId, thumbnailKey },
+    },
+  );
   return { status: 'ready', source: rendered.source };
 }
 

@@ -55,7 +55,10 @@ export async function inviteUser(actor: Actor, input: z.infer<typeof inviteUserS
     return answer;
   }
   const { user, token } = await sequelize.transaction(async (transaction) => {
-    const user = await User.create({ organisationId: actor.organisationId, name: input.name, email: input.email, role: input.role, passwordHash: null }, { transaction });
+    const user = await User.create(
+      { organisationId: actor.organisationId, name: input.name, email: input.email, role: input.role, passwordHash: null },
+      { transaction },
+    );
     const token = await issueToken(user.id, 'invite', transaction);
     await recordAudit(actor, 'invite', 'user', user.id, { email: input.email, role: input.role }, transaction);
     return { user, token };
@@ -70,7 +73,11 @@ export const invitationAcceptedMessage = (email: string) => `An invitation is on
 
 // One wording for both cases, so a mail failure does not tell them apart either.
 const invitationMailFailed = (email: string) =>
-  new AppError(502, 'mail_failed', `The invitation e-mail to ${email} could not be sent; try again in a few minutes (if they appear in your list, use "Send invitation again" on their row).`);
+  new AppError(
+    502,
+    'mail_failed',
+    `The invitation e-mail to ${email} could not be sent; try again in a few minutes (if they appear in your list, use "Send invitation again" on their row).`,
+  );
 
 export async function resendInvitation(actor: Actor, id: string) {
   const user = await findOwnUser(actor, id);
@@ -83,7 +90,7 @@ export async function resendInvitation(actor: Actor, id: string) {
 
 export async function updateUser(actor: Actor, id: string, input: z.infer<typeof updateUserSchema>) {
   const user = await findOwnUser(actor, id);
-  if (user.id === actor.id && (input.role !== undefined && input.role !== user.role || input.active === false)) {
+  if (user.id === actor.id && ((input.role !== undefined && input.role !== user.role) || input.active === false)) {
     throw badRequest('You cannot change your own role or deactivate yourself; ask another admin.');
   }
   const before = { name: user.name, role: user.role, active: user.active };
@@ -115,7 +122,10 @@ export async function setPasswordWithToken(token: string, password: string, keep
     await user.update({ passwordHash }, { transaction });
     // Any other invitation or reset link still out there dies with the old password (one-time links: OWASP ASVS 4.0.3 V2.5).
     await UserToken.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: null }, transaction });
-    await sequelize.query(`DELETE FROM session WHERE sess->'passport'->>'user' = :id AND sid <> :keep`, { replacements: { id: user.id, keep: keepSessionId }, transaction });
+    await sequelize.query(`DELETE FROM session WHERE sess->'passport'->>'user' = :id AND sid <> :keep`, {
+      replacements: { id: user.id, keep: keepSessionId },
+      transaction,
+    });
     await recordAudit({ id: user.id, organisationId: user.organisationId }, 'set-password', 'user', user.id, {}, transaction);
     return user;
   });

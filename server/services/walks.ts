@@ -21,11 +21,14 @@ const walkSelect = `
     LEFT JOIN sightings s ON s.walk_id = w.id AND s.deleted_at IS NULL`;
 
 async function queryWalks(where: string, replacements: Record<string, unknown>, transaction?: Transaction): Promise<WalkView[]> {
-  const rows = await sequelize.query<WalkView & { createdAt: Date }>(`${walkSelect} WHERE ${where} GROUP BY w.id, f.name, u.name ORDER BY w.walked_on DESC, w.created_at DESC`, {
-    replacements,
-    type: QueryTypes.SELECT,
-    transaction,
-  });
+  const rows = await sequelize.query<WalkView & { createdAt: Date }>(
+    `${walkSelect} WHERE ${where} GROUP BY w.id, f.name, u.name ORDER BY w.walked_on DESC, w.created_at DESC`,
+    {
+      replacements,
+      type: QueryTypes.SELECT,
+      transaction,
+    },
+  );
   return rows.map((r) => ({ ...r, createdAt: new Date(r.createdAt).toISOString() }));
 }
 
@@ -95,7 +98,9 @@ export async function updateWalk(actor: Actor, id: string, input: WalkUpdateInpu
       );
     } catch (error) {
       if ((error as { parent?: { code?: string } }).parent?.code === '23505') {
-        throw badRequest('You already have a walk on this field on that date; add the sightings to that walk instead.', { walkedOn: 'Another walk of yours on this field has that date.' });
+        throw badRequest('You already have a walk on this field on that date; add the sightings to that walk instead.', {
+          walkedOn: 'Another walk of yours on this field has that date.',
+        });
       }
       throw error;
     }

@@ -17,14 +17,19 @@ export interface ZoneExportProperties {
 export function zonesGeoJson(zoneSet: Pick<ZoneSetView, 'zones'>): FeatureCollection<MultiPolygon, ZoneExportProperties> {
   return {
     type: 'FeatureCollection',
-    features: zoneSet.zones.map(
-      (zone): Feature<MultiPolygon, ZoneExportProperties> => ({
-        type: 'Feature',
-        id: zone.id,
-        properties: { label: zone.label, areaM2: zone.areaM2, areaHa: zone.areaHa, areaAc: zone.areaAc, shareOfField: zone.shareOfField, sightingsInside: zone.sightingsInside },
-        geometry: zone.geometry,
-      }),
-    ),
+    features: zoneSet.zones.map((zone): Feature<MultiPolygon, ZoneExportProperties> => ({
+      type: 'Feature',
+      id: zone.id,
+      properties: {
+        label: zone.label,
+        areaM2: zone.areaM2,
+        areaHa: zone.areaHa,
+        areaAc: zone.areaAc,
+        shareOfField: zone.shareOfField,
+        sightingsInside: zone.sightingsInside,
+      },
+      geometry: zone.geometry,
+    })),
   };
 }
 
@@ -42,13 +47,15 @@ function polygonKml(rings: number[][][]) {
 /** A KML 2.2 document with one Placemark per zone and its figures as ExtendedData. */
 export function zonesKml(zoneSet: Pick<ZoneSetView, 'zones' | 'version'>, title: string): string {
   const placemarks = zoneSet.zones.map((zone) => {
-    const data = ([
-      ['areaHa', zone.areaHa.toFixed(4)],
-      ['areaAc', zone.areaAc.toFixed(4)],
-      ['areaM2', zone.areaM2.toFixed(1)],
-      ['shareOfField', zone.shareOfField.toFixed(4)],
-      ['sightingsInside', String(zone.sightingsInside)],
-    ] as const)
+    const data = (
+      [
+        ['areaHa', zone.areaHa.toFixed(4)],
+        ['areaAc', zone.areaAc.toFixed(4)],
+        ['areaM2', zone.areaM2.toFixed(1)],
+        ['shareOfField', zone.shareOfField.toFixed(4)],
+        ['sightingsInside', String(zone.sightingsInside)],
+      ] as const
+    )
       .map(([name, value]) => `<Data name="${name}"><value>${value}</value></Data>`)
       .join('');
     return `    <Placemark><name>${xmlText(zone.label)}</name><description>${xmlText(`${zone.areaHa.toFixed(2)} ha (${zone.areaAc.toFixed(2)} ac)`)}</description><ExtendedData>${data}</ExtendedData><MultiGeometry>${zone.geometry.coordinates.map(polygonKml).join('')}</MultiGeometry></Placemark>`;
@@ -65,4 +72,9 @@ ${placemarks.join('\n')}
 
 /** A file name made of safe characters only. */
 export const exportFileName = (title: string, version: number, extension: string) =>
-  `${title.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'zones'}-v${version}.${extension}`;
+  `${
+    title
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '') || 'zones'
+  }-v${version}.${extension}`;

@@ -11,7 +11,14 @@ import { storedDensityValues } from './check-density.ts';
 import { createPlanarField } from '../../shared/analysis/field-geometry.ts';
 import { planarFrame, zoneFeature } from '../../shared/analysis/planar-frame.ts';
 import { boundaryCentroid, utmProjectionFor } from '../../shared/analysis/projection.ts';
-import { DEFAULT_MARGIN_M, DEFAULT_MIN_ZONE_AREA_M2, densityThresholdPerHa, zonesFromDensity, zonesFromQuadrat, type PlanarZone } from '../../shared/analysis/zones.ts';
+import {
+  DEFAULT_MARGIN_M,
+  DEFAULT_MIN_ZONE_AREA_M2,
+  densityThresholdPerHa,
+  zonesFromDensity,
+  zonesFromQuadrat,
+  type PlanarZone,
+} from '../../shared/analysis/zones.ts';
 import type { DensityResult } from '../../shared/analysis/density.ts';
 import type { QuadratResult } from '../../shared/analysis/quadrat.ts';
 import type { ProposedZoneProperties, ZoneProposalRequest, ZoneProposalResponse } from '../../shared/schemas/zones.ts';
@@ -42,8 +49,23 @@ export async function proposeZones(actor: Actor, checkId: string, input: ZonePro
     zones?: { features: Feature<Polygon, ProposedZoneProperties>[]; note: string };
   };
   // A stops-design check drew its zones from abundance among the stops, inside the scouted area: those are its proposal.
-  if (input.source === 'density' && result.design === 'stops' && result.zones && input.threshold === undefined && input.marginM === undefined && input.minZoneAreaM2 === undefined) {
-    return { type: 'FeatureCollection', features: result.zones.features, source: input.source, threshold: 0, marginM: DEFAULT_MARGIN_M, minZoneAreaM2: DEFAULT_MIN_ZONE_AREA_M2, note: result.zones.note };
+  if (
+    input.source === 'density' &&
+    result.design === 'stops' &&
+    result.zones &&
+    input.threshold === undefined &&
+    input.marginM === undefined &&
+    input.minZoneAreaM2 === undefined
+  ) {
+    return {
+      type: 'FeatureCollection',
+      features: result.zones.features,
+      source: input.source,
+      threshold: 0,
+      marginM: DEFAULT_MARGIN_M,
+      minZoneAreaM2: DEFAULT_MIN_ZONE_AREA_M2,
+      note: result.zones.note,
+    };
   }
   const boundary = await fieldBoundary(check.fieldId);
   const frame = fieldFrame(boundary);

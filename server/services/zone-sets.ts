@@ -44,7 +44,14 @@ async function clipToField(fieldId: string, zones: Array<{ label: string; geomet
   const adjustments: string[] = [];
   const kept: ClippedZone[] = [];
   for (const zone of zones) {
-    const [row] = await sequelize.query<{ valid: boolean; reason: string; drawn_m2: number; parts_m2: number[] | null; kept: string | null; kept_m2: number | null }>(
+    const [row] = await sequelize.query<{
+      valid: boolean;
+      reason: string;
+      drawn_m2: number;
+      parts_m2: number[] | null;
+      kept: string | null;
+      kept_m2: number | null;
+    }>(
       `WITH z AS (SELECT ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326) AS g),
             clipped AS (
               SELECT (ST_Dump(ST_CollectionExtract(ST_Intersection(z.g, f.boundary), 3))).geom AS part FROM z, fields f
@@ -58,7 +65,10 @@ async function clipToField(fieldId: string, zones: Array<{ label: string; geomet
          FROM z`,
       { replacements: { geojson: JSON.stringify(zone.geometry), fieldId, minArea: minAreaM2 }, type: QueryTypes.SELECT, transaction },
     );
-    if (!row.valid) throw badRequest(`${zone.label} is not a valid polygon (${row.reason}); redraw it so its edges do not cross.`, { zones: `${zone.label} is not a valid polygon.` });
+    if (!row.valid)
+      throw badRequest(`${zone.label} is not a valid polygon (${row.reason}); redraw it so its edges do not cross.`, {
+        zones: `${zone.label} is not a valid polygon.`,
+      });
     const parts = row.parts_m2 ?? [];
     if (parts.length === 0) {
       adjustments.push(`${zone.label} lies wholly outside the field, so it was left out.`);
@@ -66,12 +76,16 @@ async function clipToField(fieldId: string, zones: Array<{ label: string; geomet
     }
     const slivers = parts.filter((m2) => m2 < minAreaM2);
     if (!row.kept || !row.kept_m2) {
-      adjustments.push(`${zone.label} covers under ${minAreaM2} m² inside the field (${parts.reduce((a, b) => a + b, 0).toFixed(0)} m²), too small to treat on its own, so it was left out.`);
+      adjustments.push(
+        `${zone.label} covers under ${minAreaM2} m² inside the field (${parts.reduce((a, b) => a + b, 0).toFixed(0)} m²), too small to treat on its own, so it was left out.`,
+      );
       continue;
     }
     if (row.drawn_m2 - row.kept_m2 > row.drawn_m2 * 0.001) {
       const reason = slivers.length ? `; ${slivers.length} sliver${slivers.length === 1 ? '' : 's'} under ${minAreaM2} m² dropped` : '';
-      adjustments.push(`${zone.label} reached outside the field and was clipped to the boundary (${toHectares(row.drawn_m2).toFixed(2)} ha drawn, ${toHectares(row.kept_m2).toFixed(2)} ha kept${reason}).`);
+      adjustments.push(
+        `${zone.label} reached outside the field and was clipped to the boundary (${toHectares(row.drawn_m2).toFixed(2)} ha drawn, ${toHectares(row.kept_m2).toFixed(2)} ha kept${reason}).`,
+      );
     }
     kept.push({ label: zone.label, geojson: row.kept, areaM2: row.kept_m2 });
   }
@@ -86,7 +100,10 @@ export async function createZoneSet(actor: Actor, fieldId: string, input: ZoneSe
   let sightingIds: string[] | null = null;
   if (input.checkId) {
     const check = await findCheck(actor, input.checkId);
-    if (check.fieldId !== fieldId || check.pestId !== input.pestId) throw badRequest('That check is for another field or pest; attach the check these zones came from.', { checkId: 'That check is for another field or pest.' });
+    if (check.fieldId !== fieldId || check.pestId !== input.pestId)
+      throw badRequest('That check is for another field or pest; attach the check these zones came from.', {
+        checkId: 'That check is for another field or pest.',
+      });
     sightingIds = check.sightingIds;
   }
   const drawn: Array<{ label: string; geometry: MultiPolygon }> = [];
@@ -101,14 +118,26 @@ export async function createZoneSet(actor: Actor, fieldId: string, input: ZoneSe
     if (kept.length === 0) throw badRequest(`No zone is left inside the field: ${adjustments.join(' ')}`, { zones: adjustments.join(' ') });
     // Lock the field so two acceptances at once cannot take the same version number.
     await sequelize.query('SELECT id FROM fields WHERE id = :fieldId FOR UPDATE', { replacements: { fieldId }, transaction });
-    const [{ next }] = await sequelize.query<{ next: number }>('SELECT COALESCE(MAX(version), 0) + 1 AS next FROM zone_sets WHERE field_id = :fieldId AND pest_id = :pestId', {
-      replacements: { fieldId, pestId: pest.id },
-      type: QueryTypes.SELECT,
-      transaction,
-    });
+    const [{ next }] = await sequelize.query<{ next: number }>(
+      'SELECT COALESCE(MAX(version), 0) + 1 AS next FROM zone_sets WHERE field_id = :fieldId AND pest_id = :pestId',
+      {
+        replacements: { fieldId, pestId: pest.id },
+        type: QueryTypes.SELECT,
+        transaction,
+      },
+    );
     await ZoneSet.update({ status: 'superseded' }, { where: { fieldId, pestId: pest.id, status: 'accepted' }, transaction });
     const zoneSet = await ZoneSet.create(
-      { organisationId: actor.organisationId, fieldId, checkId: input.checkId ?? null, pestId: pest.id, version: next, status: 'accepted', createdBy: actor.id, acceptedAt: new Date() },
+      {
+        organisationId: actor.organisationId,
+        fieldId,
+        checkId: input.checkId ?? null,
+        pestId: pest.id,
+        version: next,
+        status: 'accepted',
+        createdBy: actor.id,
+        acceptedAt: new Date(),
+      },
       { transaction },
     );
     for (const [index, zone] of kept.entries()) {
@@ -121,12 +150,27 @@ export async function createZoneSet(actor: Actor, fieldId: string, input: ZoneSe
                     AND (CAST(:ids AS uuid[]) IS NULL OR s.id = ANY(CAST(:ids AS uuid[]))))
            FROM (SELECT ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326) AS g) z, fields f WHERE f.id = :fieldId`,
         {
-          replacements: { zoneSetId: zoneSet.id, position: index + 1, label: zone.label, geojson: zone.geojson, fieldId, pestId: pest.id, ids: sightingIds ? `{${sightingIds.join(',')}}` : null },
+          replacements: {
+            zoneSetId: zoneSet.id,
+            position: index + 1,
+            label: zone.label,
+            geojson: zone.geojson,
+            fieldId,
+            pestId: pest.id,
+            ids: sightingIds ? `{${sightingIds.join(',')}}` : null,
+          },
           transaction,
         },
       );
     }
-    await recordAudit(actor, 'accept', 'zone-set', zoneSet.id, { fieldId, pestId: pest.id, version: next, zones: kept.length, checkId: input.checkId ?? null }, transaction);
+    await recordAudit(
+      actor,
+      'accept',
+      'zone-set',
+      zoneSet.id,
+      { fieldId, pestId: pest.id, version: next, zones: kept.length, checkId: input.checkId ?? null },
+      transaction,
+    );
     return { id: zoneSet.id, adjustments };
   });
   return { zoneSet: await getZoneSet(actor, result.id), adjustments: result.adjustments };
@@ -199,10 +243,13 @@ export async function zonesOf(zoneSetId: string): Promise<ZoneView[]> {
 
 export async function listZoneSets(actor: Actor, fieldId: string) {
   await findVisibleField(actor, fieldId);
-  const rows = await sequelize.query<ZoneSetRow>(`SELECT ${zoneSetColumns} FROM ${zoneSetFrom} WHERE zs.field_id = :fieldId AND zs.organisation_id = :org ORDER BY p.name, zs.version DESC`, {
-    replacements: { fieldId, org: actor.organisationId },
-    type: QueryTypes.SELECT,
-  });
+  const rows = await sequelize.query<ZoneSetRow>(
+    `SELECT ${zoneSetColumns} FROM ${zoneSetFrom} WHERE zs.field_id = :fieldId AND zs.organisation_id = :org ORDER BY p.name, zs.version DESC`,
+    {
+      replacements: { fieldId, org: actor.organisationId },
+      type: QueryTypes.SELECT,
+    },
+  );
   return rows.map(summary);
 }
 

@@ -105,7 +105,13 @@ export interface AbundanceZone {
  * Zones: the scouted discs of the high stops grown by the margin (a round vector buffer), clipped to the
  * scouted area (so never past it) and the field; each zone lists the stops inside it and their mean count.
  */
-export function abundanceZones(xy: Float64Array, counts: ArrayLike<number>, surface: StopSurface, scouted: ScoutedArea, options: { marginM: number; minZoneAreaM2: number }): AbundanceZone[] {
+export function abundanceZones(
+  xy: Float64Array,
+  counts: ArrayLike<number>,
+  surface: StopSurface,
+  scouted: ScoutedArea,
+  options: { marginM: number; minZoneAreaM2: number },
+): AbundanceZone[] {
   const highXY: number[] = [];
   for (let i = 0; i < surface.high.length; i++) if (surface.high[i]) highXY.push(xy[i * 2], xy[i * 2 + 1]);
   if (highXY.length === 0) return [];

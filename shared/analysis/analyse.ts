@@ -1,7 +1,16 @@
 // One pattern check: every figure the app, the e-mail and the command line show comes from here.
 import type { Feature, FeatureCollection, MultiPolygon, Point, Polygon } from 'geojson';
 import { areaFigures, type AreaFigures } from './area.ts';
-import { benjaminiHochberg, distanceBandNeighbours, getisOrdGiStar, giStarPermutationP, hotPatches, moransI, stopSpacingNeighbours, type MoranResult } from './autocorrelation.ts';
+import {
+  benjaminiHochberg,
+  distanceBandNeighbours,
+  getisOrdGiStar,
+  giStarPermutationP,
+  hotPatches,
+  moransI,
+  stopSpacingNeighbours,
+  type MoranResult,
+} from './autocorrelation.ts';
 import { searchCoverage, type CoverageResult } from './coverage.ts';
 import { densitySurface, type DensityResult } from './density.ts';
 import { normalTwoSided } from './distributions.ts';
@@ -33,7 +42,6 @@ export type { AnalysisOptions, AnalysisOptionsInput };
 
 export type BoundaryInput = Polygon | MultiPolygon | Feature<Polygon | MultiPolygon> | FeatureCollection<Polygon | MultiPolygon>;
 export type SightingsInput = FeatureCollection<Point, { count?: number | null; id?: string } | null>;
-
 
 export interface ZoneProperties {
   zone: number;
@@ -247,12 +255,15 @@ function prepare(boundary: unknown, sightings: unknown, optionsInput: AnalysisOp
 
 /** Parts of a MultiPolygon that overlap would count their shared ground twice: refused with a sentence. */
 function refuseOverlappingParts(polygons: number[][][][]): void {
-  for (let a = 0; a < polygons.length; a++) for (let b = a + 1; b < polygons.length; b++) {
-    const shared = polygonsArea(intersection([polygons[a]], [polygons[b]]));
-    if (shared > 1) {
-      throw new AnalysisInputError(`Parts ${a + 1} and ${b + 1} of the boundary overlap (${shared.toFixed(0)} m²); join them into one part or fix the outline before a check.`);
+  for (let a = 0; a < polygons.length; a++)
+    for (let b = a + 1; b < polygons.length; b++) {
+      const shared = polygonsArea(intersection([polygons[a]], [polygons[b]]));
+      if (shared > 1) {
+        throw new AnalysisInputError(
+          `Parts ${a + 1} and ${b + 1} of the boundary overlap (${shared.toFixed(0)} m²); join them into one part or fix the outline before a check.`,
+        );
+      }
     }
-  }
 }
 
 function plansOf(prepared: Prepared): { nearestNeighbour: SimulationPlan | null; ripley: SimulationPlan | null } {
@@ -263,7 +274,12 @@ function plansOf(prepared: Prepared): { nearestNeighbour: SimulationPlan | null;
   const base = { fieldCoordinates: fieldToCoordinates(prepared.field), n, simulations: options.simulations };
   return {
     nearestNeighbour: { ...base, seed: `${options.seed}:nearest-neighbour`, nearestNeighbour: true, ripley: null },
-    ripley: { ...base, seed: `${options.seed}:ripley`, nearestNeighbour: false, ripley: { radiiM: prepared.radiiM, correction: options.ripleyCorrection, areaM2: prepared.area.usedM2 } },
+    ripley: {
+      ...base,
+      seed: `${options.seed}:ripley`,
+      nearestNeighbour: false,
+      ripley: { radiiM: prepared.radiiM, correction: options.ripleyCorrection, areaM2: prepared.area.usedM2 },
+    },
   };
 }
 
@@ -292,7 +308,12 @@ export function analyse(
   const plans = plansOf(prepared);
   const counts = prepared.locatedCounts.some((c) => c !== null) ? prepared.locatedCounts.map((c) => c ?? 1) : null;
 
-  const quadrat = n >= 2 ? timed('quadrat', () => quadratTest(field, located, area.boundaryM2, { cellSizeM: options.cellSizeM, grid: options.grid, slivers: options.slivers, counts })) : null;
+  const quadrat =
+    n >= 2
+      ? timed('quadrat', () =>
+          quadratTest(field, located, area.boundaryM2, { cellSizeM: options.cellSizeM, grid: options.grid, slivers: options.slivers, counts }),
+        )
+      : null;
 
   const labelling =
     prepared.design === 'stops' && n >= 2 && options.simulations > 0
@@ -315,10 +336,16 @@ export function analyse(
             return {
               ...values,
               reference: 'random-labelling' as const,
-              monteCarlo: { simulations: relabelled?.simulations ?? 0, pValue: relabelled?.pValue ?? null, meanSimulatedDistanceM: relabelled?.relabellingMeanM ?? null },
+              monteCarlo: {
+                simulations: relabelled?.simulations ?? 0,
+                pValue: relabelled?.pValue ?? null,
+                meanSimulatedDistanceM: relabelled?.relabellingMeanM ?? null,
+              },
             };
           }
-          const simulated = plans.nearestNeighbour ? (precomputed.meanNearestDistances ?? runSimulations(plans.nearestNeighbour, field).meanNearestDistances) : undefined;
+          const simulated = plans.nearestNeighbour
+            ? (precomputed.meanNearestDistances ?? runSimulations(plans.nearestNeighbour, field).meanNearestDistances)
+            : undefined;
           return { ...nearestNeighbourTest(located, area.usedM2, area.perimeterM, simulated), reference: 'csr' as const };
         })
       : null;
@@ -326,7 +353,16 @@ export function analyse(
   const ripley =
     n >= 2
       ? timed('ripley', () => {
-          if (prepared.design === 'stops') return labelling ? labellingRipley(labelling) : ripleyResult(prepared.radiiM, ripleyK(field, located, prepared.radiiM, area.boundaryM2, options.ripleyCorrection), options.ripleyCorrection, null, 0);
+          if (prepared.design === 'stops')
+            return labelling
+              ? labellingRipley(labelling)
+              : ripleyResult(
+                  prepared.radiiM,
+                  ripleyK(field, located, prepared.radiiM, area.boundaryM2, options.ripleyCorrection),
+                  options.ripleyCorrection,
+                  null,
+                  0,
+                );
           const K = ripleyK(field, located, prepared.radiiM, area.usedM2, options.ripleyCorrection);
           const simulated = plans.ripley ? (precomputed.ripleyL ?? runSimulations(plans.ripley, field).ripleyL) : null;
           return ripleyResult(prepared.radiiM, K, options.ripleyCorrection, simulated, plans.ripley ? options.simulations : 0);
@@ -336,7 +372,12 @@ export function analyse(
   const density =
     n >= 1
       ? timed('density', () => {
-          const surface = densitySurface(field, located, { kernel: options.kernel, bandwidthM: options.bandwidthM, cellSizeM: options.densityCellSizeM, edgeCorrection: options.densityEdgeCorrection });
+          const surface = densitySurface(field, located, {
+            kernel: options.kernel,
+            bandwidthM: options.bandwidthM,
+            cellSizeM: options.densityCellSizeM,
+            edgeCorrection: options.densityEdgeCorrection,
+          });
           return { ...surface, originX: surface.originX + originX, originY: surface.originY + originY };
         })
       : null;
@@ -347,7 +388,11 @@ export function analyse(
       ? timed('stopsQuadrat', () => {
           const grid = quadratGrid(field, prepared.summary.count, area.boundaryM2, { cellSizeM: options.cellSizeM, grid: options.grid });
           const inField = cellAreasInsideField(field, grid).filter((a) => a > 0).length;
-          const result = stopsQuadratTest(grid, prepared.stops, prepared.found, walkMembersOf(prepared.walkOf), { simulations: options.simulations, seed: `${options.seed}:stops-quadrat`, cellCount: inField });
+          const result = stopsQuadratTest(grid, prepared.stops, prepared.found, walkMembersOf(prepared.walkOf), {
+            simulations: options.simulations,
+            seed: `${options.seed}:stops-quadrat`,
+            cellCount: inField,
+          });
           return result && { ...result, grid: { ...result.grid, originX: result.grid.originX + originX, originY: result.grid.originY + originY } };
         })
       : null;
@@ -363,14 +408,26 @@ export function analyse(
           labelling,
           supporting: stopsSupportingEvidence(labelling, countsResult, stopsQuadrat),
         })
-      : spreadVerdict({ n, alpha: options.alpha, minSightings: options.minSightings, nearestNeighbour, quadrat, ripley, coverage, areaM2: area.boundaryM2, perimeterM: area.perimeterM });
+      : spreadVerdict({
+          n,
+          alpha: options.alpha,
+          minSightings: options.minSightings,
+          nearestNeighbour,
+          quadrat,
+          ripley,
+          coverage,
+          areaM2: area.boundaryM2,
+          perimeterM: area.perimeterM,
+        });
   const scouted = prepared.stops.length >= 4 ? timed('scouted', () => scoutedArea(field, prepared.stops)) : null;
   const walkMembers = walkMembersOf(prepared.walkOf);
   const scan =
     prepared.design === 'stops' && options.simulations > 0
       ? timed('scan', () => bernoulliScan(prepared.stops, prepared.found, walkMembers, { simulations: options.simulations, seed: `${options.seed}:scan` }))
       : null;
-  const zones = timed('zones', () => (prepared.design === 'stops' && scouted ? stopZones(prepared, scouted, spread, walkMembers) : treatmentZones(prepared, density, spread)));
+  const zones = timed('zones', () =>
+    prepared.design === 'stops' && scouted ? stopZones(prepared, scouted, spread, walkMembers) : treatmentZones(prepared, density, spread),
+  );
   return {
     engineVersion: ENGINE_VERSION,
     design: prepared.design,
@@ -477,7 +534,15 @@ function countStatistics(prepared: Prepared): CountsResult | null {
   return {
     stops: index.length,
     moran,
-    giStar: index.map((i, k) => ({ id: stopIds[i], count: values[k], z: gi[k], pValue: p[k], qValue: q[k], hot: gi[k] > 0 && q[k] < options.alpha, cold: gi[k] < 0 && q[k] < options.alpha })),
+    giStar: index.map((i, k) => ({
+      id: stopIds[i],
+      count: values[k],
+      z: gi[k],
+      pValue: p[k],
+      qValue: q[k],
+      hot: gi[k] > 0 && q[k] < options.alpha,
+      cold: gi[k] < 0 && q[k] < options.alpha,
+    })),
     hotPatches: patches.map((patch) => ({
       sightings: patch.members.length,
       ids: patch.members.map((k) => stopIds[index[k]]),
@@ -574,4 +639,3 @@ function stopZones(prepared: Prepared, scouted: ScoutedArea, spread: SpreadResul
     }),
   };
 }
-

@@ -90,8 +90,7 @@ export function moransI(values: ArrayLike<number>, nb: Neighbours, permutations 
   for (let i = 0; i < n; i++) s2 += (2 * (nb.offsets[i + 1] - nb.offsets[i])) ** 2;
   const b2 = (n * m4) / (m2 * m2);
   const expectedSquare =
-    (n * ((n * n - 3 * n + 3) * s1 - n * s2 + 3 * s0 * s0) - b2 * ((n * n - n) * s1 - 2 * n * s2 + 6 * s0 * s0)) /
-    ((n - 1) * (n - 2) * (n - 3) * s0 * s0);
+    (n * ((n * n - 3 * n + 3) * s1 - n * s2 + 3 * s0 * s0) - b2 * ((n * n - n) * s1 - 2 * n * s2 + 6 * s0 * s0)) / ((n - 1) * (n - 2) * (n - 3) * s0 * s0);
   const variance = expectedSquare - expected * expected;
   const zScore = (I - expected) / Math.sqrt(variance);
   let pValue: number | null = null;
@@ -161,7 +160,14 @@ export interface HotPatch {
 }
 
 /** Significant positive Gi* sightings joined into patches through the distance band. */
-export function hotPatches(values: ArrayLike<number>, xy: Float64Array, nb: Neighbours, giStar: Float64Array, qValues: Float64Array, alpha: number): HotPatch[] {
+export function hotPatches(
+  values: ArrayLike<number>,
+  xy: Float64Array,
+  nb: Neighbours,
+  giStar: Float64Array,
+  qValues: Float64Array,
+  alpha: number,
+): HotPatch[] {
   const n = values.length;
   const hot = new Uint8Array(n);
   for (let i = 0; i < n; i++) hot[i] = giStar[i] > 0 && qValues[i] < alpha ? 1 : 0;
@@ -224,7 +230,12 @@ export function stopSpacingNeighbours(xy: Float64Array, minNeighbours = 3): Neig
   const offsets = new Int32Array(n + 1);
   for (let i = 0; i < n; i++) offsets[i + 1] = offsets[i] + sets[i].size;
   const list = new Int32Array(offsets[n]);
-  sets.forEach((set, i) => list.set([...set].sort((a, b) => a - b), offsets[i]));
+  sets.forEach((set, i) =>
+    list.set(
+      [...set].sort((a, b) => a - b),
+      offsets[i],
+    ),
+  );
   return { bandM: band, offsets, list, pairs: offsets[n] / 2 };
 }
 

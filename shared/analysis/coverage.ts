@@ -65,11 +65,24 @@ export function searchCoverage(field: PlanarField, stopsXY: Float64Array, emptyS
   const warnings: string[] = [];
   if (emptyStops === 0) warnings.push('No empty stops were recorded, so a patchy walk cannot be told from a patchy pest; record "nothing found" stops too.');
   if (visitedShare < 0.6 * expectedVisitedShare) {
-    warnings.push(`Only ${pct(visitedShare)} of the field's cells were visited, against about ${pct(expectedVisitedShare)} for an even search with ${m} stops.`);
+    warnings.push(
+      `Only ${pct(visitedShare)} of the field's cells were visited, against about ${pct(expectedVisitedShare)} for an even search with ${m} stops.`,
+    );
   }
   const neglected = quarterRatios.filter((r): r is number => r !== null && r < 0.25).length;
-  if (neglected > 0) warnings.push(`${neglected === 1 ? 'One quarter' : `${neglected} quarters`} of the field received under a quarter of their fair share of stops.`);
-  return { stops: m, emptyStops, cellSizeM, visitedShare, expectedVisitedShare, stopsR, quarterRatios, uneven: warnings.length > (emptyStops === 0 ? 1 : 0), warnings };
+  if (neglected > 0)
+    warnings.push(`${neglected === 1 ? 'One quarter' : `${neglected} quarters`} of the field received under a quarter of their fair share of stops.`);
+  return {
+    stops: m,
+    emptyStops,
+    cellSizeM,
+    visitedShare,
+    expectedVisitedShare,
+    stopsR,
+    quarterRatios,
+    uneven: warnings.length > (emptyStops === 0 ? 1 : 0),
+    warnings,
+  };
 }
 
 function pct(share: number): string {

@@ -181,7 +181,11 @@ export function densitySurface(field: PlanarField, xy: Float64Array, options: De
   return {
     kernel,
     bandwidthM: h,
-    bandwidthRule: given ? 'set by the adviser' : kernel === 'quartic' ? 'normal-reference rule (Silverman 1986) ×√8 for the quartic radius' : 'normal-reference rule (Silverman 1986)',
+    bandwidthRule: given
+      ? 'set by the adviser'
+      : kernel === 'quartic'
+        ? 'normal-reference rule (Silverman 1986) ×√8 for the quartic radius'
+        : 'normal-reference rule (Silverman 1986)',
     bandwidthMeaning:
       kernel === 'quartic'
         ? `search radius: each sighting counts within ${round(h)} m and not at all beyond it`

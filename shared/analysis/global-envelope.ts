@@ -77,7 +77,7 @@ export function globalRankEnvelope(radiiM: number[], observed: ArrayLike<number>
   const order = Array.from({ length: curves }, (_, c) => c).sort(compare);
   // p_c = share of curves at least as extreme as c (ties included).
   const pOf = new Float64Array(curves);
-  for (let a = 0; a < curves; ) {
+  for (let a = 0; a < curves;) {
     let b = a;
     while (b + 1 < curves && compare(order[b + 1], order[a]) === 0) b++;
     for (let t = a; t <= b; t++) pOf[order[t]] = (b + 1) / curves;
@@ -102,7 +102,16 @@ export function globalRankEnvelope(radiiM: number[], observed: ArrayLike<number>
     if (observed[k] > hi) aboveM.push(radiiM[k]);
     else if (observed[k] < lo) belowM.push(radiiM[k]);
   }
-  const side = U === 0 ? null : sideOfObserved.high < sideOfObserved.low ? 'high' : sideOfObserved.low < sideOfObserved.high ? 'low' : aboveM.length >= belowM.length ? 'high' : 'low';
+  const side =
+    U === 0
+      ? null
+      : sideOfObserved.high < sideOfObserved.low
+        ? 'high'
+        : sideOfObserved.low < sideOfObserved.high
+          ? 'low'
+          : aboveM.length >= belowM.length
+            ? 'high'
+            : 'low';
   return {
     method: 'global rank envelope, extreme rank length (Myllymäki et al. 2017)',
     alpha,

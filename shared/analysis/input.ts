@@ -71,11 +71,24 @@ export function readSightings(input: unknown): SightingInput[] {
     if (!parsed.success) {
       const issue = parsed.error.issues[0];
       const where = issue.path.join('.');
-      const reason = where.includes('count') ? 'its count must be a number of 0 or more' : where.includes('accuracyM') ? 'its accuracyM must be a number of metres, 0 or more' : where.includes('walk') ? 'its walk must be a text or a number' : 'it must be a Point Feature with [x, y] coordinates';
+      const reason = where.includes('count')
+        ? 'its count must be a number of 0 or more'
+        : where.includes('accuracyM')
+          ? 'its accuracyM must be a number of metres, 0 or more'
+          : where.includes('walk')
+            ? 'its walk must be a text or a number'
+            : 'it must be a Point Feature with [x, y] coordinates';
       throw new AnalysisInputError(`Sighting ${index + 1} is not usable: ${reason}.`);
     }
     const feature = parsed.data;
     const id = feature.properties?.id ?? feature.id ?? `#${index + 1}`;
-    return { id: String(id), x: feature.geometry.coordinates[0], y: feature.geometry.coordinates[1], count: feature.properties?.count ?? null, walk: String(feature.properties?.walk ?? ''), accuracyM: feature.properties?.accuracyM ?? null };
+    return {
+      id: String(id),
+      x: feature.geometry.coordinates[0],
+      y: feature.geometry.coordinates[1],
+      count: feature.properties?.count ?? null,
+      walk: String(feature.properties?.walk ?? ''),
+      accuracyM: feature.properties?.accuracyM ?? null,
+    };
   });
 }

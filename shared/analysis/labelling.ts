@@ -53,7 +53,18 @@ export function stopPairs(field: PlanarField, xy: Float64Array, radiiM: number[]
     wa.push(weight(i, d));
     wb.push(weight(j, d));
   });
-  return { m, radiiM, areaM2, correction, a: Int32Array.from(a), b: Int32Array.from(b), bin: Int32Array.from(bins), weightA: Float64Array.from(wa), weightB: Float64Array.from(wb), lastEligible };
+  return {
+    m,
+    radiiM,
+    areaM2,
+    correction,
+    a: Int32Array.from(a),
+    b: Int32Array.from(b),
+    bin: Int32Array.from(bins),
+    weightA: Float64Array.from(wa),
+    weightB: Float64Array.from(wb),
+    lastEligible,
+  };
 }
 
 /**
@@ -61,7 +72,12 @@ export function stopPairs(field: PlanarField, xy: Float64Array, radiiM: number[]
  * (Ripley 1977, weights capped at 100), or the border estimator K = A Σ_i∈eligible Σ_j 1(d_ij ≤ r) / ((n−1) n_r)
  * with λ estimated as (n−1)/A and n_r the points at least r from the boundary.
  */
-export function labelledK(pairs: StopPairs, labels: Uint8Array, out = new Float64Array(pairs.radiiM.length), scratch = new Float64Array(pairs.radiiM.length + 1)): Float64Array {
+export function labelledK(
+  pairs: StopPairs,
+  labels: Uint8Array,
+  out = new Float64Array(pairs.radiiM.length),
+  scratch = new Float64Array(pairs.radiiM.length + 1),
+): Float64Array {
   const R = pairs.radiiM.length;
   scratch.fill(0);
   let n = 0;
@@ -256,11 +272,12 @@ export function randomLabellingTest(
   const envelope = globalRankEnvelope(radiiM, kDifference, simulatedD, s, options.alpha);
   const lLow = new Array(R).fill(Infinity);
   const lHigh = new Array(R).fill(-Infinity);
-  for (let t = 0; t < s; t++) for (let k = 0; k < R; k++) {
-    const v = simulatedL[t * R + k];
-    if (v < lLow[k]) lLow[k] = v;
-    if (v > lHigh[k]) lHigh[k] = v;
-  }
+  for (let t = 0; t < s; t++)
+    for (let k = 0; k < R; k++) {
+      const v = simulatedL[t * R + k];
+      if (v < lLow[k]) lLow[k] = v;
+      if (v > lHigh[k]) lHigh[k] = v;
+    }
   let nearestNeighbour: RandomLabellingResult['nearestNeighbour'] = null;
   const nFound = found.reduce((sum, v) => sum + v, 0);
   if (near && nFound >= 2 && s > 0) {

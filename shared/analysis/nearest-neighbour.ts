@@ -51,12 +51,7 @@ export function monteCarloPValue(observed: number, simulated: ArrayLike<number>)
 }
 
 /** The whole nearest-neighbour test; the Monte Carlo part takes simulated mean distances if given. */
-export function nearestNeighbourTest(
-  xy: Float64Array,
-  areaM2: number,
-  perimeterM: number,
-  simulatedMeanDistances?: ArrayLike<number>,
-): NearestNeighbourResult {
+export function nearestNeighbourTest(xy: Float64Array, areaM2: number, perimeterM: number, simulatedMeanDistances?: ArrayLike<number>): NearestNeighbourResult {
   const n = xy.length / 2;
   const meanDistanceM = meanNearestNeighbourDistance(xy);
   const naive = clarkEvans(meanDistanceM, n, areaM2);

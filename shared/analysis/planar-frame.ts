@@ -20,10 +20,12 @@ export function planarFrame(polygons: number[][][][], projection: Projection): P
   const projected = polygons.map((polygon) => polygon.map((ring) => ring.map(([x, y]) => projection.forward(x, y))));
   let originX = Infinity;
   let originY = Infinity;
-  for (const polygon of projected) for (const ring of polygon) for (const [x, y] of ring) {
-    originX = Math.min(originX, x);
-    originY = Math.min(originY, y);
-  }
+  for (const polygon of projected)
+    for (const ring of polygon)
+      for (const [x, y] of ring) {
+        originX = Math.min(originX, x);
+        originY = Math.min(originY, y);
+      }
   originX = Math.floor(originX);
   originY = Math.floor(originY);
   const local = projected.map((polygon) => polygon.map((ring) => ring.map(([x, y]) => [x - originX, y - originY])));
@@ -31,7 +33,8 @@ export function planarFrame(polygons: number[][][][], projection: Projection): P
 }
 
 /** A point of the frame back in the projection's own coordinates (longitude/latitude for UTM). */
-export const frameToCoordinates = (frame: Pick<PlanarFrame, 'projection' | 'originX' | 'originY'>, x: number, y: number) => frame.projection.inverse(x + frame.originX, y + frame.originY);
+export const frameToCoordinates = (frame: Pick<PlanarFrame, 'projection' | 'originX' | 'originY'>, x: number, y: number) =>
+  frame.projection.inverse(x + frame.originX, y + frame.originY);
 
 export interface ZoneFeatureProperties {
   zone: number;
@@ -43,7 +46,13 @@ export interface ZoneFeatureProperties {
 }
 
 /** One treatment zone as a GeoJSON feature, numbered from 1, with its area and the found sightings (x, y pairs) inside it. */
-export function zoneFeature(frame: Pick<PlanarFrame, 'projection' | 'originX' | 'originY'>, zone: PlanarZone, index: number, found: Float64Array, fieldAreaM2: number): Feature<Polygon, ZoneFeatureProperties> {
+export function zoneFeature(
+  frame: Pick<PlanarFrame, 'projection' | 'originX' | 'originY'>,
+  zone: PlanarZone,
+  index: number,
+  found: Float64Array,
+  fieldAreaM2: number,
+): Feature<Polygon, ZoneFeatureProperties> {
   const shape = createPlanarField([zone.rings]);
   let inside = 0;
   for (let i = 0; i < found.length; i += 2) if (isInsideField(shape, found[i], found[i + 1])) inside++;

@@ -67,10 +67,24 @@ export function quadratGrid(field: PlanarField, n: number, areaM2: number, optio
   const width = field.maxX - field.minX;
   const height = field.maxY - field.minY;
   if (options.grid) {
-    return { originX: field.minX, originY: field.minY, cols: options.grid.nx, rows: options.grid.ny, cellWidth: width / options.grid.nx, cellHeight: height / options.grid.ny };
+    return {
+      originX: field.minX,
+      originY: field.minY,
+      cols: options.grid.nx,
+      rows: options.grid.ny,
+      cellWidth: width / options.grid.nx,
+      cellHeight: height / options.grid.ny,
+    };
   }
   const side = options.cellSizeM ?? defaultCellSizeM(areaM2, n);
-  return { originX: field.minX, originY: field.minY, cellWidth: side, cellHeight: side, cols: Math.max(1, Math.ceil(width / side)), rows: Math.max(1, Math.ceil(height / side)) };
+  return {
+    originX: field.minX,
+    originY: field.minY,
+    cellWidth: side,
+    cellHeight: side,
+    cols: Math.max(1, Math.ceil(width / side)),
+    rows: Math.max(1, Math.ceil(height / side)),
+  };
 }
 
 /**
@@ -184,8 +198,18 @@ function largestNeighbour(c: number, cols: number, rows: number, areas: Float64A
   let best = -1;
   // Edge neighbours first; corner neighbours only when no edge neighbour is a proper cell.
   for (const ring of [
-    [[1, 0], [-1, 0], [0, 1], [0, -1]],
-    [[1, 1], [-1, 1], [1, -1], [-1, -1]],
+    [
+      [1, 0],
+      [-1, 0],
+      [0, 1],
+      [0, -1],
+    ],
+    [
+      [1, 1],
+      [-1, 1],
+      [1, -1],
+      [-1, -1],
+    ],
   ]) {
     for (const [dx, dy] of ring) {
       const x = col + dx;
@@ -203,7 +227,16 @@ function largestNeighbour(c: number, cols: number, rows: number, areas: Float64A
 /** Equal-area figures from the counts of full cells. */
 export function aggregationFigures(counts: number[]) {
   const q = counts.length;
-  const empty = { fullCells: q, meanPerFullCell: NaN, varianceToMean: null, dispersionPValue: null, morisita: null, meanCrowding: null, patchiness: null, negativeBinomialK: null };
+  const empty = {
+    fullCells: q,
+    meanPerFullCell: NaN,
+    varianceToMean: null,
+    dispersionPValue: null,
+    morisita: null,
+    meanCrowding: null,
+    patchiness: null,
+    negativeBinomialK: null,
+  };
   if (q < 2) return { ...empty, meanPerFullCell: q === 1 ? counts[0] : NaN };
   let total = 0;
   let pairs = 0;

@@ -76,8 +76,12 @@ export function ripleyK(field: PlanarField, xy: Float64Array, radiiM: number[], 
           let bin = binOf[Math.min(lastBucket, Math.floor(d / bucketWidth))];
           while (radiiM[bin] < d) bin++;
           if (isotropic) {
-            const wi = d <= toBoundary[i] ? 1 : 1 / Math.max(shares ? tableShare(shares, toBoundary, i, d) : circleShareInside(field, x, y, d), 1 / MAX_EDGE_WEIGHT);
-            const wj = d <= toBoundary[j] ? 1 : 1 / Math.max(shares ? tableShare(shares, toBoundary, j, d) : circleShareInside(field, xy[j * 2], xy[j * 2 + 1], d), 1 / MAX_EDGE_WEIGHT);
+            const wi =
+              d <= toBoundary[i] ? 1 : 1 / Math.max(shares ? tableShare(shares, toBoundary, i, d) : circleShareInside(field, x, y, d), 1 / MAX_EDGE_WEIGHT);
+            const wj =
+              d <= toBoundary[j]
+                ? 1
+                : 1 / Math.max(shares ? tableShare(shares, toBoundary, j, d) : circleShareInside(field, xy[j * 2], xy[j * 2 + 1], d), 1 / MAX_EDGE_WEIGHT);
             histogram[bin] += wi + wj;
           } else {
             if (bin <= lastEligible[i]) {

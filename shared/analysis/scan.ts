@@ -37,7 +37,14 @@ function xlnxTable(N: number): Float64Array {
 }
 
 /** The best window; with `enough`, stops at the first window reaching it (a relabelling only needs to know that). */
-function bestWindow(labels: Uint8Array, near: ReturnType<typeof neighbourOrder>, maxSize: number, C: number, t: Float64Array, enough = Infinity): { llr: number; centre: number; size: number } {
+function bestWindow(
+  labels: Uint8Array,
+  near: ReturnType<typeof neighbourOrder>,
+  maxSize: number,
+  C: number,
+  t: Float64Array,
+  enough = Infinity,
+): { llr: number; centre: number; size: number } {
   const N = labels.length;
   // The same Bernoulli ratio as bernoulliLLR, rewritten as Σ k ln k terms.
   const whole = t[C] + t[N - C] - t[N];

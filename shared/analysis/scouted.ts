@@ -18,7 +18,9 @@ export interface ScoutedArea {
 
 /** Median nearest-neighbour distance among the stops: the walk's stop spacing. */
 export function stopSpacingM(stopsXY: Float64Array): number {
-  const d = Array.from(nearestNeighbourDistances(stopsXY)).filter(Number.isFinite).sort((a, b) => a - b);
+  const d = Array.from(nearestNeighbourDistances(stopsXY))
+    .filter(Number.isFinite)
+    .sort((a, b) => a - b);
   return d.length ? d[Math.floor(d.length / 2)] : 0;
 }
 

@@ -74,18 +74,32 @@ export function spreadVerdict(input: {
   const { n, alpha, minSightings, nearestNeighbour: nn, quadrat, ripley, coverage } = input;
   const base = { design: 'whole-field' as const, alpha, minSightings, clusteredAtM: [] as number[], spreadOutAtM: [] as number[] };
   if (n < minSightings || !nn) return tooFew(base, `Only ${n} sighting${n === 1 ? '' : 's'} inside the field; a pattern check needs at least ${minSightings}.`);
-  const assumption = 'Photos only, no empty stops: these tests compare the sightings with chance over the whole field, which assumes the whole field was searched evenly.';
+  const assumption =
+    'Photos only, no empty stops: these tests compare the sightings with chance over the whole field, which assumes the whole field was searched evenly.';
   if (coverage?.uneven) {
     const warnings = coverage.warnings.filter((w) => !w.startsWith('No empty stops'));
-    return finish({ ...base, verdict: 'cant-tell', decidedBy: null, headline: "Can't tell: search uneven. The stops cover the field unevenly and no empty stops were recorded, so the walk cannot be told from the pest; no zone is proposed." }, [
-      { role: 'primary', test: 'search coverage', pValue: null, text: `${warnings.join(' ')} ${assumption}` },
-    ]);
+    return finish(
+      {
+        ...base,
+        verdict: 'cant-tell',
+        decidedBy: null,
+        headline:
+          "Can't tell: search uneven. The stops cover the field unevenly and no empty stops were recorded, so the walk cannot be told from the pest; no zone is proposed.",
+      },
+      [{ role: 'primary', test: 'search coverage', pValue: null, text: `${warnings.join(' ')} ${assumption}` }],
+    );
   }
   const narrow = input.areaM2 !== undefined && input.perimeterM !== undefined && input.perimeterM / Math.sqrt(input.areaM2) > NARROW_FIELD_SHAPE;
   if (nn.monteCarlo.pValue === null && narrow) {
-    return finish({ ...base, verdict: 'cant-tell', decidedBy: null, headline: "Can't tell: Donnelly's normal approximation does not hold for a long narrow field; run the check with simulations." }, [
-      { role: 'primary', test: 'Clark–Evans with Donnelly correction', pValue: null, text: assumption },
-    ]);
+    return finish(
+      {
+        ...base,
+        verdict: 'cant-tell',
+        decidedBy: null,
+        headline: "Can't tell: Donnelly's normal approximation does not hold for a long narrow field; run the check with simulations.",
+      },
+      [{ role: 'primary', test: 'Clark–Evans with Donnelly correction', pValue: null, text: assumption }],
+    );
   }
   const decidedBy = nn.monteCarlo.pValue !== null ? 'monte-carlo' : 'donnelly';
   const p = decidedBy === 'monte-carlo' ? (nn.monteCarlo.pValue as number) : nn.donnelly.pValue;
@@ -93,8 +107,14 @@ export function spreadVerdict(input: {
   // Direction from the same test as the p: the Monte Carlo mean is simulated in the boundary, whatever the area basis.
   const closer = decidedBy === 'monte-carlo' && nn.monteCarlo.meanSimulatedDistanceM !== null ? nn.meanDistanceM < nn.monteCarlo.meanSimulatedDistanceM : R < 1;
   const verdict: SpreadVerdict = p < alpha ? (closer ? 'clustered' : 'regular') : 'random';
-  const pText = decidedBy === 'monte-carlo' ? `${formatP(p)} from ${nn.monteCarlo.simulations} random patterns inside the boundary` : `${formatP(p)}, normal approximation`;
-  const reading = verdict === 'clustered' ? 'sightings lie closer together than chance would place them' : verdict === 'regular' ? 'sightings are spaced more evenly than chance' : 'the spacing is what chance alone would give';
+  const pText =
+    decidedBy === 'monte-carlo' ? `${formatP(p)} from ${nn.monteCarlo.simulations} random patterns inside the boundary` : `${formatP(p)}, normal approximation`;
+  const reading =
+    verdict === 'clustered'
+      ? 'sightings lie closer together than chance would place them'
+      : verdict === 'regular'
+        ? 'sightings are spaced more evenly than chance'
+        : 'the spacing is what chance alone would give';
   const evidence: Evidence[] = [
     {
       role: 'primary',
@@ -102,7 +122,12 @@ export function spreadVerdict(input: {
       pValue: p,
       text: `Nearest-neighbour index R = ${fixed(R)} with Donnelly's edge correction (${pText}): ${reading} at α = ${alpha}. ${assumption}`,
     },
-    { role: 'supporting', test: 'Clark–Evans, no edge correction', pValue: null, text: `Clark–Evans R = ${fixed(nn.R)} without edge correction (a value only: biased upwards in a bounded field).` },
+    {
+      role: 'supporting',
+      test: 'Clark–Evans, no edge correction',
+      pValue: null,
+      text: `Clark–Evans R = ${fixed(nn.R)} without edge correction (a value only: biased upwards in a bounded field).`,
+    },
   ];
   if (quadrat && quadrat.df > 0) {
     const vmr = quadrat.varianceToMean;
@@ -146,12 +171,20 @@ export function stopsVerdict(input: {
   if (found > input.everywhereShare * stops) {
     const share = Math.round((100 * found) / stops);
     return finish({ ...base, verdict: 'everywhere', decidedBy: null, headline: `${headlines.everywhere} (found at ${found} of ${stops} stops, ${share} %).` }, [
-      { role: 'primary', test: 'share of stops infested', pValue: null, text: `Found at ${share} % of the stops, more than ${Math.round(input.everywhereShare * 100)} %: a whole-field decision against the action threshold, not a patch.` },
+      {
+        role: 'primary',
+        test: 'share of stops infested',
+        pValue: null,
+        text: `Found at ${share} % of the stops, more than ${Math.round(input.everywhereShare * 100)} %: a whole-field decision against the action threshold, not a patch.`,
+      },
       ...input.supporting,
     ]);
   }
   if (!labelling || labelling.simulations === 0) {
-    return finish({ ...base, verdict: 'cant-tell', decidedBy: null, headline: "Can't tell: the stops test needs relabellings (simulations above 0)." }, input.supporting);
+    return finish(
+      { ...base, verdict: 'cant-tell', decidedBy: null, headline: "Can't tell: the stops test needs relabellings (simulations above 0)." },
+      input.supporting,
+    );
   }
   const env = labelling.envelope;
   const p = env.pValue;
@@ -162,7 +195,9 @@ export function stopsVerdict(input: {
       : verdict === 'regular' && env.belowM.length
         ? ` Found stops keep apart at ${radiiText(env.belowM, labelling.radiiM)}.`
         : '';
-  const undefinedText = env.undefinedM.length ? ` Not testable at ${radiiText(env.undefinedM, labelling.radiiM)} (no stops that close, or the same in every relabelling).` : '';
+  const undefinedText = env.undefinedM.length
+    ? ` Not testable at ${radiiText(env.undefinedM, labelling.radiiM)} (no stops that close, or the same in every relabelling).`
+    : '';
   const pText = `${formatP(p)} against ${labelling.simulations} relabellings of the same ${stops} stops${labelling.walks > 1 ? `, within each of ${labelling.walks} walks` : ''}`;
   const primary: Evidence = {
     role: 'primary',
@@ -170,21 +205,32 @@ export function stopsVerdict(input: {
     pValue: p,
     text: `Is the pest more bunched among the places the scout stopped than chance would bunch it? Global rank envelope test of K_found − K_all stops at α = ${alpha}: ${pText}.${where}${undefinedText}`,
   };
-  return finish({ ...base, verdict, decidedBy: 'random-labelling', headline: `${headlines[verdict]} among the stops made (${formatP(p)}).`, clusteredAtM: verdict === 'clustered' ? env.aboveM : [], spreadOutAtM: verdict === 'regular' ? env.belowM : [] }, [
-    primary,
-    ...input.supporting,
-  ]);
+  return finish(
+    {
+      ...base,
+      verdict,
+      decidedBy: 'random-labelling',
+      headline: `${headlines[verdict]} among the stops made (${formatP(p)}).`,
+      clusteredAtM: verdict === 'clustered' ? env.aboveM : [],
+      spreadOutAtM: verdict === 'regular' ? env.belowM : [],
+    },
+    [primary, ...input.supporting],
+  );
 }
 
 type Base = Pick<SpreadResult, 'design' | 'alpha' | 'minSightings' | 'clusteredAtM' | 'spreadOutAtM'>;
 
 /** "Too few" shows nothing beneath it that could read as a pattern. */
 function tooFew(base: Base, sentence: string): SpreadResult {
-  return finish({ ...base, verdict: 'too-few', decidedBy: null, headline: `${headlines['too-few']}: ${sentence}` }, [{ role: 'primary', test: 'number of sightings', pValue: null, text: sentence }]);
+  return finish({ ...base, verdict: 'too-few', decidedBy: null, headline: `${headlines['too-few']}: ${sentence}` }, [
+    { role: 'primary', test: 'number of sightings', pValue: null, text: sentence },
+  ]);
 }
 
 function finish(head: Omit<SpreadResult, 'evidence' | 'reasons'>, evidence: Evidence[]): SpreadResult {
-  const marked = evidence.map((e) => (e.role === 'supporting' ? { ...e, text: e.text.startsWith('Supporting') ? e.text : `Supporting evidence, not the verdict: ${e.text}` } : e));
+  const marked = evidence.map((e) =>
+    e.role === 'supporting' ? { ...e, text: e.text.startsWith('Supporting') ? e.text : `Supporting evidence, not the verdict: ${e.text}` } : e,
+  );
   return { ...head, evidence: marked, reasons: marked.map((e) => e.text) };
 }
 

@@ -33,7 +33,13 @@ function homogeneity(cellOf: Int32Array, cells: number, labels: Uint8Array, stop
  * Test of equal proportions (Pearson's χ² for a k × 2 table, Pearson 1900) of found stops among the stops per cell,
  * two-sided; with small expected counts the p comes from relabellings of the stops stratified by walk.
  */
-export function stopsQuadratTest(grid: GridSpec, xy: Float64Array, found: Uint8Array, walkMembers: Int32Array[], options: { simulations: number; seed: Seed; cellCount: number }): StopsQuadratResult | null {
+export function stopsQuadratTest(
+  grid: GridSpec,
+  xy: Float64Array,
+  found: Uint8Array,
+  walkMembers: Int32Array[],
+  options: { simulations: number; seed: Seed; cellCount: number },
+): StopsQuadratResult | null {
   const m = found.length;
   const index = new Map<number, number>();
   const cellOf = new Int32Array(m);

@@ -66,17 +66,18 @@ export function mergeStops(sightings: PlacedSighting[], radiusM?: number): Stops
     const cy = Math.floor(s.y / reach);
     let best = -1;
     let bestD = Infinity;
-    for (let dx = -1; dx <= 1; dx++) for (let dy = -1; dy <= 1; dy++) {
-      for (const l of cells.get(key(cx + dx, cy + dy, s.walk)) ?? []) {
-        const leader = sightings[l];
-        const d = Math.hypot(leader.x - s.x, leader.y - s.y);
-        const limit = radiusM ?? Math.max(DEFAULT_STOP_RADIUS_M, leader.accuracyM ?? 0, s.accuracyM ?? 0);
-        if (d < limit && d < bestD) {
-          best = l;
-          bestD = d;
+    for (let dx = -1; dx <= 1; dx++)
+      for (let dy = -1; dy <= 1; dy++) {
+        for (const l of cells.get(key(cx + dx, cy + dy, s.walk)) ?? []) {
+          const leader = sightings[l];
+          const d = Math.hypot(leader.x - s.x, leader.y - s.y);
+          const limit = radiusM ?? Math.max(DEFAULT_STOP_RADIUS_M, leader.accuracyM ?? 0, s.accuracyM ?? 0);
+          if (d < limit && d < bestD) {
+            best = l;
+            bestD = d;
+          }
         }
       }
-    }
     if (best >= 0) leaderOf[i] = best;
     else {
       const k = key(cx, cy, s.walk);
@@ -115,7 +116,15 @@ export function mergeStops(sightings: PlacedSighting[], radiusM?: number): Stops
     // A found-without-number photo beside empty ones still marks the stop as found.
     const count = numbered === 0 || (unnumbered > 0 && sum === 0) ? null : sum;
     const ids = members.map((k) => sightings[k].id);
-    const stop: Stop = { id: ids[0], x: x / members.length, y: y / members.length, count, found: isFound(count), walk: walkIndex.get(first.walk) as number, sightingIds: ids };
+    const stop: Stop = {
+      id: ids[0],
+      x: x / members.length,
+      y: y / members.length,
+      count,
+      found: isFound(count),
+      walk: walkIndex.get(first.walk) as number,
+      sightingIds: ids,
+    };
     stops.push(stop);
     if (members.length > 1) {
       let span = 0;

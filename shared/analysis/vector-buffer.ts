@@ -14,7 +14,13 @@ export type Polygons = number[][][][];
 
 function toPaths(polygons: Polygons): Path[] {
   const paths: Path[] = [];
-  for (const polygon of polygons) for (const ring of polygon) paths.push(ring.slice(0, ring.length - (ring.length > 1 && ring[0][0] === ring[ring.length - 1][0] && ring[0][1] === ring[ring.length - 1][1] ? 1 : 0)).map(([x, y]) => ({ X: Math.round(x * SCALE), Y: Math.round(y * SCALE) })));
+  for (const polygon of polygons)
+    for (const ring of polygon)
+      paths.push(
+        ring
+          .slice(0, ring.length - (ring.length > 1 && ring[0][0] === ring[ring.length - 1][0] && ring[0][1] === ring[ring.length - 1][1] ? 1 : 0))
+          .map(([x, y]) => ({ X: Math.round(x * SCALE), Y: Math.round(y * SCALE) })),
+      );
   return paths;
 }
 

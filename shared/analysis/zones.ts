@@ -25,7 +25,15 @@ export const DEFAULT_MIN_ZONE_AREA_M2 = 500;
 type Rect = [number, number, number, number];
 
 function rectPolygon([x0, y0, x1, y1]: Rect): Feature<Polygon> {
-  return turfPolygon([[[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]]]);
+  return turfPolygon([
+    [
+      [x0, y0],
+      [x1, y0],
+      [x1, y1],
+      [x0, y1],
+      [x0, y0],
+    ],
+  ]);
 }
 
 function polygonsOf(geometry: Polygon | MultiPolygon): number[][][][] {
@@ -80,7 +88,15 @@ export function zonesFromRectangles(field: PlanarField, rects: Rect[], options: 
       for (let col = 0; col < cols; col++) {
         if (!core[row * cols + col]) continue;
         // Only cells on the edge of the core spread outwards.
-        const interior = row > 0 && row < rows - 1 && col > 0 && col < cols - 1 && core[row * cols + col - 1] && core[row * cols + col + 1] && core[(row - 1) * cols + col] && core[(row + 1) * cols + col];
+        const interior =
+          row > 0 &&
+          row < rows - 1 &&
+          col > 0 &&
+          col < cols - 1 &&
+          core[row * cols + col - 1] &&
+          core[row * cols + col + 1] &&
+          core[(row - 1) * cols + col] &&
+          core[(row + 1) * cols + col];
         if (interior) {
           mask[row * cols + col] = 1;
           continue;
@@ -110,7 +126,15 @@ export function zonesFromRectangles(field: PlanarField, rects: Rect[], options: 
 }
 
 /** Row runs of selected cells as rectangles, so the union has few pieces. */
-function runsToRectangles(cols: number, rows: number, originX: number, originY: number, width: number, height: number, selected: (c: number) => boolean): Rect[] {
+function runsToRectangles(
+  cols: number,
+  rows: number,
+  originX: number,
+  originY: number,
+  width: number,
+  height: number,
+  selected: (c: number) => boolean,
+): Rect[] {
   const rects: Rect[] = [];
   for (let row = 0; row < rows; row++) {
     let col = 0;

@@ -6,7 +6,8 @@ import { fault } from './boundary-faults.ts';
 type DomParserConstructor = new () => { parseFromString(text: string, type: string): unknown };
 
 function polygonsOf(value: unknown, found: Position[][][]): void {
-  if (!value || typeof value !== 'object') throw fault('not-polygon', 'The file holds no GeoJSON geometry: expected a Polygon, MultiPolygon, Feature or FeatureCollection.');
+  if (!value || typeof value !== 'object')
+    throw fault('not-polygon', 'The file holds no GeoJSON geometry: expected a Polygon, MultiPolygon, Feature or FeatureCollection.');
   const node = value as { type?: unknown; coordinates?: unknown; geometry?: unknown; features?: unknown; geometries?: unknown };
   switch (node.type) {
     case 'Polygon':

@@ -20,7 +20,10 @@ const samePosition = (a: Position, b: Position) => a[0] === b[0] && a[1] === b[1
 function checkRing(ring: Position[], where: string) {
   // The usual hand-editing slip: a Polygon's coordinates written as one ring instead of a list of rings.
   if (Array.isArray(ring) && ring.length > 0 && ring.every((v) => typeof v === 'number')) {
-    throw fault('unparseable', `${where} is a single position, not a list of positions: a Polygon's coordinates are a list of rings, each a list of [longitude, latitude] pairs; check the brackets.`);
+    throw fault(
+      'unparseable',
+      `${where} is a single position, not a list of positions: a Polygon's coordinates are a list of rings, each a list of [longitude, latitude] pairs; check the brackets.`,
+    );
   }
   if (!Array.isArray(ring) || ring.length < 4) {
     throw fault('ring-too-short', `${where} has fewer than 4 positions; a closed ring needs at least 3 corners plus the first corner repeated.`);
@@ -49,7 +52,8 @@ function checkRange(positions: Position[]) {
 }
 
 /** A ring's corners: its positions without the closing repeat of the first. */
-const cornerCount = (boundary: MultiPolygon) => boundary.coordinates.reduce((sum, polygon) => sum + polygon.reduce((inner, ring) => inner + ring.length - 1, 0), 0);
+const cornerCount = (boundary: MultiPolygon) =>
+  boundary.coordinates.reduce((sum, polygon) => sum + polygon.reduce((inner, ring) => inner + ring.length - 1, 0), 0);
 
 function checkCornerCount(boundary: MultiPolygon) {
   const corners = cornerCount(boundary);
@@ -75,15 +79,24 @@ export function validateBoundary(boundary: MultiPolygon): { areaM2: number } {
     const crossings = sweeplineIntersections(turfPolygon(polygon), false);
     if (crossings.length > 0) {
       const [x, y] = crossings[0];
-      throw fault('self-intersecting', `Polygon ${p + 1} crosses itself near (${x.toFixed(6)}, ${y.toFixed(6)}); redraw the boundary so its edges do not cross.`);
+      throw fault(
+        'self-intersecting',
+        `Polygon ${p + 1} crosses itself near (${x.toFixed(6)}, ${y.toFixed(6)}); redraw the boundary so its edges do not cross.`,
+      );
     }
   });
   const areaM2 = turfArea(boundary);
   if (areaM2 < MIN_FIELD_M2) {
-    throw fault('area-too-small', `The boundary covers ${(areaM2 / SQUARE_METRES_PER_HECTARE).toFixed(3)} ha, under the 0.05 ha a field needs; check that it is drawn at the right place and scale.`);
+    throw fault(
+      'area-too-small',
+      `The boundary covers ${(areaM2 / SQUARE_METRES_PER_HECTARE).toFixed(3)} ha, under the 0.05 ha a field needs; check that it is drawn at the right place and scale.`,
+    );
   }
   if (areaM2 > MAX_FIELD_M2) {
-    throw fault('area-too-large', `The boundary covers ${Math.round(areaM2 / SQUARE_METRES_PER_HECTARE).toLocaleString('en')} ha, over the 5,000 ha a field can have; check that it outlines one field.`);
+    throw fault(
+      'area-too-large',
+      `The boundary covers ${Math.round(areaM2 / SQUARE_METRES_PER_HECTARE).toLocaleString('en')} ha, over the 5,000 ha a field can have; check that it outlines one field.`,
+    );
   }
   return { areaM2 };
 }

@@ -68,10 +68,15 @@ export function verdictInWords(result: unknown): VerdictWords {
   const p = monteCarlo ? (nearest.monteCarlo!.pValue as number) : (nearest.donnelly?.pValue ?? nearest.pValue);
   const pText = monteCarlo ? `${formatP(p)} against ${nearest.monteCarlo!.simulations} random patterns inside the field` : formatP(p);
   const headline = `${reading[verdict]} (Clark–Evans R = ${nearest.R.toFixed(2)}, z = ${signed(nearest.z, 1)}, ${pText}).`;
-  if (nearest.donnelly) figures.push(`With Donnelly’s edge correction for the field boundary, R = ${nearest.donnelly.R.toFixed(2)} (z = ${signed(nearest.donnelly.z, 1)}, ${formatP(nearest.donnelly.pValue)}); R below 1 means closer together than chance, above 1 more evenly spaced.`);
+  if (nearest.donnelly)
+    figures.push(
+      `With Donnelly’s edge correction for the field boundary, R = ${nearest.donnelly.R.toFixed(2)} (z = ${signed(nearest.donnelly.z, 1)}, ${formatP(nearest.donnelly.pValue)}); R below 1 means closer together than chance, above 1 more evenly spaced.`,
+    );
   if (r.quadrat && r.quadrat.df > 0) {
     const vmr = r.quadrat.varianceToMean;
-    figures.push(`Quadrat count test: χ² = ${r.quadrat.chiSquare.toFixed(1)} on ${r.quadrat.df} degrees of freedom (${formatP(r.quadrat.pValue)})${vmr === null ? '' : `, variance-to-mean ratio ${vmr.toFixed(2)}`}.`);
+    figures.push(
+      `Quadrat count test: χ² = ${r.quadrat.chiSquare.toFixed(1)} on ${r.quadrat.df} degrees of freedom (${formatP(r.quadrat.pValue)})${vmr === null ? '' : `, variance-to-mean ratio ${vmr.toFixed(2)}`}.`,
+    );
   }
   if (typeof r.spread.alpha === 'number') figures.push(`Significance level α = ${r.spread.alpha}.`);
   for (const warning of r.coverage?.warnings ?? []) figures.push(warning);

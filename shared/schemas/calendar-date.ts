@@ -13,8 +13,5 @@ export function isCalendarDate(text: string) {
 
 /** A date given as YYYY-MM-DD: one sentence for the wrong shape, another for a day that does not exist. */
 export function calendarDateSchema(messages: { shape: string; notADay: string }) {
-  return z
-    .string({ error: messages.shape })
-    .regex(DATE_SHAPE, { error: messages.shape, abort: true })
-    .refine(isCalendarDate, { error: messages.notADay });
+  return z.string({ error: messages.shape }).regex(DATE_SHAPE, { error: messages.shape, abort: true }).refine(isCalendarDate, { error: messages.notADay });
 }

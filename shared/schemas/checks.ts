@@ -12,7 +12,8 @@ import type { WaitingGrowerQuestion } from './notice-questions.ts';
 export const checkStatuses = ['queued', 'running', 'done', 'failed'] as const;
 export type CheckStatus = (typeof checkStatuses)[number];
 
-const isoDate = (label: string) => calendarDateSchema({ shape: `Enter the ${label} date as YYYY-MM-DD.`, notADay: `The ${label} date is not a real calendar date.` });
+const isoDate = (label: string) =>
+  calendarDateSchema({ shape: `Enter the ${label} date as YYYY-MM-DD.`, notADay: `The ${label} date is not a real calendar date.` });
 
 const windowFields = {
   fieldId: z.uuid({ error: 'Choose the field to check.' }),

@@ -5,7 +5,11 @@ export const fieldDetailsSchema = z.object({
   farmId: z.uuid({ error: 'Choose the farm this field belongs to.' }),
   name: oneLineNameSchema('Enter the field name.', 120, 'Keep the field name to 120 characters or fewer.'),
   crop: oneLineNameSchema('Enter the crop, for example "soybean".', 80, 'Keep the crop to 80 characters or fewer.'),
-  season: z.coerce.number({ error: 'Enter the season as a year.' }).int({ error: 'Enter the season as a year, like 2026.' }).min(1990, { error: 'Enter a season from 1990 on.' }).max(2200, { error: 'Enter a season before 2200.' }),
+  season: z.coerce
+    .number({ error: 'Enter the season as a year.' })
+    .int({ error: 'Enter the season as a year, like 2026.' })
+    .min(1990, { error: 'Enter a season from 1990 on.' })
+    .max(2200, { error: 'Enter a season before 2200.' }),
 });
 
 /** A field as the admin sends it: details plus the boundary, either as GeoJSON or as the text of a file. */

@@ -7,7 +7,12 @@ const CONTROL = /[^\P{Cc}\n\t]/gu;
 export const withoutControlCharactersKeepingLines = (text: string) => text.replace(/\r\n?/g, '\n').replace(CONTROL, '');
 
 function messageText(emptyMessage: string, tooLongMessage: string) {
-  return z.string({ error: emptyMessage }).overwrite(withoutControlCharactersKeepingLines).trim().min(1, { error: emptyMessage }).max(2000, { error: tooLongMessage });
+  return z
+    .string({ error: emptyMessage })
+    .overwrite(withoutControlCharactersKeepingLines)
+    .trim()
+    .min(1, { error: emptyMessage })
+    .max(2000, { error: tooLongMessage });
 }
 
 export const noticeQuestionSchema = z
@@ -15,9 +20,7 @@ export const noticeQuestionSchema = z
   .strict();
 export type NoticeQuestionRequest = z.output<typeof noticeQuestionSchema>;
 
-export const noticeAnswerSchema = z
-  .object({ text: messageText('Write the answer for the grower.', 'Keep the answer to 2,000 characters or fewer.') })
-  .strict();
+export const noticeAnswerSchema = z.object({ text: messageText('Write the answer for the grower.', 'Keep the answer to 2,000 characters or fewer.') }).strict();
 export type NoticeAnswerRequest = z.output<typeof noticeAnswerSchema>;
 
 export interface NoticeQuestionView {

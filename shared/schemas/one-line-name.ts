@@ -8,10 +8,5 @@ export const withoutControlCharacters = (text: string) => text.replace(CONTROL_R
 
 /** A name typed by a person: one line, trimmed, between 1 and `max` characters. */
 export function oneLineNameSchema(emptyMessage: string, max = 120, tooLongMessage = `Keep it to ${max} characters or fewer.`) {
-  return z
-    .string({ error: emptyMessage })
-    .overwrite(withoutControlCharacters)
-    .trim()
-    .min(1, { error: emptyMessage })
-    .max(max, { error: tooLongMessage });
+  return z.string({ error: emptyMessage }).overwrite(withoutControlCharacters).trim().min(1, { error: emptyMessage }).max(max, { error: tooLongMessage });
 }

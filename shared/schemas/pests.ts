@@ -11,10 +11,17 @@ const pestFields = {
   name: oneLineNameSchema('Enter the pest name.', 120, 'Keep the pest name to 120 characters or fewer.'),
   kind: z.enum(pestKinds, { error: 'Choose insect, disease or weed.' }),
   countUnit: oneLineNameSchema('Enter the count unit, for example "aphids per plant".', 120, 'Keep the count unit to 120 characters or fewer.'),
-  actionThreshold: z.coerce.number({ error: 'Enter the action threshold as a number.' }).min(0, { error: 'The action threshold cannot be negative.' }).max(1_000_000),
+  actionThreshold: z.coerce
+    .number({ error: 'Enter the action threshold as a number.' })
+    .min(0, { error: 'The action threshold cannot be negative.' })
+    .max(1_000_000),
   thresholdBasis: z.enum(thresholdBases),
   thresholdNote: z.string().trim().max(1000),
-  thresholdSource: z.string({ error: 'Say where the threshold comes from.' }).trim().min(3, { error: 'Say where the threshold comes from (publication, extension service, year).' }).max(500),
+  thresholdSource: z
+    .string({ error: 'Say where the threshold comes from.' })
+    .trim()
+    .min(3, { error: 'Say where the threshold comes from (publication, extension service, year).' })
+    .max(500),
   active: z.boolean(),
 };
 

@@ -18,12 +18,21 @@ export type PhotoOutcomeKind = (typeof photoOutcomes)[number];
 export const photoFilePart = 'photos';
 
 export const positionSchema = z.object({
-  lon: z.number({ error: 'The position needs a longitude.' }).min(-180, { error: 'Longitude must lie between −180 and 180.' }).max(180, { error: 'Longitude must lie between −180 and 180.' }),
-  lat: z.number({ error: 'The position needs a latitude.' }).min(-90, { error: 'Latitude must lie between −90 and 90.' }).max(90, { error: 'Latitude must lie between −90 and 90.' }),
+  lon: z
+    .number({ error: 'The position needs a longitude.' })
+    .min(-180, { error: 'Longitude must lie between −180 and 180.' })
+    .max(180, { error: 'Longitude must lie between −180 and 180.' }),
+  lat: z
+    .number({ error: 'The position needs a latitude.' })
+    .min(-90, { error: 'Latitude must lie between −90 and 90.' })
+    .max(90, { error: 'Latitude must lie between −90 and 90.' }),
 });
 export type Position = z.infer<typeof positionSchema>;
 
-const count = z.number({ error: 'The count must be a number.' }).min(0, { error: 'The count cannot be negative.' }).max(1_000_000, { error: 'That count is too large.' });
+const count = z
+  .number({ error: 'The count must be a number.' })
+  .min(0, { error: 'The count cannot be negative.' })
+  .max(1_000_000, { error: 'That count is too large.' });
 
 function jsonArray<T extends z.ZodType>(item: T, message: string) {
   return z

@@ -24,8 +24,14 @@ export const walkListQuerySchema = z.object({
 
 export const walkStopSchema = z.object({
   pestId: z.uuid({ error: 'Choose the pest you were looking for.' }),
-  lon: z.coerce.number({ error: 'The stop needs a longitude.' }).min(-180, { error: 'Longitude must lie between −180 and 180.' }).max(180, { error: 'Longitude must lie between −180 and 180.' }),
-  lat: z.coerce.number({ error: 'The stop needs a latitude.' }).min(-90, { error: 'Latitude must lie between −90 and 90.' }).max(90, { error: 'Latitude must lie between −90 and 90.' }),
+  lon: z.coerce
+    .number({ error: 'The stop needs a longitude.' })
+    .min(-180, { error: 'Longitude must lie between −180 and 180.' })
+    .max(180, { error: 'Longitude must lie between −180 and 180.' }),
+  lat: z.coerce
+    .number({ error: 'The stop needs a latitude.' })
+    .min(-90, { error: 'Latitude must lie between −90 and 90.' })
+    .max(90, { error: 'Latitude must lie between −90 and 90.' }),
   accuracyM: z.coerce.number({ error: 'The stop needs the position accuracy in metres.' }).min(0, { error: 'Accuracy cannot be negative.' }).max(100_000),
 });
 export type WalkStopInput = z.infer<typeof walkStopSchema>;

@@ -108,8 +108,7 @@ export function thresholdStatus(counts: Array<number | null>, rule: ThresholdRul
   const infestedStops = counts.filter((c) => c === null || c > 0).length;
   const meanInterval = meanConfidenceInterval(counted, level);
   const shareInterval = wilsonInterval(infestedStops, counts.length, level);
-  const status =
-    rule.thresholdBasis === 'incidence' ? verdictAgainst(shareInterval, rule.actionThreshold) : verdictAgainst(meanInterval, rule.actionThreshold);
+  const status = rule.thresholdBasis === 'incidence' ? verdictAgainst(shareInterval, rule.actionThreshold) : verdictAgainst(meanInterval, rule.actionThreshold);
   const base = {
     stops: counts.length,
     countedStops: counted.length,

@@ -18,7 +18,12 @@ export function RequireSignedIn({ children }: { children: ReactNode }) {
   const me = useMe();
   const location = useLocation();
   if (me.isPending) return <FullPageLoading />;
-  if (me.isError) return <div className="mx-auto max-w-md p-6"><ErrorState error={me.error} onRetry={() => me.refetch()} /></div>;
+  if (me.isError)
+    return (
+      <div className="mx-auto max-w-md p-6">
+        <ErrorState error={me.error} onRetry={() => me.refetch()} />
+      </div>
+    );
   if (!me.data.user) return <Navigate to="/sign-in" replace state={{ from: location.pathname + location.search }} />;
   return children;
 }

@@ -15,7 +15,10 @@ export function AppLayout() {
   const links = navFor(user.role);
   return (
     <div className="flex min-h-screen flex-col">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-[1000] focus:rounded focus:bg-white focus:px-3 focus:py-2">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-[1000] focus:rounded focus:bg-white focus:px-3 focus:py-2"
+      >
         Skip to content
       </a>
       <header className="bg-field-800 text-white shadow">
@@ -26,7 +29,10 @@ export function AppLayout() {
           </NavLink>
           <div className="ml-auto flex items-center gap-3 text-sm">
             <span className="hidden text-field-100 sm:inline">{user.name}</span>
-            <span className="rounded-full bg-field-700 px-2 py-0.5 text-xs font-medium uppercase tracking-wide text-straw-100" aria-label={`Role: ${roleLabels[user.role]}`}>
+            <span
+              className="rounded-full bg-field-700 px-2 py-0.5 text-xs font-medium uppercase tracking-wide text-straw-100"
+              aria-label={`Role: ${roleLabels[user.role]}`}
+            >
               {roleLabels[user.role]}
             </span>
             <button
@@ -60,7 +66,13 @@ export function AppLayout() {
         )}
       </header>
       <main id="main" className="flex-1">
-        <Suspense fallback={<div className="mx-auto max-w-5xl px-6"><LoadingState /></div>}>
+        <Suspense
+          fallback={
+            <div className="mx-auto max-w-5xl px-6">
+              <LoadingState />
+            </div>
+          }
+        >
           <Outlet />
         </Suspense>
       </main>

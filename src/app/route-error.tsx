@@ -5,7 +5,11 @@ export function NotFound() {
   return (
     <PageFrame title="Page not found">
       <p className="text-soil-700">
-        There is nothing at this address. <Link to="/" className="font-medium text-field-700 underline">Go to your home page</Link>.
+        There is nothing at this address.{' '}
+        <Link to="/" className="font-medium text-field-700 underline">
+          Go to your home page
+        </Link>
+        .
       </p>
     </PageFrame>
   );

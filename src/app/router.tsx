@@ -30,7 +30,13 @@ const router = createBrowserRouter([
       {
         path: 'n/:token',
         element: (
-          <Suspense fallback={<div className="mx-auto max-w-3xl px-6"><LoadingState label="Opening your notice…" /></div>}>
+          <Suspense
+            fallback={
+              <div className="mx-auto max-w-3xl px-6">
+                <LoadingState label="Opening your notice…" />
+              </div>
+            }
+          >
             <PublicNoticePage />
           </Suspense>
         ),

@@ -38,22 +38,42 @@ export const appRoutes: AppRoute[] = [
 
   // --- Adviser (admins may open these too) ---
   { path: 'fields', roles: ['adviser'], nav: 'Fields', Page: lazyPage(() => import('../features/fields/components/fields-home.tsx'), 'AdviserFieldsHome') },
-  { path: 'fields/:fieldId/review', roles: ['adviser', 'admin'], Page: lazyPage(() => import('../features/checks/components/field-review-page.tsx'), 'FieldReviewPage') },
+  {
+    path: 'fields/:fieldId/review',
+    roles: ['adviser', 'admin'],
+    Page: lazyPage(() => import('../features/checks/components/field-review-page.tsx'), 'FieldReviewPage'),
+  },
 
   // --- Scout ---
   { path: 'scout/fields', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/my-fields-page.tsx'), 'MyFieldsPage') },
   { path: 'scout/upload', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/just-upload-page.tsx'), 'JustUploadPage') },
   { path: 'scout/fields/:fieldId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/field-walks-page.tsx'), 'FieldWalksPage') },
   { path: 'scout/walks/:walkId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/walk-page.tsx'), 'WalkPage') },
-  { path: 'scout/walks/:walkId/pin/:sightingId', roles: ['scout'], Page: lazyPage(() => import('../features/walks/components/pin-photo-page.tsx'), 'PinPhotoPage') },
+  {
+    path: 'scout/walks/:walkId/pin/:sightingId',
+    roles: ['scout'],
+    Page: lazyPage(() => import('../features/walks/components/pin-photo-page.tsx'), 'PinPhotoPage'),
+  },
 
   // --- Treatment zones and zone notices (advisers and admins) ---
-  { path: 'fields/:fieldId/zones', roles: ['admin', 'adviser'], Page: lazyPage(() => import('../features/zones/components/zone-editor-page.tsx'), 'ZoneEditorPage') },
-  { path: 'fields/:fieldId/notices/new', roles: ['admin', 'adviser'], Page: lazyPage(() => import('../features/notices/components/compose-notice-page.tsx'), 'ComposeNoticePage') },
+  {
+    path: 'fields/:fieldId/zones',
+    roles: ['admin', 'adviser'],
+    Page: lazyPage(() => import('../features/zones/components/zone-editor-page.tsx'), 'ZoneEditorPage'),
+  },
+  {
+    path: 'fields/:fieldId/notices/new',
+    roles: ['admin', 'adviser'],
+    Page: lazyPage(() => import('../features/notices/components/compose-notice-page.tsx'), 'ComposeNoticePage'),
+  },
   { path: 'notices/:noticeId', roles: ['admin', 'adviser'], Page: lazyPage(() => import('../features/notices/components/notice-page.tsx'), 'NoticePage') },
 
   // --- Grower ---
-  { path: 'grower/notices/:noticeId', roles: ['grower'], Page: lazyPage(() => import('../features/grower/components/grower-notice-page.tsx'), 'GrowerNoticePage') },
+  {
+    path: 'grower/notices/:noticeId',
+    roles: ['grower'],
+    Page: lazyPage(() => import('../features/grower/components/grower-notice-page.tsx'), 'GrowerNoticePage'),
+  },
 ];
 
 export function navFor(role: Role): Array<{ to: string; label: string }> {

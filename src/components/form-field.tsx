@@ -18,7 +18,16 @@ function useFieldIds(error?: string, hint?: ReactNode) {
   return { id, hintId, errorId, describedBy: [hintId, errorId].filter(Boolean).join(' ') || undefined };
 }
 
-function Frame({ id, label, hint, hintId, error, errorId, className = '', children }: FrameProps & { id: string; hintId?: string; errorId?: string; children: ReactNode }) {
+function Frame({
+  id,
+  label,
+  hint,
+  hintId,
+  error,
+  errorId,
+  className = '',
+  children,
+}: FrameProps & { id: string; hintId?: string; errorId?: string; children: ReactNode }) {
   return (
     <div className={className}>
       <label htmlFor={id} className="mb-1 block text-sm font-medium text-soil-800">

@@ -26,7 +26,10 @@ export function addPolygonEditing(map: L.Map, options: { cutPolygon: boolean }) 
 
 // Geoman puts each tool's name only in the title of the button's container; screen readers need it on the button.
 function nameToolbarButtons(map: L.Map) {
-  map.getContainer().querySelectorAll<HTMLElement>('.button-container[title] > .leaflet-buttons-control-button').forEach((button) => {
-    button.setAttribute('aria-label', button.parentElement?.getAttribute('title') ?? '');
-  });
+  map
+    .getContainer()
+    .querySelectorAll<HTMLElement>('.button-container[title] > .leaflet-buttons-control-button')
+    .forEach((button) => {
+      button.setAttribute('aria-label', button.parentElement?.getAttribute('title') ?? '');
+    });
 }

@@ -1,7 +1,19 @@
 import { useEffect, type ReactNode } from 'react';
 
 /** Every page's heading row and width; sets the tab title too. */
-export function PageFrame({ title, eyebrow, actions, wide, children }: { title: string; eyebrow?: ReactNode; actions?: ReactNode; wide?: boolean; children: ReactNode }) {
+export function PageFrame({
+  title,
+  eyebrow,
+  actions,
+  wide,
+  children,
+}: {
+  title: string;
+  eyebrow?: ReactNode;
+  actions?: ReactNode;
+  wide?: boolean;
+  children: ReactNode;
+}) {
   useEffect(() => {
     document.title = `${title} · Patchwise`;
   }, [title]);

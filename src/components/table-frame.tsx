@@ -46,9 +46,18 @@ export function TableGrid<Row>({ caption, table, rowClassName }: { caption: stri
                 const sorted = header.column.getIsSorted();
                 const label = header.isPlaceholder ? null : flexRender(header.column.columnDef.header, header.getContext());
                 return (
-                  <th key={header.id} scope="col" className="whitespace-nowrap px-3 py-2 font-semibold" aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}>
+                  <th
+                    key={header.id}
+                    scope="col"
+                    className="whitespace-nowrap px-3 py-2 font-semibold"
+                    aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
+                  >
                     {header.column.getCanSort() ? (
-                      <button type="button" className="inline-flex items-center gap-1 rounded hover:text-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600" onClick={header.column.getToggleSortingHandler()}>
+                      <button
+                        type="button"
+                        className="inline-flex items-center gap-1 rounded hover:text-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600"
+                        onClick={header.column.getToggleSortingHandler()}
+                      >
                         {label}
                         <span aria-hidden="true" className="text-soil-400">
                           {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}

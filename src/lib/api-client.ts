@@ -100,4 +100,3 @@ export async function apiBytes(path: string, options: Pick<RequestOptions, 'sign
   if (!res.ok) throw await toApiError(res);
   return res.arrayBuffer();
 }
-

@@ -14,7 +14,11 @@ const BOUNDARY = polygon([[lonLat(0, 0), lonLat(700, 0), lonLat(700, 300), lonLa
 function sightings(points: Array<[number, number, number | null]>) {
   return {
     type: 'FeatureCollection' as const,
-    features: points.map(([x, y, count], i) => ({ type: 'Feature' as const, properties: { id: `s${i + 1}`, count }, geometry: { type: 'Point' as const, coordinates: lonLat(x, y) } })),
+    features: points.map(([x, y, count], i) => ({
+      type: 'Feature' as const,
+      properties: { id: `s${i + 1}`, count },
+      geometry: { type: 'Point' as const, coordinates: lonLat(x, y) },
+    })),
   };
 }
 

@@ -3,10 +3,11 @@ import { benjaminiHochberg, distanceBandNeighbours, getisOrdGiStar, moransI } fr
 
 function lattice(k: number): Float64Array {
   const xy = new Float64Array(k * k * 2);
-  for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) {
-    xy[(i * k + j) * 2] = i * 10;
-    xy[(i * k + j) * 2 + 1] = j * 10;
-  }
+  for (let i = 0; i < k; i++)
+    for (let j = 0; j < k; j++) {
+      xy[(i * k + j) * 2] = i * 10;
+      xy[(i * k + j) * 2 + 1] = j * 10;
+    }
   return xy;
 }
 

@@ -21,7 +21,10 @@ describe('calibration over 500 CSR patterns', () => {
   for (let k = 0; k < patterns; k++) {
     const xy = simulateCsr(field, n, random);
     // 99 simulations per pattern keeps the suite fast; the test's size does not depend on the count.
-    const simulated = runSimulations({ fieldCoordinates: fieldToCoordinates(field), n, seed: `pattern-${k}`, simulations: 99, nearestNeighbour: true, ripley: null }, field);
+    const simulated = runSimulations(
+      { fieldCoordinates: fieldToCoordinates(field), n, seed: `pattern-${k}`, simulations: 99, nearestNeighbour: true, ripley: null },
+      field,
+    );
     const result = nearestNeighbourTest(xy, area, perimeter, simulated.meanNearestDistances);
     if ((result.monteCarlo.pValue as number) < 0.05) rejections++;
     naiveR += result.R / patterns;

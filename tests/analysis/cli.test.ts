@@ -40,7 +40,17 @@ describe('npm run analyze', () => {
   });
 
   it('merges photos of one spot into one stop, and keeps them apart with --stop-radius 0', () => {
-    const args = ['--boundary', fixture('lattice-field.geojson'), '--sightings', fixture('sightings-repeat-photos.geojson'), '--planar', '--simulations', '9', '--min-sightings', '2'];
+    const args = [
+      '--boundary',
+      fixture('lattice-field.geojson'),
+      '--sightings',
+      fixture('sightings-repeat-photos.geojson'),
+      '--planar',
+      '--simulations',
+      '9',
+      '--min-sightings',
+      '2',
+    ];
     const merged = JSON.parse(analyze(...args).stdout);
     expect(merged.stops.count).toBe(6);
     expect(merged.stops.merges).toHaveLength(6);
@@ -50,7 +60,15 @@ describe('npm run analyze', () => {
   });
 
   it('exits 2 with one clear sentence for a negative --stop-radius', () => {
-    const run = analyze('--boundary', fixture('lattice-field.geojson'), '--sightings', fixture('sightings-repeat-photos.geojson'), '--planar', '--stop-radius', '-1');
+    const run = analyze(
+      '--boundary',
+      fixture('lattice-field.geojson'),
+      '--sightings',
+      fixture('sightings-repeat-photos.geojson'),
+      '--planar',
+      '--stop-radius',
+      '-1',
+    );
     expect(run.status).toBe(2);
     expectOneSentence(run.stderr, /same-stop radius/);
   });
@@ -67,8 +85,16 @@ describe('npm run analyze', () => {
     ['a file that is not GeoJSON', ['--boundary', fixture('not-geojson.geojson'), '--sightings', fixture('sightings.geojson')], /is not GeoJSON/],
     ['a boundary with no polygon', ['--boundary', fixture('no-polygon.geojson'), '--sightings', fixture('sightings.geojson')], /no Polygon or MultiPolygon/],
     ['fewer than 2 points', ['--boundary', fixture('field.geojson'), '--sightings', fixture('sightings-single.geojson')], /fewer than 2/i],
-    ['a negative option', ['--boundary', fixture('field.geojson'), '--sightings', fixture('sightings.geojson'), '--bandwidth', '-5'], /bandwidth must be more than 0/],
-    ['an absurd option', ['--boundary', fixture('field.geojson'), '--sightings', fixture('sightings.geojson'), '--simulations', '5000000'], /Simulations must be at most/],
+    [
+      'a negative option',
+      ['--boundary', fixture('field.geojson'), '--sightings', fixture('sightings.geojson'), '--bandwidth', '-5'],
+      /bandwidth must be more than 0/,
+    ],
+    [
+      'an absurd option',
+      ['--boundary', fixture('field.geojson'), '--sightings', fixture('sightings.geojson'), '--simulations', '5000000'],
+      /Simulations must be at most/,
+    ],
     ['a malformed grid', ['--boundary', fixture('field.geojson'), '--sightings', fixture('sightings.geojson'), '--grid', 'five'], /--grid must look like/],
     ['metres without --planar', ['--boundary', fixture('lattice-field.geojson'), '--sightings', fixture('lattice-sightings.geojson')], /--planar/],
   ];
@@ -82,10 +108,26 @@ describe('npm run analyze', () => {
   }
 
   it('runs as a command: the result on stdout with status 0, and status 2 with one sentence for bad input', () => {
-    const good = analyzeInProcess('--boundary', fixture('lattice-field.geojson'), '--sightings', fixture('lattice-sightings.geojson'), '--planar', '--simulations', '9');
+    const good = analyzeInProcess(
+      '--boundary',
+      fixture('lattice-field.geojson'),
+      '--sightings',
+      fixture('lattice-sightings.geojson'),
+      '--planar',
+      '--simulations',
+      '9',
+    );
     expect(good.status).toBe(0);
     const withoutTimings = (text: string) => JSON.parse(text, (key, value) => (key === 'timingsMs' ? undefined : value));
-    const inProcess = analyze('--boundary', fixture('lattice-field.geojson'), '--sightings', fixture('lattice-sightings.geojson'), '--planar', '--simulations', '9');
+    const inProcess = analyze(
+      '--boundary',
+      fixture('lattice-field.geojson'),
+      '--sightings',
+      fixture('lattice-sightings.geojson'),
+      '--planar',
+      '--simulations',
+      '9',
+    );
     expect(withoutTimings(good.stdout)).toEqual(withoutTimings(inProcess.stdout));
     const bad = analyzeInProcess('--boundary', fixture('not-geojson.geojson'), '--sightings', fixture('sightings.geojson'));
     expect(bad.status).toBe(2);

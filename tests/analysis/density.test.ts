@@ -16,8 +16,28 @@ describe('kernel density estimate', () => {
   });
 
   it('integrates to n over the field within 2 % for sightings a bandwidth inside the boundary, without correction', () => {
-    const square = createPlanarField([[[[0, 0], [600, 0], [600, 600], [0, 600], [0, 0]]]]);
-    const inner = createPlanarField([[[[60, 60], [540, 60], [540, 540], [60, 540], [60, 60]]]]);
+    const square = createPlanarField([
+      [
+        [
+          [0, 0],
+          [600, 0],
+          [600, 600],
+          [0, 600],
+          [0, 0],
+        ],
+      ],
+    ]);
+    const inner = createPlanarField([
+      [
+        [
+          [60, 60],
+          [540, 60],
+          [540, 540],
+          [60, 540],
+          [60, 60],
+        ],
+      ],
+    ]);
     const xy = simulateCsr(inner, 150, createRandom('density'));
     for (const kernel of ['quartic', 'gaussian'] as const) {
       const bandwidthM = kernel === 'quartic' ? 50 : 14;
@@ -36,7 +56,17 @@ describe('kernel density estimate', () => {
   });
 
   it('reports sightings per hectare: one sighting at the centre of a quartic kernel gives 3/(πh²)·10,000', () => {
-    const square = createPlanarField([[[[0, 0], [400, 0], [400, 400], [0, 400], [0, 0]]]]);
+    const square = createPlanarField([
+      [
+        [
+          [0, 0],
+          [400, 0],
+          [400, 400],
+          [0, 400],
+          [0, 0],
+        ],
+      ],
+    ]);
     const h = 50;
     const surface = densitySurface(square, new Float64Array([202, 202]), { bandwidthM: h, cellSizeM: 4, edgeCorrection: false });
     expect(surface.maxPerHa).toBeCloseTo((3 / (Math.PI * h * h)) * 10_000, 6);

@@ -20,8 +20,16 @@ function run(transform: Transform, xy: Float64Array, grid?: { nx: number; ny: nu
   for (let i = 0; i < xy.length; i += 2) [moved[i], moved[i + 1]] = transform(xy[i], xy[i + 1]);
   const empty = new Float64Array(EMPTY_STOPS.length);
   for (let i = 0; i < EMPTY_STOPS.length; i += 2) [empty[i], empty[i + 1]] = transform(EMPTY_STOPS[i], EMPTY_STOPS[i + 1]);
-  const sightings = asFeatureCollection(moved, Array.from({ length: moved.length / 2 }, () => 1));
-  sightings.features.push(...asFeatureCollection(empty, Array.from({ length: empty.length / 2 }, () => 0)).features.map((f, i) => ({ ...f, properties: { ...f.properties, id: `e${i}` } })));
+  const sightings = asFeatureCollection(
+    moved,
+    Array.from({ length: moved.length / 2 }, () => 1),
+  );
+  sightings.features.push(
+    ...asFeatureCollection(
+      empty,
+      Array.from({ length: empty.length / 2 }, () => 0),
+    ).features.map((f, i) => ({ ...f, properties: { ...f.properties, id: `e${i}` } })),
+  );
   // Merging off: a fixed same-stop radius in metres is not scale-invariant.
   return analyse({ type: 'Polygon', coordinates: [ring] }, sightings, { planar: true, simulations: 99, seed: 4, grid, stopRadiusM: 0 });
 }

@@ -40,7 +40,17 @@ describe('Clark–Evans nearest-neighbour index', () => {
   it('finds the same nearest neighbours as a brute-force scan, for scattered and bunched points', () => {
     const random = createRandom(11);
     const scattered = new Float64Array(1500 * 2).map(() => random() * 500);
-    const field = createPlanarField([[[[0, 0], [500, 0], [500, 500], [0, 500], [0, 0]]]]);
+    const field = createPlanarField([
+      [
+        [
+          [0, 0],
+          [500, 0],
+          [500, 500],
+          [0, 500],
+          [0, 0],
+        ],
+      ],
+    ]);
     const bunched = thomasPattern(field, 3, 400, 0.5, 4);
     for (const xy of [scattered, bunched]) {
       const n = xy.length / 2;

@@ -6,7 +6,15 @@ import { createRandom, normalDeviate } from '../../shared/analysis/random.ts';
 
 /** An irregular (concave) field of about 30 ha with a notch, in metres. */
 export const IRREGULAR_FIELD_RING = [
-  [0, 0], [700, 0], [760, 220], [600, 480], [380, 420], [300, 260], [180, 500], [0, 430], [0, 0],
+  [0, 0],
+  [700, 0],
+  [760, 220],
+  [600, 480],
+  [380, 420],
+  [300, 260],
+  [180, 500],
+  [0, 430],
+  [0, 0],
 ];
 
 export function irregularField(): PlanarField {
@@ -15,10 +23,11 @@ export function irregularField(): PlanarField {
 
 export function squareLattice(k: number, spacing: number): Float64Array {
   const xy = new Float64Array(k * k * 2);
-  for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) {
-    xy[(i * k + j) * 2] = (i + 0.5) * spacing;
-    xy[(i * k + j) * 2 + 1] = (j + 0.5) * spacing;
-  }
+  for (let i = 0; i < k; i++)
+    for (let j = 0; j < k; j++) {
+      xy[(i * k + j) * 2] = (i + 0.5) * spacing;
+      xy[(i * k + j) * 2 + 1] = (j + 0.5) * spacing;
+    }
   return xy;
 }
 
@@ -50,7 +59,11 @@ export function thomasPattern(field: PlanarField, parents: number, perParent: nu
 export function asFeatureCollection(xy: Float64Array, counts?: number[]) {
   const features = [];
   for (let i = 0; i < xy.length / 2; i++) {
-    features.push({ type: 'Feature' as const, properties: { id: `s${i + 1}`, count: counts ? counts[i] : null }, geometry: { type: 'Point' as const, coordinates: [xy[i * 2], xy[i * 2 + 1]] } });
+    features.push({
+      type: 'Feature' as const,
+      properties: { id: `s${i + 1}`, count: counts ? counts[i] : null },
+      geometry: { type: 'Point' as const, coordinates: [xy[i * 2], xy[i * 2 + 1]] },
+    });
   }
   return { type: 'FeatureCollection' as const, features };
 }

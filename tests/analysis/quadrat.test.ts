@@ -7,7 +7,19 @@ import { createRandom } from '../../shared/analysis/random.ts';
 import { simulateCsr } from '../../shared/analysis/csr.ts';
 
 // An L-shaped field: 300 × 200 m with the 100 × 100 m north-east corner missing, 50,000 m² by plane geometry.
-const L_FIELD = createPlanarField([[[[0, 0], [300, 0], [300, 100], [200, 100], [200, 200], [0, 200], [0, 0]]]]);
+const L_FIELD = createPlanarField([
+  [
+    [
+      [0, 0],
+      [300, 0],
+      [300, 100],
+      [200, 100],
+      [200, 200],
+      [0, 200],
+      [0, 0],
+    ],
+  ],
+]);
 
 describe('quadrat count test', () => {
   it('clips cells to the field so their areas add up to the field area (plane geometry)', () => {

@@ -63,7 +63,8 @@ for (const name of ['irregular-zigzag', 'square-w']) {
       const n = foundXY.length / 2;
       const mean = meanNearestNeighbourDistance(foundXY);
       expect(clarkEvans(mean, n, area).R).toBeCloseTo(expected.clarkEvans.naive, 9);
-      if (typeof expected.clarkEvans.donnelly === 'number') expect(donnellyCorrected(mean, n, area, fieldPerimeterM(field)).R).toBeCloseTo(expected.clarkEvans.donnelly, 9);
+      if (typeof expected.clarkEvans.donnelly === 'number')
+        expect(donnellyCorrected(mean, n, area, fieldPerimeterM(field)).R).toBeCloseTo(expected.clarkEvans.donnelly, 9);
     });
 
     it("gives spdep's Moran's I, its expectation and randomisation variance (moran.test, binary weights)", () => {

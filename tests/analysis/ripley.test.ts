@@ -13,14 +13,38 @@ function check(xy: Float64Array, seed: string) {
   const area = fieldAreaM2(field);
   const radii = defaultRipleyRadii(field);
   const K = ripleyK(field, xy, radii, area, 'isotropic');
-  const sims = runSimulations({ fieldCoordinates: fieldToCoordinates(field), n: xy.length / 2, seed, simulations: 99, nearestNeighbour: false, ripley: { radiiM: radii, correction: 'isotropic', areaM2: area } }, field);
+  const sims = runSimulations(
+    {
+      fieldCoordinates: fieldToCoordinates(field),
+      n: xy.length / 2,
+      seed,
+      simulations: 99,
+      nearestNeighbour: false,
+      ripley: { radiiM: radii, correction: 'isotropic', areaM2: area },
+    },
+    field,
+  );
   return ripleyResult(radii, K, 'isotropic', sims.ripleyL, 99);
 }
 
 describe("Ripley's K and L", () => {
   it('gives the share of a circle inside a half-plane as 1 − arccos(h/r)/π (plane geometry)', () => {
-    const square = createPlanarField([[[[0, 0], [1000, 0], [1000, 1000], [0, 1000], [0, 0]]]]);
-    for (const [h, r] of [[10, 20], [30, 31], [5, 100]]) {
+    const square = createPlanarField([
+      [
+        [
+          [0, 0],
+          [1000, 0],
+          [1000, 1000],
+          [0, 1000],
+          [0, 0],
+        ],
+      ],
+    ]);
+    for (const [h, r] of [
+      [10, 20],
+      [30, 31],
+      [5, 100],
+    ]) {
       expect(circleShareInside(square, 500, h, r)).toBeCloseTo(1 - Math.acos(h / r) / Math.PI, 10);
     }
     // At a right-angle corner with the circle reaching past both sides only the quarter inside remains.

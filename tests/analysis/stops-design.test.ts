@@ -66,7 +66,8 @@ describe('repeated photos of one spot', () => {
     for (let k = 0; k < 25; k++) {
       const x = 999 * random();
       const y = 1000 * random();
-      for (const dx of [0, 1]) features.push({ type: 'Feature' as const, properties: { id: `p${k}-${dx}` }, geometry: { type: 'Point' as const, coordinates: [x + dx, y] } });
+      for (const dx of [0, 1])
+        features.push({ type: 'Feature' as const, properties: { id: `p${k}-${dx}` }, geometry: { type: 'Point' as const, coordinates: [x + dx, y] } });
     }
     return { type: 'FeatureCollection' as const, features };
   }
@@ -81,7 +82,8 @@ describe('repeated photos of one spot', () => {
 
   it('does not read 25 random spots photographed twice as Clustered', () => {
     let clustered = 0;
-    for (let s = 0; s < 20; s++) if (analyse(squareField, twicePhotographed(100 + s), { planar: true, seed: s, simulations: 199 }).spread.verdict === 'clustered') clustered++;
+    for (let s = 0; s < 20; s++)
+      if (analyse(squareField, twicePhotographed(100 + s), { planar: true, seed: s, simulations: 199 }).spread.verdict === 'clustered') clustered++;
     expect(clustered).toBeLessThanOrEqual(binomialCeiling(20, 0.05));
   });
 });
@@ -138,13 +140,40 @@ describe('permutations stratified by walk', () => {
 
 describe('boundary parts', () => {
   it('refuses a MultiPolygon whose parts overlap, with a sentence naming them', () => {
-    const boundary = { type: 'MultiPolygon' as const, coordinates: [[[[0, 0], [600, 0], [600, 600], [0, 600], [0, 0]]], [[[500, 500], [1000, 500], [1000, 1000], [500, 1000], [500, 500]]]] };
-    expect(() => analyse(boundary, stopsCollection(wWalk(20), new Array(20).fill(true)), { planar: true })).toThrow(/Parts 1 and 2 of the boundary overlap \(10000 m²\)/);
+    const boundary = {
+      type: 'MultiPolygon' as const,
+      coordinates: [
+        [
+          [
+            [0, 0],
+            [600, 0],
+            [600, 600],
+            [0, 600],
+            [0, 0],
+          ],
+        ],
+        [
+          [
+            [500, 500],
+            [1000, 500],
+            [1000, 1000],
+            [500, 1000],
+            [500, 500],
+          ],
+        ],
+      ],
+    };
+    expect(() => analyse(boundary, stopsCollection(wWalk(20), new Array(20).fill(true)), { planar: true })).toThrow(
+      /Parts 1 and 2 of the boundary overlap \(10000 m²\)/,
+    );
   });
 
   it('keeps a photo taken a metre outside the boundary at the headland, and says so', () => {
     const walk = wWalk();
-    const sightings = stopsCollection(walk, walk.map((_, i) => i % 3 === 0));
+    const sightings = stopsCollection(
+      walk,
+      walk.map((_, i) => i % 3 === 0),
+    );
     sightings.features.push({ type: 'Feature', properties: { id: 'headland', count: 1, walk: 'w1' }, geometry: { type: 'Point', coordinates: [1001, 500] } });
     const result = analyse(squareField, sightings, { planar: true, simulations: 19 });
     expect(result.excluded.count).toBe(0);
@@ -172,7 +201,11 @@ describe('verdict rules', () => {
 
   it("says Can't tell: search uneven for photos only from one corner of the field", () => {
     const random = mulberry32(11);
-    const features = Array.from({ length: 30 }, (_, i) => ({ type: 'Feature' as const, properties: { id: `p${i}` }, geometry: { type: 'Point' as const, coordinates: [20 + 300 * random(), 20 + 300 * random()] } }));
+    const features = Array.from({ length: 30 }, (_, i) => ({
+      type: 'Feature' as const,
+      properties: { id: `p${i}` },
+      geometry: { type: 'Point' as const, coordinates: [20 + 300 * random(), 20 + 300 * random()] },
+    }));
     const result = analyse(squareField, { type: 'FeatureCollection', features }, { planar: true, simulations: 99 });
     expect(result.design).toBe('whole-field');
     expect(result.spread.verdict).toBe('cant-tell');

@@ -31,21 +31,59 @@ export function stopsAlong(path: [number, number][], spacing: number, count: num
   return out;
 }
 
-export const SQUARE_KM: [number, number][] = [[0, 0], [1000, 0], [1000, 1000], [0, 1000], [0, 0]];
+export const SQUARE_KM: [number, number][] = [
+  [0, 0],
+  [1000, 0],
+  [1000, 1000],
+  [0, 1000],
+  [0, 0],
+];
 
 /** A W across a 1 km square field (common scouting practice), 160 stops 20 m apart. */
 export function wWalk(count = 160, spacing = 20): [number, number][] {
-  return stopsAlong([[60, 940], [280, 60], [500, 940], [720, 60], [940, 940]], spacing, count);
+  return stopsAlong(
+    [
+      [60, 940],
+      [280, 60],
+      [500, 940],
+      [720, 60],
+      [940, 940],
+    ],
+    spacing,
+    count,
+  );
 }
 
 /** A zigzag of six legs across the field. */
 export function zigzagWalk(count = 160, spacing = 20): [number, number][] {
-  return stopsAlong([[50, 50], [950, 210], [50, 370], [950, 530], [50, 690], [950, 850], [50, 990]], spacing, count);
+  return stopsAlong(
+    [
+      [50, 50],
+      [950, 210],
+      [50, 370],
+      [950, 530],
+      [50, 690],
+      [950, 850],
+      [50, 990],
+    ],
+    spacing,
+    count,
+  );
 }
 
 /** Along the headland only: a loop 30 m inside the boundary. */
 export function headlandWalk(count = 160, spacing = 20): [number, number][] {
-  return stopsAlong([[30, 30], [970, 30], [970, 970], [30, 970], [30, 30]], spacing, count);
+  return stopsAlong(
+    [
+      [30, 30],
+      [970, 30],
+      [970, 970],
+      [30, 970],
+      [30, 30],
+    ],
+    spacing,
+    count,
+  );
 }
 
 /** Found at a random `share` of the stops (exactly round(share·n) of them). */

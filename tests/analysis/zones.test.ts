@@ -5,7 +5,17 @@ import { quadratTest } from '../../shared/analysis/quadrat.ts';
 import { zonesFromDensity, zonesFromQuadrat, zonesFromRectangles } from '../../shared/analysis/zones.ts';
 import { createRandom, normalDeviate } from '../../shared/analysis/random.ts';
 
-const FIELD = createPlanarField([[[[0, 0], [600, 0], [600, 400], [0, 400], [0, 0]]]]);
+const FIELD = createPlanarField([
+  [
+    [
+      [0, 0],
+      [600, 0],
+      [600, 400],
+      [0, 400],
+      [0, 0],
+    ],
+  ],
+]);
 
 describe('treatment zones', () => {
   it("buffers a square patch by the margin to s² + 4sm + πm² (Steiner's formula), within 3 %", () => {
@@ -17,7 +27,14 @@ describe('treatment zones', () => {
   });
 
   it('clips zones to the boundary and drops slivers under the smallest zone area', () => {
-    const zones = zonesFromRectangles(FIELD, [[580, 100, 620, 140], [300, 300, 302, 302]], { marginM: 0, minZoneAreaM2: 100 });
+    const zones = zonesFromRectangles(
+      FIELD,
+      [
+        [580, 100, 620, 140],
+        [300, 300, 302, 302],
+      ],
+      { marginM: 0, minZoneAreaM2: 100 },
+    );
     expect(zones).toHaveLength(1);
     // Only the 20 × 40 m part west of x = 600 lies in the field.
     expect(zones[0].areaM2).toBeCloseTo(800, 6);

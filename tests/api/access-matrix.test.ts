@@ -42,7 +42,7 @@ describe("listings never show another organisation's rows", () => {
     expect(new Set(users.map((u) => u.organisationId))).toEqual(new Set([world.home.id]));
   });
 
-  it('a scout lists only the fields assigned to them, and only those fields\' farms', async () => {
+  it("a scout lists only the fields assigned to them, and only those fields' farms", async () => {
     const fields = (await world.clients.scout.get('/api/fields').expect(200)).body.fields as Array<{ id: string }>;
     const farms = (await world.clients.scout.get('/api/farms').expect(200)).body.farms as Array<{ id: string }>;
     expect(fields.map((f) => f.id).sort()).toEqual([world.ids.assignedField, world.ids.scoutOnlyField].sort());

@@ -112,7 +112,11 @@ describe('sign-in limits that a client cannot dodge', () => {
     const client = await anonymous();
     const statuses: number[] = [];
     for (let i = 0; i < 12; i++) {
-      const res = await client.agent.post('/api/auth/sign-in').set('x-csrf-token', client.csrf).set('X-Forwarded-For', `198.51.100.${i + 1}`).send({ email: org.users.scout.email, password: `wrong-${i}` });
+      const res = await client.agent
+        .post('/api/auth/sign-in')
+        .set('x-csrf-token', client.csrf)
+        .set('X-Forwarded-For', `198.51.100.${i + 1}`)
+        .send({ email: org.users.scout.email, password: `wrong-${i}` });
       statuses.push(res.status);
     }
     expect(statuses.at(-1)).toBe(429);
@@ -121,19 +125,26 @@ describe('sign-in limits that a client cannot dodge', () => {
   it('stops failed sign-ins from one address across many e-mail addresses', async () => {
     const { app, limit, restore } = await proxiedApp();
     try {
-    // 203.0.113.0/24 is TEST-NET-3 (RFC 5737): an address no other test signs in from.
-    const address = `203.0.113.${1 + Math.floor(Math.random() * 250)}`;
-    const statuses: number[] = [];
-    for (let i = 0; i <= limit; i++) {
-      const visitor = request.agent(app);
-      const csrf = (await visitor.get('/api/auth/csrf').set('X-Forwarded-For', address)).body.csrfToken;
-      const res = await visitor.post('/api/auth/sign-in').set('x-csrf-token', csrf).set('X-Forwarded-For', address).send({ email: `guess-${i}-${crypto.randomUUID()}@test.example`, password: 'not-the-password' });
-      statuses.push(res.status);
-    }
-    expect(statuses.slice(0, limit).every((s) => s === 401)).toBe(true);
-    expect(statuses.at(-1)).toBe(429);
-    const stored = await sequelize.query<{ hits: number }>('SELECT hits FROM request_limit_hits WHERE key = :key', { replacements: { key: `sign-in-address|${address}` }, type: QueryTypes.SELECT });
-    expect(stored[0]?.hits).toBeGreaterThanOrEqual(limit);
+      // 203.0.113.0/24 is TEST-NET-3 (RFC 5737): an address no other test signs in from.
+      const address = `203.0.113.${1 + Math.floor(Math.random() * 250)}`;
+      const statuses: number[] = [];
+      for (let i = 0; i <= limit; i++) {
+        const visitor = request.agent(app);
+        const csrf = (await visitor.get('/api/auth/csrf').set('X-Forwarded-For', address)).body.csrfToken;
+        const res = await visitor
+          .post('/api/auth/sign-in')
+          .set('x-csrf-token', csrf)
+          .set('X-Forwarded-For', address)
+          .send({ email: `guess-${i}-${crypto.randomUUID()}@test.example`, password: 'not-the-password' });
+        statuses.push(res.status);
+      }
+      expect(statuses.slice(0, limit).every((s) => s === 401)).toBe(true);
+      expect(statuses.at(-1)).toBe(429);
+      const stored = await sequelize.query<{ hits: number }>('SELECT hits FROM request_limit_hits WHERE key = :key', {
+        replacements: { key: `sign-in-address|${address}` },
+        type: QueryTypes.SELECT,
+      });
+      expect(stored[0]?.hits).toBeGreaterThanOrEqual(limit);
     } finally {
       restore();
     }
@@ -209,7 +220,10 @@ describe('anonymous visitors', () => {
     const visitor = request.agent(testApp());
     const res = await visitor.get('/api/auth/csrf').expect(200);
     expect(String(res.headers['set-cookie'] ?? '')).not.toMatch(/patchwise\.sid=/);
-    const rows = await sequelize.query('SELECT sid FROM session WHERE sess::text LIKE :token', { replacements: { token: `%${res.body.csrfToken}%` }, type: QueryTypes.SELECT });
+    const rows = await sequelize.query('SELECT sid FROM session WHERE sess::text LIKE :token', {
+      replacements: { token: `%${res.body.csrfToken}%` },
+      type: QueryTypes.SELECT,
+    });
     expect(rows).toEqual([]);
     await visitor.post('/api/auth/forgot-password').send({ email: 'nobody@test.example' }).expect(403);
     await visitor.post('/api/auth/forgot-password').set('x-csrf-token', 'made-up').send({ email: 'nobody@test.example' }).expect(403);

@@ -40,7 +40,13 @@ beforeAll(async () => {
   farmId = (await createFarm(admin)).id;
 });
 
-const fieldBody = (boundary: { boundary?: unknown; boundaryFile?: string }) => ({ farmId, name: uniqueName('Boundary test'), crop: 'maize', season: 2026, ...boundary });
+const fieldBody = (boundary: { boundary?: unknown; boundaryFile?: string }) => ({
+  farmId,
+  name: uniqueName('Boundary test'),
+  crop: 'maize',
+  season: 2026,
+  ...boundary,
+});
 
 async function refusal(boundary: { boundary?: unknown; boundaryFile?: string }) {
   const before = await fieldCount(org.id);
@@ -68,10 +74,20 @@ const faults: Array<[string, string, { boundary?: unknown; boundaryFile?: string
   ['a ring of only two corners', 'ring-too-short', { boundary: { type: 'Polygon', coordinates: [[sw, ne, sw]] } }, /fewer than 4 positions/],
   ['a bow-tie that crosses itself', 'self-intersecting', { boundary: { type: 'Polygon', coordinates: [[sw, ne, se, nw, sw]] } }, /crosses itself/],
   ['a 19,000-corner circle with two neighbouring corners swapped', 'self-intersecting', { boundary: crossedCircle() }, /crosses itself/],
-  ['a circle of 20,001 corners, over the limit', 'too-many-corners', { boundary: circleOf(20_001) }, /^This boundary has 20,001 corners; Patchwise takes at most 20,000 — simplify it .*and upload again\.$/],
+  [
+    'a circle of 20,001 corners, over the limit',
+    'too-many-corners',
+    { boundary: circleOf(20_001) },
+    /^This boundary has 20,001 corners; Patchwise takes at most 20,000 — simplify it .*and upload again\.$/,
+  ],
   ['a longitude beyond 180°', 'out-of-range', { boundary: degreeRectangle(179.999, 10, 0.004, 0.004) }, /outside WGS 84/],
   ['a latitude beyond 90° that is not a swap', 'out-of-range', { boundary: degreeRectangle(120, 90.001, 0.004, 0.004) }, /outside WGS 84/],
-  ['latitude and longitude given the wrong way round', 'swapped-coordinates', { boundary: { type: 'Polygon', coordinates: [ring.map(([x, y]) => [y, x])] } }, /look swapped/],
+  [
+    'latitude and longitude given the wrong way round',
+    'swapped-coordinates',
+    { boundary: { type: 'Polygon', coordinates: [ring.map(([x, y]) => [y, x])] } },
+    /look swapped/,
+  ],
   ['a boundary of 20 m × 20 m (0.04 ha)', 'area-too-small', { boundary: utmRectangle(lon, lat, 20, 20) }, /under the 0\.05 ha/],
   ['a boundary of 1° × 1° (about 900,000 ha)', 'area-too-large', { boundary: degreeRectangle(-94, 42, 1, 1) }, /over the 5,000 ha/],
   ['a Polygon written with one level of brackets too few', 'unparseable', { boundary: { type: 'Polygon', coordinates: ring } }, /check the brackets/],
@@ -79,7 +95,12 @@ const faults: Array<[string, string, { boundary?: unknown; boundaryFile?: string
   ['a file of plain text', 'unparseable', { boundaryFile: 'north field, about 10 ha, by the creek' }, /could not be read/],
   ['a truncated GeoJSON file', 'unparseable', { boundaryFile: JSON.stringify({ type: 'Polygon', coordinates: [ring] }).slice(0, 40) }, /could not be read/],
   ['a broken KML file', 'unparseable', { boundaryFile: kmlPlacemark(ring).slice(0, 200) }, /KML file could not be read/],
-  ['a hole outside its outline', 'hole-outside-shell', { boundary: { type: 'Polygon', coordinates: [ring, shift(utmRectangle(lon, lat, 50, 50).coordinates[0], 0.02, 0)] } }, /hole .*outside/i],
+  [
+    'a hole outside its outline',
+    'hole-outside-shell',
+    { boundary: { type: 'Polygon', coordinates: [ring, shift(utmRectangle(lon, lat, 50, 50).coordinates[0], 0.02, 0)] } },
+    /hole .*outside/i,
+  ],
 ];
 
 describe('boundary faults', () => {
@@ -133,7 +154,12 @@ describe('accepted boundary forms', () => {
   const hole = utmRectangle(lon + 0.001, lat + 0.0005, 100, 50).coordinates[0];
   const accepted: Array<[string, { boundary?: unknown; boundaryFile?: string }, number, object]> = [
     ['a Polygon', { boundary: field }, 1, field],
-    ['a MultiPolygon of two parts', { boundary: { type: 'MultiPolygon', coordinates: [field.coordinates, second.coordinates] } }, 2, { type: 'MultiPolygon', coordinates: [field.coordinates, second.coordinates] }],
+    [
+      'a MultiPolygon of two parts',
+      { boundary: { type: 'MultiPolygon', coordinates: [field.coordinates, second.coordinates] } },
+      2,
+      { type: 'MultiPolygon', coordinates: [field.coordinates, second.coordinates] },
+    ],
     ['a Feature', { boundary: { type: 'Feature', properties: { name: 'North' }, geometry: field } }, 1, field],
     ['a FeatureCollection', { boundary: { type: 'FeatureCollection', features: [{ type: 'Feature', properties: {}, geometry: field }] } }, 1, field],
     ['a GeoJSON file', { boundaryFile: JSON.stringify({ type: 'Feature', properties: {}, geometry: field }) }, 1, field],

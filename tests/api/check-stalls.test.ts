@@ -41,7 +41,10 @@ afterAll(async () => {
 });
 
 async function storedChecks(fieldId: string) {
-  const [row] = await sequelize.query<{ n: number }>('SELECT count(*)::int AS n FROM pattern_checks WHERE field_id = :fieldId', { replacements: { fieldId }, type: QueryTypes.SELECT });
+  const [row] = await sequelize.query<{ n: number }>('SELECT count(*)::int AS n FROM pattern_checks WHERE field_id = :fieldId', {
+    replacements: { fieldId },
+    type: QueryTypes.SELECT,
+  });
   return row.n;
 }
 
@@ -72,7 +75,9 @@ describe('heavy requests leave the others answered', () => {
 
   it('answers GET /api/config while a sensitivity strip with 50 Ripley radii runs', { timeout: 180_000 }, async () => {
     const { field, pest } = await makeScoutedField(org, spreadStops(5, 200));
-    const { order, heavyStatus, configStatus } = await answerOrder(() => adviser.post('/api/checks/sensitivity', { fieldId: field.id, pestId: pest.id, options: { seed: 2, radiiM: fiftyRadii } }));
+    const { order, heavyStatus, configStatus } = await answerOrder(() =>
+      adviser.post('/api/checks/sensitivity', { fieldId: field.id, pestId: pest.id, options: { seed: 2, radiiM: fiftyRadii } }),
+    );
     expect(heavyStatus).toBe(200);
     expect(configStatus).toBe(200);
     expect(order).toEqual(['config', 'heavy']);
@@ -84,7 +89,9 @@ describe('the work budget', () => {
     const { field, pest } = await makeScoutedField(org, spreadStops(7, 200));
     const res = await adviser.post('/api/checks', { fieldId: field.id, pestId: pest.id, options: { simulations: 99_999, radiiM: manyRadii } });
     expect(res.status).toBe(400);
-    expect(res.body.error.message).toMatch(/^Option "simulations": This check would take .* work units, over its budget of .*; reduce "simulations" to at most [\d,]+ or give fewer Ripley radii\.$/);
+    expect(res.body.error.message).toMatch(
+      /^Option "simulations": This check would take .* work units, over its budget of .*; reduce "simulations" to at most [\d,]+ or give fewer Ripley radii\.$/,
+    );
     expect(res.body.error.fields['options.simulations']).toBeTruthy();
     expect(await storedChecks(field.id)).toBe(0);
   });
@@ -93,7 +100,9 @@ describe('the work budget', () => {
     const { field, pest } = await makeScoutedField(org, spreadStops(8, 30));
     const res = await adviser.post('/api/checks', { fieldId: field.id, pestId: pest.id, options: { simulations: 19, densityCellSizeM: 0.5 } });
     expect(res.status).toBe(400);
-    expect(res.body.error.message).toMatch(/^Option "densityCellSizeM": this density grid would have [\d,]+ cells, over the 250,000 a check may store; use a density cell size of at least [\d.]+ m\.$/);
+    expect(res.body.error.message).toMatch(
+      /^Option "densityCellSizeM": this density grid would have [\d,]+ cells, over the 250,000 a check may store; use a density cell size of at least [\d.]+ m\.$/,
+    );
     expect(await storedChecks(field.id)).toBe(0);
   });
 
@@ -118,7 +127,9 @@ describe('the work budget', () => {
     const { field, pest } = await makeScoutedField(org, spreadStops(10, 300));
     const res = await adviser.post('/api/checks/sensitivity', { fieldId: field.id, pestId: pest.id, options: { radiiM: manyRadii } });
     expect(res.status).toBe(400);
-    expect(res.body.error.message).toMatch(/^Option "simulations": This sensitivity strip \(nine runs\) would take .* work units, over its budget of .*; reduce "simulations" to at most [\d,]+ or give fewer Ripley radii\.$/);
+    expect(res.body.error.message).toMatch(
+      /^Option "simulations": This sensitivity strip \(nine runs\) would take .* work units, over its budget of .*; reduce "simulations" to at most [\d,]+ or give fewer Ripley radii\.$/,
+    );
   });
 });
 

@@ -25,12 +25,16 @@ function patchyStops(seed: number, perPatch = 20): StopPoint[] {
     [TEST_FIELD_CORNER.lon + TEST_FIELD_SIZE.lon * 0.7, TEST_FIELD_CORNER.lat + TEST_FIELD_SIZE.lat * 0.7],
   ];
   const patches = centres.flatMap(([lon, lat]) =>
-    Array.from({ length: perPatch }, () => ({ lon: lon + (random() - 0.5) * 0.0003, lat: lat + (random() - 0.5) * 0.0002, count: 3 + Math.floor(random() * 6) })),
+    Array.from({ length: perPatch }, () => ({
+      lon: lon + (random() - 0.5) * 0.0003,
+      lat: lat + (random() - 0.5) * 0.0002,
+      count: 3 + Math.floor(random() * 6),
+    })),
   );
   // Empty stops on a 6 × 4 grid across the field: the walk recorded where it found nothing, so the check has a stops design.
   const empty = Array.from({ length: 24 }, (_, k) => ({
-    lon: TEST_FIELD_CORNER.lon + TEST_FIELD_SIZE.lon * ((k % 6) + 0.5) / 6,
-    lat: TEST_FIELD_CORNER.lat + TEST_FIELD_SIZE.lat * (Math.floor(k / 6) + 0.5) / 4,
+    lon: TEST_FIELD_CORNER.lon + (TEST_FIELD_SIZE.lon * ((k % 6) + 0.5)) / 6,
+    lat: TEST_FIELD_CORNER.lat + (TEST_FIELD_SIZE.lat * (Math.floor(k / 6) + 0.5)) / 4,
     count: 0,
   }));
   return [...patches, ...empty];
@@ -128,7 +132,10 @@ describe('running a pattern check', () => {
     // Defaults written out count as the same options.
     const spelledOut = await adviser.post('/api/checks', { ...body, options: { ...body.options, alpha: 0.05, kernel: 'quartic' } }).expect(200);
     expect(spelledOut.body.check.id).toBe(first.body.check.id);
-    const [{ n }] = await sequelize.query<{ n: number }>('SELECT count(*) AS n FROM pattern_checks WHERE field_id = :id', { replacements: { id: field.id }, type: QueryTypes.SELECT });
+    const [{ n }] = await sequelize.query<{ n: number }>('SELECT count(*) AS n FROM pattern_checks WHERE field_id = :id', {
+      replacements: { id: field.id },
+      type: QueryTypes.SELECT,
+    });
     expect(n).toBe(1);
   });
 
@@ -151,7 +158,11 @@ describe('running a pattern check', () => {
     expect(third.id).not.toBe(second.id);
     expect(third.sightingIds).toEqual(second.sightingIds);
     expect(third.sightingsHash).not.toBe(second.sightingsHash);
-    const reference = analyse(field.boundary, engineSightings([...sightingIds, newId], [{ ...points[0], count: 40 }, ...points.slice(1), added], walkId), body.options);
+    const reference = analyse(
+      field.boundary,
+      engineSightings([...sightingIds, newId], [{ ...points[0], count: 40 }, ...points.slice(1), added], walkId),
+      body.options,
+    );
     expect(withoutTimings(await withDensityGrid(adviser, third))).toEqual(withoutTimings(reference));
   });
 
@@ -175,7 +186,10 @@ describe('running a pattern check', () => {
     const zeroArea = await adviser.post('/api/checks', { fieldId: lone.field.id, pestId: lone.pest.id, options: { areaBasis: 'bbox' } });
     expect(zeroArea.status).toBe(400);
     expect(zeroArea.body.error.message).toMatch(/bbox area is zero/);
-    const [{ n }] = await sequelize.query<{ n: number }>('SELECT count(*) AS n FROM pattern_checks WHERE field_id = :id', { replacements: { id: lone.field.id }, type: QueryTypes.SELECT });
+    const [{ n }] = await sequelize.query<{ n: number }>('SELECT count(*) AS n FROM pattern_checks WHERE field_id = :id', {
+      replacements: { id: lone.field.id },
+      type: QueryTypes.SELECT,
+    });
     expect(n).toBe(0);
 
     const window = await adviser.post('/api/checks', { fieldId: field.id, pestId: pest.id, from: '2026-08-01', to: '2026-07-01' });
@@ -297,7 +311,11 @@ describe('a field’s checks, threshold status and history', () => {
     const walkIds: Record<string, string> = {};
     for (const [label, walk] of Object.entries(walks)) {
       walkIds[label] = await makeWalk(org, field.id, walk.date);
-      await addSightings(org, { fieldId: field.id, walkId: walkIds[label], pestId: pest.id }, walk.counts.map((count, i) => ({ ...at(i), count })));
+      await addSightings(
+        org,
+        { fieldId: field.id, walkId: walkIds[label], pestId: pest.id },
+        walk.counts.map((count, i) => ({ ...at(i), count })),
+      );
     }
     const res = await adviser.get(`/api/fields/${field.id}/threshold-status?pestId=${pest.id}`).expect(200);
     expect(res.body.statuses).toHaveLength(3);
@@ -305,7 +323,12 @@ describe('a field’s checks, threshold status and history', () => {
     const expected = { above: 'above', below: 'below', close: 'too-close' } as const;
     for (const [label, walk] of Object.entries(walks)) {
       const status = byWalk.get(walkIds[label]) as Record<string, never> & { meanInterval: { low: number; high: number } };
-      expect(status).toMatchObject({ status: expected[label as keyof typeof expected], stops: walk.counts.length, actionThreshold: 2, thresholdSource: 'Test threshold, not agronomic advice' });
+      expect(status).toMatchObject({
+        status: expected[label as keyof typeof expected],
+        stops: walk.counts.length,
+        actionThreshold: 2,
+        thresholdSource: 'Test threshold, not agronomic advice',
+      });
       // Reference: jstat's t confidence interval with mean and sd from simple-statistics.
       const [low, high] = jStat.tci(mean(walk.counts), 0.05, sampleStandardDeviation(walk.counts), walk.counts.length);
       expect(status.meanInterval.low).toBeCloseTo(low, 10);
@@ -351,7 +374,9 @@ describe('the adviser’s attention list', () => {
     expect(res.body.unacknowledgedNotices).toEqual([]);
 
     // A sighting added after the check puts the checked field back on the list.
-    await addSightings(home, { fieldId: patchy.field.id, walkId: patchy.walkId, pestId: patchy.pest.id }, [{ lon: TEST_FIELD_CORNER.lon + 0.002, lat: TEST_FIELD_CORNER.lat + 0.001, count: 1 }]);
+    await addSightings(home, { fieldId: patchy.field.id, walkId: patchy.walkId, pestId: patchy.pest.id }, [
+      { lon: TEST_FIELD_CORNER.lon + 0.002, lat: TEST_FIELD_CORNER.lat + 0.001, count: 1 },
+    ]);
     const after = await homeAdviser.get('/api/advisers/attention').expect(200);
     const again = after.body.notYetChecked.find((a: { fieldId: string }) => a.fieldId === patchy.field.id);
     expect(again).toMatchObject({ newSightings: 1, reason: 'not-yet-checked' });

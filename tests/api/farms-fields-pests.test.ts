@@ -27,7 +27,9 @@ describe('farms and grower contacts', () => {
     const read = await admin.get(`/api/farms/${farm.id}`).expect(200);
     expect(read.body.farm.name).toBe('Willow Bend');
     expect(read.body.farm.contacts.map(({ name, email }: { name: string; email: string }) => ({ name, email })).sort(byEmail)).toEqual(contacts);
-    expect(await auditLog(org.id)).toContainEqual(expect.objectContaining({ action: 'create', entity: 'farm', entity_id: farm.id, user_id: org.users.admin.id }));
+    expect(await auditLog(org.id)).toContainEqual(
+      expect.objectContaining({ action: 'create', entity: 'farm', entity_id: farm.id, user_id: org.users.admin.id }),
+    );
   });
 
   it('edits a farm: renames it and replaces its contacts', async () => {
@@ -100,21 +102,29 @@ describe('fields, scouts and growers', () => {
 
   it('keeps a field with sightings on record: deleting it answers 409 with the count and removes nothing', async () => {
     const { org, admin } = await adminOfNewOrganisation();
-    const { field, sightingIds } = await makeScoutedField(org, stopsFrom([TEST_FIELD_CORNER.lon + 0.001, TEST_FIELD_CORNER.lon + 0.002], [TEST_FIELD_CORNER.lat + 0.001, TEST_FIELD_CORNER.lat + 0.002], [4, 0]));
+    const { field, sightingIds } = await makeScoutedField(
+      org,
+      stopsFrom([TEST_FIELD_CORNER.lon + 0.001, TEST_FIELD_CORNER.lon + 0.002], [TEST_FIELD_CORNER.lat + 0.001, TEST_FIELD_CORNER.lat + 0.002], [4, 0]),
+    );
     const res = await admin.delete(`/api/fields/${field.id}`);
     expect(res.status).toBe(409);
     expect(res.body.error.message).toBe(`${field.name} has 2 sightings on record, so it is kept; edit its boundary or details instead of deleting it.`);
     await admin.get(`/api/fields/${field.id}`).expect(200);
-    const [{ kept }] = await sequelize.query<{ kept: number }>('SELECT count(*)::int AS kept FROM sightings WHERE id IN (:ids)', { replacements: { ids: sightingIds }, type: QueryTypes.SELECT });
+    const [{ kept }] = await sequelize.query<{ kept: number }>('SELECT count(*)::int AS kept FROM sightings WHERE id IN (:ids)', {
+      replacements: { ids: sightingIds },
+      type: QueryTypes.SELECT,
+    });
     expect(kept).toBe(sightingIds.length);
   });
 
-  it('edits a field\'s details and logs the change', async () => {
+  it("edits a field's details and logs the change", async () => {
     const { org, admin } = await adminOfNewOrganisation();
     const field = await createField(admin, (await createFarm(admin)).id, plainField(), { crop: 'soybean', season: 2026 });
     const res = await admin.patch(`/api/fields/${field.id}`, { crop: 'maize', season: 2027 }).expect(200);
     expect(res.body.field).toMatchObject({ crop: 'maize', season: 2027, name: field.name });
-    expect(await auditLog(org.id)).toContainEqual(expect.objectContaining({ action: 'update', entity: 'field', entity_id: field.id, changes: { crop: 'maize', season: 2027 } }));
+    expect(await auditLog(org.id)).toContainEqual(
+      expect.objectContaining({ action: 'update', entity: 'field', entity_id: field.id, changes: { crop: 'maize', season: 2027 } }),
+    );
   });
 
   it('assigns a scout, who then sees the field; unassigning takes it away', async () => {
@@ -158,7 +168,9 @@ describe('fields, scouts and growers', () => {
     await admin.delete(`/api/farms/${farm.id}/growers/${org.users.grower.id}`).expect(204);
     await grower.get(`/api/farms/${farm.id}`).expect(404);
     await grower.get(`/api/fields/${field.id}`).expect(404);
-    expect(await auditLog(org.id)).toContainEqual(expect.objectContaining({ action: 'link-grower', entity_id: farm.id, changes: { userId: org.users.grower.id } }));
+    expect(await auditLog(org.id)).toContainEqual(
+      expect.objectContaining({ action: 'link-grower', entity_id: farm.id, changes: { userId: org.users.grower.id } }),
+    );
   });
 
   it('refuses to link someone who is not a grower, saying so', async () => {
@@ -173,7 +185,12 @@ describe('fields, scouts and growers', () => {
 describe('pest library', () => {
   it('adds a pest with its threshold and source, and logs it', async () => {
     const { org, admin } = await adminOfNewOrganisation();
-    const pest = await createPest(admin, { name: 'Test beetle', actionThreshold: 0.75, countUnit: 'beetles per plant', thresholdSource: 'Invented for this test' });
+    const pest = await createPest(admin, {
+      name: 'Test beetle',
+      actionThreshold: 0.75,
+      countUnit: 'beetles per plant',
+      thresholdSource: 'Invented for this test',
+    });
     expect(pest).toMatchObject({ name: 'Test beetle', kind: 'insect', actionThreshold: 0.75, thresholdBasis: 'mean', thresholdNote: '', active: true });
     expect((await admin.get('/api/pests').expect(200)).body.pests.map((p: { id: string }) => p.id)).toContain(pest.id);
     expect(await auditLog(org.id)).toContainEqual(expect.objectContaining({ action: 'create', entity: 'pest', entity_id: pest.id }));
@@ -185,7 +202,9 @@ describe('pest library', () => {
     const res = await admin.patch(`/api/pests/${pest.id}`, { actionThreshold: 40 }).expect(200);
     expect(res.body.pest).toEqual({ ...pest, actionThreshold: 40 });
     const log = await auditLog(org.id);
-    expect(log).toContainEqual(expect.objectContaining({ action: 'update', entity: 'pest', entity_id: pest.id, changes: { before: pest, after: { actionThreshold: 40 } } }));
+    expect(log).toContainEqual(
+      expect.objectContaining({ action: 'update', entity: 'pest', entity_id: pest.id, changes: { before: pest, after: { actionThreshold: 40 } } }),
+    );
   });
 
   it('deactivates a pest: it leaves the active list, keeps its details, and can be shown again', async () => {
@@ -212,17 +231,24 @@ describe('pest library', () => {
 });
 
 describe('users: role change and deactivation', () => {
-  it('changes a role, which takes effect on the user\'s open session at once, and logs it', async () => {
+  it("changes a role, which takes effect on the user's open session at once, and logs it", async () => {
     const { org, admin } = await adminOfNewOrganisation();
     const scout = await signedIn(org.users.scout.email);
     await scout.get('/api/users').expect(403);
     const res = await admin.patch(`/api/users/${org.users.scout.id}`, { role: 'adviser' }).expect(200);
     expect(res.body.user.role).toBe('adviser');
     await scout.get('/api/users').expect(200);
-    expect(await auditLog(org.id)).toContainEqual(expect.objectContaining({ action: 'update', entity: 'user', entity_id: org.users.scout.id, changes: expect.objectContaining({ after: { role: 'adviser' } }) }));
+    expect(await auditLog(org.id)).toContainEqual(
+      expect.objectContaining({
+        action: 'update',
+        entity: 'user',
+        entity_id: org.users.scout.id,
+        changes: expect.objectContaining({ after: { role: 'adviser' } }),
+      }),
+    );
   });
 
-  it("deactivates a user: their open session stops working at once and they cannot sign in again", async () => {
+  it('deactivates a user: their open session stops working at once and they cannot sign in again', async () => {
     const { org, admin } = await adminOfNewOrganisation();
     const adviser = await signedIn(org.users.adviser.email);
     await adviser.get('/api/farms').expect(200);
@@ -230,7 +256,10 @@ describe('users: role change and deactivation', () => {
     await adviser.get('/api/farms').expect(401);
     expect((await adviser.get('/api/auth/me').expect(200)).body.user).toBeNull();
     await expect(signedIn(org.users.adviser.email)).rejects.toThrow(/401/);
-    const sessions = await sequelize.query(`SELECT sid FROM session WHERE sess->'passport'->>'user' = :id`, { replacements: { id: org.users.adviser.id }, type: QueryTypes.SELECT });
+    const sessions = await sequelize.query(`SELECT sid FROM session WHERE sess->'passport'->>'user' = :id`, {
+      replacements: { id: org.users.adviser.id },
+      type: QueryTypes.SELECT,
+    });
     expect(sessions).toEqual([]);
     const listed = (await admin.get('/api/users').expect(200)).body.users.find((u: { id: string }) => u.id === org.users.adviser.id);
     expect(listed.active).toBe(false);

@@ -44,7 +44,10 @@ beforeAll(async () => {
 });
 
 async function storedArea(fieldId: string) {
-  const [row] = await sequelize.query<{ area_m2: number }>('SELECT area_m2 FROM fields WHERE id = :fieldId', { replacements: { fieldId }, type: QueryTypes.SELECT });
+  const [row] = await sequelize.query<{ area_m2: number }>('SELECT area_m2 FROM fields WHERE id = :fieldId', {
+    replacements: { fieldId },
+    type: QueryTypes.SELECT,
+  });
   return row.area_m2;
 }
 
@@ -52,7 +55,16 @@ describe('stored field area', () => {
   // An irregular five-sided field (invented outline) near 42° N.
   const pentagon: Polygon = {
     type: 'Polygon',
-    coordinates: [[[lon, lat], [lon + 0.006, lat - 0.0004], [lon + 0.0072, lat + 0.0031], [lon + 0.003, lat + 0.0049], [lon - 0.0006, lat + 0.0027], [lon, lat]]],
+    coordinates: [
+      [
+        [lon, lat],
+        [lon + 0.006, lat - 0.0004],
+        [lon + 0.0072, lat + 0.0031],
+        [lon + 0.003, lat + 0.0049],
+        [lon - 0.0006, lat + 0.0027],
+        [lon, lat],
+      ],
+    ],
   };
 
   it('agrees with turf.area within 0.5 %', async () => {
@@ -61,7 +73,7 @@ describe('stored field area', () => {
     expect(relativeDifference(field.areaM2, turfArea(pentagon))).toBeLessThan(0.005);
   });
 
-  it('differs from turf by the ellipsoid-to-sphere ratio at the field\'s latitude (so it is computed on the ellipsoid)', async () => {
+  it("differs from turf by the ellipsoid-to-sphere ratio at the field's latitude (so it is computed on the ellipsoid)", async () => {
     const field = await createField(admin, farmId, pentagon);
     const expectedRatio = ellipsoidToSphereRatio(lat + 0.002);
     expect(expectedRatio).toBeGreaterThan(1.001);
@@ -83,7 +95,10 @@ describe('stored field area', () => {
   });
 
   it('adds the parts of a multi-part field', async () => {
-    const parts: MultiPolygon = { type: 'MultiPolygon', coordinates: [utmRectangle(lon, lat, 300, 200).coordinates, utmRectangle(lon + 0.01, lat, 150, 100).coordinates] };
+    const parts: MultiPolygon = {
+      type: 'MultiPolygon',
+      coordinates: [utmRectangle(lon, lat, 300, 200).coordinates, utmRectangle(lon + 0.01, lat, 150, 100).coordinates],
+    };
     const field = await createField(admin, farmId, parts);
     expect(relativeDifference(field.areaM2, 300 * 200 + 150 * 100)).toBeLessThan(0.005);
   });

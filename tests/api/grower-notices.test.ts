@@ -159,8 +159,16 @@ describe('a grower acknowledging a notice from their home', () => {
 
     const page = await grower.get(`/api/grower/notices/${ownNotice}`).expect(200);
     expect(page.body.notice.acknowledgedAt).toBe(first.body.acknowledgedAt);
-    const states = (await adviser.get(`/api/notices/${ownNotice}`).expect(200)).body.notice.recipients.map((r: { email: string; state: string }) => [r.email, r.state]);
-    expect(states).toEqual(expect.arrayContaining([[org.users.grower.email, 'acknowledged'], [`ada-${org.id.slice(0, 8)}@farm.example`, 'sent']]));
+    const states = (await adviser.get(`/api/notices/${ownNotice}`).expect(200)).body.notice.recipients.map((r: { email: string; state: string }) => [
+      r.email,
+      r.state,
+    ]);
+    expect(states).toEqual(
+      expect.arrayContaining([
+        [org.users.grower.email, 'acknowledged'],
+        [`ada-${org.id.slice(0, 8)}@farm.example`, 'sent'],
+      ]),
+    );
   });
 
   it("answers 409 when the grower holds no copy, saying the notice went to the farm's contacts", async () => {

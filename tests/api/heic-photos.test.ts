@@ -39,7 +39,11 @@ describe('HEIC photos and their Exif item location', () => {
     await admin.post(`/api/fields/${field.id}/scouts`, { userId: org.users.scout.id }).expect(204);
     const pest = await createPest(admin);
     const scout = await signedIn(org.users.scout.email);
-    const req = scout.agent.post('/api/photos').set('x-csrf-token', scout.csrf).field('pestId', pest.id).field('counts', JSON.stringify([2]));
+    const req = scout.agent
+      .post('/api/photos')
+      .set('x-csrf-token', scout.csrf)
+      .field('pestId', pest.id)
+      .field('counts', JSON.stringify([2]));
     const res = await req.attach('photos', fixture('exif-in-base-offset.heic'), { filename: 'leaf.heic', contentType: 'image/heic' }).expect(200);
     expect(res.body.results[0].outcome).toBe('placed');
     const list = await scout.get(`/api/sightings?walkId=${res.body.results[0].walkId}`).expect(200);

@@ -56,7 +56,7 @@ describe('development mailbox', () => {
     await (await anonymous()).post('/api/auth/set-password', { token, password: 'Meadow-lark-sings-at-dawn-2026' }).expect(200);
   });
 
-  it("hides an invitation link from the admin who sent it (and from every other admin)", async () => {
+  it('hides an invitation link from the admin who sent it (and from every other admin)', async () => {
     const org = await makeOrganisation('Mailbox invite');
     const admin = await signedIn(org.users.admin.email);
     const email = `invitee-${org.id.slice(0, 8)}@test.example`;

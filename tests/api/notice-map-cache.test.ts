@@ -27,7 +27,11 @@ beforeAll(async () => {
   adviser = await signedIn(org.users.adviser.email);
   const scouted = await makeCheckedField(org, adviser, { seed: 41 });
   const zones = await acceptProposedZones(adviser, scouted);
-  noticeId = (await adviser.post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zones.id, recommendation: 'Spot-spray the zones this week; re-scout the rest next week.' }).expect(201)).body.notice.id;
+  noticeId = (
+    await adviser
+      .post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zones.id, recommendation: 'Spot-spray the zones this week; re-scout the rest next week.' })
+      .expect(201)
+  ).body.notice.id;
   const recipientId = crypto.randomUUID();
   await sequelize.query(
     `INSERT INTO notice_recipients (id, notice_id, contact_name, email, status, attempts, message_id, smtp_accepted_at)

@@ -44,7 +44,9 @@ beforeAll(async () => {
   const scouted = await makeCheckedField(org, adviser, { seed: 41 });
   await linkGrower(scouted.field.farmId, org.users.grower.id);
   const zoneSet = await acceptProposedZones(adviser, scouted);
-  noticeId = (await adviser.post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: 'Spot-spray both zones this week.' }).expect(201)).body.notice.id;
+  noticeId = (
+    await adviser.post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: 'Spot-spray both zones this week.' }).expect(201)
+  ).body.notice.id;
   contactEmail = `cleo-${org.id.slice(0, 8)}@farm.example`;
   const copy = await addSentCopy(noticeId, 'Cleo Tillage', contactEmail);
   await sequelize.query(`UPDATE notices SET status = 'sent', sent_at = now() WHERE id = :noticeId`, { replacements: { noticeId } });
@@ -57,7 +59,12 @@ afterAll(async () => {
 });
 
 const questionCount = async () =>
-  (await sequelize.query<{ n: number }>('SELECT count(*)::int AS n FROM notice_questions WHERE notice_id = :noticeId', { replacements: { noticeId }, type: QueryTypes.SELECT }))[0].n;
+  (
+    await sequelize.query<{ n: number }>('SELECT count(*)::int AS n FROM notice_questions WHERE notice_id = :noticeId', {
+      replacements: { noticeId },
+      type: QueryTypes.SELECT,
+    })
+  )[0].n;
 
 const withSubject = (messages: ParsedMail[], pattern: RegExp) => messages.filter((m) => pattern.test(m.subject ?? ''));
 
@@ -65,7 +72,9 @@ describe('a question from the e-mailed link', () => {
   let questionId: string;
 
   it('is stored with control characters stripped, shown on the link page and e-mailed to the adviser with the grower as Reply-To', async () => {
-    const res = await visitor.post(`/api/notice-links/${token}/questions`, { text: '  Is the\u0007 wet corner\u0000 in zone 1?\r\nIt floods in May.  ' }).expect(201);
+    const res = await visitor
+      .post(`/api/notice-links/${token}/questions`, { text: '  Is the\u0007 wet corner\u0000 in zone 1?\r\nIt floods in May.  ' })
+      .expect(201);
     expect(res.body.question.text).toBe('Is the wet corner in zone 1?\nIt floods in May.');
     expect(res.body.question.askerName).toBe('Cleo Tillage');
     expect(res.body.adviserMailed).toBe(true);
@@ -87,11 +96,15 @@ describe('a question from the e-mailed link', () => {
     const waiting = attention.body.growerQuestions.filter((q: { noticeId: string }) => q.noticeId === noticeId);
     expect(waiting).toHaveLength(1);
     expect(waiting[0].message).toMatch(/^Cleo Tillage asked about the .+ and is waiting for an answer\.$/);
-    expect((await outsider.get('/api/advisers/attention').expect(200)).body.growerQuestions.map((q: { questionId: string }) => q.questionId)).not.toContain(questionId);
+    expect((await outsider.get('/api/advisers/attention').expect(200)).body.growerQuestions.map((q: { questionId: string }) => q.questionId)).not.toContain(
+      questionId,
+    );
   });
 
   it('is answered by the adviser once: shown on the notice page and e-mailed to the grower with the adviser as Reply-To', async () => {
-    const answered = await adviser.post(`/api/notices/${noticeId}/questions/${questionId}/answer`, { text: 'Yes, the wet corner is the east half of zone 1.' }).expect(200);
+    const answered = await adviser
+      .post(`/api/notices/${noticeId}/questions/${questionId}/answer`, { text: 'Yes, the wet corner is the east half of zone 1.' })
+      .expect(200);
     expect(answered.body.growerMailed).toBe(true);
     expect(answered.body.question.answer).toMatchObject({ text: 'Yes, the wet corner is the east half of zone 1.', adviserName: org.users.adviser.name });
 

@@ -63,7 +63,10 @@ afterAll(async () => {
 
 /** Every message the catcher holds for an address, parsed with the cid links kept as sent. */
 async function mailTo(address: string): Promise<ParsedMail[]> {
-  const rows = await sequelize.query<{ raw: Buffer }>('SELECT raw FROM mailbox_messages WHERE :address = ANY(envelope_to) ORDER BY id', { replacements: { address }, type: QueryTypes.SELECT });
+  const rows = await sequelize.query<{ raw: Buffer }>('SELECT raw FROM mailbox_messages WHERE :address = ANY(envelope_to) ORDER BY id', {
+    replacements: { address },
+    type: QueryTypes.SELECT,
+  });
   return Promise.all(rows.map((r) => simpleParser(r.raw, { keepCidLinks: true })));
 }
 
@@ -96,7 +99,10 @@ async function sendAndDeliver() {
   });
   const messages = await Promise.all(
     view.recipients.map(async (r: { email: string; id: string }) => {
-      const [row] = await sequelize.query<{ message_id: string }>('SELECT message_id FROM notice_recipients WHERE id = :id', { replacements: { id: r.id }, type: QueryTypes.SELECT });
+      const [row] = await sequelize.query<{ message_id: string }>('SELECT message_id FROM notice_recipients WHERE id = :id', {
+        replacements: { id: r.id },
+        type: QueryTypes.SELECT,
+      });
       const mail = (await mailTo(r.email)).filter((m) => m.messageId === row.message_id);
       return { recipient: r, mail, messageId: row.message_id };
     }),
@@ -195,7 +201,8 @@ describe('zone notice e-mail', () => {
     const image = await Jimp.read(map!.content);
     const { width, height, data } = image.bitmap;
     expect(width).toBeGreaterThan(200);
-    const near = (i: number, [r, g, b]: number[], tolerance: number) => Math.abs(data[i] - r) <= tolerance && Math.abs(data[i + 1] - g) <= tolerance && Math.abs(data[i + 2] - b) <= tolerance;
+    const near = (i: number, [r, g, b]: number[], tolerance: number) =>
+      Math.abs(data[i] - r) <= tolerance && Math.abs(data[i + 1] - g) <= tolerance && Math.abs(data[i + 2] - b) <= tolerance;
     let edge = 0;
     let zone = 0;
     for (let i = 0; i < data.length; i += 4) {
@@ -206,7 +213,7 @@ describe('zone notice e-mail', () => {
     // The boundary of a ~420 m × 330 m field drawn about 740 px wide: a 3 px line some 2,600 px long; the legend adds under 300 px.
     expect(edge).toBeGreaterThan(2000);
     expect(zone).toBeGreaterThan(500);
-    const centre = ((Math.floor((height - 44) / 2) * width + Math.floor(width / 2)) * 4);
+    const centre = (Math.floor((height - 44) / 2) * width + Math.floor(width / 2)) * 4;
     expect(near(centre, [0xfb, 0xf8, 0xf0], 3)).toBe(false);
   });
 
@@ -265,7 +272,7 @@ describe('notice preview', () => {
     const notice = await draftNotice('Treat zone 1 only; <script>alert(1)</script> is not a product.');
     const res = await adviser.get(`/api/notices/${notice.id}/preview`).expect(200);
     expect(res.body.subject).toContain(FIELD_NAME);
-    expect(res.body.text).toContain('(each grower\'s own link)');
+    expect(res.body.text).toContain("(each grower's own link)");
     expect(res.body.html).toContain('&lt;script&gt;alert(1)&lt;/script&gt;');
     expect(res.body.html).not.toContain('<script>');
     for (const caution of NOTICE_CAUTIONS) expect(res.body.text).toContain(caution);
@@ -280,7 +287,11 @@ describe('notice preview', () => {
     const scoutedAgain = await makeCheckedField(org, adviser, { seed: 3 });
     const older = await acceptProposedZones(adviser, scoutedAgain);
     await acceptProposedZones(adviser, scoutedAgain);
-    const stale = await adviser.post('/api/notices', { fieldId: scoutedAgain.field.id, zoneSetId: older.id, recommendation: 'Treat the zones as drawn this week.' });
+    const stale = await adviser.post('/api/notices', {
+      fieldId: scoutedAgain.field.id,
+      zoneSetId: older.id,
+      recommendation: 'Treat the zones as drawn this week.',
+    });
     expect(stale.status).toBe(400);
     expect(stale.body.error.message).toMatch(/replaced by a newer version/);
   });
@@ -288,7 +299,9 @@ describe('notice preview', () => {
   it('refuses to send when the farm has no grower contacts, saying what to add', async () => {
     const bare = await makeCheckedField(org, adviser, { seed: 4 });
     const bareZones = await acceptProposedZones(adviser, bare);
-    const notice = (await adviser.post('/api/notices', { fieldId: bare.field.id, zoneSetId: bareZones.id, recommendation: 'Treat the zones as drawn this week.' }).expect(201)).body.notice;
+    const notice = (
+      await adviser.post('/api/notices', { fieldId: bare.field.id, zoneSetId: bareZones.id, recommendation: 'Treat the zones as drawn this week.' }).expect(201)
+    ).body.notice;
     const res = await adviser.post(`/api/notices/${notice.id}/send`);
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/no grower contacts yet; add one/);
@@ -334,7 +347,9 @@ describe('notice links', () => {
 
   it('refuses an expired token', async () => {
     await publicGet(`/api/notice-links/${tokens[1]}`).expect(200);
-    await sequelize.query("UPDATE notice_recipients SET token_expires_at = now() - interval '1 second' WHERE id = :id", { replacements: { id: recipients[1].id } });
+    await sequelize.query("UPDATE notice_recipients SET token_expires_at = now() - interval '1 second' WHERE id = :id", {
+      replacements: { id: recipients[1].id },
+    });
     await refused(tokens[1]);
   });
 
@@ -364,7 +379,9 @@ describe('SMTP outage', () => {
       await adviser.post(`/api/notices/${notice.id}/send`).expect(202);
       const failing = await waitFor('both copies failed once', async () => {
         const v = await getNotice(notice.id);
-        return v.recipients.length === 2 && v.recipients.every((r: { delivery: string; attempts: number }) => r.delivery === 'failed' || r.attempts > 1) ? v : null;
+        return v.recipients.length === 2 && v.recipients.every((r: { delivery: string; attempts: number }) => r.delivery === 'failed' || r.attempts > 1)
+          ? v
+          : null;
       });
       for (const r of failing.recipients) {
         expect(r.smtpAcceptedAt).toBeNull();
@@ -376,15 +393,22 @@ describe('SMTP outage', () => {
       config.smtpUrl = workingUrl;
       resetMailTransport();
     }
-    const sent = await waitFor('both copies accepted after the outage', async () => {
-      const v = await getNotice(noticeId!);
-      return v.status === 'sent' && v.recipients.every((r: { delivery: string }) => r.delivery === 'sent') ? v : null;
-    }, 60_000);
+    const sent = await waitFor(
+      'both copies accepted after the outage',
+      async () => {
+        const v = await getNotice(noticeId!);
+        return v.status === 'sent' && v.recipients.every((r: { delivery: string }) => r.delivery === 'sent') ? v : null;
+      },
+      60_000,
+    );
     expect(sent.status).toBe('sent');
     for (const r of sent.recipients) {
       expect(r.attempts).toBeGreaterThanOrEqual(2);
       expect(r.lastError).toBeNull();
-      const [row] = await sequelize.query<{ message_id: string }>('SELECT message_id FROM notice_recipients WHERE id = :id', { replacements: { id: r.id }, type: QueryTypes.SELECT });
+      const [row] = await sequelize.query<{ message_id: string }>('SELECT message_id FROM notice_recipients WHERE id = :id', {
+        replacements: { id: r.id },
+        type: QueryTypes.SELECT,
+      });
       expect((await mailTo(r.email)).filter((m) => m.messageId === row.message_id)).toHaveLength(1);
     }
   });
@@ -405,16 +429,21 @@ describe('notice access and follow-up', () => {
 
   it('refuses scouts every notice route', async () => {
     const notice = await draftNotice();
-    expect((await scout.post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: 'Treat the zones as drawn this week.' })).status).toBe(403);
+    expect(
+      (await scout.post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: 'Treat the zones as drawn this week.' })).status,
+    ).toBe(403);
     expect((await scout.get(`/api/notices/${notice.id}`)).status).toBe(403);
     expect((await scout.get(`/api/notices/${notice.id}/preview`)).status).toBe(403);
   });
 
   it('answers 404 to another organisation', async () => {
     const notice = await draftNotice();
-    for (const url of [`/api/notices/${notice.id}`, `/api/notices/${notice.id}/preview`, `/api/notices/${notice.id}/map.png`]) expect((await outsider.get(url)).status, url).toBe(404);
+    for (const url of [`/api/notices/${notice.id}`, `/api/notices/${notice.id}/preview`, `/api/notices/${notice.id}/map.png`])
+      expect((await outsider.get(url)).status, url).toBe(404);
     expect((await outsider.post(`/api/notices/${notice.id}/send`)).status).toBe(404);
-    expect((await outsider.post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: 'Treat the zones as drawn this week.' })).status).toBe(404);
+    expect(
+      (await outsider.post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: 'Treat the zones as drawn this week.' })).status,
+    ).toBe(404);
   });
 
   it('puts sent notices nobody acknowledged on the adviser’s attention list, and not acknowledged ones', async () => {
@@ -436,7 +465,9 @@ describe('a sent notice is a snapshot', () => {
     const later = await makeCheckedField(org, adviser, { seed: 7 });
     const laterZones = await acceptProposedZones(adviser, later);
     await addContacts(later.field.farmId, [{ name: 'Bea Headland', email: `bea-${org.id.slice(0, 8)}@farm.example` }]);
-    const notice = (await adviser.post('/api/notices', { fieldId: later.field.id, zoneSetId: laterZones.id, recommendation: 'Spot-spray both zones this week.' }).expect(201)).body.notice;
+    const notice = (
+      await adviser.post('/api/notices', { fieldId: later.field.id, zoneSetId: laterZones.id, recommendation: 'Spot-spray both zones this week.' }).expect(201)
+    ).body.notice;
     await adviser.post(`/api/notices/${notice.id}/send`).expect(202);
     const view = await waitFor('the copy accepted', async () => {
       const v = await getNotice(notice.id);
@@ -450,11 +481,19 @@ describe('a sent notice is a snapshot', () => {
 
     // The field grows, every sighting behind the check is deleted, one zone is reshaped and the other removed.
     await sequelize.query('UPDATE fields SET boundary = ST_Multi(ST_Expand(boundary, 0.002)) WHERE id = :id', { replacements: { id: later.field.id } });
-    await sequelize.query('UPDATE sightings SET deleted_at = now() WHERE id = ANY(CAST(:ids AS uuid[]))', { replacements: { ids: `{${later.sightingIds.join(',')}}` } });
+    await sequelize.query('UPDATE sightings SET deleted_at = now() WHERE id = ANY(CAST(:ids AS uuid[]))', {
+      replacements: { ids: `{${later.sightingIds.join(',')}}` },
+    });
     const [first, ...rest] = laterZones.zones;
-    await sequelize.query("UPDATE zones SET geometry = ST_Multi(ST_Buffer(geometry, 0.0003)), label = 'Reshaped' WHERE id = :id", { replacements: { id: first.id } });
-    if (rest.length) await sequelize.query('DELETE FROM zones WHERE id = ANY(CAST(:ids AS uuid[]))', { replacements: { ids: `{${rest.map((z) => z.id).join(',')}}` } });
-    const [field] = await sequelize.query<{ area_m2: number }>('SELECT area_m2 FROM fields WHERE id = :id', { replacements: { id: later.field.id }, type: QueryTypes.SELECT });
+    await sequelize.query("UPDATE zones SET geometry = ST_Multi(ST_Buffer(geometry, 0.0003)), label = 'Reshaped' WHERE id = :id", {
+      replacements: { id: first.id },
+    });
+    if (rest.length)
+      await sequelize.query('DELETE FROM zones WHERE id = ANY(CAST(:ids AS uuid[]))', { replacements: { ids: `{${rest.map((z) => z.id).join(',')}}` } });
+    const [field] = await sequelize.query<{ area_m2: number }>('SELECT area_m2 FROM fields WHERE id = :id', {
+      replacements: { id: later.field.id },
+      type: QueryTypes.SELECT,
+    });
     expect(field.area_m2).toBeGreaterThan(pageAsSent.fieldAreaM2 * 1.5);
 
     const pageNow = (await publicGet(`/api/notice-links/${token}`).expect(200)).body.notice;
@@ -465,7 +504,9 @@ describe('a sent notice is a snapshot', () => {
     expect(mapNow.equals(mapAsSent)).toBe(true);
 
     // A retry composes from the snapshot too: the field's area and zone table as they were sent.
-    await sequelize.query("UPDATE notice_recipients SET status = 'failed', smtp_accepted_at = NULL, last_error = 'retried by the test' WHERE id = :id", { replacements: { id: recipient.id } });
+    await sequelize.query("UPDATE notice_recipients SET status = 'failed', smtp_accepted_at = NULL, last_error = 'retried by the test' WHERE id = :id", {
+      replacements: { id: recipient.id },
+    });
     expect(await deliverNoticeCopy(recipient.id)).toBe('sent');
     const retried = (await mailTo(recipient.email)).at(-1)!;
     expect(retried.text).toContain(`(${(pageAsSent.fieldAreaM2 / 10_000).toFixed(2)} ha,`);
@@ -473,7 +514,9 @@ describe('a sent notice is a snapshot', () => {
     expect(retried.text).not.toContain('Reshaped');
 
     // A draft written now reads the field as it is.
-    const draft = (await adviser.post('/api/notices', { fieldId: later.field.id, zoneSetId: laterZones.id, recommendation: 'Spot-spray the reshaped zone.' }).expect(201)).body.notice;
+    const draft = (
+      await adviser.post('/api/notices', { fieldId: later.field.id, zoneSetId: laterZones.id, recommendation: 'Spot-spray the reshaped zone.' }).expect(201)
+    ).body.notice;
     const preview = (await adviser.get(`/api/notices/${draft.id}/preview`).expect(200)).body;
     expect(preview.text).toContain(`(${(field.area_m2 / 10_000).toFixed(2)} ha,`);
     expect(preview.text).toContain('Reshaped: ');

@@ -70,10 +70,19 @@ describe('graceful shutdown', () => {
 
     // A client that has sent its headers and half its body when the shutdown starts.
     const answered = new Promise<number>((resolve, reject) => {
-      const req = http.request({ host: '127.0.0.1', port, method: 'POST', path: '/api/auth/sign-in', headers: { 'content-type': 'application/json', 'content-length': Buffer.byteLength(body) } }, (res) => {
-        res.resume();
-        resolve(res.statusCode ?? 0);
-      });
+      const req = http.request(
+        {
+          host: '127.0.0.1',
+          port,
+          method: 'POST',
+          path: '/api/auth/sign-in',
+          headers: { 'content-type': 'application/json', 'content-length': Buffer.byteLength(body) },
+        },
+        (res) => {
+          res.resume();
+          resolve(res.statusCode ?? 0);
+        },
+      );
       req.on('error', reject);
       req.write(body.slice(0, 10));
       setTimeout(() => req.end(body.slice(10)), 300);

@@ -22,7 +22,9 @@ describe('the pixel limit', () => {
     process.env.PHOTO_MAX_MEGAPIXELS = '0.2';
     const res = await uploadPhotos(scout, [{ bytes: photo }], { pestId: pest.id }).expect(200);
     expect(res.body.results[0].outcome).toBe('rejected');
-    expect(res.body.results[0].message).toBe('This photo is 640 × 480 pixels (0.3 MP); Patchwise takes photos of at most 0.2 MP. Send a smaller copy (phones can share a reduced size).');
+    expect(res.body.results[0].message).toBe(
+      'This photo is 640 × 480 pixels (0.3 MP); Patchwise takes photos of at most 0.2 MP. Send a smaller copy (phones can share a reduced size).',
+    );
     expect(await rowCounts(org.id)).toEqual(before);
   });
 

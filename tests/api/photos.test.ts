@@ -39,9 +39,19 @@ describe('photos with EXIF GPS become sightings', () => {
     const { scout, field, pest } = await scoutingSetUp();
     const spots = [insideField(0.2, 0.3), insideField(0.7, 0.8), insideField(0.5, 0.1)];
     const photos = await Promise.all(
-      spots.map((p, i) => makeJpeg({ gps: { ...p, altitudeM: 23.5 + i, accuracyM: 3.5, directionDeg: 90 + i }, dateTimeOriginal: '2026:11:20 10:15:00', offsetTimeOriginal: '-03:00' })),
+      spots.map((p, i) =>
+        makeJpeg({
+          gps: { ...p, altitudeM: 23.5 + i, accuracyM: 3.5, directionDeg: 90 + i },
+          dateTimeOriginal: '2026:11:20 10:15:00',
+          offsetTimeOriginal: '-03:00',
+        }),
+      ),
     );
-    const res = await uploadPhotos(scout, photos.map((bytes) => ({ bytes })), { pestId: pest.id, counts: JSON.stringify([3, 0, 12]), clientIds: JSON.stringify(['a', 'b', 'c']) }).expect(200);
+    const res = await uploadPhotos(
+      scout,
+      photos.map((bytes) => ({ bytes })),
+      { pestId: pest.id, counts: JSON.stringify([3, 0, 12]), clientIds: JSON.stringify(['a', 'b', 'c']) },
+    ).expect(200);
 
     expect(res.body.results.map((r: { outcome: string }) => r.outcome)).toEqual(['placed', 'placed', 'placed']);
     expect(res.body.results.map((r: { clientId: string }) => r.clientId)).toEqual(['a', 'b', 'c']);
@@ -61,7 +71,16 @@ describe('photos with EXIF GPS become sightings', () => {
       const dms = (v: number[]) => v[0] + v[1] / 60 + v[2] / 3600;
       expect(sighting.position.lat).toBeCloseTo((gps.GPSLatitudeRef === 'S' ? -1 : 1) * dms(gps.GPSLatitude as number[]), 10);
       expect(sighting.position.lon).toBeCloseTo((gps.GPSLongitudeRef === 'W' ? -1 : 1) * dms(gps.GPSLongitude as number[]), 10);
-      expect(sighting).toMatchObject({ fieldId: field.id, positionSource: 'exif', status: 'placed', accuracyM: 3.5, altitudeM: 23.5 + i, directionDeg: 90 + i, timeFlag: null, count: [3, 0, 12][i] });
+      expect(sighting).toMatchObject({
+        fieldId: field.id,
+        positionSource: 'exif',
+        status: 'placed',
+        accuracyM: 3.5,
+        altitudeM: 23.5 + i,
+        directionDeg: 90 + i,
+        timeFlag: null,
+        count: [3, 0, 12][i],
+      });
       // 10:15 at UTC−03:00 is 13:15 UTC.
       expect(sighting.observedAt).toBe('2026-11-20T13:15:00.000Z');
       expect(sighting.walkedOn).toBe('2026-11-20');
@@ -90,7 +109,12 @@ describe('photos with EXIF GPS become sightings', () => {
 
 describe('bad inputs get a clear outcome and leave nothing behind', () => {
   const cases: Array<{ name: string; photo: () => Promise<{ bytes: Buffer; name?: string }>; outcome: string; message: RegExp }> = [
-    { name: 'a non-image with a .jpg name', photo: async () => ({ bytes: Buffer.from('This is a shopping list, not a photo.\n'.repeat(20)), name: 'leaf.jpg' }), outcome: 'rejected', message: /not a recognisable image/ },
+    {
+      name: 'a non-image with a .jpg name',
+      photo: async () => ({ bytes: Buffer.from('This is a shopping list, not a photo.\n'.repeat(20)), name: 'leaf.jpg' }),
+      outcome: 'rejected',
+      message: /not a recognisable image/,
+    },
     {
       name: 'a truncated JPEG',
       photo: async () => {
@@ -101,14 +125,41 @@ describe('bad inputs get a clear outcome and leave nothing behind', () => {
       message: /incomplete/,
     },
     { name: 'a zero-byte file', photo: async () => ({ bytes: Buffer.alloc(0) }), outcome: 'rejected', message: /empty/ },
-    { name: 'a photo without GPS (no walk chosen)', photo: async () => ({ bytes: await makeJpeg({}) }), outcome: 'rejected', message: /no GPS position.*choose the walk first/ },
+    {
+      name: 'a photo without GPS (no walk chosen)',
+      photo: async () => ({ bytes: await makeJpeg({}) }),
+      outcome: 'rejected',
+      message: /no GPS position.*choose the walk first/,
+    },
     {
       name: 'GPS (0, 0)',
-      photo: async () => ({ bytes: await makeJpeg({ rawGps: { lat: [[0, 1], [0, 1], [0, 1]], latRef: 'N', lon: [[0, 1], [0, 1], [0, 1]], lonRef: 'E' } }) }),
+      photo: async () => ({
+        bytes: await makeJpeg({
+          rawGps: {
+            lat: [
+              [0, 1],
+              [0, 1],
+              [0, 1],
+            ],
+            latRef: 'N',
+            lon: [
+              [0, 1],
+              [0, 1],
+              [0, 1],
+            ],
+            lonRef: 'E',
+          },
+        }),
+      }),
       outcome: 'rejected',
       message: /0, 0/,
     },
-    { name: 'GPS outside every field', photo: async () => ({ bytes: await makeJpeg({ gps: { lat: -33.9, lon: -60.1 } }) }), outcome: 'outside', message: /outside every field/ },
+    {
+      name: 'GPS outside every field',
+      photo: async () => ({ bytes: await makeJpeg({ gps: { lat: -33.9, lon: -60.1 } }) }),
+      outcome: 'outside',
+      message: /outside every field/,
+    },
     {
       name: 'a photo in a field the scout is not assigned to',
       photo: async () => ({ bytes: await makeJpeg({ gps: { lon: SOUTH_WEST_ORIGIN.lon + 0.025, lat: SOUTH_WEST_ORIGIN.lat + 0.005 } }) }),
@@ -135,7 +186,9 @@ describe('bad inputs get a clear outcome and leave nothing behind', () => {
   it('offers the nearest field when a photo lies just outside its boundary', async () => {
     const { scout, field, pest } = await scoutingSetUp();
     // About 20 m south of the southern edge (1° of latitude ≈ 111 km).
-    const res = await uploadPhotos(scout, [{ bytes: await makeJpeg({ gps: { lon: SOUTH_WEST_ORIGIN.lon + 0.005, lat: SOUTH_WEST_ORIGIN.lat - 0.00018 } }) }], { pestId: pest.id }).expect(200);
+    const res = await uploadPhotos(scout, [{ bytes: await makeJpeg({ gps: { lon: SOUTH_WEST_ORIGIN.lon + 0.005, lat: SOUTH_WEST_ORIGIN.lat - 0.00018 } }) }], {
+      pestId: pest.id,
+    }).expect(200);
     expect(res.body.results[0].outcome).toBe('outside');
     expect(res.body.results[0].nearestField).toMatchObject({ id: field.id, name: field.name });
     expect(res.body.results[0].nearestField.distanceM).toBeGreaterThan(15);
@@ -196,14 +249,20 @@ describe('bad inputs get a clear outcome and leave nothing behind', () => {
       process.env.PHOTO_MAX_FILE_MB = '0.01';
       const big = await makeJpeg({ width: 1600, height: 1200, gps: insideField(), quality: 95, markSeed: 321 });
       expect(big.length).toBeGreaterThan(0.01 * 1024 * 1024);
-      const tooBig = await uploadPhotos(scout, [{ bytes: await makeJpeg({ gps: insideField(0.1, 0.1) }) }, { bytes: big, name: 'big.jpg' }], { pestId: pest.id });
+      const tooBig = await uploadPhotos(scout, [{ bytes: await makeJpeg({ gps: insideField(0.1, 0.1) }) }, { bytes: big, name: 'big.jpg' }], {
+        pestId: pest.id,
+      });
       expect(tooBig.status).toBe(413);
       expect(tooBig.body.error.message).toMatch(/big\.jpg.*larger than 0\.01 MB/);
       delete process.env.PHOTO_MAX_FILE_MB;
 
       process.env.PHOTO_MAX_FILES = '2';
       const three = await Promise.all([0.2, 0.4, 0.6].map((f) => makeJpeg({ gps: insideField(f, f) })));
-      const tooMany = await uploadPhotos(scout, three.map((bytes) => ({ bytes })), { pestId: pest.id });
+      const tooMany = await uploadPhotos(
+        scout,
+        three.map((bytes) => ({ bytes })),
+        { pestId: pest.id },
+      );
       expect(tooMany.status).toBe(413);
       expect(tooMany.body.error.message).toMatch(/at most 2 photos/);
     } finally {
@@ -263,7 +322,9 @@ describe('storage and thumbnails', () => {
 
   it('makes a thumbnail that honours EXIF orientation 6 (width and height swap) and serves it', async () => {
     const { scout, pest } = await scoutingSetUp();
-    const res = await uploadPhotos(scout, [{ bytes: await makeJpeg({ width: 400, height: 200, orientation: 6, gps: insideField() }) }], { pestId: pest.id }).expect(200);
+    const res = await uploadPhotos(scout, [{ bytes: await makeJpeg({ width: 400, height: 200, orientation: 6, gps: insideField() }) }], {
+      pestId: pest.id,
+    }).expect(200);
     const { photoId } = res.body.results[0];
     const pending = await scout.get(`/api/photos/${photoId}/thumbnail`);
     expect(pending.status).toBe(404);
@@ -295,7 +356,11 @@ describe('storage and thumbnails', () => {
     const [r, g] = rgbAt(180, 80);
     expect(r).toBeGreaterThan(180);
     expect(g).toBeLessThan(80);
-    for (const [x, y] of [[60, 80], [60, 240], [180, 240]]) {
+    for (const [x, y] of [
+      [60, 80],
+      [60, 240],
+      [180, 240],
+    ]) {
       const [qr, qg] = rgbAt(x, y);
       expect(qg).toBeGreaterThan(qr);
     }
@@ -303,7 +368,11 @@ describe('storage and thumbnails', () => {
 
   it('uses the embedded EXIF thumbnail when the photo carries one, turned upright', async () => {
     const { scout, pest } = await scoutingSetUp();
-    const res = await uploadPhotos(scout, [{ bytes: await makeJpeg({ width: 800, height: 600, orientation: 8, embeddedThumbnailWidth: 200, gps: insideField() }) }], { pestId: pest.id }).expect(200);
+    const res = await uploadPhotos(
+      scout,
+      [{ bytes: await makeJpeg({ width: 800, height: 600, orientation: 8, embeddedThumbnailWidth: 200, gps: insideField() }) }],
+      { pestId: pest.id },
+    ).expect(200);
     expect(await makeThumbnail(res.body.results[0].photoId)).toEqual({ status: 'ready', source: 'embedded' });
     const thumb = await scout.get(`/api/photos/${res.body.results[0].photoId}/thumbnail`).buffer(true).expect(200);
     const image = await Jimp.read(thumb.body as Buffer);

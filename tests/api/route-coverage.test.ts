@@ -17,11 +17,13 @@ describe('every route the app serves has a row in the access matrix', () => {
 
   it('reads the routes from the router, mounted routers included', () => {
     // A handful the app has served since the foundation, to show the walk reaches nested routers and mount paths.
-    expect(routes).toEqual(expect.arrayContaining([
-      { method: 'GET', path: '/api/fields/:id' },
-      { method: 'POST', path: '/api/photos/' },
-      { method: 'GET', path: '/api/zone-sets/:id/export.kml' },
-    ]));
+    expect(routes).toEqual(
+      expect.arrayContaining([
+        { method: 'GET', path: '/api/fields/:id' },
+        { method: 'POST', path: '/api/photos/' },
+        { method: 'GET', path: '/api/zone-sets/:id/export.kml' },
+      ]),
+    );
     expect(routes.length).toBeGreaterThan(60);
   });
 
@@ -31,7 +33,9 @@ describe('every route the app serves has a row in the access matrix', () => {
   });
 
   it('has no row for a route the app does not serve', () => {
-    const stale = allRows.filter((entry) => !routes.some((route) => route.method === entry.method && rowMatchesRoute(entry.path, route.path.replace(/\/$/, '') || '/')));
+    const stale = allRows.filter(
+      (entry) => !routes.some((route) => route.method === entry.method && rowMatchesRoute(entry.path, route.path.replace(/\/$/, '') || '/')),
+    );
     expect(stale.map((r) => `${r.method} ${r.path}`)).toEqual([]);
   });
 });

@@ -41,7 +41,9 @@ async function tableCounts() {
 }
 
 describe('CSRF', () => {
-  const stateChanging = listApiRoutes(testApp() as unknown as { router: { stack: unknown[] } }).filter((r) => r.method !== 'GET' && !r.path.endsWith('/acknowledge'));
+  const stateChanging = listApiRoutes(testApp() as unknown as { router: { stack: unknown[] } }).filter(
+    (r) => r.method !== 'GET' && !r.path.endsWith('/acknowledge'),
+  );
 
   it.each(stateChanging.map((r) => [`${r.method} ${r.path}`, r] as const))('%s refuses a signed-in request without the token', async (_label, route) => {
     const admin = await signedIn((await makeOrganisation('Csrf')).users.admin.email);
@@ -174,7 +176,10 @@ describe('sign-in, passwords and enumeration', () => {
     expect(letter.text).toContain(home.name);
     expect(letter.text).toMatch(/another e-mail address/);
     // No account was moved or made: the address still belongs to the other organisation.
-    const [owner] = await sequelize.query<{ organisation_id: string }>('SELECT organisation_id FROM users WHERE email = :email', { replacements: { email: other.users.grower.email }, type: QueryTypes.SELECT });
+    const [owner] = await sequelize.query<{ organisation_id: string }>('SELECT organisation_id FROM users WHERE email = :email', {
+      replacements: { email: other.users.grower.email },
+      type: QueryTypes.SELECT,
+    });
     expect(owner.organisation_id).toBe(other.id);
     // An address among the admin's own users is refused plainly: the admin can see those anyway.
     const own = await admin.post('/api/users', { name: 'Again', email: home.users.scout.email, role: 'scout' });
@@ -205,7 +210,9 @@ describe('markup in user text reaches e-mail only escaped, and pages carry a scr
     await sequelize.query('UPDATE farms SET name = :name WHERE id = :id', { replacements: { name: `Farm ${MARKUP}`, id: scouted.field.farmId } });
     await addContacts(scouted.field.farmId, [{ name: `Contact ${MARKUP}`, email: `contact-${org.id.slice(0, 8)}@farm.example` }]);
     const zoneSet = await acceptProposedZones(adviser, scouted);
-    const notice = await adviser.post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: `Spray the zones ${MARKUP} <script>alert(2)</script>` }).expect(201);
+    const notice = await adviser
+      .post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: `Spray the zones ${MARKUP} <script>alert(2)</script>` })
+      .expect(201);
     const preview = await adviser.get(`/api/notices/${notice.body.notice.id}/preview`).expect(200);
     expect(preview.body.html).not.toMatch(/<img src=x|<script>alert/);
     expect(preview.body.html).toContain('&lt;script&gt;alert(2)&lt;/script&gt;');

@@ -14,7 +14,12 @@ afterAll(async () => {
 async function oneSighting() {
   const setUp = await scoutingSetUp();
   const res = await uploadPhotos(setUp.scout, [{ bytes: await makeJpeg({ gps: insideField(0.25, 0.25) }) }], { pestId: setUp.pest.id, count: 7 }).expect(200);
-  return { ...setUp, sightingId: res.body.results[0].sightingId as string, photoId: res.body.results[0].photoId as string, walkId: res.body.results[0].walkId as string };
+  return {
+    ...setUp,
+    sightingId: res.body.results[0].sightingId as string,
+    photoId: res.body.results[0].photoId as string,
+    walkId: res.body.results[0].walkId as string,
+  };
 }
 
 describe('sightings', () => {

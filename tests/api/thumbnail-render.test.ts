@@ -13,8 +13,7 @@ async function twoToneWebp(width: number, height: number) {
   const wasm = createRequire(import.meta.url).resolve('@jsquash/webp/codec/enc/webp_enc_simd.wasm');
   await initWebpEncoder(await WebAssembly.compile(fs.readFileSync(wasm)));
   const data = new Uint8ClampedArray(width * height * 4);
-  for (let y = 0; y < height; y++)
-    for (let x = 0; x < width; x++) data.set(x < width / 2 ? [200, 30, 30, 255] : [30, 30, 200, 255], (y * width + x) * 4);
+  for (let y = 0; y < height; y++) for (let x = 0; x < width; x++) data.set(x < width / 2 ? [200, 30, 30, 255] : [30, 30, 200, 255], (y * width + x) * 4);
   return new Uint8Array(await encodeWebp({ data, width, height, colorSpace: 'srgb' } as ImageData, { quality: 90 }));
 }
 
@@ -28,7 +27,8 @@ describe('thumbnail of a WebP photo', () => {
     expect(rendered).toMatchObject({ width: THUMBNAIL_EDGE, height: (THUMBNAIL_EDGE * 600) / 800, source: 'decoded' });
     const thumbnail = await Jimp.read(rendered.bytes);
     expect([thumbnail.bitmap.width, thumbnail.bitmap.height]).toEqual([rendered.width, rendered.height]);
-    const at = (x: number, y: number) => Array.from(thumbnail.bitmap.data.subarray((y * thumbnail.bitmap.width + x) * 4, (y * thumbnail.bitmap.width + x) * 4 + 3));
+    const at = (x: number, y: number) =>
+      Array.from(thumbnail.bitmap.data.subarray((y * thumbnail.bitmap.width + x) * 4, (y * thumbnail.bitmap.width + x) * 4 + 3));
     const [leftR, , leftB] = at(40, 120);
     const [rightR, , rightB] = at(280, 120);
     expect(leftR).toBeGreaterThan(leftB + 100);

@@ -13,7 +13,16 @@ describe('walks', () => {
   it('starts a walk on an assigned field, and starting the same field and day again returns it', async () => {
     const { scout, field, org } = await scoutingSetUp();
     const first = await scout.post('/api/walks', { fieldId: field.id, walkedOn: '2026-11-21', notes: 'W pattern from the east gate' }).expect(201);
-    expect(first.body.walk).toMatchObject({ fieldId: field.id, fieldName: field.name, scoutId: org.users.scout.id, scoutName: org.users.scout.name, walkedOn: '2026-11-21', notes: 'W pattern from the east gate', sightingCount: 0, stopCount: 0 });
+    expect(first.body.walk).toMatchObject({
+      fieldId: field.id,
+      fieldName: field.name,
+      scoutId: org.users.scout.id,
+      scoutName: org.users.scout.name,
+      walkedOn: '2026-11-21',
+      notes: 'W pattern from the east gate',
+      sightingCount: 0,
+      stopCount: 0,
+    });
     const again = await scout.post('/api/walks', { fieldId: field.id, walkedOn: '2026-11-21' }).expect(200);
     expect(again.body.walk.id).toBe(first.body.walk.id);
   });
@@ -37,7 +46,11 @@ describe('walks', () => {
 
   it('finds or creates the walk from the photo’s own date and counts sightings and empty stops apart', async () => {
     const { scout, field, pest } = await scoutingSetUp();
-    const res = await uploadPhotos(scout, [{ bytes: await makeJpeg({ gps: insideField(0.3, 0.3), dateTimeOriginal: '2026:11:19 08:00:00', offsetTimeOriginal: '-03:00' }) }], { pestId: pest.id }).expect(200);
+    const res = await uploadPhotos(
+      scout,
+      [{ bytes: await makeJpeg({ gps: insideField(0.3, 0.3), dateTimeOriginal: '2026:11:19 08:00:00', offsetTimeOriginal: '-03:00' }) }],
+      { pestId: pest.id },
+    ).expect(200);
     const walkId = res.body.results[0].walkId;
     const stop = await scout.post(`/api/walks/${walkId}/stops`, { pestId: pest.id, ...insideField(0.8, 0.2), accuracyM: 6 }).expect(201);
     expect(stop.body.sighting).toMatchObject({ count: 0, positionSource: 'device', photoId: null, isEmptyStop: true, accuracyM: 6, status: 'placed' });

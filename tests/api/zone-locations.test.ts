@@ -21,7 +21,15 @@ let farmId: string;
 /** A small square (0.0004° × 0.0003°) around a centre, so the centre is its centroid by symmetry. */
 const square = (lon: number, lat: number): Polygon => ({
   type: 'Polygon',
-  coordinates: [[[lon - 0.0002, lat - 0.00015], [lon + 0.0002, lat - 0.00015], [lon + 0.0002, lat + 0.00015], [lon - 0.0002, lat + 0.00015], [lon - 0.0002, lat - 0.00015]]],
+  coordinates: [
+    [
+      [lon - 0.0002, lat - 0.00015],
+      [lon + 0.0002, lat - 0.00015],
+      [lon + 0.0002, lat + 0.00015],
+      [lon - 0.0002, lat + 0.00015],
+      [lon - 0.0002, lat - 0.00015],
+    ],
+  ],
 });
 
 // The field is the helpers' rectangle: corners (-96.6, 41.2), (-96.595, 41.2), (-96.595, 41.203), (-96.6, 41.203).
@@ -35,8 +43,22 @@ const square = (lon: number, lat: number): Polygon => ({
 //   y = −R × 0.0006° × π/180 = −66.72 m; φm = 41.2027°, cos φm = 0.752384; x = −83.66 m;
 //   d = √(83.66² + 66.72²) = 107.01 m; bearing = 180° + atan(83.66 / 66.72) = 180° + 51.43° = 231.43°, which is SW.
 const expected = [
-  { label: 'North-east of the gate', centre: { lon: -96.599, lat: 41.2005 }, corner: { lon: -96.6, lat: 41.2 }, distanceM: 100.45, bearingDeg: 56.39, direction: 'NE' },
-  { label: 'By the far corner', centre: { lon: -96.596, lat: 41.2024 }, corner: { lon: -96.595, lat: 41.203 }, distanceM: 107.01, bearingDeg: 231.43, direction: 'SW' },
+  {
+    label: 'North-east of the gate',
+    centre: { lon: -96.599, lat: 41.2005 },
+    corner: { lon: -96.6, lat: 41.2 },
+    distanceM: 100.45,
+    bearingDeg: 56.39,
+    direction: 'NE',
+  },
+  {
+    label: 'By the far corner',
+    centre: { lon: -96.596, lat: 41.2024 },
+    corner: { lon: -96.595, lat: 41.203 },
+    distanceM: 107.01,
+    bearingDeg: 231.43,
+    direction: 'SW',
+  },
 ];
 
 beforeAll(async () => {
@@ -45,9 +67,13 @@ beforeAll(async () => {
   const field = await makeField(org);
   farmId = field.farmId;
   const pest = await makePest(org);
-  const zones = { type: 'FeatureCollection', features: expected.map((z) => ({ type: 'Feature', properties: { label: z.label }, geometry: square(z.centre.lon, z.centre.lat) })) };
+  const zones = {
+    type: 'FeatureCollection',
+    features: expected.map((z) => ({ type: 'Feature', properties: { label: z.label }, geometry: square(z.centre.lon, z.centre.lat) })),
+  };
   const zoneSet = (await adviser.post(`/api/fields/${field.id}/zone-sets`, { pestId: pest.id, zones }).expect(201)).body.zoneSet;
-  noticeId = (await adviser.post('/api/notices', { fieldId: field.id, zoneSetId: zoneSet.id, recommendation: 'Spot-spray both zones this week.' }).expect(201)).body.notice.id;
+  noticeId = (await adviser.post('/api/notices', { fieldId: field.id, zoneSetId: zoneSet.id, recommendation: 'Spot-spray both zones this week.' }).expect(201))
+    .body.notice.id;
 });
 
 afterAll(async () => {
@@ -91,7 +117,15 @@ describe('where each zone of a notice is', () => {
   });
 
   it.each([
-    [0, 'N'], [22.4, 'N'], [22.6, 'NE'], [90, 'E'], [180, 'S'], [231.43, 'SW'], [337.6, 'N'], [359.9, 'N'], [-45, 'NW'],
+    [0, 'N'],
+    [22.4, 'N'],
+    [22.6, 'NE'],
+    [90, 'E'],
+    [180, 'S'],
+    [231.43, 'SW'],
+    [337.6, 'N'],
+    [359.9, 'N'],
+    [-45, 'NW'],
   ])('names a bearing of %s° %s on the eight-point compass (45° sectors centred on each point)', (degrees, word) => {
     expect(compassPoint(degrees)).toBe(word);
   });

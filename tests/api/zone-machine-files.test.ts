@@ -26,9 +26,23 @@ let zoneSet: { id: string; version: number };
 
 const { lon, lat } = TEST_FIELD_CORNER;
 const { lon: dLon, lat: dLat } = TEST_FIELD_SIZE;
-const box = (x0: number, y0: number, x1: number, y1: number): Polygon => ({ type: 'Polygon', coordinates: [[[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]]] });
+const box = (x0: number, y0: number, x1: number, y1: number): Polygon => ({
+  type: 'Polygon',
+  coordinates: [
+    [
+      [x0, y0],
+      [x1, y0],
+      [x1, y1],
+      [x0, y1],
+      [x0, y0],
+    ],
+  ],
+});
 // Hand-drawn zones around the two invented patches (tests/helpers/zones.ts places them at 25 %/30 % and 72 %/70 %).
-const zoneBoxes = [box(lon + dLon * 0.18, lat + dLat * 0.2, lon + dLon * 0.32, lat + dLat * 0.4), box(lon + dLon * 0.65, lat + dLat * 0.6, lon + dLon * 0.79, lat + dLat * 0.8)];
+const zoneBoxes = [
+  box(lon + dLon * 0.18, lat + dLat * 0.2, lon + dLon * 0.32, lat + dLat * 0.4),
+  box(lon + dLon * 0.65, lat + dLat * 0.6, lon + dLon * 0.79, lat + dLat * 0.8),
+];
 
 async function acceptHandDrawnZones() {
   const res = await adviser.post(`/api/fields/${scouted.field.id}/zone-sets`, {
@@ -41,7 +55,10 @@ async function acceptHandDrawnZones() {
 
 /** The ellipsoidal area PostGIS gives a geometry read back from a file: the same measure as the stored zones'. */
 async function ellipsoidalArea(geometry: Polygon | MultiPolygon) {
-  const [row] = await sequelize.query<{ area: number }>('SELECT ST_Area(ST_SetSRID(ST_GeomFromGeoJSON(:g), 4326)::geography, true) AS area', { replacements: { g: JSON.stringify(geometry) }, type: QueryTypes.SELECT });
+  const [row] = await sequelize.query<{ area: number }>('SELECT ST_Area(ST_SetSRID(ST_GeomFromGeoJSON(:g), 4326)::geography, true) AS area', {
+    replacements: { g: JSON.stringify(geometry) },
+    type: QueryTypes.SELECT,
+  });
   return row.area;
 }
 
@@ -61,11 +78,14 @@ afterAll(async () => {
 
 describe('shapefile export', () => {
   it('reads back with an independent reader as one WGS 84 polygon per zone with the stored areas', async () => {
-    const res = await adviser.get(`/api/zone-sets/${zoneSet.id}/export.shp.zip`).buffer(true).parse((r, done) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+    const res = await adviser
+      .get(`/api/zone-sets/${zoneSet.id}/export.shp.zip`)
+      .buffer(true)
+      .parse((r, done) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => done(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     expect(res.headers['content-disposition']).toMatch(/filename="long-meadow-.+-v1\.shp\.zip"/);
     const zip = await JSZip.loadAsync(res.body as Buffer);
@@ -105,11 +125,14 @@ describe('shapefile export', () => {
 
 describe('ISO 11783-10 task data export', () => {
   async function taskData(client: Client, url: string) {
-    const res = await client.get(url).buffer(true).parse((r, done) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+    const res = await client
+      .get(url)
+      .buffer(true)
+      .parse((r, done) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => done(null, Buffer.concat(chunks)));
+      });
     return res;
   }
 
@@ -121,7 +144,10 @@ describe('ISO 11783-10 task data export', () => {
     await manager.parseISOXMLFile(new Uint8Array(res.body as Buffer), 'application/zip');
     expect(manager.getWarnings()).toEqual([]);
     const root = manager.rootElement.attributes;
-    const [field] = await sequelize.query<{ area_m2: number; farm_name: string }>('SELECT f.area_m2, fa.name AS farm_name FROM fields f JOIN farms fa ON fa.id = f.farm_id WHERE f.id = :id', { replacements: { id: scouted.field.id }, type: QueryTypes.SELECT });
+    const [field] = await sequelize.query<{ area_m2: number; farm_name: string }>(
+      'SELECT f.area_m2, fa.name AS farm_name FROM fields f JOIN farms fa ON fa.id = f.farm_id WHERE f.id = :id',
+      { replacements: { id: scouted.field.id }, type: QueryTypes.SELECT },
+    );
     expect(root.Farm?.[0].attributes.FarmDesignator).toBe(field.farm_name.slice(0, 32));
     const [partfield] = root.Partfield ?? [];
     expect(partfield.attributes.PartfieldDesignator).toBe('Long Meadow');
@@ -138,7 +164,9 @@ describe('ISO 11783-10 task data export', () => {
     // ISO 11783-11 data dictionary: DDI 289 (0x0121) "Setpoint Work State", 1 = on, 0 = off (the isoxml package's DDI table agrees).
     expect(treat.attributes.ProcessDataVariable?.map((v) => [v.attributes.ProcessDataDDI, v.attributes.ProcessDataValue])).toEqual([['0121', 1]]);
     expect(doNotTreat.attributes.ProcessDataVariable?.map((v) => [v.attributes.ProcessDataDDI, v.attributes.ProcessDataValue])).toEqual([['0121', 0]]);
-    expect([task.attributes.DefaultTreatmentZoneCode, task.attributes.OutOfFieldTreatmentZoneCode, task.attributes.PositionLostTreatmentZoneCode]).toEqual([0, 0, 0]);
+    expect([task.attributes.DefaultTreatmentZoneCode, task.attributes.OutOfFieldTreatmentZoneCode, task.attributes.PositionLostTreatmentZoneCode]).toEqual([
+      0, 0, 0,
+    ]);
     const treated = isoxml.ExtendedPolygon.toGeoJSON(treat.attributes.PolygonTreatmentZoneonly ?? []) as unknown as MultiPolygon;
     const stored = await storedZones(zoneSet.id);
     const storedTotal = stored.reduce((s, z) => s + z.area_m2, 0);
@@ -170,11 +198,16 @@ describe('ISO 11783-10 task data export', () => {
 
 describe('zone files from a notice', () => {
   it('offers both files on the notice page and in the e-mail, fetched with the link token alone', async () => {
-    const notice = (await adviser.post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: 'Spot-treat both patches this week.' }).expect(201)).body.notice;
+    const notice = (
+      await adviser.post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: 'Spot-treat both patches this week.' }).expect(201)
+    ).body.notice;
     const [copy] = await sequelize.query<{ id: string }>(
       `INSERT INTO notice_recipients (notice_id, contact_name, email, status, attempts, message_id, smtp_accepted_at)
        VALUES (:noticeId, 'Ada Furrow', :email, 'sent', 1, :messageId, now()) RETURNING id`,
-      { replacements: { noticeId: notice.id, email: `ada-${org.id.slice(0, 8)}@farm.example`, messageId: `<files-${notice.id}@test.example>` }, type: QueryTypes.SELECT },
+      {
+        replacements: { noticeId: notice.id, email: `ada-${org.id.slice(0, 8)}@farm.example`, messageId: `<files-${notice.id}@test.example>` },
+        type: QueryTypes.SELECT,
+      },
     );
     const token = await issueNoticeToken(copy.id);
     const visitor = await anonymous();

@@ -1,7 +1,16 @@
 // Treatment zones: proposals recomputed from a stored check, accepted zone sets clipped to the field and
 // versioned, exports in GeoJSON (RFC 7946) and KML (OGC KML 2.2), and who may do what.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { area as turfArea, booleanClockwise, booleanPointInPolygon, difference, featureCollection, intersect, polygon as turfPolygon, multiPolygon as turfMultiPolygon } from '@turf/turf';
+import {
+  area as turfArea,
+  booleanClockwise,
+  booleanPointInPolygon,
+  difference,
+  featureCollection,
+  intersect,
+  polygon as turfPolygon,
+  multiPolygon as turfMultiPolygon,
+} from '@turf/turf';
 import { kml as kmlToGeoJson } from '@tmcw/togeojson';
 import { DOMParser } from '@xmldom/xmldom';
 import type { MultiPolygon, Polygon, Position } from 'geojson';
@@ -40,11 +49,22 @@ const { lon, lat } = TEST_FIELD_CORNER;
 const { lon: dLon, lat: dLat } = TEST_FIELD_SIZE;
 const box = (x0: number, y0: number, x1: number, y1: number): Polygon => ({
   type: 'Polygon',
-  coordinates: [[[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]]],
+  coordinates: [
+    [
+      [x0, y0],
+      [x1, y0],
+      [x1, y1],
+      [x0, y1],
+      [x0, y0],
+    ],
+  ],
 });
 const zonesBody = (geometries: Array<Polygon | MultiPolygon>, labels: string[] = []) => ({
   pestId: scouted.pest.id,
-  zones: { type: 'FeatureCollection', features: geometries.map((geometry, i) => ({ type: 'Feature', properties: labels[i] ? { label: labels[i] } : {}, geometry })) },
+  zones: {
+    type: 'FeatureCollection',
+    features: geometries.map((geometry, i) => ({ type: 'Feature', properties: labels[i] ? { label: labels[i] } : {}, geometry })),
+  },
 });
 
 describe('zone proposals', () => {
@@ -61,7 +81,10 @@ describe('zone proposals', () => {
 
   it('gives each zone an area that turf measures alike, inside the field, with the sightings turf counts inside it', async () => {
     const res = await adviser.post(`/api/checks/${scouted.checkId}/zone-proposal`, { source: 'density', marginM: 5 }).expect(200);
-    for (const zone of res.body.zones.features as Array<{ geometry: Polygon; properties: { areaM2: number; areaHa: number; areaAc: number; sightings: number } }>) {
+    for (const zone of res.body.zones.features as Array<{
+      geometry: Polygon;
+      properties: { areaM2: number; areaHa: number; areaAc: number; sightings: number };
+    }>) {
       // The engine measures in UTM; turf on the sphere. UTM's scale factor stays within 0.9996–1.001 here (Snyder 1987, §8), so areas agree within 0.5 %.
       expect(Math.abs(zone.properties.areaM2 - turfArea(zone.geometry)) / turfArea(zone.geometry)).toBeLessThan(0.005);
       expect(zone.properties.areaHa).toBeCloseTo(zone.properties.areaM2 / 10_000, 9);
@@ -75,12 +98,17 @@ describe('zone proposals', () => {
   });
 
   it('grows the zones with a wider margin and shrinks them with a higher density threshold', async () => {
-    const total = (body: { zones: { features: Array<{ properties: { areaM2: number } }> } }) => body.zones.features.reduce((s, z) => s + z.properties.areaM2, 0);
+    const total = (body: { zones: { features: Array<{ properties: { areaM2: number } }> } }) =>
+      body.zones.features.reduce((s, z) => s + z.properties.areaM2, 0);
     const narrow = (await adviser.post(`/api/checks/${scouted.checkId}/zone-proposal`, { source: 'density', marginM: 0 }).expect(200)).body;
     const wide = (await adviser.post(`/api/checks/${scouted.checkId}/zone-proposal`, { source: 'density', marginM: 25 }).expect(200)).body;
     expect(total(wide)).toBeGreaterThan(total(narrow));
-    const low = (await adviser.post(`/api/checks/${scouted.checkId}/zone-proposal`, { source: 'density', threshold: narrow.zones.threshold * 0.5, marginM: 0 }).expect(200)).body;
-    const high = (await adviser.post(`/api/checks/${scouted.checkId}/zone-proposal`, { source: 'density', threshold: narrow.zones.threshold * 1.5, marginM: 0 }).expect(200)).body;
+    const low = (
+      await adviser.post(`/api/checks/${scouted.checkId}/zone-proposal`, { source: 'density', threshold: narrow.zones.threshold * 0.5, marginM: 0 }).expect(200)
+    ).body;
+    const high = (
+      await adviser.post(`/api/checks/${scouted.checkId}/zone-proposal`, { source: 'density', threshold: narrow.zones.threshold * 1.5, marginM: 0 }).expect(200)
+    ).body;
     expect(total(low)).toBeGreaterThan(total(high));
   });
 
@@ -122,8 +150,19 @@ describe('zone sets', () => {
   });
 
   it('numbers each acceptance as a new version and supersedes the previous one', async () => {
-    const first = (await adviser.post(`/api/fields/${scouted.field.id}/zone-sets`, zonesBody([box(lon + dLon * 0.1, lat + dLat * 0.1, lon + dLon * 0.3, lat + dLat * 0.4)])).expect(201)).body.zoneSet;
-    const second = (await adviser.post(`/api/fields/${scouted.field.id}/zone-sets`, zonesBody([box(lon + dLon * 0.5, lat + dLat * 0.5, lon + dLon * 0.8, lat + dLat * 0.8)], ['North patch'])).expect(201)).body.zoneSet;
+    const first = (
+      await adviser
+        .post(`/api/fields/${scouted.field.id}/zone-sets`, zonesBody([box(lon + dLon * 0.1, lat + dLat * 0.1, lon + dLon * 0.3, lat + dLat * 0.4)]))
+        .expect(201)
+    ).body.zoneSet;
+    const second = (
+      await adviser
+        .post(
+          `/api/fields/${scouted.field.id}/zone-sets`,
+          zonesBody([box(lon + dLon * 0.5, lat + dLat * 0.5, lon + dLon * 0.8, lat + dLat * 0.8)], ['North patch']),
+        )
+        .expect(201)
+    ).body.zoneSet;
     expect(second.version).toBe(first.version + 1);
     expect(second.zones[0].label).toBe('North patch');
     expect((await adviser.get(`/api/zone-sets/${first.id}`).expect(200)).body.zoneSet.status).toBe('superseded');
@@ -143,21 +182,41 @@ describe('zone sets', () => {
   });
 
   it('refuses zones that lie wholly outside the field, or only as a sliver inside it, with a sentence', async () => {
-    const outside = await adviser.post(`/api/fields/${scouted.field.id}/zone-sets`, zonesBody([box(lon + dLon * 1.5, lat, lon + dLon * 1.8, lat + dLat * 0.3)], ['Road verge']));
+    const outside = await adviser.post(
+      `/api/fields/${scouted.field.id}/zone-sets`,
+      zonesBody([box(lon + dLon * 1.5, lat, lon + dLon * 1.8, lat + dLat * 0.3)], ['Road verge']),
+    );
     expect(outside.status).toBe(400);
     expect(outside.body.error.message).toMatch(/Road verge lies wholly outside the field/);
     // A strip overlapping the field's east edge by about 1 m (0.00001° of longitude ≈ 0.84 m here).
-    const sliver = await adviser.post(`/api/fields/${scouted.field.id}/zone-sets`, zonesBody([box(lon + dLon - 0.00001, lat + dLat * 0.2, lon + dLon * 1.2, lat + dLat * 0.6)]));
+    const sliver = await adviser.post(
+      `/api/fields/${scouted.field.id}/zone-sets`,
+      zonesBody([box(lon + dLon - 0.00001, lat + dLat * 0.2, lon + dLon * 1.2, lat + dLat * 0.6)]),
+    );
     expect(sliver.status).toBe(400);
     expect(sliver.body.error.message).toMatch(/under 500 m² inside the field/);
   });
 
   it('refuses a zone that crosses itself or is not a polygon', async () => {
-    const bowTie: Polygon = { type: 'Polygon', coordinates: [[[lon + dLon * 0.1, lat + dLat * 0.1], [lon + dLon * 0.4, lat + dLat * 0.4], [lon + dLon * 0.4, lat + dLat * 0.1], [lon + dLon * 0.1, lat + dLat * 0.4], [lon + dLon * 0.1, lat + dLat * 0.1]]] };
+    const bowTie: Polygon = {
+      type: 'Polygon',
+      coordinates: [
+        [
+          [lon + dLon * 0.1, lat + dLat * 0.1],
+          [lon + dLon * 0.4, lat + dLat * 0.4],
+          [lon + dLon * 0.4, lat + dLat * 0.1],
+          [lon + dLon * 0.1, lat + dLat * 0.4],
+          [lon + dLon * 0.1, lat + dLat * 0.1],
+        ],
+      ],
+    };
     const crossed = await adviser.post(`/api/fields/${scouted.field.id}/zone-sets`, zonesBody([bowTie]));
     expect(crossed.status).toBe(400);
     expect(crossed.body.error.message).toMatch(/Zone 1: .*crosses itself/);
-    const point = await adviser.post(`/api/fields/${scouted.field.id}/zone-sets`, { pestId: scouted.pest.id, zones: { type: 'FeatureCollection', features: [{ type: 'Feature', properties: {}, geometry: { type: 'Point', coordinates: [lon, lat] } }] } });
+    const point = await adviser.post(`/api/fields/${scouted.field.id}/zone-sets`, {
+      pestId: scouted.pest.id,
+      zones: { type: 'FeatureCollection', features: [{ type: 'Feature', properties: {}, geometry: { type: 'Point', coordinates: [lon, lat] } }] },
+    });
     expect(point.status).toBe(400);
     expect(point.body.error.message).toMatch(/Polygon or MultiPolygon/);
   });
@@ -206,16 +265,25 @@ describe('zone exports', () => {
     expect(back.features).toHaveLength(geojson.features.length);
     back.features.forEach((feature, i) => {
       expect(feature.properties?.name).toBe(geojson.features[i].properties.label);
-      const polygons = feature.geometry?.type === 'Polygon' ? [feature.geometry.coordinates] : feature.geometry?.type === 'MultiPolygon' ? feature.geometry.coordinates : (feature.geometry as { geometries: Polygon[] }).geometries.map((g) => g.coordinates);
+      const polygons =
+        feature.geometry?.type === 'Polygon'
+          ? [feature.geometry.coordinates]
+          : feature.geometry?.type === 'MultiPolygon'
+            ? feature.geometry.coordinates
+            : (feature.geometry as { geometries: Polygon[] }).geometries.map((g) => g.coordinates);
       const expected = geojson.features[i].geometry.coordinates as number[][][][];
       expect(polygons.length).toBe(expected.length);
       polygons.forEach((polygon, p) =>
-        polygon.forEach((ring, r) => ring.forEach((position, k) => {
-          expect(position[0]).toBeCloseTo(expected[p][r][k][0], 9);
-          expect(position[1]).toBeCloseTo(expected[p][r][k][1], 9);
-        })),
+        polygon.forEach((ring, r) =>
+          ring.forEach((position, k) => {
+            expect(position[0]).toBeCloseTo(expected[p][r][k][0], 9);
+            expect(position[1]).toBeCloseTo(expected[p][r][k][1], 9);
+          }),
+        ),
       );
-      expect(Math.abs(turfArea(turfMultiPolygon(polygons)) - geojson.features[i].properties.areaM2) / geojson.features[i].properties.areaM2).toBeLessThan(0.005);
+      expect(Math.abs(turfArea(turfMultiPolygon(polygons)) - geojson.features[i].properties.areaM2) / geojson.features[i].properties.areaM2).toBeLessThan(
+        0.005,
+      );
     });
   });
 });
@@ -223,11 +291,23 @@ describe('zone exports', () => {
 describe('zone access', () => {
   it('answers 404 to another organisation for zone sets, exports, proposals and fields', async () => {
     const zoneSet = await acceptProposedZones(adviser, scouted);
-    for (const url of [`/api/zone-sets/${zoneSet.id}`, `/api/zone-sets/${zoneSet.id}/export.geojson`, `/api/zone-sets/${zoneSet.id}/export.kml`, `/api/fields/${scouted.field.id}/zone-sets`]) {
+    for (const url of [
+      `/api/zone-sets/${zoneSet.id}`,
+      `/api/zone-sets/${zoneSet.id}/export.geojson`,
+      `/api/zone-sets/${zoneSet.id}/export.kml`,
+      `/api/fields/${scouted.field.id}/zone-sets`,
+    ]) {
       expect((await outsider.get(url)).status, url).toBe(404);
     }
     expect((await outsider.post(`/api/checks/${scouted.checkId}/zone-proposal`, { source: 'density' })).status).toBe(404);
-    expect((await outsider.post(`/api/fields/${scouted.field.id}/zone-sets`, zonesBody([box(lon + dLon * 0.1, lat + dLat * 0.1, lon + dLon * 0.3, lat + dLat * 0.4)]))).status).toBe(404);
+    expect(
+      (
+        await outsider.post(
+          `/api/fields/${scouted.field.id}/zone-sets`,
+          zonesBody([box(lon + dLon * 0.1, lat + dLat * 0.1, lon + dLon * 0.3, lat + dLat * 0.4)]),
+        )
+      ).status,
+    ).toBe(404);
   });
 
   it('refuses scouts and growers the adviser’s zone work, and scouts the zone sets', async () => {

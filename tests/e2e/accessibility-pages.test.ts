@@ -90,7 +90,10 @@ const rows: PageRow[] = [
     role: 'admin',
     device: 'desk',
     url: () => '/',
-    ready: (page) => main(page).getByRole('link', { name: /^Pest library \d/ }).waitFor(),
+    ready: (page) =>
+      main(page)
+        .getByRole('link', { name: /^Pest library \d/ })
+        .waitFor(),
     keyboard: {
       does: 'the pest library opened from its tile',
       run: async (page) => {
@@ -119,7 +122,11 @@ const rows: PageRow[] = [
     role: 'scout',
     device: 'phone',
     url: () => '/',
-    ready: (page, w) => page.getByRole('list', { name: 'Fields assigned to you' }).getByRole('link', { name: new RegExp(w.walkedField.name) }).waitFor(),
+    ready: (page, w) =>
+      page
+        .getByRole('list', { name: 'Fields assigned to you' })
+        .getByRole('link', { name: new RegExp(w.walkedField.name) })
+        .waitFor(),
     keyboard: {
       does: 'an assigned field opened',
       run: async (page, w) => {
@@ -133,7 +140,12 @@ const rows: PageRow[] = [
     role: 'grower',
     device: 'desk',
     url: () => '/',
-    ready: (page, w) => page.getByRole('list', { name: 'Zone notices' }).getByRole('link', { name: new RegExp(`on ${w.noticed.field.name}`) }).first().waitFor(),
+    ready: (page, w) =>
+      page
+        .getByRole('list', { name: 'Zone notices' })
+        .getByRole('link', { name: new RegExp(`on ${w.noticed.field.name}`) })
+        .first()
+        .waitFor(),
     keyboard: {
       does: 'a zone notice opened',
       run: async (page, w) => {
@@ -162,7 +174,11 @@ const rows: PageRow[] = [
         await tabTo(page, page.getByRole('button', { name: 'Send invitation' }));
         await page.keyboard.press('Enter');
         await page.getByText(`Invitation sent to ${email}`).waitFor();
-        await page.getByRole('table', { name: 'Users' }).getByRole('row', { name: new RegExp(email) }).getByText('Invited').waitFor();
+        await page
+          .getByRole('table', { name: 'Users' })
+          .getByRole('row', { name: new RegExp(email) })
+          .getByText('Invited')
+          .waitFor();
         expect(findingsTable(await seriousViolations(page))).toBe('(none)');
       },
     },
@@ -186,7 +202,10 @@ const rows: PageRow[] = [
         await typeInto(page, page.getByLabel('Source of the threshold'), 'Test threshold, not agronomic advice');
         await tabTo(page, page.getByRole('button', { name: 'Add to the library' }));
         await page.keyboard.press('Enter');
-        await page.getByRole('table', { name: 'Pest library' }).getByRole('row', { name: /Keyboard leafhopper/ }).waitFor();
+        await page
+          .getByRole('table', { name: 'Pest library' })
+          .getByRole('row', { name: /Keyboard leafhopper/ })
+          .waitFor();
       },
     },
   },
@@ -211,7 +230,10 @@ const rows: PageRow[] = [
     device: 'desk',
     url: (w) => `/admin/mailbox/${w.mailMessageId}`,
     ready: async (page, w) => {
-      await page.getByRole('article').getByRole('heading', { level: 2, name: new RegExp(w.noticed.field.name) }).waitFor();
+      await page
+        .getByRole('article')
+        .getByRole('heading', { level: 2, name: new RegExp(w.noticed.field.name) })
+        .waitFor();
       await page.getByRole('link', { name: /\.geojson$/ }).waitFor();
     },
   },
@@ -282,7 +304,13 @@ const rows: PageRow[] = [
         await expect.poll(() => page.getByText('Updating the proposal…').count(), settle).toBe(0);
         const before = (await zoneRows.count()) - 1;
         expect(before, 'the two invented patches give two zones').toBeGreaterThanOrEqual(2);
-        await pressOn(page, page.getByRole('table', { name: 'Treatment zones being edited' }).getByRole('button', { name: /^Delete / }).first());
+        await pressOn(
+          page,
+          page
+            .getByRole('table', { name: 'Treatment zones being edited' })
+            .getByRole('button', { name: /^Delete / })
+            .first(),
+        );
         await expect.poll(() => zoneRows.count()).toBe(before);
         await pressOn(page, page.getByRole('button', { name: 'Accept zones' }));
         await page.getByText(`Stored as version 1 (${before - 1} zone`).waitFor({ timeout: 30_000 });
@@ -345,7 +373,11 @@ const rows: PageRow[] = [
     role: 'scout',
     device: 'phone',
     url: () => '/scout/fields',
-    ready: (page, w) => page.getByRole('list', { name: 'Fields assigned to you' }).getByRole('link', { name: new RegExp(w.walkedField.name) }).waitFor(),
+    ready: (page, w) =>
+      page
+        .getByRole('list', { name: 'Fields assigned to you' })
+        .getByRole('link', { name: new RegExp(w.walkedField.name) })
+        .waitFor(),
     keyboard: {
       does: 'the upload-anywhere page opened',
       run: async (page) => {
@@ -378,7 +410,10 @@ const rows: PageRow[] = [
     keyboard: {
       does: 'a photo chosen and sent to the field it was taken in',
       run: async (page, w) => {
-        const row = await sendOnePhotoByKeyboard(page, { name: 'headland.jpg', buffer: await makeJpeg({ gps: { lon: TEST_FIELD_CORNER.lon + 0.003, lat: TEST_FIELD_CORNER.lat + 0.002 }, markSeed: 21 }) });
+        const row = await sendOnePhotoByKeyboard(page, {
+          name: 'headland.jpg',
+          buffer: await makeJpeg({ gps: { lon: TEST_FIELD_CORNER.lon + 0.003, lat: TEST_FIELD_CORNER.lat + 0.002 }, markSeed: 21 }),
+        });
         expect(await row.getAttribute('data-outcome')).toBe('placed');
         await row.getByText(new RegExp(w.walkedField.name)).first().waitFor();
         await expectAccessible(page);
@@ -563,15 +598,18 @@ describe('accessibility of each signed-in page', { timeout: 240_000 }, () => {
     }
   });
 
-  it.each(rows.map((row) => [`${row.page} as ${row.role}${row.keyboard ? `, ${row.keyboard.does}` : ''}`, row] as const))('%s: no serious violation, every control reachable, main job by keyboard', async (_name, row) => {
-    const { context, page } = await openAs(row);
-    try {
-      await page.goto(`${server.url}${row.url(world)}`);
-      await row.ready(page, world);
-      await expectAccessible(page);
-      await row.keyboard?.run(page, world);
-    } finally {
-      await context.close();
-    }
-  });
+  it.each(rows.map((row) => [`${row.page} as ${row.role}${row.keyboard ? `, ${row.keyboard.does}` : ''}`, row] as const))(
+    '%s: no serious violation, every control reachable, main job by keyboard',
+    async (_name, row) => {
+      const { context, page } = await openAs(row);
+      try {
+        await page.goto(`${server.url}${row.url(world)}`);
+        await row.ready(page, world);
+        await expectAccessible(page);
+        await row.keyboard?.run(page, world);
+      } finally {
+        await context.close();
+      }
+    },
+  );
 });

@@ -44,7 +44,13 @@ beforeAll(async () => {
   const zoneSet = await acceptProposedZones(adviser, scouted);
   const contact = { name: 'Tamsin Reed', email: `tamsin-${org.id.slice(0, 8)}@farm.example` };
   await addContacts(scouted.field.farmId, [contact]);
-  const notice = await adviser.post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: 'Spot-treat the zones only, following the product label; re-scout in a week.' }).expect(201);
+  const notice = await adviser
+    .post('/api/notices', {
+      fieldId: scouted.field.id,
+      zoneSetId: zoneSet.id,
+      recommendation: 'Spot-treat the zones only, following the product label; re-scout in a week.',
+    })
+    .expect(201);
   await adviser.post(`/api/notices/${notice.body.notice.id}/send`).expect(202);
   noticeToken = noticeLinkToken((await waitForMessage(contact.email, 1, 30_000))[0]);
 });
@@ -117,7 +123,10 @@ describe('accessibility', { timeout: 240_000 }, () => {
       await page.locator('.leaflet-container').first().waitFor();
       await expectAccessible(page);
 
-      await sendOnePhotoByKeyboard(page, { name: 'leaf.jpg', buffer: await makeJpeg({ gps: { lon: TEST_FIELD_CORNER.lon + 0.002, lat: TEST_FIELD_CORNER.lat + 0.001 }, markSeed: 7 }) });
+      await sendOnePhotoByKeyboard(page, {
+        name: 'leaf.jpg',
+        buffer: await makeJpeg({ gps: { lon: TEST_FIELD_CORNER.lon + 0.002, lat: TEST_FIELD_CORNER.lat + 0.001 }, markSeed: 7 }),
+      });
 
       await focusTop(page);
       await tabTo(page, page.getByRole('button', { name: 'Nothing found here' }));
@@ -177,7 +186,10 @@ describe('accessibility', { timeout: 240_000 }, () => {
       const page = await signedInPage(context, org.users.admin.email);
       await page.goto(`${server.url}/admin/farms`);
       await page.getByRole('heading', { name: 'Farms' }).waitFor();
-      await page.getByRole('link', { name: /Hazel Ridge/ }).first().waitFor();
+      await page
+        .getByRole('link', { name: /Hazel Ridge/ })
+        .first()
+        .waitFor();
       await expectAccessible(page);
 
       await focusTop(page);
@@ -192,7 +204,10 @@ describe('accessibility', { timeout: 240_000 }, () => {
 
       await page.goto(`${server.url}/admin/farms/${farm.id}`);
       await page.getByRole('heading', { name: 'Hazel Ridge' }).waitFor();
-      await page.getByRole('link', { name: /Upper Terrace/ }).first().waitFor();
+      await page
+        .getByRole('link', { name: /Upper Terrace/ })
+        .first()
+        .waitFor();
       await expectAccessible(page);
       await focusTop(page);
       await tabTo(page, page.getByRole('link', { name: /Upper Terrace/ }).first());

@@ -95,7 +95,10 @@ describe('admin fields in the browser', () => {
     await signInAsAdmin(page);
 
     await page.goto(`${server.url}/admin/farms`);
-    await page.getByRole('link', { name: /Hollow Creek/ }).first().click();
+    await page
+      .getByRole('link', { name: /Hollow Creek/ })
+      .first()
+      .click();
     await page.getByRole('heading', { name: 'Hollow Creek' }).waitFor();
     await page.getByRole('button', { name: 'Delete farm' }).click();
     await page.getByRole('dialog').getByRole('button', { name: 'Delete farm' }).click();

@@ -37,11 +37,19 @@ async function addPatches(ids: DemoIds) {
   const perMetreLat = 1 / 111_320;
   const random = createRandom('field-review-e2e');
   const points: StopPoint[] = [];
-  for (const [cx, cy] of [[120, 110], [640, 390], [600, 100]]) {
+  for (const [cx, cy] of [
+    [120, 110],
+    [640, 390],
+    [600, 100],
+  ]) {
     for (let i = 0; i < 20; i++) {
       const angle = 2 * Math.PI * random();
       const radius = 25 * Math.sqrt(random());
-      points.push({ lon: lon0 + (cx + radius * Math.cos(angle)) * perMetreLon, lat: lat0 + (cy + radius * Math.sin(angle)) * perMetreLat, count: 5 + Math.round(30 * random()) });
+      points.push({
+        lon: lon0 + (cx + radius * Math.cos(angle)) * perMetreLon,
+        lat: lat0 + (cy + radius * Math.sin(angle)) * perMetreLat,
+        count: 5 + Math.round(30 * random()),
+      });
     }
   }
   const org = { id: ids.organisationId, users: { scout: { id: ids.users.scout } } } as unknown as TestOrganisation;
@@ -85,15 +93,13 @@ function parseCsv(text: string): string[][] {
       if (c === '"' && text[i + 1] === '"') {
         field += '"';
         i++;
-      }
-      else if (c === '"') quoted = false;
+      } else if (c === '"') quoted = false;
       else field += c;
     } else if (c === '"') quoted = true;
     else if (c === ',') {
       record.push(field);
       field = '';
-    }
-    else if (c === '\r' && text[i + 1] === '\n') {
+    } else if (c === '\r' && text[i + 1] === '\n') {
       record.push(field);
       records.push(record);
       record = [];

@@ -126,13 +126,16 @@ describe('scout on a phone', () => {
       expect(await list.filter({ hasText: 'from photo GPS' }).count()).toBe(2);
       await expect.poll(() => rows.nth(2).textContent(), settle).toContain('Pinned by hand in North Forty');
       // The thumbnails arrive from the background job; the walk asks again until they are there.
-      const loadedThumbnails = () => list.locator('img').evaluateAll((imgs) => imgs.filter((i) => (i as HTMLImageElement).complete && (i as HTMLImageElement).naturalWidth > 0).length);
+      const loadedThumbnails = () =>
+        list.locator('img').evaluateAll((imgs) => imgs.filter((i) => (i as HTMLImageElement).complete && (i as HTMLImageElement).naturalWidth > 0).length);
       await expect.poll(loadedThumbnails, { timeout: 60_000, interval: 500 }).toBe(3);
       await shot(page, '5-walk');
 
       // What the server stored: the pinned one lies inside the field (turf as the outside judge).
       const scout = await signedIn(org.users.scout.email);
-      const detail = (await scout.get(`/api/walks/${walkId}`).expect(200)).body as { sightings: Array<{ status: string; positionSource: string; position: { lon: number; lat: number } | null; count: number | null }> };
+      const detail = (await scout.get(`/api/walks/${walkId}`).expect(200)).body as {
+        sightings: Array<{ status: string; positionSource: string; position: { lon: number; lat: number } | null; count: number | null }>;
+      };
       const pinned = detail.sightings.find((s) => s.positionSource === 'pin')!;
       expect(pinned.status).toBe('placed');
       expect(booleanPointInPolygon([pinned.position!.lon, pinned.position!.lat], boundary)).toBe(true);
@@ -235,7 +238,15 @@ describe('scout on a phone', () => {
       await shot(page, '7-stop');
 
       const scout = await signedIn(org.users.scout.email);
-      const detail = (await scout.get(`/api/walks/${walkId}`).expect(200)).body as { sightings: Array<{ isEmptyStop: boolean; count: number | null; positionSource: string; accuracyM: number | null; position: { lon: number; lat: number } }> };
+      const detail = (await scout.get(`/api/walks/${walkId}`).expect(200)).body as {
+        sightings: Array<{
+          isEmptyStop: boolean;
+          count: number | null;
+          positionSource: string;
+          accuracyM: number | null;
+          position: { lon: number; lat: number };
+        }>;
+      };
       expect(detail.sightings).toHaveLength(1);
       const [stop] = detail.sightings;
       expect(stop).toMatchObject({ isEmptyStop: true, count: 0, positionSource: 'device', accuracyM: 6 });
@@ -253,7 +264,11 @@ describe('scout on a phone', () => {
     const eastCorner = { lon: TEST_FIELD_CORNER.lon + 0.02, lat: TEST_FIELD_CORNER.lat };
     const east = await createField(admin, farm.id, rectangleBoundary(eastCorner), { name: 'East Quarter' });
     await admin.post(`/api/fields/${east.id}/scouts`, { userId: org.users.scout.id }).expect(204);
-    const photo = { name: 'found-it.jpg', mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: { lon: eastCorner.lon + 0.002, lat: eastCorner.lat + 0.001 }, markSeed: 66 }) };
+    const photo = {
+      name: 'found-it.jpg',
+      mimeType: 'image/jpeg',
+      buffer: await makeJpeg({ gps: { lon: eastCorner.lon + 0.002, lat: eastCorner.lat + 0.001 }, markSeed: 66 }),
+    };
 
     const context = await phone();
     try {

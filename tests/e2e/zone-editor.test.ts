@@ -52,7 +52,10 @@ describe('zone editor and new proposals', () => {
 
       // A hand edit: one zone deleted from the table.
       const proposed = await rows.count();
-      await rows.first().getByRole('button', { name: /^Delete / }).click();
+      await rows
+        .first()
+        .getByRole('button', { name: /^Delete / })
+        .click();
       await expect.poll(() => rows.count()).toBe(proposed - 1);
 
       // A new margin now waits; keeping the edits leaves the table as it was.

@@ -84,7 +84,10 @@ describe('zone notice in the browser', () => {
     const total = adviserPage.getByTestId('total-treated').locator('[data-unit="ha"]');
     const before = number(await total.textContent());
     await adviserPage.getByLabel('Margin (m)').fill('25');
-    await adviserPage.waitForFunction((old) => Number(document.querySelector('[data-testid="total-treated"] [data-unit="ha"]')?.textContent?.replace(/[^\d.]/g, '')) > old, before);
+    await adviserPage.waitForFunction(
+      (old) => Number(document.querySelector('[data-testid="total-treated"] [data-unit="ha"]')?.textContent?.replace(/[^\d.]/g, '')) > old,
+      before,
+    );
     expect(number(await total.textContent())).toBeGreaterThan(before);
     const proposed = await zoneRows.count();
 
@@ -106,7 +109,9 @@ describe('zone notice in the browser', () => {
 
     // Compose, preview and send.
     await adviserPage.getByRole('link', { name: 'Write the notice' }).first().click();
-    await adviserPage.getByLabel('Recommendation').fill('Spot-treat zones 1 and 2 only, following the product label; leave the rest of the field untreated. Re-scout the whole field in seven days.');
+    await adviserPage
+      .getByLabel('Recommendation')
+      .fill('Spot-treat zones 1 and 2 only, following the product label; leave the rest of the field untreated. Re-scout the whole field in seven days.');
     await adviserPage.getByLabel('Re-scout on').fill('2026-07-12');
     await adviserPage.getByRole('button', { name: 'Save and preview' }).click();
     await adviserPage.getByTestId('preview-subject').waitFor();
@@ -122,7 +127,10 @@ describe('zone notice in the browser', () => {
     const adminPage = await browser.newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(adminPage, org.users.admin.email);
     await adminPage.goto(`${server.url}/admin/mailbox`);
-    const listed = adminPage.getByRole('list', { name: 'Messages' }).getByRole('link').filter({ hasText: `To ${contact.email}` });
+    const listed = adminPage
+      .getByRole('list', { name: 'Messages' })
+      .getByRole('link')
+      .filter({ hasText: `To ${contact.email}` });
     await listed.waitFor();
     expect(await listed.textContent()).toContain(message.subject ?? '');
     await listed.click();
@@ -190,10 +198,16 @@ describe('zone notice in the browser', () => {
     // The grower, signed in, sees the notice among their farm's notices with its state.
     const growerHome = await browser.newPage({ viewport: { width: 900, height: 900 } });
     await signIn(growerHome, org.users.grower.email);
-    await growerHome.getByRole('list', { name: 'Zone notices' }).getByText(/Acknowledged/).waitFor();
+    await growerHome
+      .getByRole('list', { name: 'Zone notices' })
+      .getByText(/Acknowledged/)
+      .waitFor();
     await shot(growerHome, '8-grower-home');
     // …and opens it from there, no token needed: the same notice, already acknowledged through the link.
-    await growerHome.getByRole('list', { name: 'Zone notices' }).getByRole('link', { name: /on Long meadow/ }).click();
+    await growerHome
+      .getByRole('list', { name: 'Zone notices' })
+      .getByRole('link', { name: /on Long meadow/ })
+      .click();
     await growerHome.waitForURL(/\/grower\/notices\/[0-9a-f-]{36}$/);
     await growerHome.getByRole('heading', { level: 1, name: /on Long meadow/ }).waitFor();
     await growerHome.getByText(/Spot-treat zones 1 and 2 only/).waitFor();

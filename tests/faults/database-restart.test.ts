@@ -25,7 +25,10 @@ async function until<T>(what: string, probe: () => Promise<T | null>, timeoutMs 
   }
 }
 
-const farmBody = (name: string) => ({ name, contacts: [1, 2, 3].map((i) => ({ name: `Contact ${i}`, email: `c${i}-${name.replace(/\W/g, '').toLowerCase()}@farm.example` })) });
+const farmBody = (name: string) => ({
+  name,
+  contacts: [1, 2, 3].map((i) => ({ name: `Contact ${i}`, email: `c${i}-${name.replace(/\W/g, '').toLowerCase()}@farm.example` })),
+});
 
 describe('a database restart while serving', () => {
   const cluster = testCluster();

@@ -87,13 +87,18 @@ interface CopyRow {
 }
 
 const copiesOf = (noticeId: string) =>
-  sequelize.query<CopyRow>('SELECT id, email, message_id, status, attempts, smtp_accepted_at FROM notice_recipients WHERE notice_id = :noticeId ORDER BY email', {
-    replacements: { noticeId },
-    type: QueryTypes.SELECT,
-  });
+  sequelize.query<CopyRow>(
+    'SELECT id, email, message_id, status, attempts, smtp_accepted_at FROM notice_recipients WHERE notice_id = :noticeId ORDER BY email',
+    {
+      replacements: { noticeId },
+      type: QueryTypes.SELECT,
+    },
+  );
 
 async function sentNotice() {
-  const draft = await adviser.post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: 'Spot-spray both zones this week; leave the rest untreated.' }).expect(201);
+  const draft = await adviser
+    .post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: 'Spot-spray both zones this week; leave the rest untreated.' })
+    .expect(201);
   await adviser.post(`/api/notices/${draft.body.notice.id}/send`).expect(202);
   return draft.body.notice.id as string;
 }
@@ -118,11 +123,17 @@ async function killAndExpire(child: ReturnType<typeof worker>, jobId: string) {
 async function settled(noticeId: string, jobId: string) {
   const copies = await until('every copy accepted and the notice sent', async () => {
     const rows = await copiesOf(noticeId);
-    const [notice] = await sequelize.query<{ status: string }>('SELECT status FROM notices WHERE id = :noticeId', { replacements: { noticeId }, type: QueryTypes.SELECT });
+    const [notice] = await sequelize.query<{ status: string }>('SELECT status FROM notices WHERE id = :noticeId', {
+      replacements: { noticeId },
+      type: QueryTypes.SELECT,
+    });
     return notice.status === 'sent' && rows.length === 2 && rows.every((r) => r.status === 'sent') ? rows : null;
   });
   const job = await until('the retried job to complete', async () => {
-    const [row] = await sequelize.query<{ state: string; retry_count: number }>('SELECT state, retry_count FROM pgboss.job WHERE id = :jobId', { replacements: { jobId }, type: QueryTypes.SELECT });
+    const [row] = await sequelize.query<{ state: string; retry_count: number }>('SELECT state, retry_count FROM pgboss.job WHERE id = :jobId', {
+      replacements: { jobId },
+      type: QueryTypes.SELECT,
+    });
     return row?.state === 'completed' ? row : null;
   });
   expect(job.retry_count).toBeGreaterThanOrEqual(1);

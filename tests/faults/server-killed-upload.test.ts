@@ -36,7 +36,12 @@ afterAll(reapChildren);
 
 async function startApp() {
   const child = startFixture('server.ts', { WORKERS: 'off', FAULT_PORT: String(port) });
-  await until('the app to answer', () => fetch(`${base}/api/auth/csrf`).then((r) => r.ok, () => false));
+  await until('the app to answer', () =>
+    fetch(`${base}/api/auth/csrf`).then(
+      (r) => r.ok,
+      () => false,
+    ),
+  );
   return child;
 }
 
@@ -45,7 +50,11 @@ interface Session {
   csrf: string;
 }
 
-const cookiesOf = (res: Response) => res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+const cookiesOf = (res: Response) =>
+  res.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
 
 /** Signs in to the child process over HTTP; the session is kept in PostgreSQL, so it outlives a restart. */
 async function signInOverHttp(email: string): Promise<Session> {
@@ -92,7 +101,11 @@ function startUpload(session: Session, batch: Batch, sendBytes = batch.bytes.len
 }
 
 async function sendBatch(session: Session, batch: Batch) {
-  const res = await fetch(`${base}/api/photos`, { method: 'POST', headers: { 'content-type': batch.contentType, cookie: session.cookie, 'x-csrf-token': session.csrf }, body: batch.bytes });
+  const res = await fetch(`${base}/api/photos`, {
+    method: 'POST',
+    headers: { 'content-type': batch.contentType, cookie: session.cookie, 'x-csrf-token': session.csrf },
+    body: batch.bytes,
+  });
   expect(res.status).toBe(200);
   return ((await res.json()) as { results: Array<{ outcome: string; sightingId?: string; photoId?: string }> }).results;
 }
@@ -114,7 +127,10 @@ const storedPhotos = (organisationId: string) =>
     { replacements: { org: organisationId }, type: QueryTypes.SELECT },
   );
 
-const filesOf = (organisationId: string) => uploadedFiles().map((f) => f.split(path.sep).join('/')).filter((f) => f.startsWith(`${organisationId}/`));
+const filesOf = (organisationId: string) =>
+  uploadedFiles()
+    .map((f) => f.split(path.sep).join('/'))
+    .filter((f) => f.startsWith(`${organisationId}/`));
 
 /** Nothing half-written: each photo row has one sighting and its whole file, each file has its row, no temp file anywhere. */
 async function expectWholeOrAbsent(organisationId: string) {
@@ -132,7 +148,14 @@ async function expectWholeOrAbsent(organisationId: string) {
 async function makeBatch(setUp: ScoutingSetUp) {
   const photos = await Promise.all(
     Array.from({ length: BATCH_SIZE }, (_, i) =>
-      makeJpeg({ width: 640, height: 480, markSeed: 1000 + i, gps: insideField(0.15 + 0.14 * i, 0.5), dateTimeOriginal: '2026:03:10 10:00:00', offsetTimeOriginal: '-03:00' }),
+      makeJpeg({
+        width: 640,
+        height: 480,
+        markSeed: 1000 + i,
+        gps: insideField(0.15 + 0.14 * i, 0.5),
+        dateTimeOriginal: '2026:03:10 10:00:00',
+        offsetTimeOriginal: '-03:00',
+      }),
     ),
   );
   return { photos, batch: await batchBody(photos, { pestId: setUp.pest.id, fieldId: setUp.field.id }) };
@@ -155,12 +178,18 @@ async function restartAndResend(setUp: ScoutingSetUp, session: Session, photos: 
 
   const after = await expectWholeOrAbsent(setUp.org.id);
   expect(after.map((p) => p.sha256).sort()).toEqual(photos.map(sha256).sort());
-  const [{ sightings }] = await sequelize.query<{ sightings: number }>('SELECT count(*)::int AS sightings FROM sightings WHERE field_id = :fieldId AND deleted_at IS NULL', {
-    replacements: { fieldId: setUp.field.id },
-    type: QueryTypes.SELECT,
-  });
+  const [{ sightings }] = await sequelize.query<{ sightings: number }>(
+    'SELECT count(*)::int AS sightings FROM sightings WHERE field_id = :fieldId AND deleted_at IS NULL',
+    {
+      replacements: { fieldId: setUp.field.id },
+      type: QueryTypes.SELECT,
+    },
+  );
   expect(sightings).toBe(BATCH_SIZE);
-  return { removed: removed.map((f) => path.relative(config.uploadDir, f).split(path.sep).join('/')).filter((f) => f.startsWith(`${setUp.org.id}/`)), storedBefore };
+  return {
+    removed: removed.map((f) => path.relative(config.uploadDir, f).split(path.sep).join('/')).filter((f) => f.startsWith(`${setUp.org.id}/`)),
+    storedBefore,
+  };
 }
 
 describe('the server killed during an upload batch', () => {
@@ -198,7 +227,10 @@ describe('the server killed during an upload batch', () => {
       await sequelize.query(
         `INSERT INTO sightings (organisation_id, field_id, walk_id, pest_id, photo_sha256, position_source, status, created_by)
          VALUES (:org, :fieldId, :walkId, :pestId, :sha, 'pin', 'needs-pin', :scout)`,
-        { replacements: { org: setUp.org.id, fieldId: setUp.field.id, walkId: walk.id, pestId: setUp.pest.id, sha: heldSha, scout: setUp.org.users.scout.id }, transaction: hold },
+        {
+          replacements: { org: setUp.org.id, fieldId: setUp.field.id, walkId: walk.id, pestId: setUp.pest.id, sha: heldSha, scout: setUp.org.users.scout.id },
+          transaction: hold,
+        },
       );
 
       const upload = startUpload(session, batch);

@@ -42,13 +42,18 @@ describe('a thumbnail worker killed mid-job', () => {
       return row.thumbnail_status === 'ready' ? row : null;
     });
     const job = await until('the retried job to complete', async () => {
-      const [row] = await sequelize.query<{ state: string; retry_count: number }>('SELECT state, retry_count FROM pgboss.job WHERE id = :jobId', { replacements: { jobId }, type: QueryTypes.SELECT });
+      const [row] = await sequelize.query<{ state: string; retry_count: number }>('SELECT state, retry_count FROM pgboss.job WHERE id = :jobId', {
+        replacements: { jobId },
+        type: QueryTypes.SELECT,
+      });
       return row?.state === 'completed' ? row : null;
     });
     expect(job.retry_count).toBeGreaterThanOrEqual(1);
 
     const base = photo.storage_key.replace(/\.[a-z]+$/, '');
-    const files = uploadedFiles().map((f) => f.split(path.sep).join('/')).filter((f) => f.startsWith(base));
+    const files = uploadedFiles()
+      .map((f) => f.split(path.sep).join('/'))
+      .filter((f) => f.startsWith(base));
     expect(files.sort()).toEqual([photo.storage_key, photo.thumbnail_key].sort());
     expect(uploadedFiles().filter((f) => path.basename(f).startsWith('.incoming-'))).toEqual([]);
     const thumb = await scout.get(`/api/photos/${photoId}/thumbnail`).expect(200);

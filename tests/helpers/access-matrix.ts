@@ -88,7 +88,10 @@ export async function buildAccessWorld(): Promise<AccessWorld> {
   const pest = await createPest(admin);
   const invitedEmail = `invited-${crypto.randomBytes(4).toString('hex')}@test.example`;
   await admin.post('/api/users', { name: 'Invited Adviser', email: invitedEmail, role: 'adviser' }).expect(202);
-  const [invited] = await sequelize.query<{ id: string }>('SELECT id FROM users WHERE email = :email', { replacements: { email: invitedEmail }, type: QueryTypes.SELECT });
+  const [invited] = await sequelize.query<{ id: string }>('SELECT id FROM users WHERE email = :email', {
+    replacements: { email: invitedEmail },
+    type: QueryTypes.SELECT,
+  });
 
   const foreignFarm = await createFarm(clients.otherAdmin);
   const foreignField = await createField(clients.otherAdmin, foreignFarm.id, plainField(4));
@@ -160,12 +163,26 @@ export interface AccessRow {
 }
 
 /** One line of the table: `row('DELETE', '/api/fields/{newField}', adminOnly(204))`. */
-export const row = (method: Method, path: string, expected: Expected, body?: AccessRow['body'], note?: string): AccessRow => ({ method, path, expected, body, note });
+export const row = (method: Method, path: string, expected: Expected, body?: AccessRow['body'], note?: string): AccessRow => ({
+  method,
+  path,
+  expected,
+  body,
+  note,
+});
 
 /** A route only an admin may use; `foreign` is what another organisation's admin gets (404 when the path names a home id). */
 export const adminOnly = (ok: number, foreign = 404): Expected => ({ anonymous: 401, admin: ok, adviser: 403, scout: 403, grower: 403, otherAdmin: foreign });
 /** A route every signed-in person may use; override the callers who see less. */
-export const anySignedIn = (ok: number, overrides: Partial<Expected> = {}): Expected => ({ anonymous: 401, admin: ok, adviser: ok, scout: ok, grower: ok, otherAdmin: ok, ...overrides });
+export const anySignedIn = (ok: number, overrides: Partial<Expected> = {}): Expected => ({
+  anonymous: 401,
+  admin: ok,
+  adviser: ok,
+  scout: ok,
+  grower: ok,
+  otherAdmin: ok,
+  ...overrides,
+});
 export const everyone = (ok: number): Expected => ({ anonymous: ok, admin: ok, adviser: ok, scout: ok, grower: ok, otherAdmin: ok });
 
 /** Sends the row's request as every caller and returns the statuses; admins go last, so a delete that works runs once other callers have been refused. */

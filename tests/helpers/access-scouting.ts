@@ -65,7 +65,8 @@ export async function buildScoutingWorld(): Promise<ScoutingWorld> {
   await addContacts(checked.field.farmId, [{ name: 'Matrix Contact', email: `matrix-${home.id.slice(0, 8)}@farm.example` }]);
   const zoneSet = await acceptProposedZones(clients.adviser, checked);
   const recommendation = 'Spot-spray the two zones within five days; re-scout the rest next week.';
-  const notice = (await clients.adviser.post('/api/notices', { fieldId: checked.field.id, zoneSetId: zoneSet.id, recommendation }).expect(201)).body.notice.id as string;
+  const notice = (await clients.adviser.post('/api/notices', { fieldId: checked.field.id, zoneSetId: zoneSet.id, recommendation }).expect(201)).body.notice
+    .id as string;
   const recipient = await addSentCopy(notice, 'Matrix Grower', `copy-${home.id.slice(0, 8)}@farm.example`);
   const spareRecipient = await addSentCopy(notice, 'Spare Grower', `spare-${home.id.slice(0, 8)}@farm.example`);
   await sequelize.query(`UPDATE notices SET status = 'sent', sent_at = now() WHERE id = :notice`, { replacements: { notice } });
@@ -85,7 +86,8 @@ export async function buildScoutingWorld(): Promise<ScoutingWorld> {
   };
   // A fresh unanswered grower question per caller, asked through the copy's link (a question is answered once).
   world.makers.newQuestion = async () =>
-    (await (await anonymous()).post(`/api/notice-links/${noticeToken}/questions`, { text: 'Does the margin by the ditch need a wider buffer?' }).expect(201)).body.question.id as string;
+    (await (await anonymous()).post(`/api/notice-links/${noticeToken}/questions`, { text: 'Does the margin by the ditch need a wider buffer?' }).expect(201))
+      .body.question.id as string;
   world.makers.newDraftNotice = async () =>
     (await clients.adviser.post('/api/notices', { fieldId: checked.field.id, zoneSetId: zoneSet.id, recommendation }).expect(201)).body.notice.id as string;
 

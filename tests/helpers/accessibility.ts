@@ -23,7 +23,9 @@ export async function seriousViolations(page: Page): Promise<AxeFinding[]> {
 
 /** The content of each sandboxed frame with a srcdoc, loaded as a page of its own in the same context and checked there. */
 async function sandboxedFrameViolations(page: Page): Promise<AxeFinding[]> {
-  const frames = await page.locator('iframe[sandbox][srcdoc]').evaluateAll((all) => all.map((f) => ({ title: f.getAttribute('title') ?? '', html: f.getAttribute('srcdoc') ?? '' })));
+  const frames = await page
+    .locator('iframe[sandbox][srcdoc]')
+    .evaluateAll((all) => all.map((f) => ({ title: f.getAttribute('title') ?? '', html: f.getAttribute('srcdoc') ?? '' })));
   const findings: AxeFinding[] = [];
   for (const frame of frames) {
     const framePage = await page.context().newPage();
@@ -47,7 +49,10 @@ function findingsOf(violations: Awaited<ReturnType<AxeBuilder['analyze']>>['viol
         rule: v.id,
         help: v.help,
         target: node.target.map(String).join(' ').slice(0, 80),
-        detail: (node.failureSummary ?? '').replace(/\s+/g, ' ').replace(/^Fix (any|all) of the following: /, '').slice(0, 140),
+        detail: (node.failureSummary ?? '')
+          .replace(/\s+/g, ' ')
+          .replace(/^Fix (any|all) of the following: /, '')
+          .slice(0, 140),
       })),
     );
 }
@@ -82,7 +87,17 @@ const INTERACTIVE = 'a[href], button, input:not([type="hidden"]), select, textar
 export async function walkWithTab(page: Page, maxPresses = 400): Promise<TabWalk> {
   const expected = await page.evaluate((selector) => {
     const describe = (el: Element) => {
-      const label = (el.getAttribute('aria-label') ?? (el as HTMLElement).innerText ?? el.getAttribute('title') ?? (el as HTMLInputElement).labels?.[0]?.innerText ?? el.getAttribute('name') ?? '').replace(/\s+/g, ' ').trim().slice(0, 50);
+      const label = (
+        el.getAttribute('aria-label') ??
+        (el as HTMLElement).innerText ??
+        el.getAttribute('title') ??
+        (el as HTMLInputElement).labels?.[0]?.innerText ??
+        el.getAttribute('name') ??
+        ''
+      )
+        .replace(/\s+/g, ' ')
+        .trim()
+        .slice(0, 50);
       return `${el.tagName.toLowerCase()}${el.getAttribute('type') ? `[${el.getAttribute('type')}]` : ''} “${label}”`;
     };
     const keys: string[] = [];
@@ -116,7 +131,9 @@ export async function walkWithTab(page: Page, maxPresses = 400): Promise<TabWalk
       if (el.closest('.leaflet-container')) continue;
       const pointer = getComputedStyle(el).cursor === 'pointer' && (!el.parentElement || getComputedStyle(el.parentElement).cursor !== 'pointer');
       if ((pointer || el.matches(widget)) && !el.hasAttribute('tabindex') && el.checkVisibility({ visibilityProperty: true })) {
-        found.push(`${el.tagName.toLowerCase()}${el.getAttribute('role') ? `[role=${el.getAttribute('role')}]` : ''} “${el.innerText.replace(/\s+/g, ' ').trim().slice(0, 50)}”`);
+        found.push(
+          `${el.tagName.toLowerCase()}${el.getAttribute('role') ? `[role=${el.getAttribute('role')}]` : ''} “${el.innerText.replace(/\s+/g, ' ').trim().slice(0, 50)}”`,
+        );
       }
     }
     return found;

@@ -28,11 +28,18 @@ export function utmRectangle(lon: number, lat: number, widthM: number, heightM: 
 export function degreeRectangle(lon: number, lat: number, dLon: number, dLat: number): Polygon {
   return {
     type: 'Polygon',
-    coordinates: [[[lon, lat], [lon + dLon, lat], [lon + dLon, lat + dLat], [lon, lat + dLat], [lon, lat]]],
+    coordinates: [
+      [
+        [lon, lat],
+        [lon + dLon, lat],
+        [lon + dLon, lat + dLat],
+        [lon, lat + dLat],
+        [lon, lat],
+      ],
+    ],
   };
 }
 
 /** A field of about 400 m × 250 m (10 ha) in open farmland of our choosing (central Iowa). */
 export const TEST_FIELD_ORIGIN = { lon: -93.62, lat: 42.03 } as const;
-export const plainField = (offsetIndex = 0): Polygon =>
-  utmRectangle(TEST_FIELD_ORIGIN.lon + offsetIndex * 0.01, TEST_FIELD_ORIGIN.lat, 400, 250);
+export const plainField = (offsetIndex = 0): Polygon => utmRectangle(TEST_FIELD_ORIGIN.lon + offsetIndex * 0.01, TEST_FIELD_ORIGIN.lat, 400, 250);

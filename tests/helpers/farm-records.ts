@@ -14,8 +14,19 @@ export async function createFarm(admin: Client, body: { name?: string; contacts?
   return res.body.farm as { id: string; name: string; contacts: Array<{ id: string; name: string; email: string }> };
 }
 
-export async function createField(admin: Client, farmId: string, boundary: Polygon | object = plainField(), details: { name?: string; crop?: string; season?: number } = {}) {
-  const res = await admin.post('/api/fields', { farmId, name: details.name ?? uniqueName('Field'), crop: details.crop ?? 'soybean', season: details.season ?? 2026, boundary });
+export async function createField(
+  admin: Client,
+  farmId: string,
+  boundary: Polygon | object = plainField(),
+  details: { name?: string; crop?: string; season?: number } = {},
+) {
+  const res = await admin.post('/api/fields', {
+    farmId,
+    name: details.name ?? uniqueName('Field'),
+    crop: details.crop ?? 'soybean',
+    season: details.season ?? 2026,
+    boundary,
+  });
   if (res.status !== 201) throw new Error(`field not created: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body.field as { id: string; farmId: string; name: string; areaM2: number; boundary: object };
 }

@@ -24,9 +24,21 @@ export async function anonymous(): Promise<Client> {
     agent,
     csrf: res.body.csrfToken,
     get: (url) => agent.get(url),
-    post: (url, body) => agent.post(url).set('x-csrf-token', client.csrf).send(body ?? {}),
-    put: (url, body) => agent.put(url).set('x-csrf-token', client.csrf).send(body ?? {}),
-    patch: (url, body) => agent.patch(url).set('x-csrf-token', client.csrf).send(body ?? {}),
+    post: (url, body) =>
+      agent
+        .post(url)
+        .set('x-csrf-token', client.csrf)
+        .send(body ?? {}),
+    put: (url, body) =>
+      agent
+        .put(url)
+        .set('x-csrf-token', client.csrf)
+        .send(body ?? {}),
+    patch: (url, body) =>
+      agent
+        .patch(url)
+        .set('x-csrf-token', client.csrf)
+        .send(body ?? {}),
     delete: (url) => agent.delete(url).set('x-csrf-token', client.csrf),
   };
   return client;

@@ -20,7 +20,13 @@ export async function makeOrganisation(label = 'Test'): Promise<TestOrganisation
   const organisation = await Organisation.create({ name: `${label} advisory ${tag}` });
   const users = {} as TestOrganisation['users'];
   for (const role of ['admin', 'adviser', 'scout', 'grower'] as const) {
-    const user = await User.create({ organisationId: organisation.id, name: `${role} ${tag}`, email: `${role}-${tag}@test.example`, role, passwordHash: await passwordHash });
+    const user = await User.create({
+      organisationId: organisation.id,
+      name: `${role} ${tag}`,
+      email: `${role}-${tag}@test.example`,
+      role,
+      passwordHash: await passwordHash,
+    });
     users[role] = { id: user.id, email: user.email, name: user.name };
   }
   return { id: organisation.id, name: organisation.name, users };

@@ -27,7 +27,11 @@ export function toDmsRationals(decimalDegrees: number, secondsDenominator = 10_0
   const degrees = Math.floor(steps / perDegree);
   const minutes = Math.floor((steps % perDegree) / perMinute);
   const seconds = steps % perMinute;
-  return [[degrees, 1], [minutes, 1], [seconds, secondsDenominator]];
+  return [
+    [degrees, 1],
+    [minutes, 1],
+    [seconds, secondsDenominator],
+  ];
 }
 
 /** The decimal degrees that DMS rationals stand for (what a correct reader must return, before the sign). */

@@ -14,7 +14,15 @@ export function rectangleBoundary(corner = TEST_FIELD_CORNER, size = TEST_FIELD_
   const { lon, lat } = corner;
   return {
     type: 'Polygon',
-    coordinates: [[[lon, lat], [lon + size.lon, lat], [lon + size.lon, lat + size.lat], [lon, lat + size.lat], [lon, lat]]],
+    coordinates: [
+      [
+        [lon, lat],
+        [lon + size.lon, lat],
+        [lon + size.lon, lat + size.lat],
+        [lon, lat + size.lat],
+        [lon, lat],
+      ],
+    ],
   };
 }
 
@@ -53,10 +61,12 @@ export async function makePest(org: TestOrganisation, rule: PestRule = {}) {
 
 /** A walk by the organisation's scout; walkedOn as YYYY-MM-DD. */
 export async function makeWalk(org: TestOrganisation, fieldId: string, walkedOn = '2026-07-01') {
-  return insertReturningId(
-    'INSERT INTO walks (organisation_id, field_id, scout_id, walked_on) VALUES (:org, :fieldId, :scout, :walkedOn) RETURNING id',
-    { org: org.id, fieldId, scout: org.users.scout.id, walkedOn },
-  );
+  return insertReturningId('INSERT INTO walks (organisation_id, field_id, scout_id, walked_on) VALUES (:org, :fieldId, :scout, :walkedOn) RETURNING id', {
+    org: org.id,
+    fieldId,
+    scout: org.users.scout.id,
+    walkedOn,
+  });
 }
 
 export interface StopPoint {

@@ -25,7 +25,11 @@ export function patchyStops(seed: number, perPatch = 18): StopPoint[] {
     count: 0,
   });
   return centres.flatMap(([lon, lat], patch) => [
-    ...Array.from({ length: perPatch }, () => ({ lon: lon + (random() - 0.5) * 0.0004, lat: lat + (random() - 0.5) * 0.0003, count: 3 + Math.floor(random() * 6) })),
+    ...Array.from({ length: perPatch }, () => ({
+      lon: lon + (random() - 0.5) * 0.0004,
+      lat: lat + (random() - 0.5) * 0.0003,
+      count: 3 + Math.floor(random() * 6),
+    })),
     ...Array.from({ length: 24 }, (_, k) => empty(k, patch)),
   ]);
 }
@@ -78,8 +82,29 @@ export function storedZones(zoneSetId: string) {
 /** Proposes density zones from the check and accepts them unchanged. */
 export async function acceptProposedZones(adviser: Client, scouted: ScoutedCheck) {
   const proposal = await adviser.post(`/api/checks/${scouted.checkId}/zone-proposal`, { source: 'density' });
-  if (proposal.status !== 200 || proposal.body.zones.features.length === 0) throw new Error(`no zones proposed: ${proposal.status} ${JSON.stringify(proposal.body).slice(0, 300)}`);
-  const res = await adviser.post(`/api/fields/${scouted.field.id}/zone-sets`, { checkId: scouted.checkId, pestId: scouted.pest.id, zones: proposal.body.zones });
+  if (proposal.status !== 200 || proposal.body.zones.features.length === 0)
+    throw new Error(`no zones proposed: ${proposal.status} ${JSON.stringify(proposal.body).slice(0, 300)}`);
+  const res = await adviser.post(`/api/fields/${scouted.field.id}/zone-sets`, {
+    checkId: scouted.checkId,
+    pestId: scouted.pest.id,
+    zones: proposal.body.zones,
+  });
   if (res.status !== 201) throw new Error(`zones not accepted: ${res.status} ${JSON.stringify(res.body).slice(0, 300)}`);
-  return res.body.zoneSet as { id: string; version: number; zones: Array<{ id: string; label: string; areaM2: number; areaHa: number; areaAc: number; shareOfField: number; sightingsInside: number; geometry: { type: 'MultiPolygon'; coordinates: number[][][][] } }>; totalTreatedM2: number; untreatedShare: number; fieldAreaM2: number };
+  return res.body.zoneSet as {
+    id: string;
+    version: number;
+    zones: Array<{
+      id: string;
+      label: string;
+      areaM2: number;
+      areaHa: number;
+      areaAc: number;
+      shareOfField: number;
+      sightingsInside: number;
+      geometry: { type: 'MultiPolygon'; coordinates: number[][][][] };
+    }>;
+    totalTreatedM2: number;
+    untreatedShare: number;
+    fieldAreaM2: number;
+  };
 }

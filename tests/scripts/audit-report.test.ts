@@ -8,8 +8,16 @@ import { auditLine, summariseAudit } from '../../scripts/lib/audit-report.ts';
 const report = (vulnerabilities: Record<string, { severity: string }>, counts: Record<string, number>) =>
   JSON.stringify({
     auditReportVersion: 2,
-    vulnerabilities: Object.fromEntries(Object.entries(vulnerabilities).map(([name, v]) => [name, { name, isDirect: false, via: [], effects: [], range: '*', nodes: [], fixAvailable: true, ...v }])),
-    metadata: { vulnerabilities: { info: 0, low: 0, moderate: 0, high: 0, critical: 0, total: 0, ...counts }, dependencies: { prod: 310, dev: 0, optional: 4, peer: 0, peerOptional: 0, total: 310 } },
+    vulnerabilities: Object.fromEntries(
+      Object.entries(vulnerabilities).map(([name, v]) => [
+        name,
+        { name, isDirect: false, via: [], effects: [], range: '*', nodes: [], fixAvailable: true, ...v },
+      ]),
+    ),
+    metadata: {
+      vulnerabilities: { info: 0, low: 0, moderate: 0, high: 0, critical: 0, total: 0, ...counts },
+      dependencies: { prod: 310, dev: 0, optional: 4, peer: 0, peerOptional: 0, total: 310 },
+    },
   });
 
 describe('dependency audit summary', () => {
@@ -20,14 +28,22 @@ describe('dependency audit summary', () => {
   });
 
   it('high and critical advisories block and are named; moderate and low are only counted', () => {
-    const outcome = summariseAudit(report({ alpha: { severity: 'critical' }, beta: { severity: 'moderate' }, gamma: { severity: 'high' } }, { critical: 1, moderate: 1, high: 1, total: 3 }));
+    const outcome = summariseAudit(
+      report({ alpha: { severity: 'critical' }, beta: { severity: 'moderate' }, gamma: { severity: 'high' } }, { critical: 1, moderate: 1, high: 1, total: 3 }),
+    );
     expect(outcome.checked && outcome.blocking.map((b) => b.name).sort()).toEqual(['alpha', 'gamma']);
     expect(auditLine(outcome)).toMatch(/alpha \(critical\).*gamma \(high\)|gamma \(high\).*alpha \(critical\)/);
     expect(auditLine(outcome)).toMatch(/1 moderate/);
   });
 
   it('a refused advisory endpoint reads as not checked, with the registry’s answer', () => {
-    const refused = JSON.stringify({ message: '405 Method Not Allowed - POST https://registry.npmjs.org/-/npm/v1/security/advisories/bulk', method: 'POST', statusCode: 405, body: '', error: { summary: '', detail: '' } });
+    const refused = JSON.stringify({
+      message: '405 Method Not Allowed - POST https://registry.npmjs.org/-/npm/v1/security/advisories/bulk',
+      method: 'POST',
+      statusCode: 405,
+      body: '',
+      error: { summary: '', detail: '' },
+    });
     const outcome = summariseAudit(refused);
     expect(outcome.checked).toBe(false);
     expect(auditLine(outcome)).toMatch(/not checked.*405 Method Not Allowed/);

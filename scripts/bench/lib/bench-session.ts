@@ -4,7 +4,11 @@ export interface BenchSession {
   csrf: string;
 }
 
-const cookieHeader = (res: Response) => res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+const cookieHeader = (res: Response) =>
+  res.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
 
 /** One sign-in per identity: the sign-in limiter counts attempts per address and e-mail, so callers reuse the cookie. */
 export async function signInForBench(base: string, email: string, password: string): Promise<BenchSession> {

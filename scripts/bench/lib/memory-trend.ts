@@ -21,7 +21,13 @@ export interface MemoryTrend {
 }
 
 /** The slope of `pick` over the points at or after `fromSeconds`; three points at least, or no verdict. */
-export function memoryTrend(points: MemoryPoint[], measure: string, pick: (p: MemoryPoint) => number, fromSeconds: number, toleranceMbPerMin: number): MemoryTrend {
+export function memoryTrend(
+  points: MemoryPoint[],
+  measure: string,
+  pick: (p: MemoryPoint) => number,
+  fromSeconds: number,
+  toleranceMbPerMin: number,
+): MemoryTrend {
   const used = points.filter((p) => p.seconds >= fromSeconds);
   const base = { measure, samples: used.length, fromSeconds, toleranceMbPerMin };
   if (used.length < 3) return { ...base, slopeMbPerMin: Number.NaN, verdict: 'too few samples' };

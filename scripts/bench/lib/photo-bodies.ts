@@ -32,7 +32,9 @@ export interface PhotoForm {
 export function photoForm(basePhotos: Buffer[], fields: Record<string, string>): PhotoForm {
   const boundary = `patchwise-load-${crypto.randomBytes(8).toString('hex')}`;
   const part = (name: string, value: string) => `--${boundary}\r\nContent-Disposition: form-data; name="${name}"\r\n\r\n${value}\r\n`;
-  const head = Object.entries(fields).map(([name, value]) => part(name, value)).join('');
+  const head = Object.entries(fields)
+    .map(([name, value]) => part(name, value))
+    .join('');
   const tail = Buffer.from(`\r\n--${boundary}--\r\n`);
   const run = crypto.randomBytes(4).toString('hex');
   let sent = 0;

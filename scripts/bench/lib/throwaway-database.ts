@@ -32,7 +32,11 @@ export async function startThrowawayDatabase(label: string): Promise<ThrowawayDa
     await ensureDatabase(cluster, 'patchwise_bench');
     const url = databaseUrl(cluster, 'patchwise_bench');
     // Migrations run in a child process so this process's server modules have not yet read their config.
-    const migrate = spawnSync('node', ['--import', 'tsx', 'scripts/migrate.ts'], { cwd: projectRoot, env: { ...process.env, DATABASE_URL: url }, encoding: 'utf8' });
+    const migrate = spawnSync('node', ['--import', 'tsx', 'scripts/migrate.ts'], {
+      cwd: projectRoot,
+      env: { ...process.env, DATABASE_URL: url },
+      encoding: 'utf8',
+    });
     if (migrate.status !== 0) throw new Error(`Migrations failed: ${migrate.stderr || migrate.stdout}`);
     process.env.DATABASE_URL = url;
     process.env.UPLOAD_DIR ??= path.join(workDir, 'uploads');

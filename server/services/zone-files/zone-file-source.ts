@@ -33,15 +33,24 @@ export interface ZoneFileSource {
   zones: ZoneFileZone[];
 }
 
-
 /**
  * Gathers a visible zone set's figures for export. Only the accepted version goes to a machine: a draft may
  * still change and a superseded one was replaced, so both are refused with a sentence.
  */
 export async function zoneFileSource(zoneSet: ZoneSetView): Promise<ZoneFileSource> {
-  if (zoneSet.status === 'draft') throw conflict(`Version ${zoneSet.version} of these zones is still a draft; accept it in the zone editor before exporting it for a sprayer.`);
-  if (zoneSet.status === 'superseded') throw conflict(`Version ${zoneSet.version} of these zones was replaced by a later version; export the accepted version instead.`);
-  const [facts] = await sequelize.query<{ farm_name: string; field_area_m2: number; boundary: string; count_unit: string; action_threshold: number; threshold_source: string; sighting_ids: string[] | null }>(
+  if (zoneSet.status === 'draft')
+    throw conflict(`Version ${zoneSet.version} of these zones is still a draft; accept it in the zone editor before exporting it for a sprayer.`);
+  if (zoneSet.status === 'superseded')
+    throw conflict(`Version ${zoneSet.version} of these zones was replaced by a later version; export the accepted version instead.`);
+  const [facts] = await sequelize.query<{
+    farm_name: string;
+    field_area_m2: number;
+    boundary: string;
+    count_unit: string;
+    action_threshold: number;
+    threshold_source: string;
+    sighting_ids: string[] | null;
+  }>(
     `SELECT fa.name AS farm_name, f.area_m2 AS field_area_m2, ST_AsGeoJSON(ST_ForcePolygonCCW(f.boundary), 9) AS boundary,
             p.count_unit, p.action_threshold, p.threshold_source, pc.sighting_ids
        FROM zone_sets zs JOIN fields f ON f.id = zs.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = zs.pest_id
@@ -56,7 +65,10 @@ export async function zoneFileSource(zoneSet: ZoneSetView): Promise<ZoneFileSour
        FROM zones z LEFT JOIN sightings s
          ON ${stopsFilter} AND ${liveSighting('s')} AND ST_Covers(z.geometry, s.position)
       WHERE z.zone_set_id = :zoneSetId GROUP BY z.id`,
-    { replacements: { ids: `{${(facts.sighting_ids ?? []).join(',')}}`, fieldId: zoneSet.fieldId, pestId: zoneSet.pestId, zoneSetId: zoneSet.id }, type: QueryTypes.SELECT },
+    {
+      replacements: { ids: `{${(facts.sighting_ids ?? []).join(',')}}`, fieldId: zoneSet.fieldId, pestId: zoneSet.pestId, zoneSetId: zoneSet.id },
+      type: QueryTypes.SELECT,
+    },
   );
   const figures = new Map(perZone.map((r) => [r.zone_id, r]));
   return {

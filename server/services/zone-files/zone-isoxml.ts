@@ -33,8 +33,11 @@ export async function zonesIsoxmlZip(source: ZoneFileSource): Promise<Buffer> {
   partfield.boundaryFromGeoJSON(source.boundary as unknown as LibraryGeometry, manager);
   const partfieldRef = manager.registerEntity(partfield);
 
-  const workState = (on: boolean) => manager.createEntityFromAttributes(TAGS.ProcessDataVariable, { ProcessDataDDI: SETPOINT_WORK_STATE_DDI, ProcessDataValue: on ? 1 : 0 });
-  const treatPolygons = source.zones.flatMap((zone) => ExtendedPolygon.fromGeoJSON(zone.geometry as unknown as LibraryGeometry, PolygonPolygonTypeEnum.TreatmentZone, manager));
+  const workState = (on: boolean) =>
+    manager.createEntityFromAttributes(TAGS.ProcessDataVariable, { ProcessDataDDI: SETPOINT_WORK_STATE_DDI, ProcessDataValue: on ? 1 : 0 });
+  const treatPolygons = source.zones.flatMap((zone) =>
+    ExtendedPolygon.fromGeoJSON(zone.geometry as unknown as LibraryGeometry, PolygonPolygonTypeEnum.TreatmentZone, manager),
+  );
   const treat = manager.createEntityFromAttributes(TAGS.TreatmentZone, {
     TreatmentZoneCode: TREAT_ZONE_CODE,
     TreatmentZoneDesignator: designator(`Treat: ${source.pestName}`),

@@ -24,17 +24,26 @@ export interface MachineFile {
 export async function machineFile(zoneSet: ZoneSetView, kind: MachineFileKind): Promise<MachineFile> {
   const source = await zoneFileSource(zoneSet);
   const title = `${zoneSet.fieldName} ${zoneSet.pestName}`;
-  const bytes = kind === 'taskdata' ? await zonesIsoxmlZip(source) : await zonesShapefileZip(source, exportFileName(title, zoneSet.version, 'zones').replace(/\.zones$/, '-zones'));
+  const bytes =
+    kind === 'taskdata'
+      ? await zonesIsoxmlZip(source)
+      : await zonesShapefileZip(source, exportFileName(title, zoneSet.version, 'zones').replace(/\.zones$/, '-zones'));
   return { fileName: exportFileName(title, zoneSet.version, machineFileSuffix[kind]), contentType: 'application/zip', bytes };
 }
 
 /** The files of the zones a notice was sent with (for its e-mailed link and the grower's own page). */
 export async function noticeMachineFile(noticeId: string, kind: MachineFileKind): Promise<MachineFile> {
-  const [notice] = await sequelize.query<{ organisation_id: string; zone_set_id: string }>('SELECT organisation_id, zone_set_id FROM notices WHERE id = :id', { replacements: { id: noticeId }, type: QueryTypes.SELECT });
+  const [notice] = await sequelize.query<{ organisation_id: string; zone_set_id: string }>('SELECT organisation_id, zone_set_id FROM notices WHERE id = :id', {
+    replacements: { id: noticeId },
+    type: QueryTypes.SELECT,
+  });
   const zoneSet = notice ? await zoneSetInOrganisation(notice.organisation_id, notice.zone_set_id) : null;
   if (!zoneSet) throw notFound('The zones of that notice');
   return machineFile(zoneSet, kind);
 }
 
 /** Paths of a notice's zone files under a base (the link's or the grower's notice path). */
-export const noticeMachineFilePaths = (base: string) => ({ taskData: `${base}/zones.${machineFileSuffix.taskdata}`, shapefile: `${base}/zones.${machineFileSuffix.shapefile}` });
+export const noticeMachineFilePaths = (base: string) => ({
+  taskData: `${base}/zones.${machineFileSuffix.taskdata}`,
+  shapefile: `${base}/zones.${machineFileSuffix.shapefile}`,
+});

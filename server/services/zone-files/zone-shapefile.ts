@@ -27,27 +27,25 @@ const round = (value: number, places: number) => Math.round(value * 10 ** places
 export function zoneShapefileFeatures(source: ZoneFileSource): FeatureCollection<MultiPolygon, ZoneShapefileAttributes> {
   return {
     type: 'FeatureCollection',
-    features: source.zones.map(
-      (zone): Feature<MultiPolygon, ZoneShapefileAttributes> => ({
-        type: 'Feature',
-        // Every zone as a MultiPolygon, so all of them land in one layer of polygon records.
-        geometry: zone.geometry,
-        properties: {
-          ZONE: zone.number,
-          LABEL: zone.label.slice(0, 80),
-          AREA_HA: round(zone.areaHa, 4),
-          AREA_AC: round(zone.areaAc, 4),
-          STOPS: zone.stops,
-          MEAN_CNT: zone.meanCount === null ? null : round(zone.meanCount, 3),
-          THRESHOLD: source.threshold,
-          CNT_UNIT: source.countUnit.slice(0, 40),
-          FIELD: source.fieldName.slice(0, 80),
-          FARM: source.farmName.slice(0, 80),
-          PEST: source.pestName.slice(0, 80),
-          VERSION: source.version,
-        },
-      }),
-    ),
+    features: source.zones.map((zone): Feature<MultiPolygon, ZoneShapefileAttributes> => ({
+      type: 'Feature',
+      // Every zone as a MultiPolygon, so all of them land in one layer of polygon records.
+      geometry: zone.geometry,
+      properties: {
+        ZONE: zone.number,
+        LABEL: zone.label.slice(0, 80),
+        AREA_HA: round(zone.areaHa, 4),
+        AREA_AC: round(zone.areaAc, 4),
+        STOPS: zone.stops,
+        MEAN_CNT: zone.meanCount === null ? null : round(zone.meanCount, 3),
+        THRESHOLD: source.threshold,
+        CNT_UNIT: source.countUnit.slice(0, 40),
+        FIELD: source.fieldName.slice(0, 80),
+        FARM: source.farmName.slice(0, 80),
+        PEST: source.pestName.slice(0, 80),
+        VERSION: source.version,
+      },
+    })),
   };
 }
 

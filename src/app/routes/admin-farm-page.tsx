@@ -11,9 +11,23 @@ import { FarmFieldsPanel } from '../../features/fields/components/farm-fields-pa
 export function AdminFarmPage() {
   const { farmId = '' } = useParams();
   const farm = useFarm(farmId);
-  const eyebrow = <Link to="/admin/farms" className="hover:underline">Farms</Link>;
-  if (farm.isPending) return <PageFrame title="Farm" eyebrow={eyebrow}><LoadingState label="Loading the farm…" /></PageFrame>;
-  if (farm.isError) return <PageFrame title="Farm" eyebrow={eyebrow}><ErrorState error={farm.error} onRetry={() => farm.refetch()} /></PageFrame>;
+  const eyebrow = (
+    <Link to="/admin/farms" className="hover:underline">
+      Farms
+    </Link>
+  );
+  if (farm.isPending)
+    return (
+      <PageFrame title="Farm" eyebrow={eyebrow}>
+        <LoadingState label="Loading the farm…" />
+      </PageFrame>
+    );
+  if (farm.isError)
+    return (
+      <PageFrame title="Farm" eyebrow={eyebrow}>
+        <ErrorState error={farm.error} onRetry={() => farm.refetch()} />
+      </PageFrame>
+    );
   return (
     <PageFrame title={farm.data.name} eyebrow={eyebrow} wide actions={<DeleteFarmButton farm={farm.data} />}>
       <FarmFieldsPanel farmId={farmId} />

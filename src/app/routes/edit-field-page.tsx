@@ -11,11 +11,29 @@ export function EditFieldPage() {
   const field = useField(fieldId);
   const users = useUsers();
   const navigate = useNavigate();
-  if (field.isPending) return <PageFrame title="Edit field"><LoadingState label="Loading the field…" /></PageFrame>;
-  if (field.isError) return <PageFrame title="Edit field"><ErrorState error={field.error} onRetry={() => field.refetch()} /></PageFrame>;
+  if (field.isPending)
+    return (
+      <PageFrame title="Edit field">
+        <LoadingState label="Loading the field…" />
+      </PageFrame>
+    );
+  if (field.isError)
+    return (
+      <PageFrame title="Edit field">
+        <ErrorState error={field.error} onRetry={() => field.refetch()} />
+      </PageFrame>
+    );
   const f = field.data;
   return (
-    <PageFrame title={`Edit ${f.name}`} eyebrow={<Link to={`/admin/farms/${f.farmId}`} className="hover:underline">{f.farmName}</Link>} wide>
+    <PageFrame
+      title={`Edit ${f.name}`}
+      eyebrow={
+        <Link to={`/admin/farms/${f.farmId}`} className="hover:underline">
+          {f.farmName}
+        </Link>
+      }
+      wide
+    >
       <Panel>
         <FieldForm key={f.id} farmId={f.farmId} field={f} onSaved={(saved) => navigate(`/fields/${saved.id}`)} />
       </Panel>

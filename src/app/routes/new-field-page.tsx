@@ -8,7 +8,15 @@ export function NewFieldPage() {
   const farm = useFarm(farmId);
   const navigate = useNavigate();
   return (
-    <PageFrame title="New field" eyebrow={<Link to={`/admin/farms/${farmId}`} className="hover:underline">{farm.data?.name ?? 'Farm'}</Link>} wide>
+    <PageFrame
+      title="New field"
+      eyebrow={
+        <Link to={`/admin/farms/${farmId}`} className="hover:underline">
+          {farm.data?.name ?? 'Farm'}
+        </Link>
+      }
+      wide
+    >
       <Panel>
         <FieldForm farmId={farmId} onSaved={(field) => navigate(`/fields/${field.id}`)} />
       </Panel>

@@ -14,7 +14,8 @@ export function AcknowledgeBox({ acknowledgedAt, control }: { acknowledgedAt: st
   if (acknowledgedAt) {
     return (
       <p role="status" className="rounded-lg bg-field-50 px-4 py-3 text-field-900 ring-1 ring-inset ring-field-200">
-        <span aria-hidden="true">✓ </span>Acknowledged on {new Date(acknowledgedAt).toLocaleString(undefined, { dateStyle: 'long', timeStyle: 'short' })}. Your adviser can see that you have read this notice.
+        <span aria-hidden="true">✓ </span>Acknowledged on {new Date(acknowledgedAt).toLocaleString(undefined, { dateStyle: 'long', timeStyle: 'short' })}. Your
+        adviser can see that you have read this notice.
       </p>
     );
   }
@@ -24,7 +25,11 @@ export function AcknowledgeBox({ acknowledgedAt, control }: { acknowledgedAt: st
       <Button className="mt-3" size="lg" onClick={control.onAcknowledge} busy={control.busy}>
         Acknowledge
       </Button>
-      {control.error && <div className="mt-2"><FormMessage>{control.error}</FormMessage></div>}
+      {control.error && (
+        <div className="mt-2">
+          <FormMessage>{control.error}</FormMessage>
+        </div>
+      )}
     </div>
   );
 }

@@ -10,7 +10,11 @@ export function NoticeMap({ notice }: { notice: NoticeLinkResponse['notice'] }) 
   return (
     <figure>
       <div className="print:hidden">
-        <MapFrame boundaries={[{ id: 'field', geometry: notice.boundary, label: notice.fieldName }]} label={`Map of ${notice.fieldName} with the treatment zones`} className="h-80 sm:h-[26rem]">
+        <MapFrame
+          boundaries={[{ id: 'field', geometry: notice.boundary, label: notice.fieldName }]}
+          label={`Map of ${notice.fieldName} with the treatment zones`}
+          className="h-80 sm:h-[26rem]"
+        >
           {notice.zonesGeoJson.features.map((zone) => (
             <GeoJSON key={zone.properties.label} data={zone} style={zoneStyle}>
               <Tooltip sticky>{zone.properties.label}</Tooltip>
@@ -18,7 +22,11 @@ export function NoticeMap({ notice }: { notice: NoticeLinkResponse['notice'] }) 
           ))}
         </MapFrame>
       </div>
-      <img src={notice.mapPath} alt={`Map of ${notice.fieldName} with the treatment zones and sightings`} className="hidden w-full max-w-xl border border-soil-300 print:block" />
+      <img
+        src={notice.mapPath}
+        alt={`Map of ${notice.fieldName} with the treatment zones and sightings`}
+        className="hidden w-full max-w-xl border border-soil-300 print:block"
+      />
       <figcaption className="mt-2 print:hidden flex flex-wrap items-center gap-x-4 gap-y-1 text-sm text-soil-700">
         <span className="inline-flex items-center gap-1.5">
           <span aria-hidden="true" className="inline-block h-3 w-5 rounded-sm border-2 border-field-700 bg-field-300/40" /> Field boundary

@@ -23,17 +23,23 @@ export function NoticeQuestions({ questions, adviserName, control }: { questions
   };
   return (
     <section aria-labelledby="notice-questions" className="rounded-lg bg-white p-4 shadow-sm ring-1 ring-soil-300/60 sm:p-5 print:hidden">
-      <h2 id="notice-questions" className="mb-3 text-lg font-semibold text-field-900">Questions for {adviserName}</h2>
+      <h2 id="notice-questions" className="mb-3 text-lg font-semibold text-field-900">
+        Questions for {adviserName}
+      </h2>
       {questions.length > 0 && (
         <ol aria-label="Your questions" className="mb-4 space-y-3">
           {questions.map((q) => (
             <li key={q.id} className="rounded-md bg-straw-50 p-3 ring-1 ring-inset ring-straw-300">
               <p className="whitespace-pre-wrap text-soil-900">{q.text}</p>
-              <p className="mt-1 text-xs text-soil-600">{q.askerName}, {when(q.askedAt)}</p>
+              <p className="mt-1 text-xs text-soil-600">
+                {q.askerName}, {when(q.askedAt)}
+              </p>
               {q.answer ? (
                 <div className="mt-2 border-l-4 border-field-600 pl-3">
                   <p className="whitespace-pre-wrap text-soil-900">{q.answer.text}</p>
-                  <p className="mt-1 text-xs text-soil-600">Answer from {q.answer.adviserName}, {when(q.answer.answeredAt)}</p>
+                  <p className="mt-1 text-xs text-soil-600">
+                    Answer from {q.answer.adviserName}, {when(q.answer.answeredAt)}
+                  </p>
                 </div>
               ) : (
                 <p className="mt-2 text-sm text-soil-700">Waiting for an answer; it will also come by e-mail.</p>
@@ -51,7 +57,9 @@ export function NoticeQuestions({ questions, adviserName, control }: { questions
           onChange={(e) => setText(e.target.value)}
           error={control.error}
         />
-        <Button type="submit" busy={control.busy} disabled={text.trim().length === 0}>Send to {adviserName}</Button>
+        <Button type="submit" busy={control.busy} disabled={text.trim().length === 0}>
+          Send to {adviserName}
+        </Button>
       </form>
     </section>
   );

@@ -55,13 +55,21 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
   return (
     <>
       <header className="space-y-2">
-        <p className="text-sm font-medium text-soil-600">Zone notice for {n.recipientName}{n.sentAt ? `, sent ${new Date(n.sentAt).toLocaleDateString(undefined, { dateStyle: 'long' })}` : ''}</p>
-        <h1 className="text-2xl font-semibold tracking-tight text-field-900 sm:text-3xl">{n.pestName} on {n.fieldName}</h1>
+        <p className="text-sm font-medium text-soil-600">
+          Zone notice for {n.recipientName}
+          {n.sentAt ? `, sent ${new Date(n.sentAt).toLocaleDateString(undefined, { dateStyle: 'long' })}` : ''}
+        </p>
+        <h1 className="text-2xl font-semibold tracking-tight text-field-900 sm:text-3xl">
+          {n.pestName} on {n.fieldName}
+        </h1>
         <p className="text-soil-800">
-          Your adviser {n.adviserName} proposes treating {n.zones.length === 1 ? 'one zone' : `${n.zones.length} zones`} covering <AreaText m2={n.totalTreatedM2} /> ({percent.format(treatedShare)} of the field), and leaving the rest untreated.
+          Your adviser {n.adviserName} proposes treating {n.zones.length === 1 ? 'one zone' : `${n.zones.length} zones`} covering{' '}
+          <AreaText m2={n.totalTreatedM2} /> ({percent.format(treatedShare)} of the field), and leaving the rest untreated.
         </p>
         <div className="flex flex-wrap gap-2 pt-1 print:hidden">
-          <Button variant="secondary" onClick={() => window.print()}>Print</Button>
+          <Button variant="secondary" onClick={() => window.print()}>
+            Print
+          </Button>
         </div>
       </header>
 
@@ -69,18 +77,36 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
 
       <Section title="The field">
         <dl className="grid gap-3 text-sm sm:grid-cols-2">
-          <div><dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Farm</dt><dd className="text-base text-soil-900">{n.farmName}</dd></div>
-          <div><dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Field</dt><dd className="text-base text-soil-900">{n.fieldName} (<AreaText m2={n.fieldAreaM2} />)</dd></div>
-          <div><dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Pest</dt><dd className="text-base text-soil-900">{n.pestName}</dd></div>
-          <div><dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Walked on</dt><dd className="text-base text-soil-900">{n.walkDates.length ? n.walkDates.map(longDate).join(', ') : 'No walk recorded'}</dd></div>
+          <div>
+            <dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Farm</dt>
+            <dd className="text-base text-soil-900">{n.farmName}</dd>
+          </div>
+          <div>
+            <dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Field</dt>
+            <dd className="text-base text-soil-900">
+              {n.fieldName} (<AreaText m2={n.fieldAreaM2} />)
+            </dd>
+          </div>
+          <div>
+            <dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Pest</dt>
+            <dd className="text-base text-soil-900">{n.pestName}</dd>
+          </div>
+          <div>
+            <dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Walked on</dt>
+            <dd className="text-base text-soil-900">{n.walkDates.length ? n.walkDates.map(longDate).join(', ') : 'No walk recorded'}</dd>
+          </div>
         </dl>
       </Section>
 
       <Section title="What the scouting found">
-        <p className="text-soil-900" data-testid="verdict">{n.verdict.headline}</p>
+        <p className="text-soil-900" data-testid="verdict">
+          {n.verdict.headline}
+        </p>
         {n.verdict.figures.length > 0 && (
           <ul className="mt-2 list-disc space-y-1 pl-5 text-sm text-soil-700">
-            {n.verdict.figures.map((figure) => <li key={figure}>{figure}</li>)}
+            {n.verdict.figures.map((figure) => (
+              <li key={figure}>{figure}</li>
+            ))}
           </ul>
         )}
       </Section>
@@ -90,7 +116,9 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
         <div className="mt-4">
           <NoticeZoneTable zones={n.zones} totalTreatedM2={n.totalTreatedM2} untreatedShare={n.untreatedShare} />
         </div>
-        <p className="mt-2 text-sm"><ZonesDownload notice={n} /></p>
+        <p className="mt-2 text-sm">
+          <ZonesDownload notice={n} />
+        </p>
       </Section>
 
       <Section title="What your adviser recommends">
@@ -98,10 +126,17 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
         {n.rescoutOn && <p className="mt-3 font-medium text-soil-900">Re-scout on {longDate(n.rescoutOn)}.</p>}
       </Section>
 
-      <section aria-labelledby="cautions" className="rounded-lg border-l-4 border-straw-500 bg-white p-4 shadow-sm ring-1 ring-soil-300/60 sm:p-5 print:break-inside-avoid print:shadow-none">
-        <h2 id="cautions" className="mb-2 text-lg font-semibold text-field-900">Before any treatment</h2>
+      <section
+        aria-labelledby="cautions"
+        className="rounded-lg border-l-4 border-straw-500 bg-white p-4 shadow-sm ring-1 ring-soil-300/60 sm:p-5 print:break-inside-avoid print:shadow-none"
+      >
+        <h2 id="cautions" className="mb-2 text-lg font-semibold text-field-900">
+          Before any treatment
+        </h2>
         <ul className="list-disc space-y-1.5 pl-5 text-soil-900">
-          {NOTICE_CAUTIONS.map((caution) => <li key={caution}>{caution}</li>)}
+          {NOTICE_CAUTIONS.map((caution) => (
+            <li key={caution}>{caution}</li>
+          ))}
         </ul>
       </section>
 

@@ -13,19 +13,35 @@ export function NoticeZoneTable({ zones, totalTreatedM2, untreatedShare }: { zon
         <caption className="sr-only">Treatment zones</caption>
         <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
           <tr>
-            <th scope="col" className="px-3 py-2">Zone</th>
-            <th scope="col" className="px-3 py-2 text-right">Area (ha)</th>
-            <th scope="col" className="px-3 py-2 text-right">Area (ac)</th>
-            <th scope="col" className="px-3 py-2 text-right">Share of field</th>
-            <th scope="col" className="px-3 py-2 text-right">Sightings inside</th>
-            <th scope="col" className="px-3 py-2">Centre (lat, lon)</th>
-            <th scope="col" className="px-3 py-2">From the nearest corner</th>
+            <th scope="col" className="px-3 py-2">
+              Zone
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              Area (ha)
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              Area (ac)
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              Share of field
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              Sightings inside
+            </th>
+            <th scope="col" className="px-3 py-2">
+              Centre (lat, lon)
+            </th>
+            <th scope="col" className="px-3 py-2">
+              From the nearest corner
+            </th>
           </tr>
         </thead>
         <tbody className="divide-y divide-straw-200 bg-white">
           {zones.map((z) => (
             <tr key={z.label}>
-              <th scope="row" className="px-3 py-2 font-medium text-soil-900">{z.label}</th>
+              <th scope="row" className="px-3 py-2 font-medium text-soil-900">
+                {z.label}
+              </th>
               <td className="px-3 py-2 text-right tabular-nums">{two.format(z.areaHa)}</td>
               <td className="px-3 py-2 text-right tabular-nums">{two.format(z.areaAc)}</td>
               <td className="px-3 py-2 text-right tabular-nums">{percent.format(z.shareOfField)}</td>
@@ -37,7 +53,9 @@ export function NoticeZoneTable({ zones, totalTreatedM2, untreatedShare }: { zon
         </tbody>
         <tfoot className="border-t-2 border-straw-300 bg-straw-50 font-medium">
           <tr>
-            <th scope="row" className="px-3 py-2">All zones</th>
+            <th scope="row" className="px-3 py-2">
+              All zones
+            </th>
             <td className="px-3 py-2 text-right tabular-nums">{two.format(toHectares(totalTreatedM2))}</td>
             <td className="px-3 py-2 text-right tabular-nums">{two.format(toAcres(totalTreatedM2))}</td>
             <td className="px-3 py-2 text-right tabular-nums">{percent.format(1 - untreatedShare)}</td>

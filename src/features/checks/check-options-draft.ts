@@ -13,7 +13,15 @@ export interface CheckOptionsDraft {
   customAreaHa: string;
 }
 
-export const defaultDraft: CheckOptionsDraft = { cellSizeM: '', simulations: '999', kernel: 'quartic', bandwidthM: '', alpha: '0.05', areaBasis: 'boundary', customAreaHa: '' };
+export const defaultDraft: CheckOptionsDraft = {
+  cellSizeM: '',
+  simulations: '999',
+  kernel: 'quartic',
+  bandwidthM: '',
+  alpha: '0.05',
+  areaBasis: 'boundary',
+  customAreaHa: '',
+};
 
 const M2_PER_HA = 10_000;
 const numberOrUndefined = (text: string) => (text.trim() === '' ? undefined : Number(text));

@@ -31,7 +31,13 @@ let nextKey = 0;
 export const newZoneKey = () => `zone-${++nextKey}`;
 
 export function zonesFromProposal(proposal: FeatureCollection<Polygon, ProposedZoneProperties>): WorkingZone[] {
-  return proposal.features.map((f) => ({ key: newZoneKey(), label: `Zone ${f.properties.zone}`, geometry: f.geometry, origin: 'proposed', proposed: f.properties }));
+  return proposal.features.map((f) => ({
+    key: newZoneKey(),
+    label: `Zone ${f.properties.zone}`,
+    geometry: f.geometry,
+    origin: 'proposed',
+    proposed: f.properties,
+  }));
 }
 
 /** A zone reshaped on the map: its engine figures no longer apply; a hand-drawn zone stays hand-drawn. */

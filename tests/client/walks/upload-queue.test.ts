@@ -1,8 +1,20 @@
 // The scout's upload queue: which photos go, with which count, how many at once, and what a reload keeps.
 import { describe, expect, it } from 'vitest';
-import { countFor, drainQueue, entriesAfterReload, entriesToSend, entriesWorthKeeping, readyEntry, withChange, type UploadEntry } from '../../../src/features/walks/upload-queue.ts';
+import {
+  countFor,
+  drainQueue,
+  entriesAfterReload,
+  entriesToSend,
+  entriesWorthKeeping,
+  readyEntry,
+  withChange,
+  type UploadEntry,
+} from '../../../src/features/walks/upload-queue.ts';
 
-const entry = (clientId: string, change: Partial<UploadEntry> = {}): UploadEntry => ({ ...readyEntry(clientId, { name: `${clientId}.jpg`, size: 2_000_000 }), ...change });
+const entry = (clientId: string, change: Partial<UploadEntry> = {}): UploadEntry => ({
+  ...readyEntry(clientId, { name: `${clientId}.jpg`, size: 2_000_000 }),
+  ...change,
+});
 
 describe('the count sent with a photo', () => {
   it('is the photo’s own count when the scout typed one', () => {

@@ -20,11 +20,20 @@ import {
 // match this closed form with that R.
 const R = 6_371_008.8;
 const rad = (deg: number) => (deg * Math.PI) / 180;
-const sphericalRectangleM2 = (west: number, south: number, east: number, north: number) => R * R * rad(east - west) * (Math.sin(rad(north)) - Math.sin(rad(south)));
+const sphericalRectangleM2 = (west: number, south: number, east: number, north: number) =>
+  R * R * rad(east - west) * (Math.sin(rad(north)) - Math.sin(rad(south)));
 
 const rectangle = (west: number, south: number, east: number, north: number): Polygon => ({
   type: 'Polygon',
-  coordinates: [[[west, south], [east, south], [east, north], [west, north], [west, south]]],
+  coordinates: [
+    [
+      [west, south],
+      [east, south],
+      [east, north],
+      [west, north],
+      [west, south],
+    ],
+  ],
 });
 
 const zone = (key: string, label: string, geometry: Polygon, origin: WorkingZone['origin'] = 'drawn'): WorkingZone => ({ key, label, geometry, origin });
@@ -68,7 +77,10 @@ describe('a zone as the engine proposed it', () => {
   });
 
   it('loses them once reshaped on the map', () => {
-    const proposed: WorkingZone = { ...zone('p', 'Zone 1', rectangle(0, 0, 0.01, 0.01), 'proposed'), proposed: { zone: 1, areaM2: 5000, shareOfField: 0.1, sightings: 7 } as WorkingZone['proposed'] };
+    const proposed: WorkingZone = {
+      ...zone('p', 'Zone 1', rectangle(0, 0, 0.01, 0.01), 'proposed'),
+      proposed: { zone: 1, areaM2: 5000, shareOfField: 0.1, sightings: 7 } as WorkingZone['proposed'],
+    };
     const [reshaped] = reshapeZone([proposed], 'p', rectangle(0, 0, 0.02, 0.01));
     expect(reshaped.origin).toBe('edited');
     expect(reshaped.proposed).toBeUndefined();

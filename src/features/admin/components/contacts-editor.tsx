@@ -13,9 +13,26 @@ export function ContactsEditor({ contacts, errors, onChange }: { contacts: FarmC
       {contacts.length === 0 && <p className="text-sm text-soil-700">No contact yet.</p>}
       {contacts.map((contact, index) => (
         <div key={index} className="grid gap-2 rounded-md bg-straw-50 p-3 ring-1 ring-straw-200 sm:grid-cols-[1fr_1fr_auto] sm:items-start">
-          <TextField label={`Contact ${index + 1} name`} value={contact.name} error={errors[`contacts.${index}.name`]} onChange={(e) => edit(index, { name: e.target.value })} />
-          <TextField label={`Contact ${index + 1} e-mail`} type="email" value={contact.email} error={errors[`contacts.${index}.email`]} onChange={(e) => edit(index, { email: e.target.value })} />
-          <Button variant="quiet" size="sm" className="text-patch-700 sm:mt-7" onClick={() => onChange(contacts.filter((_, i) => i !== index))} aria-label={`Remove contact ${index + 1}`}>
+          <TextField
+            label={`Contact ${index + 1} name`}
+            value={contact.name}
+            error={errors[`contacts.${index}.name`]}
+            onChange={(e) => edit(index, { name: e.target.value })}
+          />
+          <TextField
+            label={`Contact ${index + 1} e-mail`}
+            type="email"
+            value={contact.email}
+            error={errors[`contacts.${index}.email`]}
+            onChange={(e) => edit(index, { email: e.target.value })}
+          />
+          <Button
+            variant="quiet"
+            size="sm"
+            className="text-patch-700 sm:mt-7"
+            onClick={() => onChange(contacts.filter((_, i) => i !== index))}
+            aria-label={`Remove contact ${index + 1}`}
+          >
             Remove
           </Button>
         </div>

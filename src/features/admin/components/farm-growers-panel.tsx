@@ -64,7 +64,11 @@ export function FarmGrowersPanel({ farm }: { farm: Farm }) {
               Link
             </Button>
           </form>
-          {failure && <div className="mt-3"><FormMessage>{errorMessage(failure)}</FormMessage></div>}
+          {failure && (
+            <div className="mt-3">
+              <FormMessage>{errorMessage(failure)}</FormMessage>
+            </div>
+          )}
         </>
       )}
     </Panel>

@@ -19,7 +19,11 @@ const columns = [
       </Link>
     ),
   }),
-  column.accessor((f) => f.contacts.map((c) => c.name).join(', '), { id: 'contacts', header: 'Grower contacts', cell: (info) => info.getValue() || <span className="text-soil-500">None</span> }),
+  column.accessor((f) => f.contacts.map((c) => c.name).join(', '), {
+    id: 'contacts',
+    header: 'Grower contacts',
+    cell: (info) => info.getValue() || <span className="text-soil-500">None</span>,
+  }),
 ];
 
 export function FarmsPage() {
@@ -29,7 +33,14 @@ export function FarmsPage() {
   return (
     <PageFrame title="Farms" eyebrow="Admin" actions={!adding && <Button onClick={() => setAdding(true)}>New farm</Button>}>
       {adding && (
-        <Panel title="New farm" actions={<Button variant="quiet" size="sm" onClick={() => setAdding(false)}>Cancel</Button>}>
+        <Panel
+          title="New farm"
+          actions={
+            <Button variant="quiet" size="sm" onClick={() => setAdding(false)}>
+              Cancel
+            </Button>
+          }
+        >
           <FarmForm onSaved={(farm) => navigate(`/admin/farms/${farm.id}`)} />
         </Panel>
       )}

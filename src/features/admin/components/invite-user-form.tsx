@@ -33,8 +33,23 @@ export function InviteUserForm() {
   return (
     <Panel title="Invite someone">
       <form onSubmit={submit} noValidate className="grid gap-3 sm:grid-cols-[1fr_1fr_10rem_auto] sm:items-start">
-        <TextField label="Name" name="name" autoComplete="off" value={values.name} error={errors.name} onChange={(e) => setValues({ ...values, name: e.target.value })} />
-        <TextField label="E-mail address" name="email" type="email" autoComplete="off" value={values.email} error={errors.email} onChange={(e) => setValues({ ...values, email: e.target.value })} />
+        <TextField
+          label="Name"
+          name="name"
+          autoComplete="off"
+          value={values.name}
+          error={errors.name}
+          onChange={(e) => setValues({ ...values, name: e.target.value })}
+        />
+        <TextField
+          label="E-mail address"
+          name="email"
+          type="email"
+          autoComplete="off"
+          value={values.email}
+          error={errors.email}
+          onChange={(e) => setValues({ ...values, email: e.target.value })}
+        />
         <SelectField label="Role" name="role" value={values.role} error={errors.role} onChange={(e) => setValues({ ...values, role: e.target.value })}>
           {roles.map((role) => (
             <option key={role} value={role}>

@@ -2,7 +2,8 @@ import { useId } from 'react';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { attachmentUrl, useMailMessage } from '../api/get-mail-message.ts';
 
-const size = (bytes: number) => (bytes < 1024 ? `${bytes} B` : bytes < 1024 * 1024 ? `${(bytes / 1024).toFixed(1)} kB` : `${(bytes / 1024 / 1024).toFixed(1)} MB`);
+const size = (bytes: number) =>
+  bytes < 1024 ? `${bytes} B` : bytes < 1024 * 1024 ? `${(bytes / 1024).toFixed(1)} kB` : `${(bytes / 1024 / 1024).toFixed(1)} MB`;
 
 export function MailMessageView({ id }: { id: number }) {
   const message = useMailMessage(id);
@@ -33,9 +34,18 @@ export function MailMessageView({ id }: { id: number }) {
         </section>
       )}
       <section>
-        <h3 id={plainTextId} className="mb-1 text-xs font-semibold uppercase tracking-wide text-soil-600">Plain text</h3>
+        <h3 id={plainTextId} className="mb-1 text-xs font-semibold uppercase tracking-wide text-soil-600">
+          Plain text
+        </h3>
         {/* Focusable so that a keyboard can scroll a long message. */}
-        <pre role="region" aria-labelledby={plainTextId} tabIndex={0} className="max-h-80 overflow-auto whitespace-pre-wrap rounded-md bg-straw-50 p-3 font-sans text-sm text-soil-800 ring-1 ring-straw-200 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600">{m.text || '(no text part)'}</pre>
+        <pre
+          role="region"
+          aria-labelledby={plainTextId}
+          tabIndex={0}
+          className="max-h-80 overflow-auto whitespace-pre-wrap rounded-md bg-straw-50 p-3 font-sans text-sm text-soil-800 ring-1 ring-straw-200 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600"
+        >
+          {m.text || '(no text part)'}
+        </pre>
       </section>
       {m.attachments.length > 0 && (
         <section>

@@ -11,7 +11,16 @@ export function MailboxPage() {
   const openId = messageId ? Number(messageId) : null;
   const messages = useMailMessages();
   return (
-    <PageFrame title="Mailbox" eyebrow="Messages caught by the local mail server" wide actions={<Button variant="secondary" onClick={() => messages.refetch()} busy={messages.isFetching}>Check for new mail</Button>}>
+    <PageFrame
+      title="Mailbox"
+      eyebrow="Messages caught by the local mail server"
+      wide
+      actions={
+        <Button variant="secondary" onClick={() => messages.refetch()} busy={messages.isFetching}>
+          Check for new mail
+        </Button>
+      }
+    >
       <div className="grid gap-5 lg:grid-cols-[22rem_1fr]">
         <Panel className={openId ? 'hidden self-start lg:block' : 'self-start'}>
           {messages.isPending ? (

@@ -50,7 +50,13 @@ export function PestForm({ pest, onDone }: { pest?: Pest; onDone: () => void }) 
       </SelectField>
       <TextField label="Count unit" hint='For example "aphids per plant"' value={values.countUnit} error={errors.countUnit} onChange={set('countUnit')} />
       <div className="grid grid-cols-2 gap-3">
-        <TextField label="Action threshold" inputMode="decimal" value={values.actionThreshold} error={errors.actionThreshold} onChange={set('actionThreshold')} />
+        <TextField
+          label="Action threshold"
+          inputMode="decimal"
+          value={values.actionThreshold}
+          error={errors.actionThreshold}
+          onChange={set('actionThreshold')}
+        />
         <SelectField label="Applies to" value={values.thresholdBasis} error={errors.thresholdBasis} onChange={set('thresholdBasis')}>
           {thresholdBases.map((b) => (
             <option key={b} value={b}>
@@ -59,9 +65,27 @@ export function PestForm({ pest, onDone }: { pest?: Pest; onDone: () => void }) 
           ))}
         </SelectField>
       </div>
-      <TextField label="Source of the threshold" hint="Publication or extension service, and year" value={values.thresholdSource} error={errors.thresholdSource} onChange={set('thresholdSource')} className="sm:col-span-2" />
-      <TextAreaField label="Note" hint="Crop stage, conditions, anything the number alone does not say" value={values.thresholdNote} error={errors.thresholdNote} onChange={set('thresholdNote')} className="sm:col-span-2" />
-      {failure && <div className="sm:col-span-2"><FormMessage>{errorMessage(failure)}</FormMessage></div>}
+      <TextField
+        label="Source of the threshold"
+        hint="Publication or extension service, and year"
+        value={values.thresholdSource}
+        error={errors.thresholdSource}
+        onChange={set('thresholdSource')}
+        className="sm:col-span-2"
+      />
+      <TextAreaField
+        label="Note"
+        hint="Crop stage, conditions, anything the number alone does not say"
+        value={values.thresholdNote}
+        error={errors.thresholdNote}
+        onChange={set('thresholdNote')}
+        className="sm:col-span-2"
+      />
+      {failure && (
+        <div className="sm:col-span-2">
+          <FormMessage>{errorMessage(failure)}</FormMessage>
+        </div>
+      )}
       <div className="flex gap-2 sm:col-span-2">
         <Button type="submit" busy={create.isPending || update.isPending}>
           {pest ? 'Save pest' : 'Add to the library'}

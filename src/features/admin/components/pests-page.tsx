@@ -28,11 +28,14 @@ export function PestsPage() {
       ),
     }),
     column.accessor('kind', { header: 'Kind', cell: (info) => <span className="capitalize">{info.getValue()}</span> }),
-    column.accessor('actionThreshold', { header: 'Action threshold and source', enableSorting: false, cell: (info) => <ThresholdText pest={info.row.original} /> }),
+    column.accessor('actionThreshold', {
+      header: 'Action threshold and source',
+      enableSorting: false,
+      cell: (info) => <ThresholdText pest={info.row.original} />,
+    }),
     column.accessor('active', {
       header: 'In use',
-      cell: (info) =>
-        info.getValue() ? <span className="text-field-800">Active</span> : <span className="text-soil-600">Deactivated</span>,
+      cell: (info) => (info.getValue() ? <span className="text-field-800">Active</span> : <span className="text-soil-600">Deactivated</span>),
     }),
     column.display({
       id: 'actions',
@@ -44,7 +47,13 @@ export function PestsPage() {
             <Button variant="quiet" size="sm" onClick={() => setEditing(pest)} aria-label={`Edit ${pest.name}`}>
               Edit
             </Button>
-            <Button variant="quiet" size="sm" className={pest.active ? 'text-patch-700' : ''} onClick={() => update.mutate({ id: pest.id, active: !pest.active })} aria-label={`${pest.active ? 'Deactivate' : 'Reactivate'} ${pest.name}`}>
+            <Button
+              variant="quiet"
+              size="sm"
+              className={pest.active ? 'text-patch-700' : ''}
+              onClick={() => update.mutate({ id: pest.id, active: !pest.active })}
+              aria-label={`${pest.active ? 'Deactivate' : 'Reactivate'} ${pest.name}`}
+            >
               {pest.active ? 'Deactivate' : 'Reactivate'}
             </Button>
           </div>
@@ -56,7 +65,8 @@ export function PestsPage() {
   return (
     <PageFrame title="Pest library" eyebrow="Admin" wide actions={editing === null && <Button onClick={() => setEditing('new')}>Add a pest</Button>}>
       <p className="-mt-3 max-w-3xl text-sm text-soil-700">
-        Thresholds differ by region, crop stage, price and product. Edit them to match the guidance your advisers follow, and always say where a figure comes from.
+        Thresholds differ by region, crop stage, price and product. Edit them to match the guidance your advisers follow, and always say where a figure comes
+        from.
       </p>
       {editing !== null && (
         <Panel title={editing === 'new' ? 'New pest' : `Edit ${editing.name}`}>
@@ -69,7 +79,9 @@ export function PestsPage() {
       ) : pests.isError ? (
         <ErrorState error={pests.error} onRetry={() => pests.refetch()} />
       ) : pests.data.length === 0 ? (
-        <EmptyState title="The pest library is empty">Add the pests your advisers scout for, each with its action threshold and the source of that threshold.</EmptyState>
+        <EmptyState title="The pest library is empty">
+          Add the pests your advisers scout for, each with its action threshold and the source of that threshold.
+        </EmptyState>
       ) : (
         <TableFrame caption="Pest library" columns={columns} rows={pests.data} rowId={(p) => p.id} />
       )}

@@ -54,7 +54,11 @@ export function UsersPage() {
         );
       },
     }),
-    column.accessor((u) => (u.active ? (u.invited ? 'invited' : 'active') : 'deactivated'), { id: 'status', header: 'Status', cell: (info) => <StatusBadge user={info.row.original} /> }),
+    column.accessor((u) => (u.active ? (u.invited ? 'invited' : 'active') : 'deactivated'), {
+      id: 'status',
+      header: 'Status',
+      cell: (info) => <StatusBadge user={info.row.original} />,
+    }),
     column.display({
       id: 'actions',
       header: () => <span className="sr-only">Actions</span>,
@@ -64,11 +68,23 @@ export function UsersPage() {
         return (
           <div className="flex justify-end gap-1">
             {user.invited && user.active && (
-              <Button variant="quiet" size="sm" busy={resend.isPending && resend.variables === user.id} onClick={() => resend.mutate(user.id)} aria-label={`Send the invitation to ${user.name} again`}>
+              <Button
+                variant="quiet"
+                size="sm"
+                busy={resend.isPending && resend.variables === user.id}
+                onClick={() => resend.mutate(user.id)}
+                aria-label={`Send the invitation to ${user.name} again`}
+              >
                 Send invitation again
               </Button>
             )}
-            <Button variant="quiet" size="sm" className={user.active ? 'text-patch-700' : ''} onClick={() => update.mutate({ id: user.id, active: !user.active })} aria-label={`${user.active ? 'Deactivate' : 'Reactivate'} ${user.name}`}>
+            <Button
+              variant="quiet"
+              size="sm"
+              className={user.active ? 'text-patch-700' : ''}
+              onClick={() => update.mutate({ id: user.id, active: !user.active })}
+              aria-label={`${user.active ? 'Deactivate' : 'Reactivate'} ${user.name}`}
+            >
               {user.active ? 'Deactivate' : 'Reactivate'}
             </Button>
           </div>

@@ -41,7 +41,10 @@ function FieldRow({ item, action }: { item: AttentionField; action: string }) {
           Threshold {item.actionThreshold} — {item.thresholdSource}
         </p>
       </div>
-      <Link to={reviewLink(item)} className="shrink-0 rounded-md bg-field-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-field-600">
+      <Link
+        to={reviewLink(item)}
+        className="shrink-0 rounded-md bg-field-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-field-600"
+      >
         {action}
       </Link>
     </li>
@@ -51,17 +54,37 @@ function FieldRow({ item, action }: { item: AttentionField; action: string }) {
 export function AdviserHome() {
   const attention = useAttention();
   return (
-    <PageFrame title="Needs your attention" eyebrow="Fields across your advisory business" actions={<Link to="/fields" className="text-sm font-medium text-field-700 underline-offset-2 hover:underline">All fields</Link>} wide>
+    <PageFrame
+      title="Needs your attention"
+      eyebrow="Fields across your advisory business"
+      actions={
+        <Link to="/fields" className="text-sm font-medium text-field-700 underline-offset-2 hover:underline">
+          All fields
+        </Link>
+      }
+      wide
+    >
       {attention.isPending ? (
         <LoadingState label="Looking for fields that need you…" />
       ) : attention.isError ? (
         <ErrorState error={attention.error} onRetry={() => attention.refetch()} />
-      ) : attention.data.clusteredAboveThreshold.length + attention.data.notYetChecked.length + attention.data.unacknowledgedNotices.length + attention.data.growerQuestions.length === 0 ? (
-        <EmptyState title="Nothing needs you right now">Every field’s sightings are checked, no patchy pest is above its threshold and every notice is acknowledged.</EmptyState>
+      ) : attention.data.clusteredAboveThreshold.length +
+          attention.data.notYetChecked.length +
+          attention.data.unacknowledgedNotices.length +
+          attention.data.growerQuestions.length ===
+        0 ? (
+        <EmptyState title="Nothing needs you right now">
+          Every field’s sightings are checked, no patchy pest is above its threshold and every notice is acknowledged.
+        </EmptyState>
       ) : (
         <div className="grid items-start gap-5 xl:grid-cols-2">
           {attention.data.growerQuestions.length > 0 && (
-            <Section title="Questions from growers" count={attention.data.growerQuestions.length} tone="bg-patch-100 text-patch-800" empty="No grower is waiting for an answer.">
+            <Section
+              title="Questions from growers"
+              count={attention.data.growerQuestions.length}
+              tone="bg-patch-100 text-patch-800"
+              empty="No grower is waiting for an answer."
+            >
               {attention.data.growerQuestions.map((q) => (
                 <li key={q.questionId} className="flex flex-wrap items-start justify-between gap-x-4 gap-y-1 py-2.5" data-attention="grower-question">
                   <div className="min-w-0">
@@ -73,24 +96,42 @@ export function AdviserHome() {
                       {q.askerName}, {new Date(q.askedAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}
                     </p>
                   </div>
-                  <Link to={`/notices/${q.noticeId}`} className="shrink-0 rounded-md bg-field-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-field-600">
+                  <Link
+                    to={`/notices/${q.noticeId}`}
+                    className="shrink-0 rounded-md bg-field-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-field-600"
+                  >
                     Answer
                   </Link>
                 </li>
               ))}
             </Section>
           )}
-          <Section title="Patchy and above threshold" count={attention.data.clusteredAboveThreshold.length} tone="bg-patch-600 text-white" empty="No clustered pest is above its action threshold.">
+          <Section
+            title="Patchy and above threshold"
+            count={attention.data.clusteredAboveThreshold.length}
+            tone="bg-patch-600 text-white"
+            empty="No clustered pest is above its action threshold."
+          >
             {attention.data.clusteredAboveThreshold.map((item) => (
               <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action="Review zones" />
             ))}
           </Section>
-          <Section title="Sightings not yet checked" count={attention.data.notYetChecked.length} tone="bg-straw-300 text-soil-900" empty="Every field’s latest sightings have been checked.">
+          <Section
+            title="Sightings not yet checked"
+            count={attention.data.notYetChecked.length}
+            tone="bg-straw-300 text-soil-900"
+            empty="Every field’s latest sightings have been checked."
+          >
             {attention.data.notYetChecked.map((item) => (
               <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action="Run a check" />
             ))}
           </Section>
-          <Section title="Notices not acknowledged" count={attention.data.unacknowledgedNotices.length} tone="bg-field-100 text-field-900" empty="Every notice sent has been acknowledged.">
+          <Section
+            title="Notices not acknowledged"
+            count={attention.data.unacknowledgedNotices.length}
+            tone="bg-field-100 text-field-900"
+            empty="Every notice sent has been acknowledged."
+          >
             {attention.data.unacknowledgedNotices.map((n) => (
               <li key={n.noticeId} className="flex flex-wrap items-start justify-between gap-x-4 gap-y-1 py-2.5" data-attention="unacknowledged-notice">
                 <div>
@@ -99,10 +140,14 @@ export function AdviserHome() {
                   </p>
                   <p className="text-sm text-soil-700">{n.message}</p>
                   <p className="text-xs text-soil-500">
-                    Sent {n.daysSinceSent} day{n.daysSinceSent === 1 ? '' : 's'} ago · {n.recipientsWaiting} recipient{n.recipientsWaiting === 1 ? '' : 's'} waiting
+                    Sent {n.daysSinceSent} day{n.daysSinceSent === 1 ? '' : 's'} ago · {n.recipientsWaiting} recipient{n.recipientsWaiting === 1 ? '' : 's'}{' '}
+                    waiting
                   </p>
                 </div>
-                <Link to={reviewLink({ fieldId: n.fieldId })} className="shrink-0 rounded-md px-3 py-1.5 text-sm font-medium text-field-800 ring-1 ring-inset ring-soil-300 hover:bg-straw-100">
+                <Link
+                  to={reviewLink({ fieldId: n.fieldId })}
+                  className="shrink-0 rounded-md px-3 py-1.5 text-sm font-medium text-field-800 ring-1 ring-inset ring-soil-300 hover:bg-straw-100"
+                >
                   Open field
                 </Link>
               </li>

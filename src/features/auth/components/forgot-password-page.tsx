@@ -21,12 +21,28 @@ export function ForgotPasswordPage() {
   };
 
   return (
-    <AuthCard title="Reset your password" intro="We will e-mail a link to set a new password." footer={<Link to="/sign-in" className="font-medium text-field-700 hover:underline">Back to sign-in</Link>}>
+    <AuthCard
+      title="Reset your password"
+      intro="We will e-mail a link to set a new password."
+      footer={
+        <Link to="/sign-in" className="font-medium text-field-700 hover:underline">
+          Back to sign-in
+        </Link>
+      }
+    >
       {reset.isSuccess ? (
         <FormMessage tone="success">{reset.data.message}</FormMessage>
       ) : (
         <form onSubmit={submit} noValidate className="space-y-4">
-          <TextField label="E-mail address" name="email" type="email" autoComplete="username" value={email} error={errors.email} onChange={(e) => setEmail(e.target.value)} />
+          <TextField
+            label="E-mail address"
+            name="email"
+            type="email"
+            autoComplete="username"
+            value={email}
+            error={errors.email}
+            onChange={(e) => setEmail(e.target.value)}
+          />
           {reset.isError && <FormMessage>{errorMessage(reset.error)}</FormMessage>}
           <Button type="submit" size="lg" className="w-full" busy={reset.isPending}>
             Send the link

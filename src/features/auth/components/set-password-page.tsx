@@ -37,11 +37,35 @@ export function SetPasswordPage() {
   }
 
   return (
-    <AuthCard title="Choose a password" intro="At least 12 characters; a short sentence is easy to remember." footer={<Link to="/sign-in" className="font-medium text-field-700 hover:underline">Back to sign-in</Link>}>
+    <AuthCard
+      title="Choose a password"
+      intro="At least 12 characters; a short sentence is easy to remember."
+      footer={
+        <Link to="/sign-in" className="font-medium text-field-700 hover:underline">
+          Back to sign-in
+        </Link>
+      }
+    >
       <form onSubmit={submit} noValidate className="space-y-4">
         {errors.token && <FormMessage>{errors.token}</FormMessage>}
-        <TextField label="New password" name="password" type="password" autoComplete="new-password" value={values.password} error={errors.password} onChange={(e) => setValues({ ...values, password: e.target.value })} />
-        <TextField label="Same password again" name="repeat" type="password" autoComplete="new-password" value={values.repeat} error={errors.repeat} onChange={(e) => setValues({ ...values, repeat: e.target.value })} />
+        <TextField
+          label="New password"
+          name="password"
+          type="password"
+          autoComplete="new-password"
+          value={values.password}
+          error={errors.password}
+          onChange={(e) => setValues({ ...values, password: e.target.value })}
+        />
+        <TextField
+          label="Same password again"
+          name="repeat"
+          type="password"
+          autoComplete="new-password"
+          value={values.repeat}
+          error={errors.repeat}
+          onChange={(e) => setValues({ ...values, repeat: e.target.value })}
+        />
         {setPassword.isError && <FormMessage>{errorMessage(setPassword.error)}</FormMessage>}
         <Button type="submit" size="lg" className="w-full" busy={setPassword.isPending}>
           Set password

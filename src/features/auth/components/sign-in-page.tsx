@@ -27,10 +27,35 @@ export function SignInPage() {
   };
 
   return (
-    <AuthCard title="Sign in" intro="Scouting, pattern checks and zone notices for your farms." footer={<Link to="/forgot-password" className="font-medium text-field-700 underline-offset-2 hover:underline">Forgot your password?</Link>}>
+    <AuthCard
+      title="Sign in"
+      intro="Scouting, pattern checks and zone notices for your farms."
+      footer={
+        <Link to="/forgot-password" className="font-medium text-field-700 underline-offset-2 hover:underline">
+          Forgot your password?
+        </Link>
+      }
+    >
       <form onSubmit={submit} noValidate className="space-y-4">
-        <TextField label="E-mail address" name="email" type="email" autoComplete="username" inputMode="email" value={values.email} error={errors.email} onChange={(e) => setValues({ ...values, email: e.target.value })} />
-        <TextField label="Password" name="password" type="password" autoComplete="current-password" value={values.password} error={errors.password} onChange={(e) => setValues({ ...values, password: e.target.value })} />
+        <TextField
+          label="E-mail address"
+          name="email"
+          type="email"
+          autoComplete="username"
+          inputMode="email"
+          value={values.email}
+          error={errors.email}
+          onChange={(e) => setValues({ ...values, email: e.target.value })}
+        />
+        <TextField
+          label="Password"
+          name="password"
+          type="password"
+          autoComplete="current-password"
+          value={values.password}
+          error={errors.password}
+          onChange={(e) => setValues({ ...values, password: e.target.value })}
+        />
         {signIn.isError && <FormMessage>{errorMessage(signIn.error)}</FormMessage>}
         <Button type="submit" size="lg" className="w-full" busy={signIn.isPending}>
           Sign in

@@ -3,9 +3,20 @@ import { useId, type ReactNode } from 'react';
 import type { FieldErrors } from '../../../lib/form-errors.ts';
 import type { CheckOptionsDraft } from '../check-options-draft.ts';
 
-const inputClass = 'block w-full rounded border-0 bg-white px-2 py-1 text-sm text-soil-900 ring-1 ring-inset ring-soil-300 focus:ring-2 focus:ring-field-600 aria-[invalid=true]:ring-patch-600';
+const inputClass =
+  'block w-full rounded border-0 bg-white px-2 py-1 text-sm text-soil-900 ring-1 ring-inset ring-soil-300 focus:ring-2 focus:ring-field-600 aria-[invalid=true]:ring-patch-600';
 
-function Option({ label, hint, error, children }: { label: string; hint?: ReactNode; error?: string; children: (id: string, describedBy?: string) => ReactNode }) {
+function Option({
+  label,
+  hint,
+  error,
+  children,
+}: {
+  label: string;
+  hint?: ReactNode;
+  error?: string;
+  children: (id: string, describedBy?: string) => ReactNode;
+}) {
   const id = useId();
   const describedBy = [hint ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') || undefined;
   return (
@@ -31,13 +42,28 @@ function Option({ label, hint, error, children }: { label: string; hint?: ReactN
 export function CheckOptionsForm({ draft, onChange, errors }: { draft: CheckOptionsDraft; onChange: (draft: CheckOptionsDraft) => void; errors: FieldErrors }) {
   const set = <K extends keyof CheckOptionsDraft>(key: K, value: CheckOptionsDraft[K]) => onChange({ ...draft, [key]: value });
   const text = (key: 'cellSizeM' | 'simulations' | 'bandwidthM' | 'alpha' | 'customAreaHa', placeholder?: string) => (id: string, describedBy?: string) => (
-    <input id={id} inputMode="decimal" className={inputClass} value={draft[key]} placeholder={placeholder} aria-invalid={errors[key === 'customAreaHa' ? 'customAreaHa' : key] ? true : undefined} aria-describedby={describedBy} onChange={(e) => set(key, e.target.value)} />
+    <input
+      id={id}
+      inputMode="decimal"
+      className={inputClass}
+      value={draft[key]}
+      placeholder={placeholder}
+      aria-invalid={errors[key === 'customAreaHa' ? 'customAreaHa' : key] ? true : undefined}
+      aria-describedby={describedBy}
+      onChange={(e) => set(key, e.target.value)}
+    />
   );
   return (
     <div className="grid grid-cols-2 gap-x-3 gap-y-2">
       <Option label="Area basis" error={errors.areaBasis} hint="The area chance spacing is judged against.">
         {(id, describedBy) => (
-          <select id={id} className={inputClass} value={draft.areaBasis} aria-describedby={describedBy} onChange={(e) => set('areaBasis', e.target.value as CheckOptionsDraft['areaBasis'])}>
+          <select
+            id={id}
+            className={inputClass}
+            value={draft.areaBasis}
+            aria-describedby={describedBy}
+            onChange={(e) => set('areaBasis', e.target.value as CheckOptionsDraft['areaBasis'])}
+          >
             <option value="boundary">Field boundary</option>
             <option value="bbox">Bounding rectangle</option>
             <option value="hull">Convex hull</option>
@@ -62,7 +88,13 @@ export function CheckOptionsForm({ draft, onChange, errors }: { draft: CheckOpti
       </Option>
       <Option label="Kernel" error={errors.kernel}>
         {(id, describedBy) => (
-          <select id={id} className={inputClass} value={draft.kernel} aria-describedby={describedBy} onChange={(e) => set('kernel', e.target.value as CheckOptionsDraft['kernel'])}>
+          <select
+            id={id}
+            className={inputClass}
+            value={draft.kernel}
+            aria-describedby={describedBy}
+            onChange={(e) => set('kernel', e.target.value as CheckOptionsDraft['kernel'])}
+          >
             <option value="quartic">Quartic</option>
             <option value="gaussian">Gaussian</option>
           </select>
@@ -71,7 +103,11 @@ export function CheckOptionsForm({ draft, onChange, errors }: { draft: CheckOpti
       <Option
         label="Bandwidth (m)"
         error={errors.bandwidthM}
-        hint={draft.kernel === 'quartic' ? 'Quartic: the search radius — each sighting counts up to this distance, zero beyond it.' : 'Gaussian: the standard deviation — each sighting’s weight fades with distance, never quite zero.'}
+        hint={
+          draft.kernel === 'quartic'
+            ? 'Quartic: the search radius — each sighting counts up to this distance, zero beyond it.'
+            : 'Gaussian: the standard deviation — each sighting’s weight fades with distance, never quite zero.'
+        }
       >
         {text('bandwidthM', 'default')}
       </Option>

@@ -12,7 +12,13 @@ import { CheckOptionsForm } from './check-options-form.tsx';
 import { optionsFromDraft, type CheckOptionsDraft } from '../check-options-draft.ts';
 import { VerdictSummary } from './verdict-summary.tsx';
 
-export function CheckPanel({ window, draft, onDraftChange, check, onCheckOpened }: {
+export function CheckPanel({
+  window,
+  draft,
+  onDraftChange,
+  check,
+  onCheckOpened,
+}: {
   window: Omit<CheckRequestInput, 'options'> | null;
   draft: CheckOptionsDraft;
   onDraftChange: (draft: CheckOptionsDraft) => void;
@@ -47,7 +53,9 @@ export function CheckPanel({ window, draft, onDraftChange, check, onCheckOpened 
       {run.isError && <FormMessage>{errorMessage(run.error)}</FormMessage>}
       <div aria-live="polite" className="border-t border-straw-200 pt-3">
         {check.fetchStatus === 'idle' && !current ? (
-          <EmptyState title="No check yet">Run a check to test whether this pest is patchy here. The same sightings and options give back the stored result.</EmptyState>
+          <EmptyState title="No check yet">
+            Run a check to test whether this pest is patchy here. The same sightings and options give back the stored result.
+          </EmptyState>
         ) : check.isPending ? (
           <LoadingState label="Opening the check…" />
         ) : check.isError ? (
@@ -68,8 +76,17 @@ function CheckProgress({ check }: { check: CheckView }) {
   const share = Math.round(check.progress * 100);
   return (
     <div className="space-y-1" role="status">
-      <p className="text-sm font-medium text-soil-800">{check.status === 'queued' ? 'Queued — waiting for a worker…' : `Running the simulations… ${share} %`}</p>
-      <div className="h-2 overflow-hidden rounded bg-straw-200" role="progressbar" aria-valuemin={0} aria-valuemax={100} aria-valuenow={share} aria-label="Check progress">
+      <p className="text-sm font-medium text-soil-800">
+        {check.status === 'queued' ? 'Queued — waiting for a worker…' : `Running the simulations… ${share} %`}
+      </p>
+      <div
+        className="h-2 overflow-hidden rounded bg-straw-200"
+        role="progressbar"
+        aria-valuemin={0}
+        aria-valuemax={100}
+        aria-valuenow={share}
+        aria-label="Check progress"
+      >
         <div className="h-full bg-field-600 transition-all" style={{ width: `${share}%` }} />
       </div>
       <p className="text-xs text-soil-600">Heavy checks (many simulations) run in the background; this page follows it.</p>

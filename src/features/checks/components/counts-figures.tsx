@@ -25,11 +25,14 @@ export function CountsFigures({ counts, alpha }: { counts: CountsResult | null; 
             I for counts placed at random is −1/(n−1); z measures the distance from it.
           </Figure>
           <Figure name="p (permutation)" value={pText(counts.moran.pValue ?? counts.moran.normalPValue)} figure="moran-p">
-            {counts.moran.pValue !== null ? `From ${counts.moran.permutations} reshuffles of the counts over the same stops.` : 'Normal approximation (no reshuffles run).'}
+            {counts.moran.pValue !== null
+              ? `From ${counts.moran.permutations} reshuffles of the counts over the same stops.`
+              : 'Normal approximation (no reshuffles run).'}
           </Figure>
           <Figure name="Hot patches" value={counts.hotPatches.length} figure="hot-patches">
             {counts.hotPatches.length
-              ? counts.hotPatches.map((p, i) => `Patch ${i + 1}: ${p.sightings} stops, mean count ${fixed(p.meanCount, 1)}`).join('; ') + '. Stops whose neighbourhood counts are high beyond chance, after allowing for testing many stops at once.'
+              ? counts.hotPatches.map((p, i) => `Patch ${i + 1}: ${p.sightings} stops, mean count ${fixed(p.meanCount, 1)}`).join('; ') +
+                '. Stops whose neighbourhood counts are high beyond chance, after allowing for testing many stops at once.'
               : 'No group of stops has counts high beyond chance once many stops are tested at once.'}
           </Figure>
         </FigureList>
@@ -53,7 +56,8 @@ export function CoverageFigures({ coverage }: { coverage: CoverageResult | null 
               Every stop (sightings and {coverage.emptyStops} empty stops). Sightings exist only where a scout looked.
             </Figure>
             <Figure name="Cells visited" value={percent(coverage.visitedShare)} figure="visited-share">
-              Share of {metres(coverage.cellSizeM, 0)} cells with at least one stop; an even walk with as many stops would reach about {percent(coverage.expectedVisitedShare)}.
+              Share of {metres(coverage.cellSizeM, 0)} cells with at least one stop; an even walk with as many stops would reach about{' '}
+              {percent(coverage.expectedVisitedShare)}.
             </Figure>
             <Figure name="Spacing of stops (R)" value={fixed(coverage.stopsR)} figure="stops-R">
               Near or above 1: stops spread over the field. Well below 1: the walk itself bunched up, which can look like a patch.

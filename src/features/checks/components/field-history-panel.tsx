@@ -12,8 +12,18 @@ const WalkHistoryChart = lazy(() => import('./walk-history-chart.tsx').then((m) 
 
 export function FieldHistoryPanel({ fieldId, pestId, reviewHref }: { fieldId: string; pestId?: string; reviewHref: (check: CheckSummary) => string }) {
   const history = useFieldHistory(fieldId, pestId);
-  if (history.isPending) return <Panel title="Season history"><LoadingState label="Loading the season…" /></Panel>;
-  if (history.isError) return <Panel title="Season history"><ErrorState error={history.error} onRetry={() => history.refetch()} /></Panel>;
+  if (history.isPending)
+    return (
+      <Panel title="Season history">
+        <LoadingState label="Loading the season…" />
+      </Panel>
+    );
+  if (history.isError)
+    return (
+      <Panel title="Season history">
+        <ErrorState error={history.error} onRetry={() => history.refetch()} />
+      </Panel>
+    );
   const rows = history.data.walks.map((w) => {
     const figures = w.pests.find((p) => p.pestId === pestId) ?? w.pests[0];
     return { walkedOn: w.walkedOn, scout: w.scout.name, sightings: figures?.sightings ?? 0, stops: figures?.stops ?? 0, meanCount: figures?.meanCount ?? null };

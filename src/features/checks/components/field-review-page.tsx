@@ -56,8 +56,16 @@ export function FieldReviewPage() {
   const [tableFilters, setTableFilters] = useState<TableFilters>({});
   useEffect(() => setTableFilters((f) => ({ ...f, pestId })), [pestId]);
 
-  const changeWindow = (next: ReviewWindow) => setParams(new URLSearchParams(Object.entries({ pest: next.pestId, from: next.from, to: next.to }).filter((e): e is [string, string] => Boolean(e[1]))));
-  const openCheck = useCallback((opened: CheckView) => setParams((p) => { p.set('check', opened.id); return p; }), [setParams]);
+  const changeWindow = (next: ReviewWindow) =>
+    setParams(new URLSearchParams(Object.entries({ pest: next.pestId, from: next.from, to: next.to }).filter((e): e is [string, string] => Boolean(e[1]))));
+  const openCheck = useCallback(
+    (opened: CheckView) =>
+      setParams((p) => {
+        p.set('check', opened.id);
+        return p;
+      }),
+    [setParams],
+  );
 
   const pestSightings = useMemo(() => (sightings.data ?? []).filter((s) => s.pestId === pestId), [sightings.data, pestId]);
   const window = pestId ? { fieldId, pestId, from, to } : null;
@@ -65,9 +73,24 @@ export function FieldReviewPage() {
   const request = window && built.ok ? { ...window, options: { ...built.options } } : null;
   const result = check.data?.status === 'done' && check.data.result && check.data.pestId === pestId ? check.data.result : null;
 
-  if (field.isPending || pests.isPending) return <PageFrame title="Field review"><LoadingState label="Loading the field…" /></PageFrame>;
-  if (field.isError) return <PageFrame title="Field review"><ErrorState error={field.error} onRetry={() => field.refetch()} /></PageFrame>;
-  if (pests.isError) return <PageFrame title="Field review"><ErrorState error={pests.error} onRetry={() => pests.refetch()} /></PageFrame>;
+  if (field.isPending || pests.isPending)
+    return (
+      <PageFrame title="Field review">
+        <LoadingState label="Loading the field…" />
+      </PageFrame>
+    );
+  if (field.isError)
+    return (
+      <PageFrame title="Field review">
+        <ErrorState error={field.error} onRetry={() => field.refetch()} />
+      </PageFrame>
+    );
+  if (pests.isError)
+    return (
+      <PageFrame title="Field review">
+        <ErrorState error={pests.error} onRetry={() => pests.refetch()} />
+      </PageFrame>
+    );
 
   const f = field.data;
   const pestName = pests.data.find((p) => p.id === pestId)?.name ?? 'this pest';
@@ -82,7 +105,11 @@ export function FieldReviewPage() {
           {f.farmName} · {f.crop} {f.season} · <AreaText m2={f.areaM2} />
         </>
       }
-      actions={<Link to={`/fields/${f.id}`} className="text-sm font-medium text-field-700 underline-offset-2 hover:underline">Field details</Link>}
+      actions={
+        <Link to={`/fields/${f.id}`} className="text-sm font-medium text-field-700 underline-offset-2 hover:underline">
+          Field details
+        </Link>
+      }
       wide
     >
       <ReviewToolbar pests={pests.data} window={{ pestId, from, to }} onChange={changeWindow} summary={summary} />
@@ -91,8 +118,21 @@ export function FieldReviewPage() {
           {sightings.isError ? (
             <ErrorState error={sightings.error} onRetry={() => sightings.refetch()} />
           ) : (
-            <Suspense fallback={<div className="flex h-[40rem] items-center justify-center rounded-lg bg-straw-100"><LoadingState label="Loading the map…" /></div>}>
-              <ReviewMap field={f} sightings={pestSightings} result={result} checkId={result ? (check.data?.id ?? null) : null} selectedId={selectedId} onSelect={setSelectedId} />
+            <Suspense
+              fallback={
+                <div className="flex h-[40rem] items-center justify-center rounded-lg bg-straw-100">
+                  <LoadingState label="Loading the map…" />
+                </div>
+              }
+            >
+              <ReviewMap
+                field={f}
+                sightings={pestSightings}
+                result={result}
+                checkId={result ? (check.data?.id ?? null) : null}
+                selectedId={selectedId}
+                onSelect={setSelectedId}
+              />
             </Suspense>
           )}
         </Panel>
@@ -109,7 +149,16 @@ export function FieldReviewPage() {
         ) : sightings.data.length === 0 ? (
           <EmptyState title="No sightings in this window">Scouts’ photos and empty stops appear here as soon as they are uploaded.</EmptyState>
         ) : (
-          <SightingsTable fieldId={fieldId} fieldName={f.name} sightings={sightings.data} pests={pests.data} filters={tableFilters} onFiltersChange={setTableFilters} selectedId={selectedId} onShowOnMap={setSelectedId} />
+          <SightingsTable
+            fieldId={fieldId}
+            fieldName={f.name}
+            sightings={sightings.data}
+            pests={pests.data}
+            filters={tableFilters}
+            onFiltersChange={setTableFilters}
+            selectedId={selectedId}
+            onShowOnMap={setSelectedId}
+          />
         )}
       </Panel>
       <FieldHistoryPanel fieldId={fieldId} pestId={pestId} reviewHref={(c) => reviewPath(fieldId, { pest: c.pestId, from: c.from, to: c.to, check: c.id })} />

@@ -22,7 +22,8 @@ export function NearestNeighbourFigures({ result }: { result: AnalysisResult }) 
           The area the test assumes the pest could be anywhere in. Chance spacing depends on it: a smaller area makes the same sightings look less clustered.
         </Figure>
         <Figure name="Area used" value={<span className="whitespace-nowrap text-xs">{hectaresAndAcres(area.usedM2)}</span>} figure="area-used">
-          Field boundary {hectaresAndAcres(area.boundaryM2)}; bounding rectangle {hectaresAndAcres(area.boundingBoxM2)}; hull {hectaresAndAcres(area.convexHullM2)}.
+          Field boundary {hectaresAndAcres(area.boundaryM2)}; bounding rectangle {hectaresAndAcres(area.boundingBoxM2)}; hull{' '}
+          {hectaresAndAcres(area.convexHullM2)}.
         </Figure>
         {nearest ? (
           <>
@@ -60,7 +61,9 @@ export function NearestNeighbourFigures({ result }: { result: AnalysisResult }) 
           </Figure>
         )}
       </FigureList>
-      {area.basis !== 'boundary' && <Warning>The area basis is not the field boundary; compare with the boundary figures in the robustness strip below before deciding.</Warning>}
+      {area.basis !== 'boundary' && (
+        <Warning>The area basis is not the field boundary; compare with the boundary figures in the robustness strip below before deciding.</Warning>
+      )}
     </section>
   );
 }

@@ -16,7 +16,8 @@ export function QuadratFigures({ quadrat, alpha }: { quadrat: QuadratResult | nu
         <>
           <FigureList label="Quadrat figures">
             <Figure name="Cell size" value={metres(quadrat.grid.cellWidth, 0)} figure="cell-size">
-              {quadrat.cells.length} cells over the field ({quadrat.fullCells} whole, the rest clipped by the boundary), {fixed(quadrat.meanPerFullCell)} sightings per whole cell on average.
+              {quadrat.cells.length} cells over the field ({quadrat.fullCells} whole, the rest clipped by the boundary), {fixed(quadrat.meanPerFullCell)}{' '}
+              sightings per whole cell on average.
             </Figure>
             <Figure name="χ²" value={fixed(quadrat.chiSquare, 1)} figure="chi-square">
               {explainChiSquare(quadrat, alpha)}
@@ -38,7 +39,8 @@ export function QuadratFigures({ quadrat, alpha }: { quadrat: QuadratResult | nu
           {quadrat.lowExpected && <Warning>Some cells expect fewer than 5 sightings, so the χ² p is rough; larger cells make it firmer.</Warning>}
           {quadrat.slivers.sliverCells > 0 && (
             <p className="mt-1 text-xs text-soil-600">
-              {quadrat.slivers.sliverCells} sliver cells at the edge (under 10 % inside the field): {quadrat.slivers.merged} merged into a neighbour, {quadrat.slivers.dropped} dropped
+              {quadrat.slivers.sliverCells} sliver cells at the edge (under 10 % inside the field): {quadrat.slivers.merged} merged into a neighbour,{' '}
+              {quadrat.slivers.dropped} dropped
               {quadrat.slivers.sightingsDropped ? ` with ${quadrat.slivers.sightingsDropped} sightings` : ''}.
             </p>
           )}

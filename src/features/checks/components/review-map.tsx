@@ -16,9 +16,22 @@ import { SightingDetails } from './sighting-details.tsx';
 
 const { patch, soil } = palette.theme.extend.colors;
 type LayerKey = 'sightings' | 'quadrat' | 'density' | 'zones' | 'notScouted';
-const layerLabels: Record<LayerKey, string> = { sightings: 'Sightings', quadrat: 'Quadrat grid', density: 'Density surface', zones: 'Proposed zones', notScouted: 'Not scouted' };
+const layerLabels: Record<LayerKey, string> = {
+  sightings: 'Sightings',
+  quadrat: 'Quadrat grid',
+  density: 'Density surface',
+  zones: 'Proposed zones',
+  notScouted: 'Not scouted',
+};
 
-export function ReviewMap({ field, sightings, result, checkId, selectedId, onSelect }: {
+export function ReviewMap({
+  field,
+  sightings,
+  result,
+  checkId,
+  selectedId,
+  onSelect,
+}: {
   field: Field;
   sightings: SightingView[];
   result: AnalysisResult | null;
@@ -56,14 +69,27 @@ export function ReviewMap({ field, sightings, result, checkId, selectedId, onSel
         ))}
         {!result && <span className="text-xs text-soil-600">Run a check to see its grid, surface and zones.</span>}
       </fieldset>
-      <MapFrame boundaries={[{ id: field.id, geometry: field.boundary, label: field.name }]} label={`Map of ${field.name} with ${sightings.length} sightings`} className="h-[38rem]">
+      <MapFrame
+        boundaries={[{ id: field.id, geometry: field.boundary, label: field.name }]}
+        label={`Map of ${field.name} with ${sightings.length} sightings`}
+        className="h-[38rem]"
+      >
         {shown.density && result?.density && checkId && toLonLat && <DensityLayer checkId={checkId} density={result.density} toLonLat={toLonLat} />}
         {shown.quadrat && result?.quadrat && toLonLat && <QuadratGridLayer quadrat={result.quadrat} boundary={field.boundary} toLonLat={toLonLat} />}
         {shown.notScouted && result?.scouted && result.scouted.notScouted.coordinates.length > 0 && (
-          <GeoJSON key={`not-scouted-${result.scouted.notScoutedM2}`} data={result.scouted.notScouted} style={{ color: soil[500], weight: 0.5, fillColor: soil[400], fillOpacity: 0.35 }} interactive={false} />
+          <GeoJSON
+            key={`not-scouted-${result.scouted.notScoutedM2}`}
+            data={result.scouted.notScouted}
+            style={{ color: soil[500], weight: 0.5, fillColor: soil[400], fillOpacity: 0.35 }}
+            interactive={false}
+          />
         )}
         {shown.zones && result && result.zones.features.length > 0 && (
-          <GeoJSON key={JSON.stringify(result.zones.features.map((f) => f.properties.areaM2))} data={result.zones} style={{ color: patch[700], weight: 2.5, dashArray: '6 4', fillColor: patch[400], fillOpacity: 0.18 }} />
+          <GeoJSON
+            key={JSON.stringify(result.zones.features.map((f) => f.properties.areaM2))}
+            data={result.zones}
+            style={{ color: patch[700], weight: 2.5, dashArray: '6 4', fillColor: patch[400], fillOpacity: 0.18 }}
+          />
         )}
         {shown.sightings && <SightingDots sightings={sightings} selectedId={selectedId} onSelect={onSelect} />}
         {selected?.position && (
@@ -99,7 +125,9 @@ function MapLegend({ result, shownDensity }: { result: AnalysisResult | null; sh
       )}
       {result?.scouted && result.scouted.notScouted.coordinates.length > 0 && (
         <span className="inline-flex items-center gap-1.5">
-          <span className="inline-block h-3 w-5 bg-soil-400/40 ring-1 ring-soil-500" aria-hidden="true" /> Not scouted ({fixed(result.scouted.notScoutedM2 / 10_000, 1)} ha, {fixed(100 * (1 - result.scouted.scoutedShare), 0)} % of the field): no stop speaks for it, so it is not known to be clean
+          <span className="inline-block h-3 w-5 bg-soil-400/40 ring-1 ring-soil-500" aria-hidden="true" /> Not scouted (
+          {fixed(result.scouted.notScoutedM2 / 10_000, 1)} ha, {fixed(100 * (1 - result.scouted.scoutedShare), 0)} % of the field): no stop speaks for it, so it
+          is not known to be clean
         </span>
       )}
       {result && result.zones.features.length > 0 && (

@@ -9,7 +9,17 @@ export interface ReviewWindow {
   to?: string;
 }
 
-export function ReviewToolbar({ pests, window, onChange, summary }: { pests: Pest[]; window: ReviewWindow; onChange: (window: ReviewWindow) => void; summary: string }) {
+export function ReviewToolbar({
+  pests,
+  window,
+  onChange,
+  summary,
+}: {
+  pests: Pest[];
+  window: ReviewWindow;
+  onChange: (window: ReviewWindow) => void;
+  summary: string;
+}) {
   const set = (key: keyof ReviewWindow, value: string) => onChange({ ...window, [key]: value || undefined });
   return (
     <div className="flex flex-wrap items-end gap-3 rounded-lg bg-white px-4 py-3 shadow-sm ring-1 ring-soil-300/60">

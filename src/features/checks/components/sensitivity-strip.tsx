@@ -13,7 +13,14 @@ const bases = [
   { key: 'hull', label: 'Convex hull' },
 ] as const;
 
-const verdictTone: Record<SpreadVerdict, string> = { clustered: 'bg-patch-100 text-patch-700', random: 'bg-field-50 text-field-800', regular: 'bg-straw-100 text-soil-800', 'too-few': 'bg-soil-300/30 text-soil-700', everywhere: 'bg-patch-100 text-patch-700', 'cant-tell': 'bg-soil-300/30 text-soil-700' };
+const verdictTone: Record<SpreadVerdict, string> = {
+  clustered: 'bg-patch-100 text-patch-700',
+  random: 'bg-field-50 text-field-800',
+  regular: 'bg-straw-100 text-soil-800',
+  'too-few': 'bg-soil-300/30 text-soil-700',
+  everywhere: 'bg-patch-100 text-patch-700',
+  'cant-tell': 'bg-soil-300/30 text-soil-700',
+};
 
 function StripCell({ row }: { row: SensitivityRow | undefined }) {
   if (!row) return <td className="px-2 py-1.5 text-soil-400">—</td>;
@@ -43,20 +50,25 @@ export function SensitivityStrip({ request }: { request: CheckRequestInput | nul
       }
     >
       <p className="mb-2 text-xs text-soil-600">
-        The same sightings checked with half, the same and double the quadrat cell size, on three area bases{strip.data ? `, ${strip.data.simulations} simulations each` : ''}. The spacing R and its Monte Carlo p change with the area; χ² changes with the cells.
+        The same sightings checked with half, the same and double the quadrat cell size, on three area bases
+        {strip.data ? `, ${strip.data.simulations} simulations each` : ''}. The spacing R and its Monte Carlo p change with the area; χ² changes with the cells.
       </p>
       {strip.isError && <ErrorState error={strip.error} />}
       {rows.length > 0 && (
         <>
           <p className={`mb-2 text-sm font-medium ${verdicts.size === 1 ? 'text-field-800' : 'text-patch-700'}`} role="status">
-            {verdicts.size === 1 ? `The verdict holds: ${spreadLabels[[...verdicts][0]!]} in every variant.` : 'The verdict changes with the choices: read the figures before deciding, and prefer the field boundary.'}
+            {verdicts.size === 1
+              ? `The verdict holds: ${spreadLabels[[...verdicts][0]!]} in every variant.`
+              : 'The verdict changes with the choices: read the figures before deciding, and prefer the field boundary.'}
           </p>
           <div className="overflow-x-auto">
             <table className="w-full text-left text-sm">
               <caption className="sr-only">Verdict by area basis and cell size</caption>
               <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
                 <tr>
-                  <th scope="col" className="px-2 py-1.5">Area basis</th>
+                  <th scope="col" className="px-2 py-1.5">
+                    Area basis
+                  </th>
                   {factors.map((f) => (
                     <th key={f} scope="col" className="px-2 py-1.5">
                       Cells × {f} ({metres(rows.find((r) => r.cellSizeFactor === f)?.cellSizeM, 0)})
@@ -67,7 +79,9 @@ export function SensitivityStrip({ request }: { request: CheckRequestInput | nul
               <tbody className="divide-y divide-straw-200">
                 {bases.map((b) => (
                   <tr key={b.key}>
-                    <th scope="row" className="px-2 py-1.5 font-medium text-soil-800">{b.label}</th>
+                    <th scope="row" className="px-2 py-1.5 font-medium text-soil-800">
+                      {b.label}
+                    </th>
                     {factors.map((f) => (
                       <StripCell key={f} row={rows.find((r) => r.areaBasis === b.key && r.cellSizeFactor === f)} />
                     ))}

@@ -8,7 +8,11 @@ export function SightingDetails({ sighting }: { sighting: SightingView }) {
     <div className="w-56 space-y-2 font-sans text-sm text-soil-800" data-sighting-details={sighting.id}>
       {sighting.photoId ? (
         <a href={`/api/photos/${sighting.photoId}/original`} target="_blank" rel="noreferrer" className="block" title="Open the original photo">
-          <img src={`/api/photos/${sighting.photoId}/thumbnail`} alt={`Photo of ${sighting.pestName}`} className="h-36 w-full rounded bg-straw-100 object-cover ring-1 ring-soil-300" />
+          <img
+            src={`/api/photos/${sighting.photoId}/thumbnail`}
+            alt={`Photo of ${sighting.pestName}`}
+            className="h-36 w-full rounded bg-straw-100 object-cover ring-1 ring-soil-300"
+          />
         </a>
       ) : (
         <p className="rounded bg-straw-100 px-2 py-3 text-center text-xs text-soil-600">{sighting.isEmptyStop ? 'Empty stop — no photo' : 'No photo'}</p>

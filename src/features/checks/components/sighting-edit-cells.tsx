@@ -6,7 +6,8 @@ import type { PestView as Pest } from '@shared/schemas/pests.ts';
 import type { useUpdateSighting } from '../../../lib/api/update-sighting.ts';
 
 type Update = ReturnType<typeof useUpdateSighting>;
-const editorClass = 'rounded border-0 bg-transparent px-1 py-0.5 text-sm ring-1 ring-inset ring-transparent hover:ring-soil-300 focus:bg-white focus:ring-2 focus:ring-field-600 disabled:opacity-60';
+const editorClass =
+  'rounded border-0 bg-transparent px-1 py-0.5 text-sm ring-1 ring-inset ring-transparent hover:ring-soil-300 focus:bg-white focus:ring-2 focus:ring-field-600 disabled:opacity-60';
 
 export function PestEditor({ sighting, pests, update }: { sighting: SightingView; pests: Pest[]; update: Update }) {
   const busy = update.isPending && update.variables?.sightingId === sighting.id;
@@ -44,7 +45,12 @@ export function CountEditor({ sighting, update }: { sighting: SightingView; upda
     }
     update.mutate({ sightingId: sighting.id, change: { count } });
   };
-  if (sighting.isEmptyStop) return <span className="px-1 tabular-nums text-soil-500" title="Empty stop: nothing found">0</span>;
+  if (sighting.isEmptyStop)
+    return (
+      <span className="px-1 tabular-nums text-soil-500" title="Empty stop: nothing found">
+        0
+      </span>
+    );
   return (
     <input
       aria-label={`Count of sighting from ${sighting.walkedOn}`}

@@ -14,21 +14,45 @@ export interface TableFilters {
 const controlClass = 'block w-full rounded border-0 bg-white px-2 py-1 text-sm ring-1 ring-inset ring-soil-300 focus:ring-2 focus:ring-field-600';
 
 /** One of the table's pick-one filters: its first choice, the empty value, keeps every row. */
-function ChoiceFilter({ label, everyLabel, value, choices, onChange }: { label: string; everyLabel: string; value: string | undefined; choices: ReadonlyArray<readonly [string, string]>; onChange: (value: string) => void }) {
+function ChoiceFilter({
+  label,
+  everyLabel,
+  value,
+  choices,
+  onChange,
+}: {
+  label: string;
+  everyLabel: string;
+  value: string | undefined;
+  choices: ReadonlyArray<readonly [string, string]>;
+  onChange: (value: string) => void;
+}) {
   return (
     <label className="text-xs font-medium text-soil-700">
       {label}
       <select className={controlClass} value={value ?? ''} onChange={(e) => onChange(e.target.value)}>
         <option value="">{everyLabel}</option>
         {choices.map(([id, name]) => (
-          <option key={id} value={id}>{name}</option>
+          <option key={id} value={id}>
+            {name}
+          </option>
         ))}
       </select>
     </label>
   );
 }
 
-export function SightingsTableFilters({ sightings, pests, filters, onChange }: { sightings: SightingView[]; pests: Pest[]; filters: TableFilters; onChange: (filters: TableFilters) => void }) {
+export function SightingsTableFilters({
+  sightings,
+  pests,
+  filters,
+  onChange,
+}: {
+  sightings: SightingView[];
+  pests: Pest[];
+  filters: TableFilters;
+  onChange: (filters: TableFilters) => void;
+}) {
   const choices = useMemo(() => {
     const scouts = new Map<string, string>();
     const walks = new Map<string, string>();
@@ -41,7 +65,11 @@ export function SightingsTableFilters({ sightings, pests, filters, onChange }: {
       if (!pestNames.has(s.pestId)) pestNames.set(s.pestId, s.pestName);
     }
     const sorted = (m: Map<string, string>) => [...m.entries()].sort((a, b) => a[1].localeCompare(b[1]));
-    return { scouts: sorted(scouts), walks: sorted(walks).reverse(), pests: [...pestIds].map((id) => [id, pestNames.get(id)!] as const).sort((a, b) => a[1].localeCompare(b[1])) };
+    return {
+      scouts: sorted(scouts),
+      walks: sorted(walks).reverse(),
+      pests: [...pestIds].map((id) => [id, pestNames.get(id)!] as const).sort((a, b) => a[1].localeCompare(b[1])),
+    };
   }, [sightings, pests]);
   const set = (key: keyof TableFilters, value: string) => onChange({ ...filters, [key]: value || undefined });
   return (

@@ -32,16 +32,35 @@ const PAGE_SIZES = [25, 50, 100, 250];
 function Thumbnail({ sighting }: { sighting: SightingView }) {
   const [failed, setFailed] = useState(false);
   if (!sighting.photoId || sighting.thumbnailStatus !== 'ready' || failed) {
-    return <span className="flex h-9 w-9 items-center justify-center rounded bg-straw-100 text-[10px] text-soil-700 ring-1 ring-soil-300/60">{sighting.isEmptyStop ? 'stop' : sighting.thumbnailStatus === 'pending' ? '…' : '—'}</span>;
+    return (
+      <span className="flex h-9 w-9 items-center justify-center rounded bg-straw-100 text-[10px] text-soil-700 ring-1 ring-soil-300/60">
+        {sighting.isEmptyStop ? 'stop' : sighting.thumbnailStatus === 'pending' ? '…' : '—'}
+      </span>
+    );
   }
   return (
     <a href={`/api/photos/${sighting.photoId}/original`} target="_blank" rel="noreferrer" aria-label={`Open the photo of ${sighting.pestName}`}>
-      <img src={`/api/photos/${sighting.photoId}/thumbnail`} alt="" loading="lazy" className="h-9 w-9 rounded bg-straw-100 object-cover ring-1 ring-soil-300/60" onError={() => setFailed(true)} />
+      <img
+        src={`/api/photos/${sighting.photoId}/thumbnail`}
+        alt=""
+        loading="lazy"
+        className="h-9 w-9 rounded bg-straw-100 object-cover ring-1 ring-soil-300/60"
+        onError={() => setFailed(true)}
+      />
     </a>
   );
 }
 
-export function SightingsTable({ fieldId, fieldName, sightings, pests, filters, onFiltersChange, selectedId, onShowOnMap }: {
+export function SightingsTable({
+  fieldId,
+  fieldName,
+  sightings,
+  pests,
+  filters,
+  onFiltersChange,
+  selectedId,
+  onShowOnMap,
+}: {
   fieldId: string;
   fieldName: string;
   sightings: SightingView[];
@@ -60,16 +79,35 @@ export function SightingsTable({ fieldId, fieldName, sightings, pests, filters, 
       column.display({
         id: 'select',
         header: ({ table }) => (
-          <input type="checkbox" aria-label="Select every sighting on this page" className="h-4 w-4 rounded border-soil-300 text-field-700" checked={table.getIsAllPageRowsSelected()} onChange={table.getToggleAllPageRowsSelectedHandler()} />
+          <input
+            type="checkbox"
+            aria-label="Select every sighting on this page"
+            className="h-4 w-4 rounded border-soil-300 text-field-700"
+            checked={table.getIsAllPageRowsSelected()}
+            onChange={table.getToggleAllPageRowsSelectedHandler()}
+          />
         ),
-        cell: ({ row }) => <input type="checkbox" aria-label={`Select sighting ${row.index + 1}`} className="h-4 w-4 rounded border-soil-300 text-field-700" checked={row.getIsSelected()} onChange={row.getToggleSelectedHandler()} />,
+        cell: ({ row }) => (
+          <input
+            type="checkbox"
+            aria-label={`Select sighting ${row.index + 1}`}
+            className="h-4 w-4 rounded border-soil-300 text-field-700"
+            checked={row.getIsSelected()}
+            onChange={row.getToggleSelectedHandler()}
+          />
+        ),
       }),
       column.display({ id: 'photo', header: 'Photo', cell: ({ row }) => <Thumbnail sighting={row.original} /> }),
       column.accessor('walkedOn', {
         header: 'Walk',
-        filterFn: (row, _id, range: { from?: string; to?: string }) => (!range.from || row.original.walkedOn >= range.from) && (!range.to || row.original.walkedOn <= range.to),
+        filterFn: (row, _id, range: { from?: string; to?: string }) =>
+          (!range.from || row.original.walkedOn >= range.from) && (!range.to || row.original.walkedOn <= range.to),
       }),
-      column.accessor((s) => s.observedAt ?? '', { id: 'observedAt', header: 'Time', cell: (info) => <span className="whitespace-nowrap">{info.getValue() ? dateTime(info.getValue()) : '—'}</span> }),
+      column.accessor((s) => s.observedAt ?? '', {
+        id: 'observedAt',
+        header: 'Time',
+        cell: (info) => <span className="whitespace-nowrap">{info.getValue() ? dateTime(info.getValue()) : '—'}</span>,
+      }),
       column.accessor('pestName', {
         header: 'Pest',
         filterFn: (row, _id, pestId: string) => row.original.pestId === pestId,
@@ -81,7 +119,13 @@ export function SightingsTable({ fieldId, fieldName, sightings, pests, filters, 
         cell: ({ row }) => <CountEditor sighting={row.original} update={update} />,
       }),
       column.accessor('scoutName', { header: 'Scout', filterFn: (row, _id, scoutId: string) => row.original.scoutId === scoutId }),
-      column.accessor('walkId', { id: 'walkId', header: () => null, cell: () => null, enableSorting: false, filterFn: (row, _id, walkId: string) => row.original.walkId === walkId }),
+      column.accessor('walkId', {
+        id: 'walkId',
+        header: () => null,
+        cell: () => null,
+        enableSorting: false,
+        filterFn: (row, _id, walkId: string) => row.original.walkId === walkId,
+      }),
       column.accessor('positionSource', {
         header: 'Position',
         cell: ({ row }) => (
@@ -96,7 +140,11 @@ export function SightingsTable({ fieldId, fieldName, sightings, pests, filters, 
         header: () => <span className="sr-only">Map</span>,
         cell: ({ row }) =>
           row.original.position ? (
-            <button type="button" className="rounded px-1.5 py-0.5 text-xs font-medium text-field-700 hover:bg-field-50 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600" onClick={() => onShowOnMap(row.original.id)}>
+            <button
+              type="button"
+              className="rounded px-1.5 py-0.5 text-xs font-medium text-field-700 hover:bg-field-50 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600"
+              onClick={() => onShowOnMap(row.original.id)}
+            >
               Show on map
             </button>
           ) : null,
@@ -147,14 +195,27 @@ export function SightingsTable({ fieldId, fieldName, sightings, pests, filters, 
       <SightingsTableFilters sightings={sightings} pests={pests} filters={filters} onChange={onFiltersChange} />
       <div className="flex flex-wrap items-center justify-between gap-2 text-sm">
         <p className="text-soil-700" aria-live="polite">
-          <span data-filtered-count={filtered.length} className="font-semibold text-soil-900">{filtered.length}</span> of {sightings.length} sightings match
+          <span data-filtered-count={filtered.length} className="font-semibold text-soil-900">
+            {filtered.length}
+          </span>{' '}
+          of {sightings.length} sightings match
           {selected.length > 0 && <> · {selected.length} selected</>}
         </p>
         <div className="flex flex-wrap gap-2">
-          <Button size="sm" variant="secondary" disabled={exported.length === 0} onClick={() => downloadText(`${exportName}.csv`, sightingsCsv(exported), 'text/csv;charset=utf-8')}>
+          <Button
+            size="sm"
+            variant="secondary"
+            disabled={exported.length === 0}
+            onClick={() => downloadText(`${exportName}.csv`, sightingsCsv(exported), 'text/csv;charset=utf-8')}
+          >
             Export CSV{selected.length > 0 ? ` (${selected.length} selected)` : ''}
           </Button>
-          <Button size="sm" variant="secondary" disabled={exported.length === 0} onClick={() => downloadText(`${exportName}.geojson`, JSON.stringify(sightingsGeoJson(exported)), 'application/geo+json')}>
+          <Button
+            size="sm"
+            variant="secondary"
+            disabled={exported.length === 0}
+            onClick={() => downloadText(`${exportName}.geojson`, JSON.stringify(sightingsGeoJson(exported)), 'application/geo+json')}
+          >
             Export GeoJSON{selected.length > 0 ? ` (${selected.length} selected)` : ''}
           </Button>
           {selected.length > 0 && (
@@ -165,7 +226,11 @@ export function SightingsTable({ fieldId, fieldName, sightings, pests, filters, 
         </div>
       </div>
       {update.isError && <FormMessage>{errorMessage(update.error)}</FormMessage>}
-      <TableGrid caption={`Sightings in ${fieldName}`} table={table} rowClassName={(s) => (s.id === selectedId ? 'bg-straw-100' : s.isEmptyStop ? 'text-soil-600' : '')} />
+      <TableGrid
+        caption={`Sightings in ${fieldName}`}
+        table={table}
+        rowClassName={(s) => (s.id === selectedId ? 'bg-straw-100' : s.isEmptyStop ? 'text-soil-600' : '')}
+      />
       <nav aria-label="Table pages" className="flex flex-wrap items-center gap-3 text-sm">
         <Button size="sm" variant="secondary" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
           Previous
@@ -178,7 +243,11 @@ export function SightingsTable({ fieldId, fieldName, sightings, pests, filters, 
         </Button>
         <label className="ml-auto inline-flex items-center gap-2 text-soil-700">
           Rows per page
-          <select className="rounded border-0 py-1 pl-2 pr-7 text-sm ring-1 ring-inset ring-soil-300" value={pageSize} onChange={(e) => table.setPageSize(Number(e.target.value))}>
+          <select
+            className="rounded border-0 py-1 pl-2 pr-7 text-sm ring-1 ring-inset ring-soil-300"
+            value={pageSize}
+            onChange={(e) => table.setPageSize(Number(e.target.value))}
+          >
             {PAGE_SIZES.map((size) => (
               <option key={size}>{size}</option>
             ))}

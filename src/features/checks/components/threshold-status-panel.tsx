@@ -13,7 +13,12 @@ function Figures({ s }: { s: WalkThresholdStatus }) {
   if (s.thresholdBasis === 'incidence') {
     return (
       <>
-        <td className="px-2 py-1.5 text-right tabular-nums">{percent(s.shareInfested)} <span className="text-soil-500">({s.infestedStops}/{s.stops})</span></td>
+        <td className="px-2 py-1.5 text-right tabular-nums">
+          {percent(s.shareInfested)}{' '}
+          <span className="text-soil-500">
+            ({s.infestedStops}/{s.stops})
+          </span>
+        </td>
         <td className="px-2 py-1.5 tabular-nums">{s.shareInterval ? `${percent(s.shareInterval.low)}–${percent(s.shareInterval.high)}` : '—'}</td>
         <td className="px-2 py-1.5 text-right tabular-nums">{percent(s.actionThreshold)} infested</td>
       </>
@@ -21,9 +26,13 @@ function Figures({ s }: { s: WalkThresholdStatus }) {
   }
   return (
     <>
-      <td className="px-2 py-1.5 text-right tabular-nums">{fixed(s.meanPerStop)} <span className="text-soil-500">({s.countedStops} stops)</span></td>
+      <td className="px-2 py-1.5 text-right tabular-nums">
+        {fixed(s.meanPerStop)} <span className="text-soil-500">({s.countedStops} stops)</span>
+      </td>
       <td className="px-2 py-1.5 tabular-nums">{s.meanInterval ? `${fixed(s.meanInterval.low)}–${fixed(s.meanInterval.high)}` : '—'}</td>
-      <td className="px-2 py-1.5 text-right tabular-nums">{fixed(s.actionThreshold)} {s.countUnit}</td>
+      <td className="px-2 py-1.5 text-right tabular-nums">
+        {fixed(s.actionThreshold)} {s.countUnit}
+      </td>
     </>
   );
 }
@@ -44,12 +53,24 @@ export function ThresholdStatusPanel({ fieldId, pestId }: { fieldId: string; pes
             <caption className="sr-only">Threshold status per walk and pest</caption>
             <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
               <tr>
-                <th scope="col" className="px-2 py-1.5">Walk</th>
-                <th scope="col" className="px-2 py-1.5">Pest</th>
-                <th scope="col" className="px-2 py-1.5">Status</th>
-                <th scope="col" className="px-2 py-1.5 text-right">Mean / share</th>
-                <th scope="col" className="px-2 py-1.5">95 % interval</th>
-                <th scope="col" className="px-2 py-1.5 text-right">Threshold</th>
+                <th scope="col" className="px-2 py-1.5">
+                  Walk
+                </th>
+                <th scope="col" className="px-2 py-1.5">
+                  Pest
+                </th>
+                <th scope="col" className="px-2 py-1.5">
+                  Status
+                </th>
+                <th scope="col" className="px-2 py-1.5 text-right">
+                  Mean / share
+                </th>
+                <th scope="col" className="px-2 py-1.5">
+                  95 % interval
+                </th>
+                <th scope="col" className="px-2 py-1.5 text-right">
+                  Threshold
+                </th>
               </tr>
             </thead>
             <tbody className="divide-y divide-straw-200">
@@ -58,7 +79,9 @@ export function ThresholdStatusPanel({ fieldId, pestId }: { fieldId: string; pes
                   <td className="whitespace-nowrap px-2 py-1.5">{s.walkedOn}</td>
                   <td className="px-2 py-1.5">{s.pestName}</td>
                   <td className="px-2 py-1.5">
-                    <span className={`inline-block whitespace-nowrap rounded px-1.5 py-0.5 text-xs font-semibold ${statusTone[s.status]}`}>{statusText[s.status]}</span>
+                    <span className={`inline-block whitespace-nowrap rounded px-1.5 py-0.5 text-xs font-semibold ${statusTone[s.status]}`}>
+                      {statusText[s.status]}
+                    </span>
                   </td>
                   <Figures s={s} />
                 </tr>

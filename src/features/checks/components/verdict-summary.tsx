@@ -51,7 +51,14 @@ export function VerdictSummary({ check, result }: { check: CheckView; result: An
       )}
       <p className="text-xs text-soil-600">
         At α = {spread.alpha}, on the {areaBasisLabels[result.area.basis].toLowerCase()};{' '}
-        {spread.decidedBy === 'random-labelling' ? 'decided by relabelling the same stops' : spread.decidedBy === 'monte-carlo' ? 'decided by the Monte Carlo p inside the boundary' : spread.decidedBy === 'donnelly' ? 'decided by the edge-corrected normal p' : `the check needs at least ${spread.minSightings} sightings`}. Check run by {check.createdBy.name}, {dateTime(check.createdAt)}; engine {result.engineVersion}, {result.crs}
+        {spread.decidedBy === 'random-labelling'
+          ? 'decided by relabelling the same stops'
+          : spread.decidedBy === 'monte-carlo'
+            ? 'decided by the Monte Carlo p inside the boundary'
+            : spread.decidedBy === 'donnelly'
+              ? 'decided by the edge-corrected normal p'
+              : `the check needs at least ${spread.minSightings} sightings`}
+        . Check run by {check.createdBy.name}, {dateTime(check.createdAt)}; engine {result.engineVersion}, {result.crs}
         {check.reused ? ' · stored result (same sightings and options)' : ''}.
       </p>
       {primary ? (

@@ -27,11 +27,21 @@ export function ZonesFigures({ result, zoneEditorPath }: { result: AnalysisResul
           <caption className="sr-only">Proposed treatment zones</caption>
           <thead className="bg-straw-100 uppercase tracking-wide text-soil-700">
             <tr>
-              <th scope="col" className="px-2 py-1">Zone</th>
-              <th scope="col" className="px-2 py-1 text-right">ha</th>
-              <th scope="col" className="px-2 py-1 text-right">ac</th>
-              <th scope="col" className="px-2 py-1 text-right">Share of field</th>
-              <th scope="col" className="px-2 py-1 text-right">Sightings inside</th>
+              <th scope="col" className="px-2 py-1">
+                Zone
+              </th>
+              <th scope="col" className="px-2 py-1 text-right">
+                ha
+              </th>
+              <th scope="col" className="px-2 py-1 text-right">
+                ac
+              </th>
+              <th scope="col" className="px-2 py-1 text-right">
+                Share of field
+              </th>
+              <th scope="col" className="px-2 py-1 text-right">
+                Sightings inside
+              </th>
             </tr>
           </thead>
           <tbody className="divide-y divide-straw-200 tabular-nums">

@@ -7,8 +7,14 @@ import { fixed, metres, pText } from './figures.ts';
 
 export function explainR(R: number, p: number, alpha: number): string {
   const strong = p < alpha;
-  if (R < 1) return strong ? `R below 1: sightings sit closer together than chance would put them, and p ${pText(p)} says chance alone rarely does that.` : `R below 1 leans towards patches, but p ${pText(p)} is not below ${alpha}: chance could give this spacing.`;
-  if (R > 1) return strong ? `R above 1: sightings are spaced more evenly than chance, as if kept apart (rows, stations, a grid walk).` : `R above 1 leans towards even spacing, but p ${pText(p)} is not below ${alpha}: chance could give this.`;
+  if (R < 1)
+    return strong
+      ? `R below 1: sightings sit closer together than chance would put them, and p ${pText(p)} says chance alone rarely does that.`
+      : `R below 1 leans towards patches, but p ${pText(p)} is not below ${alpha}: chance could give this spacing.`;
+  if (R > 1)
+    return strong
+      ? `R above 1: sightings are spaced more evenly than chance, as if kept apart (rows, stations, a grid walk).`
+      : `R above 1 leans towards even spacing, but p ${pText(p)} is not below ${alpha}: chance could give this.`;
   return 'R of 1 is exactly the spacing chance would give.';
 }
 
@@ -51,7 +57,11 @@ export function explainVarianceToMean(vmr: number | null): string {
 
 export function explainMorisita(value: number | null): string {
   if (value === null) return 'Needs at least two sightings in whole cells.';
-  return value > 1 ? 'Above 1: two sightings picked at random share a cell more often than chance — patchy.' : value < 1 ? 'Below 1: sightings share cells less often than chance — even.' : 'About 1: random.';
+  return value > 1
+    ? 'Above 1: two sightings picked at random share a cell more often than chance — patchy.'
+    : value < 1
+      ? 'Below 1: sightings share cells less often than chance — even.'
+      : 'About 1: random.';
 }
 
 export function explainMoran(moran: MoranResult, alpha: number): string {

@@ -42,7 +42,13 @@ export function FarmFieldsPanel({ farmId }: { farmId: string }) {
           <ButtonLink to={`/admin/fields/${info.row.original.id}/edit`} variant="quiet" size="sm" aria-label={`Edit ${info.row.original.name}`}>
             Edit
           </ButtonLink>
-          <Button variant="quiet" size="sm" className="text-patch-700" aria-label={`Delete ${info.row.original.name}`} onClick={() => setDoomed(info.row.original)}>
+          <Button
+            variant="quiet"
+            size="sm"
+            className="text-patch-700"
+            aria-label={`Delete ${info.row.original.name}`}
+            onClick={() => setDoomed(info.row.original)}
+          >
             Delete
           </Button>
         </div>
@@ -61,7 +67,11 @@ export function FarmFieldsPanel({ farmId }: { farmId: string }) {
       ) : (
         <TableFrame caption="Fields of this farm" columns={columns} rows={fields.data} rowId={(f) => f.id} />
       )}
-      {remove.isError && <div className="mt-3"><FormMessage>{errorMessage(remove.error)}</FormMessage></div>}
+      {remove.isError && (
+        <div className="mt-3">
+          <FormMessage>{errorMessage(remove.error)}</FormMessage>
+        </div>
+      )}
       <ConfirmDialog
         open={doomed !== null}
         title={`Delete ${doomed?.name ?? 'this field'}?`}

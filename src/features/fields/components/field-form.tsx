@@ -31,8 +31,7 @@ export function FieldForm({ farmId, field, onSaved }: { farmId: string; field?: 
   const [drawn, setDrawn] = useState<MultiPolygon | null>(null);
   const [errors, setErrors] = useState<FieldErrors>({});
 
-  const shownBoundary: MultiPolygon | null =
-    source === 'file' ? (file?.preview.ok ? file.preview.boundary : (field?.boundary ?? null)) : (drawn ?? null);
+  const shownBoundary: MultiPolygon | null = source === 'file' ? (file?.preview.ok ? file.preview.boundary : (field?.boundary ?? null)) : (drawn ?? null);
   const drawnPreview = source === 'draw' && drawn ? previewDrawn(drawn) : null;
   const preview = source === 'file' ? file?.preview : drawnPreview;
 
@@ -75,15 +74,33 @@ export function FieldForm({ farmId, field, onSaved }: { farmId: string; field?: 
     <form onSubmit={submit} noValidate className="space-y-6">
       <div className="grid gap-4 sm:grid-cols-3">
         <TextField label="Field name" name="name" value={details.name} error={errors.name} onChange={(e) => setDetails({ ...details, name: e.target.value })} />
-        <TextField label="Crop" name="crop" hint="For example soybean, corn, winter wheat" value={details.crop} error={errors.crop} onChange={(e) => setDetails({ ...details, crop: e.target.value })} />
-        <TextField label="Season" name="season" inputMode="numeric" hint="The harvest year" value={details.season} error={errors.season} onChange={(e) => setDetails({ ...details, season: e.target.value })} />
+        <TextField
+          label="Crop"
+          name="crop"
+          hint="For example soybean, corn, winter wheat"
+          value={details.crop}
+          error={errors.crop}
+          onChange={(e) => setDetails({ ...details, crop: e.target.value })}
+        />
+        <TextField
+          label="Season"
+          name="season"
+          inputMode="numeric"
+          hint="The harvest year"
+          value={details.season}
+          error={errors.season}
+          onChange={(e) => setDetails({ ...details, season: e.target.value })}
+        />
       </div>
 
       <fieldset className="space-y-3">
         <legend className="text-base font-semibold text-field-900">Boundary{field ? ' (leave as is to keep the saved one)' : ''}</legend>
         <div role="radiogroup" aria-label="Boundary from" className="inline-flex rounded-md bg-straw-100 p-1">
           {(['file', 'draw'] as const).map((option) => (
-            <label key={option} className={`cursor-pointer rounded px-3 py-1.5 text-sm font-medium has-[:focus-visible]:outline has-[:focus-visible]:outline-2 has-[:focus-visible]:outline-field-600 ${source === option ? 'bg-white text-field-800 shadow-sm' : 'text-soil-700'}`}>
+            <label
+              key={option}
+              className={`cursor-pointer rounded px-3 py-1.5 text-sm font-medium has-[:focus-visible]:outline has-[:focus-visible]:outline-2 has-[:focus-visible]:outline-field-600 ${source === option ? 'bg-white text-field-800 shadow-sm' : 'text-soil-700'}`}
+            >
               <input type="radio" name="boundary-source" value={option} checked={source === option} onChange={() => chooseSource(option)} className="sr-only" />
               {option === 'file' ? 'Upload a file' : 'Draw on the map'}
             </label>
@@ -109,7 +126,9 @@ export function FieldForm({ farmId, field, onSaved }: { farmId: string; field?: 
             </p>
           </div>
         ) : (
-          <p className="text-sm text-soil-700">Use the polygon or rectangle tool at the map's top left; drag corners to adjust, or cut holes for ponds and yards.</p>
+          <p className="text-sm text-soil-700">
+            Use the polygon or rectangle tool at the map's top left; drag corners to adjust, or cut holes for ponds and yards.
+          </p>
         )}
 
         {preview?.ok && (

@@ -23,18 +23,40 @@ export function FieldPage() {
   const user = useSignedInUser();
   const field = useField(fieldId);
 
-  if (field.isPending) return <PageFrame title="Field"><LoadingState label="Loading the field…" /></PageFrame>;
-  if (field.isError) return <PageFrame title="Field"><ErrorState error={field.error} onRetry={() => field.refetch()} /></PageFrame>;
+  if (field.isPending)
+    return (
+      <PageFrame title="Field">
+        <LoadingState label="Loading the field…" />
+      </PageFrame>
+    );
+  if (field.isError)
+    return (
+      <PageFrame title="Field">
+        <ErrorState error={field.error} onRetry={() => field.refetch()} />
+      </PageFrame>
+    );
 
   const f = field.data;
   return (
     <PageFrame
       title={f.name}
-      eyebrow={user.role === 'admin' ? <Link to={`/admin/farms/${f.farmId}`} className="hover:underline">{f.farmName}</Link> : f.farmName}
+      eyebrow={
+        user.role === 'admin' ? (
+          <Link to={`/admin/farms/${f.farmId}`} className="hover:underline">
+            {f.farmName}
+          </Link>
+        ) : (
+          f.farmName
+        )
+      }
       actions={
         <>
           {(user.role === 'adviser' || user.role === 'admin') && <ButtonLink to={`/fields/${f.id}/review`}>Review sightings</ButtonLink>}
-          {user.role === 'admin' && <ButtonLink to={`/admin/fields/${f.id}/edit`} variant="secondary">Edit field</ButtonLink>}
+          {user.role === 'admin' && (
+            <ButtonLink to={`/admin/fields/${f.id}/edit`} variant="secondary">
+              Edit field
+            </ButtonLink>
+          )}
         </>
       }
       wide

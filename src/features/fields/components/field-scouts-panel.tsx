@@ -30,7 +30,13 @@ export function FieldScoutsPanel({ field, scouts }: { field: Field; scouts: User
               <span>
                 <span className="font-medium">{scout.name}</span> <span className="text-sm text-soil-600">{scout.email}</span>
               </span>
-              <Button variant="quiet" size="sm" busy={unassign.isPending && unassign.variables?.userId === scout.id} onClick={() => unassign.mutate({ fieldId: field.id, userId: scout.id })} aria-label={`Remove ${scout.name} from this field`}>
+              <Button
+                variant="quiet"
+                size="sm"
+                busy={unassign.isPending && unassign.variables?.userId === scout.id}
+                onClick={() => unassign.mutate({ fieldId: field.id, userId: scout.id })}
+                aria-label={`Remove ${scout.name} from this field`}
+              >
                 Remove
               </Button>
             </li>
@@ -44,7 +50,13 @@ export function FieldScoutsPanel({ field, scouts }: { field: Field; scouts: User
           if (choice) assign.mutate({ fieldId: field.id, userId: choice }, { onSuccess: () => setChoice('') });
         }}
       >
-        <SelectField label="Assign a scout" value={choice} onChange={(e) => setChoice(e.target.value)} className="min-w-56 flex-1" hint={available.length === 0 ? 'Every active scout is already assigned; invite more from Users.' : undefined}>
+        <SelectField
+          label="Assign a scout"
+          value={choice}
+          onChange={(e) => setChoice(e.target.value)}
+          className="min-w-56 flex-1"
+          hint={available.length === 0 ? 'Every active scout is already assigned; invite more from Users.' : undefined}
+        >
           <option value="">Choose a scout…</option>
           {available.map((s) => (
             <option key={s.id} value={s.id}>
@@ -56,7 +68,11 @@ export function FieldScoutsPanel({ field, scouts }: { field: Field; scouts: User
           Assign
         </Button>
       </form>
-      {failure && <div className="mt-3"><FormMessage>{errorMessage(failure)}</FormMessage></div>}
+      {failure && (
+        <div className="mt-3">
+          <FormMessage>{errorMessage(failure)}</FormMessage>
+        </div>
+      )}
     </Panel>
   );
 }

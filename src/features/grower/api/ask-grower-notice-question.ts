@@ -13,6 +13,8 @@ export function useAskGrowerNoticeQuestion(noticeId: string) {
   return useMutation({
     mutationFn: (text: string) => askGrowerNoticeQuestion(noticeId, text),
     onSuccess: ({ question }) =>
-      queryClient.setQueryData<NoticeLinkResponse['notice']>(growerNoticeQueryKey(noticeId), (notice) => (notice ? { ...notice, questions: [...notice.questions, question] } : notice)),
+      queryClient.setQueryData<NoticeLinkResponse['notice']>(growerNoticeQueryKey(noticeId), (notice) =>
+        notice ? { ...notice, questions: [...notice.questions, question] } : notice,
+      ),
   });
 }

@@ -5,5 +5,6 @@ import type { NoticeLinkResponse } from '@shared/schemas/notices.ts';
 
 export const growerNoticeQueryKey = (noticeId: string) => ['grower', 'notices', noticeId] as const;
 export const getGrowerNotice = (noticeId: string) => api<NoticeLinkResponse>(`/api/grower/notices/${encodeURIComponent(noticeId)}`).then((r) => r.notice);
-export const growerNoticeQueryOptions = (noticeId: string) => queryOptions({ queryKey: growerNoticeQueryKey(noticeId), queryFn: () => getGrowerNotice(noticeId) });
+export const growerNoticeQueryOptions = (noticeId: string) =>
+  queryOptions({ queryKey: growerNoticeQueryKey(noticeId), queryFn: () => getGrowerNotice(noticeId) });
 export const useGrowerNotice = (noticeId: string) => useQuery(growerNoticeQueryOptions(noticeId));

@@ -23,14 +23,21 @@ function NoticeRow({ notice }: { notice: GrowerNoticeSummary }) {
   return (
     <li className="flex flex-wrap items-baseline justify-between gap-2 py-3">
       <div>
-        <Link to={`/grower/notices/${notice.id}`} className="inline-flex min-h-10 items-center font-medium text-field-800 underline-offset-2 hover:underline focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600">
+        <Link
+          to={`/grower/notices/${notice.id}`}
+          className="inline-flex min-h-10 items-center font-medium text-field-800 underline-offset-2 hover:underline focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600"
+        >
           {notice.pestName} on {notice.fieldName}
         </Link>
         <p className="text-sm text-soil-700">
-          {notice.farmName} · {notice.zoneCount} zone{notice.zoneCount === 1 ? '' : 's'}, <AreaText m2={notice.totalTreatedM2} /> · sent {notice.sentAt ? new Date(notice.sentAt).toLocaleDateString(undefined, { dateStyle: 'long' }) : '—'}
+          {notice.farmName} · {notice.zoneCount} zone{notice.zoneCount === 1 ? '' : 's'}, <AreaText m2={notice.totalTreatedM2} /> · sent{' '}
+          {notice.sentAt ? new Date(notice.sentAt).toLocaleDateString(undefined, { dateStyle: 'long' }) : '—'}
         </p>
       </div>
-      <p className={`rounded-full px-3 py-1 text-sm font-medium ${copy?.state === 'acknowledged' ? 'bg-field-100 text-field-800' : 'bg-straw-100 text-soil-800'}`} data-testid="grower-notice-state">
+      <p
+        className={`rounded-full px-3 py-1 text-sm font-medium ${copy?.state === 'acknowledged' ? 'bg-field-100 text-field-800' : 'bg-straw-100 text-soil-800'}`}
+        data-testid="grower-notice-state"
+      >
         {copy ? copyWords[copy.state] : 'Sent to another contact of the farm'}
         {copy?.acknowledgedAt && ` on ${new Date(copy.acknowledgedAt).toLocaleDateString(undefined, { dateStyle: 'medium' })}`}
       </p>
@@ -44,9 +51,14 @@ function FarmFields({ fields }: { fields: Field[] }) {
     <ul className="grid gap-3 sm:grid-cols-2">
       {fields.map((field) => (
         <li key={field.id}>
-          <Link to={`/fields/${field.id}`} className="block rounded-xl bg-white p-4 shadow-sm ring-1 ring-soil-300/60 hover:ring-field-500 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600">
+          <Link
+            to={`/fields/${field.id}`}
+            className="block rounded-xl bg-white p-4 shadow-sm ring-1 ring-soil-300/60 hover:ring-field-500 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600"
+          >
             <span className="block text-lg font-semibold text-field-900">{field.name}</span>
-            <span className="mt-0.5 block text-sm text-soil-700">{field.crop} {field.season}</span>
+            <span className="mt-0.5 block text-sm text-soil-700">
+              {field.crop} {field.season}
+            </span>
             <AreaText m2={field.areaM2} className="mt-1 block text-sm" />
           </Link>
         </li>
@@ -71,7 +83,9 @@ export function GrowerHome() {
         ) : (
           <>
             <ul className="divide-y divide-straw-200" aria-label="Zone notices">
-              {notices.data.map((n) => <NoticeRow key={n.id} notice={n} />)}
+              {notices.data.map((n) => (
+                <NoticeRow key={n.id} notice={n} />
+              ))}
             </ul>
             <p className="mt-2 text-sm text-soil-600">Open a notice to see the map, the recommendation and the cautions, and to acknowledge it.</p>
           </>
@@ -84,12 +98,16 @@ export function GrowerHome() {
       ) : farms.data.length === 0 ? (
         <EmptyState title="No farms linked to your account yet">Your adviser links your account to your farms; ask them if this stays empty.</EmptyState>
       ) : (
-        [...farms.data].sort((a, b) => a.name.localeCompare(b.name)).map((farm) => (
-          <section key={farm.id} aria-labelledby={`farm-${farm.id}`}>
-            <h2 id={`farm-${farm.id}`} className="mb-2 text-lg font-semibold text-soil-800">{farm.name}</h2>
-            <FarmFields fields={fields.data.filter((f) => f.farmId === farm.id)} />
-          </section>
-        ))
+        [...farms.data]
+          .sort((a, b) => a.name.localeCompare(b.name))
+          .map((farm) => (
+            <section key={farm.id} aria-labelledby={`farm-${farm.id}`}>
+              <h2 id={`farm-${farm.id}`} className="mb-2 text-lg font-semibold text-soil-800">
+                {farm.name}
+              </h2>
+              <FarmFields fields={fields.data.filter((f) => f.farmId === farm.id)} />
+            </section>
+          ))
       )}
     </PageFrame>
   );

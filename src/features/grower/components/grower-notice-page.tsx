@@ -24,14 +24,30 @@ export function GrowerNoticePage() {
     reported.current = true;
     reportOpened();
   }, [notice.data, reportOpened]);
-  if (notice.isPending) return <PageFrame title="Zone notice"><LoadingState label="Opening the notice…" /></PageFrame>;
-  if (notice.isError) return <PageFrame title="Zone notice"><ErrorState error={notice.error} onRetry={() => notice.refetch()} /></PageFrame>;
+  if (notice.isPending)
+    return (
+      <PageFrame title="Zone notice">
+        <LoadingState label="Opening the notice…" />
+      </PageFrame>
+    );
+  if (notice.isError)
+    return (
+      <PageFrame title="Zone notice">
+        <ErrorState error={notice.error} onRetry={() => notice.refetch()} />
+      </PageFrame>
+    );
   return (
     <div className="mx-auto w-full max-w-3xl space-y-6 px-4 py-5 sm:px-6 sm:py-8 print:max-w-none print:space-y-4 print:px-0 print:py-2">
-      <ButtonLink to="/" variant="quiet" className="print:hidden">← My farms</ButtonLink>
+      <ButtonLink to="/" variant="quiet" className="print:hidden">
+        ← My farms
+      </ButtonLink>
       <NoticeView
         notice={notice.data}
-        acknowledge={{ onAcknowledge: () => acknowledge.mutate(), busy: acknowledge.isPending, error: acknowledge.isError ? errorMessage(acknowledge.error) : undefined }}
+        acknowledge={{
+          onAcknowledge: () => acknowledge.mutate(),
+          busy: acknowledge.isPending,
+          error: acknowledge.isError ? errorMessage(acknowledge.error) : undefined,
+        }}
         ask={{ onAsk: (text, sent) => ask.mutate(text, { onSuccess: sent }), busy: ask.isPending, error: ask.isError ? errorMessage(ask.error) : undefined }}
       />
     </div>

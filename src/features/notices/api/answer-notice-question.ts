@@ -5,7 +5,10 @@ import type { AdviserNoticeQuestionView } from '@shared/schemas/notice-questions
 import { noticeQuestionsQueryKey } from './get-notice-questions.ts';
 
 export const answerNoticeQuestion = (noticeId: string, questionId: string, text: string) =>
-  api<{ question: AdviserNoticeQuestionView; growerMailed: boolean }>(`/api/notices/${noticeId}/questions/${questionId}/answer`, { method: 'POST', body: { text } });
+  api<{ question: AdviserNoticeQuestionView; growerMailed: boolean }>(`/api/notices/${noticeId}/questions/${questionId}/answer`, {
+    method: 'POST',
+    body: { text },
+  });
 
 export function useAnswerNoticeQuestion(noticeId: string) {
   const queryClient = useQueryClient();

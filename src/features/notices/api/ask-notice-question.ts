@@ -12,6 +12,8 @@ export function useAskNoticeQuestion(token: string) {
   return useMutation({
     mutationFn: (text: string) => askNoticeQuestion(token, text),
     onSuccess: ({ question }) =>
-      queryClient.setQueryData<LinkedNotice>(noticeLinkQueryKey(token), (notice) => (notice ? { ...notice, questions: [...notice.questions, question] } : notice)),
+      queryClient.setQueryData<LinkedNotice>(noticeLinkQueryKey(token), (notice) =>
+        notice ? { ...notice, questions: [...notice.questions, question] } : notice,
+      ),
   });
 }

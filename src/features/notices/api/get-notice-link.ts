@@ -7,5 +7,6 @@ export type LinkedNotice = NoticeLinkResponse['notice'];
 
 export const getNoticeLink = (token: string) => api<NoticeLinkResponse>(`/api/notice-links/${encodeURIComponent(token)}`).then((r) => r.notice);
 export const noticeLinkQueryKey = (token: string) => ['notice-links', token] as const;
-export const noticeLinkQueryOptions = (token: string) => queryOptions({ queryKey: noticeLinkQueryKey(token), queryFn: () => getNoticeLink(token), staleTime: Infinity });
+export const noticeLinkQueryOptions = (token: string) =>
+  queryOptions({ queryKey: noticeLinkQueryKey(token), queryFn: () => getNoticeLink(token), staleTime: Infinity });
 export const useNoticeLink = (token: string) => useQuery(noticeLinkQueryOptions(token));

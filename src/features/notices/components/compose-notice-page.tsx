@@ -28,17 +28,39 @@ export function ComposeNoticePage() {
   if (!zoneSetId) {
     return (
       <PageFrame title="Write a zone notice">
-        <EmptyState title="Accept zones first">A notice is written from an accepted zone version. <Link className="font-medium text-field-700 underline" to={`/fields/${fieldId}/zones`}>Open the zone editor</Link>.</EmptyState>
+        <EmptyState title="Accept zones first">
+          A notice is written from an accepted zone version.{' '}
+          <Link className="font-medium text-field-700 underline" to={`/fields/${fieldId}/zones`}>
+            Open the zone editor
+          </Link>
+          .
+        </EmptyState>
       </PageFrame>
     );
   }
-  if (zoneSet.isPending) return <PageFrame title="Write a zone notice"><LoadingState label="Loading the zones…" /></PageFrame>;
-  if (zoneSet.isError) return <PageFrame title="Write a zone notice"><ErrorState error={zoneSet.error} onRetry={() => zoneSet.refetch()} /></PageFrame>;
+  if (zoneSet.isPending)
+    return (
+      <PageFrame title="Write a zone notice">
+        <LoadingState label="Loading the zones…" />
+      </PageFrame>
+    );
+  if (zoneSet.isError)
+    return (
+      <PageFrame title="Write a zone notice">
+        <ErrorState error={zoneSet.error} onRetry={() => zoneSet.refetch()} />
+      </PageFrame>
+    );
   const z = zoneSet.data;
 
   const onSubmit = (event: FormEvent) => {
     event.preventDefault();
-    const checked = checkForm(noticeCreateSchema, { fieldId, zoneSetId, ...(checkId ?? z.checkId ? { checkId: checkId ?? z.checkId } : {}), recommendation, ...(rescoutOn ? { rescoutOn } : {}) });
+    const checked = checkForm(noticeCreateSchema, {
+      fieldId,
+      zoneSetId,
+      ...((checkId ?? z.checkId) ? { checkId: checkId ?? z.checkId } : {}),
+      recommendation,
+      ...(rescoutOn ? { rescoutOn } : {}),
+    });
     if (!checked.ok) return setErrors(checked.errors);
     setErrors({});
     create.mutate(checked.value, {
@@ -60,9 +82,19 @@ export function ComposeNoticePage() {
               hint="Say what to do, where (which zones), and when to re-scout. The cautions about labels, intervals, applicators and buffers are added to every notice."
               error={errors.recommendation}
             />
-            <TextField label="Re-scout on" type="date" value={rescoutOn} onChange={(e) => setRescoutOn(e.target.value)} error={errors.rescoutOn} hint="Optional; shown to the grower beside the recommendation." className="max-w-xs" />
+            <TextField
+              label="Re-scout on"
+              type="date"
+              value={rescoutOn}
+              onChange={(e) => setRescoutOn(e.target.value)}
+              error={errors.rescoutOn}
+              hint="Optional; shown to the grower beside the recommendation."
+              className="max-w-xs"
+            />
             {create.isError && <FormMessage>{errorMessage(create.error)}</FormMessage>}
-            <Button type="submit" busy={create.isPending}>Save and preview</Button>
+            <Button type="submit" busy={create.isPending}>
+              Save and preview
+            </Button>
           </form>
         </Panel>
         <Panel title={`Zones (version ${z.version})`}>

@@ -8,8 +8,18 @@ const statusWords = { draft: 'draft', sending: 'sending', sent: 'sent', 'partly-
 
 export function FieldNoticesPanel({ fieldId }: { fieldId: string }) {
   const notices = useNotices(fieldId);
-  if (notices.isPending) return <Panel title="Notices for this field"><LoadingState label="Loading notices…" /></Panel>;
-  if (notices.isError) return <Panel title="Notices for this field"><ErrorState error={notices.error} onRetry={() => notices.refetch()} /></Panel>;
+  if (notices.isPending)
+    return (
+      <Panel title="Notices for this field">
+        <LoadingState label="Loading notices…" />
+      </Panel>
+    );
+  if (notices.isError)
+    return (
+      <Panel title="Notices for this field">
+        <ErrorState error={notices.error} onRetry={() => notices.refetch()} />
+      </Panel>
+    );
   if (notices.data.length === 0) return null;
   return (
     <Panel title="Notices for this field">

@@ -18,8 +18,18 @@ export function NoticePage() {
   const { noticeId = '' } = useParams();
   const notice = useNotice(noticeId);
   const send = useSendNotice();
-  if (notice.isPending) return <PageFrame title="Zone notice"><LoadingState label="Loading the notice…" /></PageFrame>;
-  if (notice.isError) return <PageFrame title="Zone notice"><ErrorState error={notice.error} onRetry={() => notice.refetch()} /></PageFrame>;
+  if (notice.isPending)
+    return (
+      <PageFrame title="Zone notice">
+        <LoadingState label="Loading the notice…" />
+      </PageFrame>
+    );
+  if (notice.isError)
+    return (
+      <PageFrame title="Zone notice">
+        <ErrorState error={notice.error} onRetry={() => notice.refetch()} />
+      </PageFrame>
+    );
   const n = notice.data;
   const failed = n.recipients.filter((r) => r.delivery === 'failed' && !r.revokedAt);
 
@@ -28,16 +38,30 @@ export function NoticePage() {
       title={`Zone notice · ${n.fieldName}`}
       eyebrow={
         <>
-          {n.farmName} · <Link className="hover:underline" to={`/fields/${n.fieldId}/zones${n.checkId ? `?checkId=${n.checkId}` : ''}`}>{n.pestName}, zones version {n.zoneSetVersion}</Link>
+          {n.farmName} ·{' '}
+          <Link className="hover:underline" to={`/fields/${n.fieldId}/zones${n.checkId ? `?checkId=${n.checkId}` : ''}`}>
+            {n.pestName}, zones version {n.zoneSetVersion}
+          </Link>
         </>
       }
       wide
     >
-      <Panel title="Status" actions={<span className="rounded-full bg-straw-100 px-3 py-1 text-sm font-medium text-soil-800" data-testid="notice-status">{statusWords[n.status]}</span>}>
+      <Panel
+        title="Status"
+        actions={
+          <span className="rounded-full bg-straw-100 px-3 py-1 text-sm font-medium text-soil-800" data-testid="notice-status">
+            {statusWords[n.status]}
+          </span>
+        }
+      >
         {n.status === 'draft' ? (
           <div className="space-y-3">
-            <p className="text-sm text-soil-700">Check the preview below, then send one e-mail to each grower contact of {n.farmName}. Each copy carries its own link to the notice page.</p>
-            <Button onClick={() => send.mutate(n.id)} busy={send.isPending}>Send the notice</Button>
+            <p className="text-sm text-soil-700">
+              Check the preview below, then send one e-mail to each grower contact of {n.farmName}. Each copy carries its own link to the notice page.
+            </p>
+            <Button onClick={() => send.mutate(n.id)} busy={send.isPending}>
+              Send the notice
+            </Button>
           </div>
         ) : (
           <div className="space-y-3">
@@ -53,12 +77,18 @@ export function NoticePage() {
             )}
           </div>
         )}
-        {send.isError && <div className="mt-3"><FormMessage>{errorMessage(send.error)}</FormMessage></div>}
+        {send.isError && (
+          <div className="mt-3">
+            <FormMessage>{errorMessage(send.error)}</FormMessage>
+          </div>
+        )}
       </Panel>
 
       <Panel title="Recommendation">
         <p className="whitespace-pre-wrap text-soil-900">{n.recommendation}</p>
-        {n.rescoutOn && <p className="mt-2 text-sm text-soil-700">Re-scout on {new Date(`${n.rescoutOn}T12:00:00`).toLocaleDateString(undefined, { dateStyle: 'long' })}.</p>}
+        {n.rescoutOn && (
+          <p className="mt-2 text-sm text-soil-700">Re-scout on {new Date(`${n.rescoutOn}T12:00:00`).toLocaleDateString(undefined, { dateStyle: 'long' })}.</p>
+        )}
       </Panel>
 
       {n.status !== 'draft' && <NoticeQuestionsPanel noticeId={n.id} />}
@@ -70,7 +100,9 @@ export function NoticePage() {
       ) : (
         <details className="rounded-lg bg-white p-4 shadow-sm ring-1 ring-soil-300/60">
           <summary className="cursor-pointer font-semibold text-field-900">The e-mail as sent</summary>
-          <div className="mt-3"><NoticePreview noticeId={n.id} /></div>
+          <div className="mt-3">
+            <NoticePreview noticeId={n.id} />
+          </div>
         </details>
       )}
     </PageFrame>

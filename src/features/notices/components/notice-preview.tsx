@@ -24,9 +24,18 @@ export function NoticePreview({ noticeId }: { noticeId: string }) {
         <iframe title={`Preview: ${p.subject}`} sandbox="" srcDoc={html} className="h-[36rem] w-full rounded-md bg-white ring-1 ring-soil-300/60" />
       </section>
       <section>
-        <h3 id={plainTextId} className="mb-1 text-xs font-semibold uppercase tracking-wide text-soil-600">Plain text</h3>
+        <h3 id={plainTextId} className="mb-1 text-xs font-semibold uppercase tracking-wide text-soil-600">
+          Plain text
+        </h3>
         {/* Focusable so that a keyboard can scroll a long message. */}
-        <pre role="region" aria-labelledby={plainTextId} tabIndex={0} className="max-h-80 overflow-auto whitespace-pre-wrap rounded-md bg-straw-50 p-3 font-sans text-sm text-soil-800 ring-1 ring-straw-200 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600">{p.text}</pre>
+        <pre
+          role="region"
+          aria-labelledby={plainTextId}
+          tabIndex={0}
+          className="max-h-80 overflow-auto whitespace-pre-wrap rounded-md bg-straw-50 p-3 font-sans text-sm text-soil-800 ring-1 ring-straw-200 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600"
+        >
+          {p.text}
+        </pre>
       </section>
     </div>
   );

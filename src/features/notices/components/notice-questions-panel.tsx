@@ -21,8 +21,16 @@ function AnswerForm({ noticeId, question }: { noticeId: string; question: Advise
   };
   return (
     <form onSubmit={submit} className="mt-2 space-y-2">
-      <TextAreaField label={`Answer ${question.askerName}`} maxLength={2000} value={text} onChange={(e) => setText(e.target.value)} error={answer.isError ? errorMessage(answer.error) : undefined} />
-      <Button type="submit" busy={answer.isPending} disabled={text.trim().length === 0}>Send the answer</Button>
+      <TextAreaField
+        label={`Answer ${question.askerName}`}
+        maxLength={2000}
+        value={text}
+        onChange={(e) => setText(e.target.value)}
+        error={answer.isError ? errorMessage(answer.error) : undefined}
+      />
+      <Button type="submit" busy={answer.isPending} disabled={text.trim().length === 0}>
+        Send the answer
+      </Button>
     </form>
   );
 }
@@ -41,12 +49,16 @@ export function NoticeQuestionsPanel({ noticeId }: { noticeId: string }) {
         <ol aria-label="Grower questions" className="space-y-4">
           {questions.data.map((q) => (
             <li key={q.id} className="rounded-md bg-straw-50 p-3 ring-1 ring-inset ring-straw-300">
-              <p className="text-xs text-soil-600">{q.askerName} &lt;{q.askerEmail}&gt;, {when(q.askedAt)}</p>
+              <p className="text-xs text-soil-600">
+                {q.askerName} &lt;{q.askerEmail}&gt;, {when(q.askedAt)}
+              </p>
               <p className="mt-1 whitespace-pre-wrap text-soil-900">{q.text}</p>
               {q.answer ? (
                 <div className="mt-2 border-l-4 border-field-600 pl-3">
                   <p className="whitespace-pre-wrap text-soil-900">{q.answer.text}</p>
-                  <p className="mt-1 text-xs text-soil-600">Answered by {q.answer.adviserName}, {when(q.answer.answeredAt)}</p>
+                  <p className="mt-1 text-xs text-soil-600">
+                    Answered by {q.answer.adviserName}, {when(q.answer.answeredAt)}
+                  </p>
                 </div>
               ) : (
                 <AnswerForm noticeId={noticeId} question={q} />
@@ -55,7 +67,9 @@ export function NoticeQuestionsPanel({ noticeId }: { noticeId: string }) {
           ))}
         </ol>
       )}
-      {questions.isSuccess && questions.data.some((q) => !q.answer) && <p className="mt-3 text-xs text-soil-600">Each answer is e-mailed to the grower and shown on their notice page.</p>}
+      {questions.isSuccess && questions.data.some((q) => !q.answer) && (
+        <p className="mt-3 text-xs text-soil-600">Each answer is e-mailed to the grower and shown on their notice page.</p>
+      )}
     </Panel>
   );
 }

@@ -21,7 +21,9 @@ function Shell({ organisation, children }: { organisation?: string; children: Re
           {organisation && <span className="ml-auto text-sm text-field-100 print:text-soil-700">Zone notice from {organisation}</span>}
         </div>
       </header>
-      <main id="main" className="mx-auto max-w-3xl space-y-6 px-4 py-6 sm:px-6 sm:py-8 print:max-w-none print:space-y-4 print:px-0 print:py-2">{children}</main>
+      <main id="main" className="mx-auto max-w-3xl space-y-6 px-4 py-6 sm:px-6 sm:py-8 print:max-w-none print:space-y-4 print:px-0 print:py-2">
+        {children}
+      </main>
     </div>
   );
 }
@@ -32,10 +34,15 @@ function LinkProblem({ error }: { error: unknown }) {
   return (
     <Shell>
       <section role="alert" className="rounded-lg bg-white p-6 shadow-sm ring-1 ring-soil-300/60">
-        <h1 className="text-2xl font-semibold text-field-900">{refused ? 'This notice link does not open a notice' : busy ? 'Please wait a minute' : 'The notice could not be loaded'}</h1>
+        <h1 className="text-2xl font-semibold text-field-900">
+          {refused ? 'This notice link does not open a notice' : busy ? 'Please wait a minute' : 'The notice could not be loaded'}
+        </h1>
         {refused ? (
           <div className="mt-3 space-y-2 text-soil-800">
-            <p>The link may have expired (links stay valid for a season’s re-scout), your adviser may have withdrawn it, or part of it may have been lost when it was copied.</p>
+            <p>
+              The link may have expired (links stay valid for a season’s re-scout), your adviser may have withdrawn it, or part of it may have been lost when it
+              was copied.
+            </p>
             <p>Nothing is wrong with your farm records. Ask your adviser to send the notice again, or open the link straight from the e-mail.</p>
           </div>
         ) : busy ? (
@@ -65,13 +72,22 @@ export function PublicNoticePage() {
     if (!notice.data) document.title = 'Zone notice · Patchwise';
   }, [notice.data]);
 
-  if (notice.isPending) return <Shell><LoadingState label="Opening your notice…" /></Shell>;
+  if (notice.isPending)
+    return (
+      <Shell>
+        <LoadingState label="Opening your notice…" />
+      </Shell>
+    );
   if (notice.isError) return <LinkProblem error={notice.error} />;
   return (
     <Shell organisation={notice.data.organisationName}>
       <NoticeView
         notice={notice.data}
-        acknowledge={{ onAcknowledge: () => acknowledge.mutate(), busy: acknowledge.isPending, error: acknowledge.isError ? errorMessage(acknowledge.error) : undefined }}
+        acknowledge={{
+          onAcknowledge: () => acknowledge.mutate(),
+          busy: acknowledge.isPending,
+          error: acknowledge.isError ? errorMessage(acknowledge.error) : undefined,
+        }}
         ask={{ onAsk: (text, sent) => ask.mutate(text, { onSuccess: sent }), busy: ask.isPending, error: ask.isError ? errorMessage(ask.error) : undefined }}
       />
     </Shell>

@@ -21,7 +21,9 @@ function Details({ r }: { r: RecipientView }) {
   return (
     <ul className="space-y-0.5 text-soil-700">
       {lines.map((line) => (
-        <li key={line} className={line.startsWith('Not delivered') ? 'font-medium text-patch-700' : ''}>{line}</li>
+        <li key={line} className={line.startsWith('Not delivered') ? 'font-medium text-patch-700' : ''}>
+          {line}
+        </li>
       ))}
     </ul>
   );
@@ -37,10 +39,18 @@ export function RecipientsTable({ notice }: { notice: NoticeView }) {
           <caption className="sr-only">Recipients of this notice</caption>
           <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
             <tr>
-              <th scope="col" className="px-3 py-2">Recipient</th>
-              <th scope="col" className="px-3 py-2">Status</th>
-              <th scope="col" className="px-3 py-2">Details</th>
-              <th scope="col" className="px-3 py-2"><span className="sr-only">Actions</span></th>
+              <th scope="col" className="px-3 py-2">
+                Recipient
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Status
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Details
+              </th>
+              <th scope="col" className="px-3 py-2">
+                <span className="sr-only">Actions</span>
+              </th>
             </tr>
           </thead>
           <tbody className="divide-y divide-straw-200">
@@ -50,8 +60,12 @@ export function RecipientsTable({ notice }: { notice: NoticeView }) {
                   <p className="font-medium text-soil-900">{r.name}</p>
                   <p className="text-soil-600">{r.email}</p>
                 </td>
-                <td className="px-3 py-2 align-top" data-testid="recipient-state"><RecipientStateBadge state={r.state} /></td>
-                <td className="px-3 py-2 align-top"><Details r={r} /></td>
+                <td className="px-3 py-2 align-top" data-testid="recipient-state">
+                  <RecipientStateBadge state={r.state} />
+                </td>
+                <td className="px-3 py-2 align-top">
+                  <Details r={r} />
+                </td>
                 <td className="px-3 py-2 text-right align-top">
                   {!r.revokedAt && (
                     <Button variant="quiet" size="sm" onClick={() => setConfirming(r)} aria-label={`Withdraw the link of ${r.name}`}>
@@ -73,7 +87,8 @@ export function RecipientsTable({ notice }: { notice: NoticeView }) {
         onCancel={() => setConfirming(null)}
         onConfirm={() => confirming && revoke.mutate({ noticeId: notice.id, recipientId: confirming.id }, { onSettled: () => setConfirming(null) })}
       >
-        {confirming?.name}’s link to the notice page will stop working at once, and a copy not sent yet will not go out. The e-mail already delivered stays in their mailbox.
+        {confirming?.name}’s link to the notice page will stop working at once, and a copy not sent yet will not go out. The e-mail already delivered stays in
+        their mailbox.
       </ConfirmDialog>
     </>
   );

@@ -40,7 +40,9 @@ export function PinByCoordinates({ chosen, onChoose }: { chosen: Position | null
 
   return (
     <section aria-labelledby="pin-without-map" className="space-y-3 rounded-lg bg-straw-50 p-4 ring-1 ring-straw-200">
-      <h2 id="pin-without-map" className="text-base font-semibold text-soil-900">Or give the place without the map</h2>
+      <h2 id="pin-without-map" className="text-base font-semibold text-soil-900">
+        Or give the place without the map
+      </h2>
       <Button variant="secondary" size="lg" className="w-full" onClick={useMyPosition} busy={status.kind === 'locating'}>
         Use where I am standing now
       </Button>
@@ -49,8 +51,24 @@ export function PinByCoordinates({ chosen, onChoose }: { chosen: Position | null
         {status.kind === 'failed' && <span className="font-medium text-patch-700">{status.message}</span>}
       </p>
       <form onSubmit={place} noValidate className="grid gap-3 sm:grid-cols-2">
-        <TextField label="Latitude" inputMode="decimal" autoComplete="off" value={lat} error={errors.lat} onChange={(e) => setLat(e.target.value)} hint="Decimal degrees; south is negative." />
-        <TextField label="Longitude" inputMode="decimal" autoComplete="off" value={lon} error={errors.lon} onChange={(e) => setLon(e.target.value)} hint="Decimal degrees; west is negative." />
+        <TextField
+          label="Latitude"
+          inputMode="decimal"
+          autoComplete="off"
+          value={lat}
+          error={errors.lat}
+          onChange={(e) => setLat(e.target.value)}
+          hint="Decimal degrees; south is negative."
+        />
+        <TextField
+          label="Longitude"
+          inputMode="decimal"
+          autoComplete="off"
+          value={lon}
+          error={errors.lon}
+          onChange={(e) => setLon(e.target.value)}
+          hint="Decimal degrees; west is negative."
+        />
         <Button type="submit" variant="secondary" size="lg" className="sm:col-span-2">
           Put the pin at these coordinates
         </Button>

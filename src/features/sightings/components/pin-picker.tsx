@@ -10,6 +10,11 @@ export function PinPicker({ chosen, onChoose }: { chosen: Position | null; onCho
     click: (event) => onChoose({ lon: event.latlng.lng, lat: event.latlng.lat }),
   });
   return chosen ? (
-    <CircleMarker center={[chosen.lat, chosen.lon]} radius={12} className="pin-choice" pathOptions={{ color: patch[700], weight: 3, fillColor: patch[400], fillOpacity: 0.9 }} />
+    <CircleMarker
+      center={[chosen.lat, chosen.lon]}
+      radius={12}
+      className="pin-choice"
+      pathOptions={{ color: patch[700], weight: 3, fillColor: patch[400], fillOpacity: 0.9 }}
+    />
   ) : null;
 }

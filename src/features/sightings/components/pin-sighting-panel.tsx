@@ -14,7 +14,13 @@ import { SightingThumbnail } from './sighting-thumbnail.tsx';
 
 const degrees = new Intl.NumberFormat('en', { minimumFractionDigits: 6, maximumFractionDigits: 6 });
 
-export function PinSightingPanel({ sighting, boundary, neighbours, shownUnder, onPinned }: {
+export function PinSightingPanel({
+  sighting,
+  boundary,
+  neighbours,
+  shownUnder,
+  onPinned,
+}: {
   sighting: SightingView;
   boundary: MapBoundary;
   /** The walk's other placed sightings, as landmarks. */
@@ -37,7 +43,12 @@ export function PinSightingPanel({ sighting, boundary, neighbours, shownUnder, o
         <SightingThumbnail photoId={sighting.photoId} thumbnailStatus={sighting.thumbnailStatus} isEmptyStop={false} pestName={sighting.pestName} size="lg" />
       )}
       {sighting.photoId && (
-        <a href={`/api/photos/${sighting.photoId}/original`} target="_blank" rel="noreferrer" className="inline-block min-h-12 py-3 font-medium text-field-700 underline">
+        <a
+          href={`/api/photos/${sighting.photoId}/original`}
+          target="_blank"
+          rel="noreferrer"
+          className="inline-block min-h-12 py-3 font-medium text-field-700 underline"
+        >
           Open the full photo
         </a>
       )}

@@ -21,7 +21,12 @@ function changeFrom(sighting: SightingView, pestId: string, countText: string): 
   return change;
 }
 
-export function SightingCorrectionForm({ sighting, pests, shownUnder, onDone }: {
+export function SightingCorrectionForm({
+  sighting,
+  pests,
+  shownUnder,
+  onDone,
+}: {
   sighting: SightingView;
   pests: Pest[];
   shownUnder: QueryKey;
@@ -43,11 +48,17 @@ export function SightingCorrectionForm({ sighting, pests, shownUnder, onDone }: 
   };
 
   return (
-    <form onSubmit={save} className="mt-3 space-y-3 rounded-lg bg-straw-50 p-3 ring-1 ring-inset ring-straw-300" aria-label={`Correct the sighting: ${sighting.pestName}`}>
+    <form
+      onSubmit={save}
+      className="mt-3 space-y-3 rounded-lg bg-straw-50 p-3 ring-1 ring-inset ring-straw-300"
+      aria-label={`Correct the sighting: ${sighting.pestName}`}
+    >
       <SelectField label="Pest" value={pestId} onChange={(e) => setPestId(e.target.value)} className="[&_select]:min-h-12 [&_select]:text-base">
         {!pests.some((p) => p.id === sighting.pestId) && <option value={sighting.pestId}>{sighting.pestName}</option>}
         {pests.map((p) => (
-          <option key={p.id} value={p.id}>{p.name} ({p.countUnit})</option>
+          <option key={p.id} value={p.id}>
+            {p.name} ({p.countUnit})
+          </option>
         ))}
       </SelectField>
       {!sighting.isEmptyStop && (
@@ -65,8 +76,12 @@ export function SightingCorrectionForm({ sighting, pests, shownUnder, onDone }: 
         />
       )}
       <div className="flex flex-wrap gap-2">
-        <Button type="submit" size="lg" busy={update.isPending}>Save the correction</Button>
-        <Button variant="secondary" size="lg" onClick={onDone} disabled={update.isPending}>Cancel</Button>
+        <Button type="submit" size="lg" busy={update.isPending}>
+          Save the correction
+        </Button>
+        <Button variant="secondary" size="lg" onClick={onDone} disabled={update.isPending}>
+          Cancel
+        </Button>
       </div>
       {update.isError && <FormMessage>{errorMessage(update.error)}</FormMessage>}
     </form>

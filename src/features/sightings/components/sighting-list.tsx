@@ -12,7 +12,11 @@ import { positionSourceLabel } from './position-source.ts';
 
 const number = new Intl.NumberFormat('en', { maximumFractionDigits: 2 });
 
-export function SightingList({ sightings, pinHref, correction }: {
+export function SightingList({
+  sightings,
+  pinHref,
+  correction,
+}: {
   sightings: SightingView[];
   pinHref: (sighting: SightingView) => string;
   /** The pests to choose from and the query that lists these sightings (refetched after a correction). */
@@ -34,7 +38,9 @@ export function SightingList({ sightings, pinHref, correction }: {
                 {s.accuracyM !== null && s.status === 'placed' && ` (±${number.format(Math.round(s.accuracyM))} m)`}
               </p>
               {s.timeFlag && s.timeFlag !== 'missing' && (
-                <p className="text-xs text-soil-600">The photo’s time looks {s.timeFlag === 'future' ? 'in the future' : 'years old'}; the walk date is used.</p>
+                <p className="text-xs text-soil-600">
+                  The photo’s time looks {s.timeFlag === 'future' ? 'in the future' : 'years old'}; the walk date is used.
+                </p>
               )}
             </div>
             {s.status === 'needs-pin' && (
@@ -43,7 +49,12 @@ export function SightingList({ sightings, pinHref, correction }: {
               </Link>
             )}
             {correction && correcting !== s.id && (
-              <Button variant="secondary" size="lg" onClick={() => setCorrecting(s.id)} aria-label={`Correct ${s.isEmptyStop ? 'the empty stop' : 'the sighting'}: ${s.pestName}`}>
+              <Button
+                variant="secondary"
+                size="lg"
+                onClick={() => setCorrecting(s.id)}
+                aria-label={`Correct ${s.isEmptyStop ? 'the empty stop' : 'the sighting'}: ${s.pestName}`}
+              >
                 Correct
               </Button>
             )}

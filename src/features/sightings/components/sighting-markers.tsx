@@ -23,9 +23,7 @@ export function SightingMarkers({ sightings }: { sightings: SightingView[] }) {
             // Leaflet reads className only when the path is made, so it goes in as an option, not a style.
             className={s.isEmptyStop ? 'sighting-marker empty-stop' : 'sighting-marker'}
             pathOptions={
-              s.isEmptyStop
-                ? { color: soil[800], weight: 3, fill: false }
-                : { color: patch[700], weight: 2, fillColor: patch[500], fillOpacity: 0.85 }
+              s.isEmptyStop ? { color: soil[800], weight: 3, fill: false } : { color: patch[700], weight: 2, fillColor: patch[500], fillOpacity: 0.85 }
             }
           >
             <Tooltip>{s.isEmptyStop ? `Nothing found (${s.pestName})` : `${s.pestName}: ${s.count ?? 'no count'}`}</Tooltip>

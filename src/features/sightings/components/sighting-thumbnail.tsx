@@ -20,7 +20,10 @@ export function SightingThumbnail({ photoId, thumbnailStatus, isEmptyStop, pestN
   }
   const text = isEmptyStop ? 'Stop' : thumbnailStatus === 'pending' ? 'Preparing…' : 'No preview';
   return (
-    <div className={`${box} flex shrink-0 items-center justify-center rounded-md bg-straw-100 px-1 text-center text-xs font-medium text-soil-700 ring-1 ring-soil-300`} data-thumbnail={thumbnailStatus ?? 'none'}>
+    <div
+      className={`${box} flex shrink-0 items-center justify-center rounded-md bg-straw-100 px-1 text-center text-xs font-medium text-soil-700 ring-1 ring-soil-300`}
+      data-thumbnail={thumbnailStatus ?? 'none'}
+    >
       {text}
     </div>
   );

@@ -4,7 +4,8 @@ import type { WalkUpdateInput, WalkView } from '@shared/schemas/walks.ts';
 import { walkQueryKey } from './get-walk.ts';
 import { walksQueryKey } from './get-walks.ts';
 
-export const updateWalk = (walkId: string, input: WalkUpdateInput) => api<{ walk: WalkView }>(`/api/walks/${encodeURIComponent(walkId)}`, { method: 'PATCH', body: input });
+export const updateWalk = (walkId: string, input: WalkUpdateInput) =>
+  api<{ walk: WalkView }>(`/api/walks/${encodeURIComponent(walkId)}`, { method: 'PATCH', body: input });
 
 export function useUpdateWalk(walkId: string) {
   const queryClient = useQueryClient();

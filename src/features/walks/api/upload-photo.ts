@@ -14,7 +14,10 @@ export interface PhotoUpload {
 
 /** Why a request failed; `retryable` is true for a dropped connection or a server fault (5xx). */
 export class PhotoUploadError extends Error {
-  constructor(message: string, public readonly retryable: boolean) {
+  constructor(
+    message: string,
+    public readonly retryable: boolean,
+  ) {
     super(message);
     this.name = 'PhotoUploadError';
   }

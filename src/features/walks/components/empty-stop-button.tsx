@@ -17,7 +17,10 @@ export function EmptyStopButton({ walkId, pestId, pestName }: { walkId: string; 
     recordStop.reset();
     const position = await locate();
     if (!position) return;
-    await recordStop.mutateAsync({ pestId, ...position }).then(() => setSaved(position.accuracyM), () => {});
+    await recordStop.mutateAsync({ pestId, ...position }).then(
+      () => setSaved(position.accuracyM),
+      () => {},
+    );
   }
 
   const locating = status.kind === 'locating';

@@ -30,8 +30,18 @@ export function FieldWalksPage() {
   const createWalk = useCreateWalk();
   const today = localToday();
 
-  if (field.isPending) return <PageFrame title="Field"><LoadingState /></PageFrame>;
-  if (field.isError) return <PageFrame title="Field"><ErrorState error={field.error} onRetry={() => field.refetch()} /></PageFrame>;
+  if (field.isPending)
+    return (
+      <PageFrame title="Field">
+        <LoadingState />
+      </PageFrame>
+    );
+  if (field.isError)
+    return (
+      <PageFrame title="Field">
+        <ErrorState error={field.error} onRetry={() => field.refetch()} />
+      </PageFrame>
+    );
 
   const todays = walks.data?.walks.find((w) => w.walkedOn === today && w.scoutId === me.id);
   const start = () => createWalk.mutate({ fieldId, walkedOn: today }, { onSuccess: ({ walk }) => navigate(scoutPaths.walk(walk.id)) });
@@ -51,7 +61,11 @@ export function FieldWalksPage() {
             Start a walk for today
           </Button>
         )}
-        {createWalk.isError && <div className="mt-2"><FormMessage>{errorMessage(createWalk.error)}</FormMessage></div>}
+        {createWalk.isError && (
+          <div className="mt-2">
+            <FormMessage>{errorMessage(createWalk.error)}</FormMessage>
+          </div>
+        )}
       </Panel>
 
       <Panel title="Walks on this field">
@@ -69,7 +83,9 @@ export function FieldWalksPage() {
                   </span>
                   <span className="text-right text-sm text-soil-700">
                     {w.sightingCount} {w.sightingCount === 1 ? 'sighting' : 'sightings'}
-                    <span className="block">{w.stopCount} empty {w.stopCount === 1 ? 'stop' : 'stops'}</span>
+                    <span className="block">
+                      {w.stopCount} empty {w.stopCount === 1 ? 'stop' : 'stops'}
+                    </span>
                   </span>
                 </Link>
               </li>

@@ -14,9 +14,13 @@ export function JustUploadPage() {
   return (
     <PageFrame title="Just upload">
       <Panel>
-        <p className="mb-4 text-soil-700">Each photo goes to the field it was taken in, into your walk there for that day. Photos without a position ask for a pin.</p>
+        <p className="mb-4 text-soil-700">
+          Each photo goes to the field it was taken in, into your walk there for that day. Photos without a position ask for a pin.
+        </p>
         <div className="space-y-4">
-          {pests.isError ? <ErrorState error={pests.error} title="The pest library could not be loaded" onRetry={() => pests.refetch()} /> : (
+          {pests.isError ? (
+            <ErrorState error={pests.error} title="The pest library could not be loaded" onRetry={() => pests.refetch()} />
+          ) : (
             <PestCountPicker pests={pestList} pestId={pestId} count={tags.count} onPest={tags.setPestId} onCount={tags.setCount} />
           )}
           <PhotoUploadPanel target={{}} pestId={pestId} count={tags.count} />

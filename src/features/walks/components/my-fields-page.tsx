@@ -16,12 +16,17 @@ export function MyFieldsPage() {
       </ButtonLink>
       {fields.isPending && <LoadingState />}
       {fields.isError && <ErrorState error={fields.error} onRetry={() => fields.refetch()} />}
-      {fields.data?.length === 0 && <EmptyState title="No fields assigned to you yet">Ask your adviser or admin to assign you the fields you scout.</EmptyState>}
+      {fields.data?.length === 0 && (
+        <EmptyState title="No fields assigned to you yet">Ask your adviser or admin to assign you the fields you scout.</EmptyState>
+      )}
       {fields.data && fields.data.length > 0 && (
         <ul className="space-y-3" aria-label="Fields assigned to you">
           {fields.data.map((field) => (
             <li key={field.id}>
-              <Link to={scoutPaths.field(field.id)} className="block min-h-16 rounded-lg bg-white p-4 shadow-sm ring-1 ring-soil-300/60 hover:ring-field-600 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600">
+              <Link
+                to={scoutPaths.field(field.id)}
+                className="block min-h-16 rounded-lg bg-white p-4 shadow-sm ring-1 ring-soil-300/60 hover:ring-field-600 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600"
+              >
                 <span className="block text-lg font-semibold text-field-900">{field.name}</span>
                 <span className="block text-sm text-soil-700">
                   {field.farmName} · {field.crop} {field.season} · <AreaText m2={field.areaM2} />

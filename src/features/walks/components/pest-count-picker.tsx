@@ -18,7 +18,13 @@ export function PestCountPicker({
   const pest = pests.find((p) => p.id === pestId);
   return (
     <div className="grid gap-3 sm:grid-cols-[2fr_1fr]">
-      <SelectField label="Pest" value={pestId} onChange={(e) => onPest(e.target.value)} className="[&_select]:min-h-12 [&_select]:text-base" hint={pest ? `Counted as ${pest.countUnit}` : 'What are these photos of?'}>
+      <SelectField
+        label="Pest"
+        value={pestId}
+        onChange={(e) => onPest(e.target.value)}
+        className="[&_select]:min-h-12 [&_select]:text-base"
+        hint={pest ? `Counted as ${pest.countUnit}` : 'What are these photos of?'}
+      >
         <option value="">Choose the pest…</option>
         {pests.map((p) => (
           <option key={p.id} value={p.id}>

@@ -7,7 +7,12 @@ import { UploadList } from './upload-list.tsx';
 
 const nonePinned: ReadonlySet<string> = new Set();
 
-export function PhotoUploadPanel({ target, pestId, count, pinnedIds = nonePinned }: {
+export function PhotoUploadPanel({
+  target,
+  pestId,
+  count,
+  pinnedIds = nonePinned,
+}: {
   target: UploadTarget;
   pestId: string;
   count: string;

@@ -14,14 +14,38 @@ export function PinPhotoPage() {
   const navigate = useNavigate();
   const walk = useWalk(walkId);
   const field = useQuery({ ...fieldQueryOptions(walk.data?.walk.fieldId ?? ''), enabled: !!walk.data });
-  const back = <ButtonLink to={scoutPaths.walk(walkId)} variant="secondary" size="lg">Back to the walk</ButtonLink>;
+  const back = (
+    <ButtonLink to={scoutPaths.walk(walkId)} variant="secondary" size="lg">
+      Back to the walk
+    </ButtonLink>
+  );
 
-  if (walk.isError) return <PageFrame title="Pin a photo" actions={back}><ErrorState error={walk.error} onRetry={() => walk.refetch()} /></PageFrame>;
-  if (field.isError) return <PageFrame title="Pin a photo" actions={back}><ErrorState error={field.error} onRetry={() => field.refetch()} /></PageFrame>;
-  if (!walk.data || !field.data) return <PageFrame title="Pin a photo" actions={back}><LoadingState /></PageFrame>;
+  if (walk.isError)
+    return (
+      <PageFrame title="Pin a photo" actions={back}>
+        <ErrorState error={walk.error} onRetry={() => walk.refetch()} />
+      </PageFrame>
+    );
+  if (field.isError)
+    return (
+      <PageFrame title="Pin a photo" actions={back}>
+        <ErrorState error={field.error} onRetry={() => field.refetch()} />
+      </PageFrame>
+    );
+  if (!walk.data || !field.data)
+    return (
+      <PageFrame title="Pin a photo" actions={back}>
+        <LoadingState />
+      </PageFrame>
+    );
 
   const sighting = walk.data.sightings.find((s) => s.id === sightingId);
-  if (!sighting) return <PageFrame title="Pin a photo" actions={back}><ErrorState title="This photo is not on the walk" error={new Error('It may have been removed; go back to the walk.')} /></PageFrame>;
+  if (!sighting)
+    return (
+      <PageFrame title="Pin a photo" actions={back}>
+        <ErrorState title="This photo is not on the walk" error={new Error('It may have been removed; go back to the walk.')} />
+      </PageFrame>
+    );
 
   return (
     <PageFrame title="Pin a photo" eyebrow={`${walk.data.walk.fieldName} · ${sighting.pestName}`} actions={back}>

@@ -1,7 +1,16 @@
 import type { UploadEntry } from '../upload-queue.ts';
 import { UploadRow } from './upload-row.tsx';
 
-export function UploadList({ entries, pinnedIds, canRetry, onRetry, onRemove, onCount, batchCount, linkToWalk }: {
+export function UploadList({
+  entries,
+  pinnedIds,
+  canRetry,
+  onRetry,
+  onRemove,
+  onCount,
+  batchCount,
+  linkToWalk,
+}: {
   entries: UploadEntry[];
   pinnedIds: ReadonlySet<string>;
   canRetry: (clientId: string) => boolean;

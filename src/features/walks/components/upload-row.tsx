@@ -30,7 +30,16 @@ function headline(outcome: PhotoOutcome, pinned: boolean) {
   }
 }
 
-export function UploadRow({ entry, pinned, canRetry, onRetry, onRemove, onCount, batchCount, linkToWalk }: {
+export function UploadRow({
+  entry,
+  pinned,
+  canRetry,
+  onRetry,
+  onRemove,
+  onCount,
+  batchCount,
+  linkToWalk,
+}: {
   entry: UploadEntry;
   /** A needs-a-pin photo that has been pinned since it was sent. */
   pinned: boolean;
@@ -43,9 +52,17 @@ export function UploadRow({ entry, pinned, canRetry, onRetry, onRemove, onCount,
   linkToWalk: boolean;
 }) {
   const { outcome, error } = entry;
-  const shown = outcome ? headline(outcome, pinned) : error ? { text: 'Not sent', look: tone.bad } : { text: entry.state === 'sending' ? 'Sending…' : 'Ready to send', look: tone.neutral };
+  const shown = outcome
+    ? headline(outcome, pinned)
+    : error
+      ? { text: 'Not sent', look: tone.bad }
+      : { text: entry.state === 'sending' ? 'Sending…' : 'Ready to send', look: tone.neutral };
   return (
-    <li className={`rounded-lg border-l-8 p-3 shadow-sm ring-1 ring-soil-300/60 ${shown.look}`} data-upload-state={entry.state} data-outcome={outcome?.outcome ?? ''}>
+    <li
+      className={`rounded-lg border-l-8 p-3 shadow-sm ring-1 ring-soil-300/60 ${shown.look}`}
+      data-upload-state={entry.state}
+      data-outcome={outcome?.outcome ?? ''}
+    >
       <div className="flex items-start justify-between gap-2">
         <div className="min-w-0">
           <p className="truncate text-sm text-soil-700">{entry.fileName}</p>
@@ -59,7 +76,12 @@ export function UploadRow({ entry, pinned, canRetry, onRetry, onRemove, onCount,
       </div>
 
       {entry.state === 'sending' && (
-        <progress className="mt-2 h-3 w-full overflow-hidden rounded-full accent-field-700" max={1} value={entry.progress} aria-label={`Upload of ${entry.fileName}`} />
+        <progress
+          className="mt-2 h-3 w-full overflow-hidden rounded-full accent-field-700"
+          max={1}
+          value={entry.progress}
+          aria-label={`Upload of ${entry.fileName}`}
+        />
       )}
 
       {entry.state === 'ready' && (

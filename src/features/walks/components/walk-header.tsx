@@ -9,7 +9,9 @@ import { useUpdateWalk } from '../api/update-walk.ts';
 import { scoutPaths } from '../paths.ts';
 
 export const walkDate = (isoDate: string) =>
-  new Intl.DateTimeFormat('en', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${isoDate}T00:00:00Z`));
+  new Intl.DateTimeFormat('en', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(
+    new Date(`${isoDate}T00:00:00Z`),
+  );
 
 export function WalkHeader({ walk, farmName }: { walk: WalkView; farmName?: string }) {
   const [notes, setNotes] = useState(walk.notes);
@@ -36,7 +38,13 @@ export function WalkHeader({ walk, farmName }: { walk: WalkView; farmName?: stri
           {walk.sightingCount} {walk.sightingCount === 1 ? 'sighting' : 'sightings'}, {walk.stopCount} empty {walk.stopCount === 1 ? 'stop' : 'stops'}
         </dd>
       </dl>
-      <TextAreaField label="Notes" value={notes} onChange={(e) => setNotes(e.target.value)} placeholder="Crop stage, weather, anything the adviser should know" className="[&_textarea]:text-base" />
+      <TextAreaField
+        label="Notes"
+        value={notes}
+        onChange={(e) => setNotes(e.target.value)}
+        placeholder="Crop stage, weather, anything the adviser should know"
+        className="[&_textarea]:text-base"
+      />
       {update.isError && <FormMessage>{errorMessage(update.error)}</FormMessage>}
       {changed && (
         <Button size="lg" variant="secondary" busy={update.isPending} onClick={() => update.mutate({ notes })}>

@@ -9,7 +9,11 @@ export function WalkMap({ field, sightings }: { field: Field; sightings: Sightin
   const placed = sightings.filter((s) => s.position);
   return (
     <div className="space-y-2">
-      <MapFrame boundaries={[{ id: field.id, geometry: field.boundary, label: field.name }]} label={`Map of ${field.name} with this walk’s sightings`} className="h-80">
+      <MapFrame
+        boundaries={[{ id: field.id, geometry: field.boundary, label: field.name }]}
+        label={`Map of ${field.name} with this walk’s sightings`}
+        className="h-80"
+      >
         <WalkRouteLine sightings={placed} />
         <SightingMarkers sightings={placed} />
       </MapFrame>

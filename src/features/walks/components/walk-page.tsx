@@ -23,8 +23,18 @@ export function WalkPage() {
   const pests = usePests(false);
   const tags = useBatchTags();
 
-  if (walk.isPending) return <PageFrame title="Walk"><LoadingState label="Loading the walk…" /></PageFrame>;
-  if (walk.isError) return <PageFrame title="Walk"><ErrorState error={walk.error} onRetry={() => walk.refetch()} /></PageFrame>;
+  if (walk.isPending)
+    return (
+      <PageFrame title="Walk">
+        <LoadingState label="Loading the walk…" />
+      </PageFrame>
+    );
+  if (walk.isError)
+    return (
+      <PageFrame title="Walk">
+        <ErrorState error={walk.error} onRetry={() => walk.refetch()} />
+      </PageFrame>
+    );
 
   const { walk: info, sightings } = walk.data;
   const pestList = pests.data ?? [];
@@ -40,7 +50,9 @@ export function WalkPage() {
 
       <Panel title="Photos and stops">
         <div className="space-y-4">
-          {pests.isError ? <ErrorState error={pests.error} title="The pest library could not be loaded" onRetry={() => pests.refetch()} /> : (
+          {pests.isError ? (
+            <ErrorState error={pests.error} title="The pest library could not be loaded" onRetry={() => pests.refetch()} />
+          ) : (
             <PestCountPicker pests={pestList} pestId={pest ? tags.pestId : ''} count={tags.count} onPest={tags.setPestId} onCount={tags.setCount} />
           )}
           <PhotoUploadPanel target={{ walkId: info.id, fieldId: info.fieldId }} pestId={pest ? tags.pestId : ''} count={tags.count} pinnedIds={placedIds} />
@@ -56,12 +68,22 @@ export function WalkPage() {
       )}
 
       <Panel title="Map">
-        {field.data ? <WalkMap field={field.data} sightings={sightings} /> : field.isError ? <ErrorState error={field.error} onRetry={() => field.refetch()} /> : <LoadingState label="Loading the field…" />}
+        {field.data ? (
+          <WalkMap field={field.data} sightings={sightings} />
+        ) : field.isError ? (
+          <ErrorState error={field.error} onRetry={() => field.refetch()} />
+        ) : (
+          <LoadingState label="Loading the field…" />
+        )}
       </Panel>
 
       <Panel title={`Sightings (${sightings.length})`}>
         {sightings.length ? (
-          <SightingList sightings={sightings} pinHref={(s) => scoutPaths.pin(info.id, s.id)} correction={{ pests: pestList, shownUnder: walkQueryKey(info.id) }} />
+          <SightingList
+            sightings={sightings}
+            pinHref={(s) => scoutPaths.pin(info.id, s.id)}
+            correction={{ pests: pestList, shownUnder: walkQueryKey(info.id) }}
+          />
         ) : (
           <p className="text-soil-700">Nothing yet: send photos or record a stop where you found nothing.</p>
         )}

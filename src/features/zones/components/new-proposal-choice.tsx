@@ -8,8 +8,12 @@ export function NewProposalChoice({ zoneCount, onTake, onKeep }: { zoneCount: nu
         A new proposal is ready ({zoneCount} zone{zoneCount === 1 ? '' : 's'}). Taking it replaces the zones you edited or drew by hand.
       </p>
       <div className="mt-2 flex flex-wrap gap-2">
-        <Button size="sm" onClick={onTake}>Use the new proposal</Button>
-        <Button size="sm" variant="secondary" onClick={onKeep}>Keep my edits</Button>
+        <Button size="sm" onClick={onTake}>
+          Use the new proposal
+        </Button>
+        <Button size="sm" variant="secondary" onClick={onKeep}>
+          Keep my edits
+        </Button>
       </div>
     </div>
   );

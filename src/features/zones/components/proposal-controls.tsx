@@ -8,7 +8,15 @@ import type { ZoneProposal } from '../api/propose-zones.ts';
 
 const PAUSE_MS = 500;
 
-export function ProposalControls({ proposal, countUnit, onChange }: { proposal: ZoneProposal | undefined; countUnit: string | null; onChange: (request: ZoneProposalRequest) => void }) {
+export function ProposalControls({
+  proposal,
+  countUnit,
+  onChange,
+}: {
+  proposal: ZoneProposal | undefined;
+  countUnit: string | null;
+  onChange: (request: ZoneProposalRequest) => void;
+}) {
   const [source, setSource] = useState<ZoneProposalRequest['source']>('density');
   const [threshold, setThreshold] = useState('');
   const [margin, setMargin] = useState('');
@@ -34,7 +42,15 @@ export function ProposalControls({ proposal, countUnit, onChange }: { proposal: 
         <option value="density">Density surface</option>
         <option value="quadrat">Quadrat cells</option>
       </SelectField>
-      <TextField label="Threshold" inputMode="decimal" value={threshold} onChange={(e) => setThreshold(e.target.value)} hint={thresholdHint} error={errors.threshold} placeholder={proposal ? String(Number(proposal.threshold.toFixed(2))) : ''} />
+      <TextField
+        label="Threshold"
+        inputMode="decimal"
+        value={threshold}
+        onChange={(e) => setThreshold(e.target.value)}
+        hint={thresholdHint}
+        error={errors.threshold}
+        placeholder={proposal ? String(Number(proposal.threshold.toFixed(2))) : ''}
+      />
       <TextField
         label="Margin (m)"
         inputMode="decimal"

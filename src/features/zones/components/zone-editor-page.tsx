@@ -22,7 +22,17 @@ import { NewProposalChoice } from './new-proposal-choice.tsx';
 import { ZoneEditLayer, type ZoneEditHandlers } from './zone-edit-layer.tsx';
 import { ZoneTable } from './zone-table.tsx';
 import { ZoneVersionsPanel } from './zone-versions-panel.tsx';
-import { addDrawnZone, foundSightingPoints, removeZone, reshapeZone, treatedAreaM2, zoneFigures, zonesForAcceptance, zonesFromProposal, type WorkingZone } from '../working-zones.ts';
+import {
+  addDrawnZone,
+  foundSightingPoints,
+  removeZone,
+  reshapeZone,
+  treatedAreaM2,
+  zoneFigures,
+  zonesForAcceptance,
+  zonesFromProposal,
+  type WorkingZone,
+} from '../working-zones.ts';
 
 const percent = new Intl.NumberFormat('en', { style: 'percent', maximumFractionDigits: 1 });
 
@@ -96,11 +106,29 @@ export function ZoneEditorPage() {
   const accept = useCreateZoneSet();
   const fieldAreaM2 = field.data?.areaM2 ?? 0;
   const rows = zones.map((zone) => ({ zone, figures: zoneFigures(zone, fieldAreaM2, points) }));
-  const treated = treatedAreaM2(zones, rows.map((r) => r.figures));
+  const treated = treatedAreaM2(
+    zones,
+    rows.map((r) => r.figures),
+  );
 
-  if (field.isPending || (checkId && check.isPending)) return <PageFrame title="Treatment zones"><LoadingState label="Loading the field and its check…" /></PageFrame>;
-  if (field.isError) return <PageFrame title="Treatment zones"><ErrorState error={field.error} onRetry={() => field.refetch()} /></PageFrame>;
-  if (check.isError) return <PageFrame title="Treatment zones"><ErrorState error={check.error} onRetry={() => check.refetch()} /></PageFrame>;
+  if (field.isPending || (checkId && check.isPending))
+    return (
+      <PageFrame title="Treatment zones">
+        <LoadingState label="Loading the field and its check…" />
+      </PageFrame>
+    );
+  if (field.isError)
+    return (
+      <PageFrame title="Treatment zones">
+        <ErrorState error={field.error} onRetry={() => field.refetch()} />
+      </PageFrame>
+    );
+  if (check.isError)
+    return (
+      <PageFrame title="Treatment zones">
+        <ErrorState error={check.error} onRetry={() => check.refetch()} />
+      </PageFrame>
+    );
 
   const f = field.data;
   const onAccept = () => {
@@ -113,7 +141,9 @@ export function ZoneEditorPage() {
       title={`Treatment zones · ${f.name}`}
       eyebrow={
         <>
-          <Link to={`/fields/${f.id}`} className="hover:underline">{f.farmName} · {f.name}</Link>
+          <Link to={`/fields/${f.id}`} className="hover:underline">
+            {f.farmName} · {f.name}
+          </Link>
           {pest && <> · {pest.name}</>}
         </>
       }
@@ -123,12 +153,21 @@ export function ZoneEditorPage() {
         <div className="space-y-3">
           <MapFrame boundaries={[{ id: f.id, geometry: f.boundary, label: f.name }]} label={`Treatment zones on ${f.name}`} className="h-[26rem] sm:h-[34rem]">
             {points.map(([lon, lat], i) => (
-              <CircleMarker key={i} center={[lat, lon]} radius={3.5} pmIgnore interactive={false} pathOptions={{ color: '#241e19', weight: 1, fillColor: '#352d25', fillOpacity: 0.9 }} />
+              <CircleMarker
+                key={i}
+                center={[lat, lon]}
+                radius={3.5}
+                pmIgnore
+                interactive={false}
+                pathOptions={{ color: '#241e19', weight: 1, fillColor: '#352d25', fillOpacity: 0.9 }}
+              />
             ))}
             <ZoneEditLayer zones={zones} revision={revision} handlers={handlers} />
           </MapFrame>
           <p className="text-sm text-soil-600">
-            Use the tools on the map: draw a polygon or rectangle for a zone by hand, switch on vertex editing to move a zone’s corners, drag a zone, or remove one. Dots are sightings where the pest was found. Without a mouse, shape the proposal with its threshold and margin and delete zones in the table below.
+            Use the tools on the map: draw a polygon or rectangle for a zone by hand, switch on vertex editing to move a zone’s corners, drag a zone, or remove
+            one. Dots are sightings where the pest was found. Without a mouse, shape the proposal with its threshold and margin and delete zones in the table
+            below.
           </p>
         </div>
 
@@ -140,10 +179,24 @@ export function ZoneEditorPage() {
               ) : (
                 <div className="space-y-3">
                   <ProposalControls proposal={proposal.data} countUnit={pest?.countUnit ?? null} onChange={onRequest} />
-                  {proposal.isFetching && <p role="status" className="text-sm text-soil-600">Updating the proposal…</p>}
+                  {proposal.isFetching && (
+                    <p role="status" className="text-sm text-soil-600">
+                      Updating the proposal…
+                    </p>
+                  )}
                   {proposal.isError && <FormMessage>{errorMessage(proposal.error)}</FormMessage>}
-                  {proposal.data && <p className="text-sm text-soil-700">{proposal.data.note} Changing these proposes again; once you have edited zones by hand, you choose whether to take the new proposal.</p>}
-                  {waitingProposal && <NewProposalChoice zoneCount={waitingProposal.features.length} onTake={() => takeProposal(waitingProposal)} onKeep={() => setWaitingProposal(null)} />}
+                  {proposal.data && (
+                    <p className="text-sm text-soil-700">
+                      {proposal.data.note} Changing these proposes again; once you have edited zones by hand, you choose whether to take the new proposal.
+                    </p>
+                  )}
+                  {waitingProposal && (
+                    <NewProposalChoice
+                      zoneCount={waitingProposal.features.length}
+                      onTake={() => takeProposal(waitingProposal)}
+                      onKeep={() => setWaitingProposal(null)}
+                    />
+                  )}
                 </div>
               )}
             </Panel>
@@ -151,9 +204,13 @@ export function ZoneEditorPage() {
             <Panel title="Zones drawn by hand">
               <SelectField label="Pest" value={chosenPestId} onChange={(e) => setChosenPestId(e.target.value)} hint="The pest these zones are for.">
                 <option value="">Choose a pest…</option>
-                {(pests.data ?? []).filter((p) => p.active).map((p) => (
-                  <option key={p.id} value={p.id}>{p.name}</option>
-                ))}
+                {(pests.data ?? [])
+                  .filter((p) => p.active)
+                  .map((p) => (
+                    <option key={p.id} value={p.id}>
+                      {p.name}
+                    </option>
+                  ))}
               </SelectField>
             </Panel>
           )}
@@ -162,14 +219,22 @@ export function ZoneEditorPage() {
             <dl className="grid grid-cols-2 gap-3 text-sm">
               <div>
                 <dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Total treated</dt>
-                <dd className="mt-0.5 text-base text-soil-900" data-testid="total-treated"><AreaText m2={treated} /></dd>
+                <dd className="mt-0.5 text-base text-soil-900" data-testid="total-treated">
+                  <AreaText m2={treated} />
+                </dd>
               </div>
               <div>
                 <dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Left untreated</dt>
-                <dd className="mt-0.5 text-base text-soil-900">{fieldAreaM2 > 0 ? percent.format(Math.max(0, 1 - treated / fieldAreaM2)) : '—'} of the field</dd>
+                <dd className="mt-0.5 text-base text-soil-900">
+                  {fieldAreaM2 > 0 ? percent.format(Math.max(0, 1 - treated / fieldAreaM2)) : '—'} of the field
+                </dd>
               </div>
             </dl>
-            {rows.some((r) => !r.figures.fromEngine) && <p className="mt-2 text-xs text-patch-700">Edited and hand-drawn zones are measured in the browser; the stored version is measured again on the server when you accept.</p>}
+            {rows.some((r) => !r.figures.fromEngine) && (
+              <p className="mt-2 text-xs text-patch-700">
+                Edited and hand-drawn zones are measured in the browser; the stored version is measured again on the server when you accept.
+              </p>
+            )}
             <div className="mt-4 space-y-2">
               <Button onClick={onAccept} busy={accept.isPending} disabled={zones.length === 0 || !pestId}>
                 Accept zones
@@ -177,12 +242,19 @@ export function ZoneEditorPage() {
               {accept.isError && <FormMessage>{errorMessage(accept.error)}</FormMessage>}
               {accept.isSuccess && (
                 <FormMessage tone="success">
-                  Stored as version {accept.data.zoneSet.version} ({accept.data.zoneSet.zones.length} zone{accept.data.zoneSet.zones.length === 1 ? '' : 's'}, <AreaText m2={accept.data.zoneSet.totalTreatedM2} /> treated).
-                  {accept.data.adjustments?.map((a) => <span key={a} className="block">{a}</span>)}
+                  Stored as version {accept.data.zoneSet.version} ({accept.data.zoneSet.zones.length} zone{accept.data.zoneSet.zones.length === 1 ? '' : 's'},{' '}
+                  <AreaText m2={accept.data.zoneSet.totalTreatedM2} /> treated).
+                  {accept.data.adjustments?.map((a) => (
+                    <span key={a} className="block">
+                      {a}
+                    </span>
+                  ))}
                 </FormMessage>
               )}
               {accept.isSuccess && (
-                <ButtonLink to={`/fields/${fieldId}/notices/new?zoneSetId=${accept.data.zoneSet.id}${checkId ? `&checkId=${checkId}` : ''}`}>Write the notice</ButtonLink>
+                <ButtonLink to={`/fields/${fieldId}/notices/new?zoneSetId=${accept.data.zoneSet.id}${checkId ? `&checkId=${checkId}` : ''}`}>
+                  Write the notice
+                </ButtonLink>
               )}
             </div>
           </Panel>
@@ -192,7 +264,9 @@ export function ZoneEditorPage() {
       <Panel title="Zones">
         {zones.length === 0 ? (
           <EmptyState title="No zones yet">
-            {checkId ? 'Nothing in this field is above the threshold; lower it, or draw a zone by hand on the map.' : 'Choose the pest, then draw a zone on the map.'}
+            {checkId
+              ? 'Nothing in this field is above the threshold; lower it, or draw a zone by hand on the map.'
+              : 'Choose the pest, then draw a zone on the map.'}
           </EmptyState>
         ) : (
           <ZoneTable

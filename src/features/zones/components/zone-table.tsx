@@ -18,10 +18,26 @@ const column = createColumnHelper<ZoneRow>();
 export function ZoneTable({ rows, onDelete }: { rows: ZoneRow[]; onDelete: (key: string) => void }) {
   const columns = [
     column.accessor((r) => r.zone.label, { id: 'label', header: 'Zone' }),
-    column.accessor((r) => r.figures.areaM2, { id: 'ha', header: 'Area (ha)', cell: (c) => <span className="tabular-nums">{two.format(toHectares(c.getValue()))}</span> }),
-    column.accessor((r) => r.figures.areaM2, { id: 'ac', header: 'Area (ac)', cell: (c) => <span className="tabular-nums">{two.format(toAcres(c.getValue()))}</span> }),
-    column.accessor((r) => r.figures.shareOfField, { id: 'share', header: 'Share of field', cell: (c) => <span className="tabular-nums">{percent.format(c.getValue())}</span> }),
-    column.accessor((r) => r.figures.sightingsInside, { id: 'sightings', header: 'Sightings inside', cell: (c) => <span className="tabular-nums">{c.getValue()}</span> }),
+    column.accessor((r) => r.figures.areaM2, {
+      id: 'ha',
+      header: 'Area (ha)',
+      cell: (c) => <span className="tabular-nums">{two.format(toHectares(c.getValue()))}</span>,
+    }),
+    column.accessor((r) => r.figures.areaM2, {
+      id: 'ac',
+      header: 'Area (ac)',
+      cell: (c) => <span className="tabular-nums">{two.format(toAcres(c.getValue()))}</span>,
+    }),
+    column.accessor((r) => r.figures.shareOfField, {
+      id: 'share',
+      header: 'Share of field',
+      cell: (c) => <span className="tabular-nums">{percent.format(c.getValue())}</span>,
+    }),
+    column.accessor((r) => r.figures.sightingsInside, {
+      id: 'sightings',
+      header: 'Sightings inside',
+      cell: (c) => <span className="tabular-nums">{c.getValue()}</span>,
+    }),
     column.accessor((r) => r.zone.origin, {
       id: 'origin',
       header: 'Shape',

@@ -27,10 +27,15 @@ export function ZoneVersionsPanel({ fieldId, pestId }: { fieldId: string; pestId
               <div>
                 <p className="font-medium text-soil-900">
                   {s.pestName} · version {s.version}{' '}
-                  <span className={`ml-1 rounded-full px-2 py-0.5 text-xs ${s.status === 'accepted' ? 'bg-field-100 text-field-800' : 'bg-straw-100 text-soil-700'}`}>{statusWords[s.status]}</span>
+                  <span
+                    className={`ml-1 rounded-full px-2 py-0.5 text-xs ${s.status === 'accepted' ? 'bg-field-100 text-field-800' : 'bg-straw-100 text-soil-700'}`}
+                  >
+                    {statusWords[s.status]}
+                  </span>
                 </p>
                 <p className="text-soil-600">
-                  {s.zoneCount} zone{s.zoneCount === 1 ? '' : 's'}, <AreaText m2={s.totalTreatedM2} /> treated · accepted {s.acceptedAt ? new Date(s.acceptedAt).toLocaleString() : '—'} by {s.createdBy.name}
+                  {s.zoneCount} zone{s.zoneCount === 1 ? '' : 's'}, <AreaText m2={s.totalTreatedM2} /> treated · accepted{' '}
+                  {s.acceptedAt ? new Date(s.acceptedAt).toLocaleString() : '—'} by {s.createdBy.name}
                 </p>
               </div>
               <div className="flex flex-wrap gap-3">

@@ -64,5 +64,7 @@ export function DensityLayer({ checkId, density, toLonLat }: { checkId: string; 
     return url ? { url, bounds } : null;
   }, [density, toLonLat, grid.data]);
   if (!picture) return null;
-  return <ImageOverlay key={picture.url.length + String(picture.bounds)} url={picture.url} bounds={picture.bounds} opacity={0.85} className="density-surface" />;
+  return (
+    <ImageOverlay key={picture.url.length + String(picture.bounds)} url={picture.url} bounds={picture.bounds} opacity={0.85} className="density-surface" />
+  );
 }

@@ -42,7 +42,12 @@ export function QuadratGridLayer({ quadrat, boundary, toLonLat }: { quadrat: Qua
         style: { renderer, color: field[800], weight: 1, fillColor: straw[400], fillOpacity: 0.08 + 0.5 * shade, interactive: false } as L.PathOptions,
       });
       if (labelled) {
-        layer.bindTooltip(String(cell.count), { permanent: true, direction: 'center', className: 'quadrat-count !border-0 !bg-transparent !p-0 !shadow-none text-[10px] font-semibold !text-soil-900', opacity: 1 });
+        layer.bindTooltip(String(cell.count), {
+          permanent: true,
+          direction: 'center',
+          className: 'quadrat-count !border-0 !bg-transparent !p-0 !shadow-none text-[10px] font-semibold !text-soil-900',
+          opacity: 1,
+        });
       }
       group.addLayer(layer);
     }

@@ -26,7 +26,14 @@ export function SightingDots({ sightings, selectedId, onSelect }: { sightings: S
       const selected = s.id === selectedId;
       const style: L.CircleMarkerOptions = s.isEmptyStop
         ? { renderer, radius: 4, color: soil[700], weight: 1.5, fill: false }
-        : { renderer, radius: dotRadius(s.count), color: selected ? field[900] : patch[700], weight: selected ? 3 : 1, fillColor: patch[500], fillOpacity: 0.7 };
+        : {
+            renderer,
+            radius: dotRadius(s.count),
+            color: selected ? field[900] : patch[700],
+            weight: selected ? 3 : 1,
+            fillColor: patch[500],
+            fillOpacity: 0.7,
+          };
       const marker = L.circleMarker([s.position.lat, s.position.lon], style);
       marker.on('click', () => select.current(s.id));
       group.addLayer(marker);
