@@ -75,10 +75,21 @@ export interface CheckOutcome {
 }
 
 /** Finds the stored check with exactly these inputs, or stores a new one and runs it (inline or queued). */
-export async function requestCheck(actor: Actor, request: CheckRequest): Promise<CheckOutcome> {
-  assertGeographic(request.options);
-  const field = await findVisibleField(actor, request.fieldId);
-  await findPest(actor, request.pestId);
+/**
+ * Zones follow the pest's own action threshold (a mean count per stop, in its unit) unless the adviser set one; a
+ * threshold on the share of plants infested has no mean count to hold, so those zones follow relative risk.
+ */
+export function withPestThreshold(options: AnalysisOptions, pest: Pick<Pest, 'actionThreshold' | 'thresholdBasis' | 'countUnit'>): AnalysisOptions {
+  if (pest.thresholdBasis !== 'mean' || !(pest.actionThreshold > 0) || options.zones.actionThreshold !== undefined) return options;
+  const unit = options.zones.unit ?? (pest.countUnit.trim() ? pest.countUnit.trim().slice(0, 80) : undefined);
+  return { ...options, zones: { ...options.zones, actionThreshold: pest.actionThreshold, ...(unit ? { unit } : {}) } };
+}
+
+export async function requestCheck(actor: Actor, asked: CheckRequest): Promise<CheckOutcome> {
+  assertGeographic(asked.options);
+  const field = await findVisibleField(actor, asked.fieldId);
+  const pest = await findPest(actor, asked.pestId);
+  const request = { ...asked, options: withPestThreshold(asked.options, pest) };
   const sightings = await sightingsInWindow(request);
   // Refused before any row exists, so an over-budget request leaves nothing behind.
   const work = assertCheckWithinBudget(request.options, sightings.length, fieldExtent(field.boundary, field.areaM2));

@@ -129,7 +129,10 @@ export function abundanceZones(
       stops.push(i);
       total += counts[i];
     }
-    zones.push({ rings, areaM2, stops, meanCount: stops.length ? total / stops.length : 0 });
+    // A part where no stop found the pest is smoothing or margin reaching past the patch (its kernel mean comes from
+    // neighbours across an unscouted gap): a sprayer sent there would treat where the scout found nothing.
+    if (total <= 0) continue;
+    zones.push({ rings, areaM2, stops, meanCount: total / stops.length });
   }
   return zones.sort((a, b) => b.areaM2 - a.areaM2);
 }

@@ -8,7 +8,13 @@ const percent = new Intl.NumberFormat('en', { style: 'percent', maximumFractionD
 
 export function NoticeZoneTable({ zones, totalTreatedM2, untreatedShare }: { zones: NoticeZoneRow[]; totalTreatedM2: number; untreatedShare: number }) {
   return (
-    <div className="overflow-x-auto rounded-lg ring-1 ring-soil-300/60 print:ring-soil-400">
+    // Wider than a phone: the table scrolls sideways, and keyboard users can scroll it too.
+    <div
+      className="overflow-x-auto rounded-lg ring-1 ring-soil-300/60 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600 print:ring-soil-400"
+      role="region"
+      aria-label="Treatment zones (scrolls sideways)"
+      tabIndex={0}
+    >
       <table className="min-w-full text-left text-sm">
         <caption className="sr-only">Treatment zones</caption>
         <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
