@@ -13,6 +13,9 @@ import { startWorkers } from '../../server/jobs/workers.ts';
 import { stopQueue } from '../../server/jobs/queue.ts';
 import '../../server/jobs/all-workers.ts';
 import { closeSimulationPool, INLINE_WORK_LIMIT } from '../../server/services/check-runner.ts';
+
+/** The options a check runs with: the adviser's, plus the test pest's library threshold for its zones. */
+const withLibraryThreshold = <T extends object>(options: T) => ({ ...options, zones: { actionThreshold: 2, unit: 'aphids per plant' } });
 import { withDensityGrid } from '../helpers/density-grid.ts';
 
 const { jStat } = jstat as unknown as { jStat: { tci(mean: number, alpha: number, sd: number, n: number): [number, number] } };
@@ -93,11 +96,13 @@ describe('running a pattern check', () => {
     expect(check.reused).toBe(false);
     expect(check.createdBy).toEqual({ id: org.users.adviser.id, name: org.users.adviser.name });
     expect([...check.sightingIds]).toEqual([...sightingIds].sort());
-    expect(check.options).toEqual(analysisOptionsSchema.parse(options));
-    expect(check.engineVersion).toBe(analyse(field.boundary, engineSightings(sightingIds, points, walkId), options).engineVersion);
+    // The pest library's action threshold joins the options (tests/helpers/sightings.ts: 2 aphids per plant).
+    const asRun = withLibraryThreshold(options);
+    expect(check.options).toEqual(analysisOptionsSchema.parse(asRun));
+    expect(check.engineVersion).toBe(analyse(field.boundary, engineSightings(sightingIds, points, walkId), asRun).engineVersion);
 
     // No second computation: the page's figures are the engine's own, run here on the same inputs.
-    const reference = analyse(field.boundary, engineSightings(sightingIds, points, walkId), options);
+    const reference = analyse(field.boundary, engineSightings(sightingIds, points, walkId), asRun);
     expect(withoutTimings(await withDensityGrid(adviser, check))).toEqual(withoutTimings(reference));
     expect(check.result.spread.verdict).toBe('clustered');
   });
@@ -161,7 +166,7 @@ describe('running a pattern check', () => {
     const reference = analyse(
       field.boundary,
       engineSightings([...sightingIds, newId], [{ ...points[0], count: 40 }, ...points.slice(1), added], walkId),
-      body.options,
+      withLibraryThreshold(body.options),
     );
     expect(withoutTimings(await withDensityGrid(adviser, third))).toEqual(withoutTimings(reference));
   });
@@ -255,7 +260,7 @@ describe('heavy checks', () => {
     expect(check.finishedAt).not.toBeNull();
 
     // Simulations ran on worker threads; the single-threaded engine gives the same figures.
-    const reference = analyse(field.boundary, engineSightings(sightingIds, points, walkId), options);
+    const reference = analyse(field.boundary, engineSightings(sightingIds, points, walkId), withLibraryThreshold(options));
     expect(withoutTimings(await withDensityGrid(adviser, check))).toEqual(withoutTimings(reference));
   });
 });
