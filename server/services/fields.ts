@@ -7,13 +7,13 @@ import { FieldAssignment } from '../models/field-assignment.ts';
 import { User } from '../models/user.ts';
 import '../models/associations.ts';
 import type { Actor } from '../auth/passport.ts';
-import type { FieldCreateInput, FieldView } from '../../shared/schemas/fields.ts';
+import type { FieldCreateInput, FieldAnswer } from '../../shared/schemas/fields.ts';
 import { badRequest, conflict, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { visibleFieldIds } from './scope.ts';
 import { readBoundary } from './boundary-input.ts';
 
-export type FieldSummary = FieldView;
+export type FieldSummary = FieldAnswer;
 
 const stripCrs = (g: MultiPolygon & { crs?: unknown }): MultiPolygon => ({ type: 'MultiPolygon', coordinates: g.coordinates });
 

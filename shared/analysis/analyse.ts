@@ -489,13 +489,13 @@ function stopsSupportingEvidence(labelling: RandomLabellingResult | null, counts
       text: `Found stops against stops per quadrat cell: χ² = ${quadrat.chiSquare.toFixed(1)} on ${quadrat.df} df, two-sided ${formatP(quadrat.pValue)} (${quadrat.pValueMethod === 'monte-carlo' ? 'relabellings, as expected counts are small' : 'χ² distribution'}); ${quadrat.notScoutedCells} cell${quadrat.notScoutedCells === 1 ? '' : 's'} without a stop are not scouted.`,
     });
   }
-  const nn = labelling?.nearestNeighbour;
-  if (nn) {
+  const foundNearest = labelling?.nearestNeighbour;
+  if (foundNearest) {
     evidence.push({
       role: 'supporting',
       test: 'Clark–Evans among found stops, random labelling',
-      pValue: nn.pValue,
-      text: `Mean distance from a found stop to the nearest other found stop: ${nn.meanDistanceM.toFixed(1)} m against ${nn.relabellingMeanM.toFixed(1)} m on average over ${nn.simulations} relabellings (R = ${nn.R.toFixed(2)}, ${formatP(nn.pValue)}).`,
+      pValue: foundNearest.pValue,
+      text: `Mean distance from a found stop to the nearest other found stop: ${foundNearest.meanDistanceM.toFixed(1)} m against ${foundNearest.relabellingMeanM.toFixed(1)} m on average over ${foundNearest.simulations} relabellings (R = ${foundNearest.R.toFixed(2)}, ${formatP(foundNearest.pValue)}).`,
     });
   }
   if (counts && Number.isFinite(counts.moran.I)) {

@@ -27,7 +27,7 @@ const multiPolygonSchema = z.object({
 });
 
 /** A field as the API answers it; `scoutIds` only for admins and advisers. */
-export const fieldViewSchema = z.object({
+export const fieldAnswerSchema = z.object({
   id: z.uuid(),
   farmId: z.uuid(),
   farmName: z.string(),
@@ -38,10 +38,10 @@ export const fieldViewSchema = z.object({
   boundary: multiPolygonSchema,
   scoutIds: z.array(z.uuid()).optional(),
 });
-export type FieldView = z.infer<typeof fieldViewSchema>;
+export type FieldAnswer = z.infer<typeof fieldAnswerSchema>;
 export interface FieldResponse {
-  field: FieldView;
+  field: FieldAnswer;
 }
 export interface FieldListResponse {
-  fields: FieldView[];
+  fields: FieldAnswer[];
 }

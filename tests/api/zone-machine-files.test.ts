@@ -1,4 +1,4 @@
-// Sprayer-ready zone files: ISO 11783-10 task data (read back with the isoxml library) and an ESRI shapefile
+// Sprayer-ready zone files: ISO 11783-10 task data (read back with the isoxml library) and a shapefile
 // (read back with the independent `shapefile` reader), compared with the stored zones and the scouting stops.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { booleanPointInPolygon } from '@turf/turf';
@@ -92,7 +92,7 @@ describe('shapefile export', () => {
     const names = Object.keys(zip.files);
     const base = names.find((n) => n.endsWith('.shp'))!.replace(/\.shp$/, '');
     for (const part of ['.shp', '.shx', '.dbf', '.prj']) expect(names).toContain(`${base}${part}`);
-    // ESRI's WKT for geographic WGS 84 (the .prj names the datum and the degree unit).
+    // The well-known text (WKT) for geographic WGS 84 (the .prj names the datum and the degree unit).
     expect(await zip.file(`${base}.prj`)!.async('string')).toMatch(/GEOGCS\["GCS_WGS_1984",DATUM\["D_WGS_1984"/);
 
     const collection = await readShapefile(await zip.file(`${base}.shp`)!.async('arraybuffer'), await zip.file(`${base}.dbf`)!.async('arraybuffer'));

@@ -1,4 +1,4 @@
-// Zones as an ESRI shapefile in WGS 84 (.shp/.shx/.dbf/.prj, zipped), one polygon record per zone, written
+// Zones as a shapefile in WGS 84 (.shp/.shx/.dbf/.prj, zipped), one polygon record per zone, written
 // with @mapbox/shp-write.
 import shpwrite from '@mapbox/shp-write';
 import type { Feature, FeatureCollection, MultiPolygon } from 'geojson';

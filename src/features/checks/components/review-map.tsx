@@ -5,7 +5,7 @@ import { GeoJSON, Popup } from 'react-leaflet';
 import type { SightingView } from '@shared/schemas/sightings.ts';
 import type { AnalysisResult } from '@shared/analysis/analyse.ts';
 import { MapFrame } from '../../../components/map-frame.tsx';
-import type { FieldView as Field } from '@shared/schemas/fields.ts';
+import type { FieldAnswer as Field } from '@shared/schemas/fields.ts';
 import palette from '../../../../tailwind.config.ts';
 import { planarToLonLat } from '../utils/planar-to-lonlat.ts';
 import { fixed } from '../utils/figures.ts';

@@ -10,7 +10,7 @@ import { AreaText } from '../../../components/area-text.tsx';
 import { ConfirmDialog } from '../../../components/confirm-dialog.tsx';
 import { FormMessage } from '../../../components/form-field.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
-import type { FieldView as Field } from '@shared/schemas/fields.ts';
+import type { FieldAnswer as Field } from '@shared/schemas/fields.ts';
 import { useFields } from '../../../lib/api/get-fields.ts';
 import { useDeleteField } from '../api/delete-field.ts';
 

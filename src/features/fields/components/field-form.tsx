@@ -7,7 +7,7 @@ import { FormMessage, TextField } from '../../../components/form-field.tsx';
 import { MapFrame } from '../../../components/map-frame.tsx';
 import { AreaText } from '../../../components/area-text.tsx';
 import { checkForm, errorMessage, serverFieldErrors, type FieldErrors } from '../../../lib/form-errors.ts';
-import type { FieldView as Field } from '@shared/schemas/fields.ts';
+import type { FieldAnswer as Field } from '@shared/schemas/fields.ts';
 import { useCreateField } from '../api/create-field.ts';
 import { useUpdateField } from '../api/update-field.ts';
 import { BoundaryDraw } from './boundary-draw.tsx';

@@ -5,7 +5,7 @@ import { Button } from '../../../components/button.tsx';
 import { FormMessage, SelectField } from '../../../components/form-field.tsx';
 import { EmptyState } from '../../../components/query-states.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
-import type { FieldView as Field } from '@shared/schemas/fields.ts';
+import type { FieldAnswer as Field } from '@shared/schemas/fields.ts';
 import type { UserView as User } from '@shared/schemas/users.ts';
 import { useAssignScout } from '../api/assign-scout.ts';
 import { useUnassignScout } from '../api/unassign-scout.ts';

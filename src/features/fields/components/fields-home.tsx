@@ -5,7 +5,7 @@ import { PageFrame } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { TableFrame } from '../../../components/table-frame.tsx';
 import { AreaText } from '../../../components/area-text.tsx';
-import type { FieldView as Field } from '@shared/schemas/fields.ts';
+import type { FieldAnswer as Field } from '@shared/schemas/fields.ts';
 import { useFields } from '../../../lib/api/get-fields.ts';
 
 const column = createColumnHelper<Field>();

@@ -4,7 +4,7 @@ import type { GrowerNoticeSummary, RecipientState } from '@shared/schemas/notice
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { AreaText } from '../../../components/area-text.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
-import type { FieldView as Field } from '@shared/schemas/fields.ts';
+import type { FieldAnswer as Field } from '@shared/schemas/fields.ts';
 import { useFarms } from '../../../lib/api/get-farms.ts';
 import { useFields } from '../../../lib/api/get-fields.ts';
 import { useGrowerNotices } from '../api/get-grower-notices.ts';

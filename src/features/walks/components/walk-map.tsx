@@ -1,6 +1,6 @@
 // The walk on the field: found sightings sized by count, empty stops as rings, and what still needs a pin.
 import type { SightingView } from '@shared/schemas/sightings.ts';
-import type { FieldView as Field } from '@shared/schemas/fields.ts';
+import type { FieldAnswer as Field } from '@shared/schemas/fields.ts';
 import { MapFrame } from '../../../components/map-frame.tsx';
 import { SightingMarkers } from '../../sightings/components/sighting-markers.tsx';
 import { WalkRouteLine } from '../../sightings/components/walk-route-line.tsx';
