@@ -29,7 +29,7 @@ export const signed = (value: number, digits = 2) => (value < 0 ? `−${Math.abs
 
 const reading: Record<Spread, string> = {
   clustered: 'Clustered: sightings are closer together than chance would place them',
-  regular: 'Regular: sightings are spaced more evenly than chance would place them',
+  regular: 'Spread out: sightings are spaced more evenly than chance would place them',
   random: 'Random: the spacing of the sightings is what chance alone would give',
   'too-few': 'Too few sightings to tell a pattern',
   everywhere: 'Everywhere: the pest was found at most stops, a whole-field decision against the threshold',

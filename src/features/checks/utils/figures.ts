@@ -40,7 +40,7 @@ export const areaBasisLabels = {
 export const spreadLabels: Record<SpreadVerdict, string> = {
   clustered: 'Clustered',
   random: 'Random',
-  regular: 'Regular',
+  regular: 'Spread out',
   'too-few': 'Too few sightings',
   everywhere: 'Everywhere',
   'cant-tell': "Can't tell",
