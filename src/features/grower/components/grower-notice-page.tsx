@@ -1,5 +1,4 @@
 // A zone notice opened from the signed-in grower's home: the same view the e-mailed link opens, inside the app.
-import { useEffect, useRef } from 'react';
 import { useParams } from 'react-router';
 import { ButtonLink } from '../../../components/button.tsx';
 import { NoticeView } from '../../../components/notice-view/notice-view.tsx';
@@ -10,6 +9,7 @@ import { useAcknowledgeGrowerNotice } from '../api/acknowledge-grower-notice.ts'
 import { useGrowerNotice } from '../api/get-grower-notice.ts';
 import { useReportGrowerNoticeOpened } from '../api/report-grower-notice-opened.ts';
 import { useAskGrowerNoticeQuestion } from '../api/ask-grower-notice-question.ts';
+import { useOnceWhen } from '../../../lib/use-once-when.ts';
 
 export function GrowerNoticePage() {
   const { noticeId = '' } = useParams();
@@ -17,13 +17,8 @@ export function GrowerNoticePage() {
   const acknowledge = useAcknowledgeGrowerNotice(noticeId);
   const ask = useAskGrowerNoticeQuestion(noticeId);
   const { mutate: reportOpened } = useReportGrowerNoticeOpened(noticeId);
-  // Once per visit, when the notice has loaded (the ref keeps React's doubled effects to one report).
-  const reported = useRef(false);
-  useEffect(() => {
-    if (!notice.data || reported.current) return;
-    reported.current = true;
-    reportOpened();
-  }, [notice.data, reportOpened]);
+  // Opening is recorded by the page once the notice has loaded, never by the GET itself.
+  useOnceWhen(Boolean(notice.data), reportOpened);
   if (notice.isPending)
     return (
       <PageFrame title="Zone notice">

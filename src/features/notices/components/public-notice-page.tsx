@@ -1,6 +1,6 @@
 // The grower's notice page, opened from the e-mailed link without signing in: the notice view inside a plain
 // frame of its own, or a plain explanation when the link opens nothing.
-import { useEffect, useRef, type ReactNode } from 'react';
+import { useEffect, type ReactNode } from 'react';
 import { useParams } from 'react-router';
 import { LoadingState } from '../../../components/query-states.tsx';
 import { NoticeView } from '../../../components/notice-view/notice-view.tsx';
@@ -10,6 +10,7 @@ import { useNoticeLink } from '../api/get-notice-link.ts';
 import { useAcknowledgeNotice } from '../api/acknowledge-notice.ts';
 import { useReportNoticeOpened } from '../api/report-notice-opened.ts';
 import { useAskNoticeQuestion } from '../api/ask-notice-question.ts';
+import { useOnceWhen } from '../../../lib/use-once-when.ts';
 
 function Shell({ organisation, children }: { organisation?: string; children: ReactNode }) {
   return (
@@ -61,13 +62,8 @@ export function PublicNoticePage() {
   const acknowledge = useAcknowledgeNotice(token);
   const ask = useAskNoticeQuestion(token);
   const { mutate: reportOpened } = useReportNoticeOpened(token);
-  // Once per visit, when the notice has loaded (the ref keeps React's doubled effects to one report).
-  const reported = useRef(false);
-  useEffect(() => {
-    if (!notice.data || reported.current) return;
-    reported.current = true;
-    reportOpened();
-  }, [notice.data, reportOpened]);
+  // Opening is recorded by the page once the notice has loaded, never by the GET itself.
+  useOnceWhen(Boolean(notice.data), reportOpened);
   useEffect(() => {
     if (!notice.data) document.title = 'Zone notice · Patchwise';
   }, [notice.data]);
