@@ -1,6 +1,7 @@
 // Turns an uploaded boundary (GeoJSON in any of its wrappers, or KML) into one MultiPolygon.
 import { kml as kmlToGeoJson } from '@tmcw/togeojson';
 import type { Geometry, MultiPolygon, Position } from 'geojson';
+import { refuseDeepNesting } from './collection-depth.ts';
 import { fault } from './boundary-faults.ts';
 
 type DomParserConstructor = new () => { parseFromString(text: string, type: string): unknown };
@@ -72,5 +73,6 @@ export function parseBoundaryText(text: string, DOMParser: DomParserConstructor)
   } catch {
     throw fault('unparseable', 'The file is neither GeoJSON nor KML: it could not be read as JSON or XML.');
   }
+  refuseDeepNesting(value);
   return boundaryFromGeoJson(value);
 }
