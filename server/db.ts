@@ -12,3 +12,8 @@ export const sequelize = new Sequelize(config.databaseUrl, {
   define: { underscored: true, timestamps: true },
   pool: { max: 10, idle: 10_000 },
 });
+
+/** Whether the database answers at all (the readiness probe). */
+export async function pingDatabase() {
+  await sequelize.query('SELECT 1');
+}

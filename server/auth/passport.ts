@@ -1,6 +1,6 @@
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
-import { User } from '../models/user.ts';
+import { findUser, findUserByEmail, type UserRow } from '../queries/users.ts';
 import { verifyPassword } from './passwords.ts';
 import type { Role } from '../../shared/schemas/roles.ts';
 
@@ -20,7 +20,7 @@ declare global {
   }
 }
 
-export const actorOf = (user: User): Actor => ({
+export const actorOf = (user: UserRow): Actor => ({
   id: user.id,
   organisationId: user.organisationId,
   role: user.role,
@@ -31,7 +31,7 @@ export const actorOf = (user: User): Actor => ({
 passport.use(
   new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, async (email, password, done) => {
     try {
-      const user = await User.findOne({ where: { email: email.trim().toLowerCase() } });
+      const user = await findUserByEmail(email.trim().toLowerCase());
       const ok = await verifyPassword(user?.passwordHash ?? null, password);
       if (!user || !ok || !user.active) return done(null, false);
       return done(null, actorOf(user));
@@ -46,7 +46,7 @@ passport.serializeUser((actor, done) => done(null, actor.id));
 // Reload the user on every request so a deactivated account or a changed role takes effect at once.
 passport.deserializeUser(async (id: string, done) => {
   try {
-    const user = await User.findByPk(id);
+    const user = await findUser(id);
     done(null, user && user.active ? actorOf(user) : false);
   } catch (error) {
     done(error);

@@ -105,5 +105,5 @@ authRouter.post('/set-password', async (req, res) => {
   const { token, password } = parse(setPasswordSchema, req.body);
   // Every other session of the account ends; the one that set the password (if it is one) stays.
   const user = await setPasswordWithToken(token, password, req.sessionID);
-  res.json({ user: user.toPublic(), message: 'Your password is set; sign in with it now.' });
+  res.json({ user, message: 'Your password is set; sign in with it now.' });
 });

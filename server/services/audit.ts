@@ -1,5 +1,5 @@
 import type { Transaction } from 'sequelize';
-import { AuditEntry } from '../models/audit-entry.ts';
+import { insertAuditEntry } from '../queries/audit-log.ts';
 import type { Actor } from '../auth/passport.ts';
 
 /** Writes who changed what; inside the caller's transaction so the log never disagrees with the data. */
@@ -11,5 +11,5 @@ export async function recordAudit(
   changes: Record<string, unknown> = {},
   transaction?: Transaction,
 ) {
-  await AuditEntry.create({ organisationId: who?.organisationId ?? null, userId: who?.id ?? null, action, entity, entityId, changes }, { transaction });
+  await insertAuditEntry({ organisationId: who?.organisationId ?? null, userId: who?.id ?? null, action, entity, entityId, changes }, { transaction });
 }

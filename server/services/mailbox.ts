@@ -1,37 +1,16 @@
 import { simpleParser } from 'mailparser';
-import { QueryTypes } from 'sequelize';
-import { sequelize } from '../db.ts';
 import { notFound } from '../errors.ts';
 import type { Actor } from '../auth/passport.ts';
 import { hideLinksOfOthers } from './mailbox-redaction.ts';
-
-interface StoredMessage {
-  id: number;
-  envelope_from: string | null;
-  envelope_to: string[];
-  subject: string | null;
-  raw: Buffer;
-  received_at: Date;
-}
-
-// One deployment serves many organisations: an admin reads only the mail the app sent for their own organisation
-// (filed by the catcher from the app's header), so no recipient address, a farm contact's included, can pull
-// another organisation's mail into view.
-const SENT_FOR_ORGANISATION = 'organisation_id = :organisationId';
+import { findMessageOfOrganisation, listMessagesOfOrganisation } from '../queries/mailbox-messages.ts';
 
 export async function listMessages(viewer: Actor, limit = 200) {
-  const rows = await sequelize.query<Omit<StoredMessage, 'raw'>>(
-    `SELECT id, envelope_from, envelope_to, subject, received_at FROM mailbox_messages WHERE ${SENT_FOR_ORGANISATION} ORDER BY id DESC LIMIT :limit`,
-    { replacements: { limit, organisationId: viewer.organisationId }, type: QueryTypes.SELECT },
-  );
+  const rows = await listMessagesOfOrganisation(viewer.organisationId, limit);
   return rows.map((r) => ({ id: Number(r.id), from: r.envelope_from, to: r.envelope_to, subject: r.subject, receivedAt: r.received_at }));
 }
 
 async function loadRaw(viewer: Actor, id: number) {
-  const [row] = await sequelize.query<StoredMessage>(`SELECT * FROM mailbox_messages WHERE id = :id AND ${SENT_FOR_ORGANISATION}`, {
-    replacements: { id, organisationId: viewer.organisationId },
-    type: QueryTypes.SELECT,
-  });
+  const row = await findMessageOfOrganisation(viewer.organisationId, id);
   if (!row) throw notFound('That message');
   return row;
 }

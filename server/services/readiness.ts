@@ -1,6 +1,6 @@
 // Whether this process can serve: its database answers, its photo storage takes writes, and it is not stopping.
 import fs from 'node:fs/promises';
-import { sequelize } from '../db.ts';
+import { pingDatabase } from '../db.ts';
 import { storageRoot } from './storage.ts';
 
 let stopping = false;
@@ -14,7 +14,7 @@ type Check = 'ok' | string;
 
 async function databaseCheck(): Promise<Check> {
   try {
-    await sequelize.query('SELECT 1');
+    await pingDatabase();
     return 'ok';
   } catch {
     return 'the database does not answer';

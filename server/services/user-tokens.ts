@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
-import { Op, type Transaction } from 'sequelize';
-import { UserToken } from '../models/user-token.ts';
+import type { Transaction } from 'sequelize';
+import { consumeTokenByHash, insertToken, useUpTokens } from '../queries/user-tokens.ts';
 
 export const INVITE_LIFETIME_MS = 72 * 60 * 60 * 1000;
 export const RESET_LIFETIME_MS = 60 * 60 * 1000;
@@ -12,20 +12,12 @@ export async function issueToken(userId: string, purpose: 'invite' | 'reset', tr
   const token = crypto.randomBytes(32).toString('base64url');
   const lifetime = purpose === 'invite' ? INVITE_LIFETIME_MS : RESET_LIFETIME_MS;
   // A newer link replaces every older unused one of the same purpose.
-  await UserToken.update({ usedAt: new Date() }, { where: { userId, purpose, usedAt: null }, transaction });
-  await UserToken.create({ userId, purpose, tokenHash: hashToken(token), expiresAt: new Date(Date.now() + lifetime), usedAt: null }, { transaction });
+  await useUpTokens(userId, purpose, { transaction });
+  await insertToken({ userId, purpose, tokenHash: hashToken(token), expiresAt: new Date(Date.now() + lifetime) }, { transaction });
   return token;
 }
 
 /** Marks a token used and returns its user id, or null when it is unknown, used or expired. */
 export async function consumeToken(token: string, transaction: Transaction) {
-  const row = await UserToken.findOne({
-    where: { tokenHash: hashToken(token), usedAt: null, expiresAt: { [Op.gt]: new Date() } },
-    transaction,
-    lock: transaction.LOCK.UPDATE,
-  });
-  if (!row) return null;
-  row.usedAt = new Date();
-  await row.save({ transaction });
-  return row.userId;
+  return consumeTokenByHash(hashToken(token), { transaction });
 }

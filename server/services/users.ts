@@ -1,10 +1,11 @@
 import type { z } from 'zod';
 import { sequelize } from '../db.ts';
-import { User } from '../models/user.ts';
-import { UserToken } from '../models/user-token.ts';
-import { Organisation } from '../models/organisation.ts';
+import * as users from '../queries/users.ts';
+import { useUpTokens } from '../queries/user-tokens.ts';
+import { findOrganisation } from '../queries/organisations.ts';
+import { deleteOtherSessionsOfUser, deleteSessionsOfUser } from '../queries/session.ts';
 import type { Actor } from '../auth/passport.ts';
-import type { inviteUserSchema, updateUserSchema } from '../../shared/schemas/users.ts';
+import type { inviteUserSchema, updateUserSchema, UserView } from '../../shared/schemas/users.ts';
 import { AppError, badRequest, conflict, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { consumeToken, issueToken } from './user-tokens.ts';
@@ -12,18 +13,29 @@ import { sendInvitation, sendInvitationDeclined, sendPasswordReset } from './acc
 import { hashPassword } from '../auth/passwords.ts';
 import { passwordWeakness } from '../auth/password-strength.ts';
 
+/** The shape every API answer uses: never the password hash. */
+const toPublic = (user: users.UserRow): UserView => ({
+  id: user.id,
+  organisationId: user.organisationId,
+  name: user.name,
+  email: user.email,
+  role: user.role,
+  active: user.active,
+  invited: user.passwordHash === null,
+});
+
 /** The signed-in person as the client sees them (null once the account is gone). */
 export async function currentUser(actor: Actor) {
-  return (await User.findByPk(actor.id))?.toPublic() ?? null;
+  const user = await users.findUser(actor.id);
+  return user ? toPublic(user) : null;
 }
 
 export async function listUsers(actor: Actor) {
-  const users = await User.findAll({ where: { organisationId: actor.organisationId }, order: [['name', 'ASC']] });
-  return users.map((u) => u.toPublic());
+  return (await users.listUsersOfOrganisation(actor.organisationId)).map(toPublic);
 }
 
 async function findOwnUser(actor: Actor, id: string) {
-  const user = await User.findOne({ where: { id, organisationId: actor.organisationId } });
+  const user = await users.findUserInOrganisation(actor.organisationId, id);
   if (!user) throw notFound('That user');
   return user;
 }
@@ -39,8 +51,8 @@ async function findOwnUser(actor: Actor, id: string) {
  * kept apart from accounts (accounts are one per address, since sign-in is by address alone).
  */
 export async function inviteUser(actor: Actor, input: z.infer<typeof inviteUserSchema>): Promise<{ message: string }> {
-  const existing = await User.findOne({ where: { email: input.email } });
-  const organisation = await Organisation.findByPk(actor.organisationId);
+  const existing = await users.findUserByEmail(input.email);
+  const organisation = await findOrganisation(actor.organisationId);
   const organisationName = organisation?.name ?? 'your advisory business';
   if (existing && existing.organisationId === actor.organisationId) {
     throw conflict(`${input.email} is already one of your users; use "Send invitation again" on their row if they have not set a password yet.`);
@@ -55,7 +67,7 @@ export async function inviteUser(actor: Actor, input: z.infer<typeof inviteUserS
     return answer;
   }
   const { user, token } = await sequelize.transaction(async (transaction) => {
-    const user = await User.create(
+    const user = await users.insertUser(
       { organisationId: actor.organisationId, name: input.name, email: input.email, role: input.role, passwordHash: null },
       { transaction },
     );
@@ -82,10 +94,10 @@ const invitationMailFailed = (email: string) =>
 export async function resendInvitation(actor: Actor, id: string) {
   const user = await findOwnUser(actor, id);
   if (user.passwordHash) throw badRequest(`${user.name} has already set a password; they can use "Forgot password" instead.`);
-  const organisation = await Organisation.findByPk(actor.organisationId);
+  const organisation = await findOrganisation(actor.organisationId);
   const token = await issueToken(user.id, 'invite');
   await sendInvitation(user, actor.name, organisation?.name ?? 'your advisory business', token);
-  return user.toPublic();
+  return toPublic(user);
 }
 
 export async function updateUser(actor: Actor, id: string, input: z.infer<typeof updateUserSchema>) {
@@ -94,15 +106,16 @@ export async function updateUser(actor: Actor, id: string, input: z.infer<typeof
     throw badRequest('You cannot change your own role or deactivate yourself; ask another admin.');
   }
   const before = { name: user.name, role: user.role, active: user.active };
-  await sequelize.transaction(async (transaction) => {
-    await user.update(input, { transaction });
+  const updated = await sequelize.transaction(async (transaction) => {
+    const updated = await users.updateUser(user.id, input, { transaction });
     if (input.active === false) {
       // Signing the user out everywhere: their sessions are dropped with the deactivation.
-      await sequelize.query(`DELETE FROM session WHERE sess->'passport'->>'user' = :id`, { replacements: { id: user.id }, transaction });
+      await deleteSessionsOfUser(user.id, { transaction });
     }
     await recordAudit(actor, 'update', 'user', user.id, { before, after: input }, transaction);
+    return updated;
   });
-  return user.toPublic();
+  return toPublic(updated);
 }
 
 /**
@@ -115,25 +128,22 @@ export async function setPasswordWithToken(token: string, password: string, keep
   return sequelize.transaction(async (transaction) => {
     const userId = await consumeToken(token, transaction);
     if (!userId) throw new AppError(400, 'link_expired', 'This link has expired or was already used; ask for a new one.');
-    const user = await User.findByPk(userId, { transaction });
+    const user = await users.findUser(userId, { transaction });
     if (!user || !user.active) throw new AppError(400, 'link_expired', 'This link has expired or was already used; ask for a new one.');
     const weakness = passwordWeakness(password, [user.email, ...user.email.split(/[@.+_-]/), ...user.name.split(/\s+/)]);
     if (weakness) throw badRequest(weakness, { password: weakness });
-    await user.update({ passwordHash }, { transaction });
+    const updated = await users.updateUser(user.id, { passwordHash }, { transaction });
     // Any other invitation or reset link still out there dies with the old password (one-time links: OWASP ASVS 4.0.3 V2.5).
-    await UserToken.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: null }, transaction });
-    await sequelize.query(`DELETE FROM session WHERE sess->'passport'->>'user' = :id AND sid <> :keep`, {
-      replacements: { id: user.id, keep: keepSessionId },
-      transaction,
-    });
+    await useUpTokens(user.id, null, { transaction });
+    await deleteOtherSessionsOfUser(user.id, keepSessionId, { transaction });
     await recordAudit({ id: user.id, organisationId: user.organisationId }, 'set-password', 'user', user.id, {}, transaction);
-    return user;
+    return toPublic(updated);
   });
 }
 
 /** Sends a reset link when the address is known and active; answers the same way either way. */
 export async function requestPasswordReset(email: string) {
-  const user = await User.findOne({ where: { email } });
+  const user = await users.findUserByEmail(email);
   if (!user || !user.active) return;
   const token = await issueToken(user.id, 'reset');
   await sendPasswordReset(user, token).catch((error) => console.error('password reset mail failed', error));

@@ -6,7 +6,7 @@ import crypto from 'node:crypto';
 import { afterAll, beforeEach, describe, expect, it, vi } from 'vitest';
 import * as argon2 from '@node-rs/argon2';
 import { stopQueue } from '../../server/jobs/queue.ts';
-import { User } from '../../server/models/user.ts';
+import { insertUser } from '../../server/queries/users.ts';
 import { anonymous } from '../helpers/http.ts';
 import { makeOrganisation } from '../helpers/org.ts';
 
@@ -33,7 +33,7 @@ describe('sign-in does the same work for every kind of failure', () => {
     const org = await makeOrganisation('Hashing');
     // An invited account as an invitation leaves it: no password yet.
     const invitedEmail = `invited-${crypto.randomBytes(4).toString('hex')}@test.example`;
-    await User.create({ organisationId: org.id, name: 'Invited Scout', email: invitedEmail, role: 'scout', passwordHash: null });
+    await insertUser({ organisationId: org.id, name: 'Invited Scout', email: invitedEmail, role: 'scout', passwordHash: null });
 
     const attempts = [];
     for (const email of [invitedEmail, org.users.scout.email, `nobody-${crypto.randomBytes(4).toString('hex')}@test.example`]) {

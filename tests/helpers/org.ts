@@ -1,7 +1,7 @@
 // Each test builds its own organisation, so tests never lean on each other or on the demo seed.
 import crypto from 'node:crypto';
-import { Organisation } from '../../server/models/organisation.ts';
-import { User } from '../../server/models/user.ts';
+import { insertOrganisation } from '../../server/queries/organisations.ts';
+import { insertUser } from '../../server/queries/users.ts';
 import { hashPassword } from '../../server/auth/passwords.ts';
 import type { Role } from '../../shared/schemas/roles.ts';
 
@@ -17,10 +17,10 @@ export interface TestOrganisation {
 export async function makeOrganisation(label = 'Test'): Promise<TestOrganisation> {
   passwordHash ??= hashPassword(TEST_PASSWORD);
   const tag = crypto.randomBytes(4).toString('hex');
-  const organisation = await Organisation.create({ name: `${label} advisory ${tag}` });
+  const organisation = await insertOrganisation(`${label} advisory ${tag}`);
   const users = {} as TestOrganisation['users'];
   for (const role of ['admin', 'adviser', 'scout', 'grower'] as const) {
-    const user = await User.create({
+    const user = await insertUser({
       organisationId: organisation.id,
       name: `${role} ${tag}`,
       email: `${role}-${tag}@test.example`,

@@ -1,0 +1,23 @@
+// The one way the query modules talk to PostgreSQL: named replacements (`:name`), never values spliced into the text,
+// and the caller's transaction passed through.
+import { QueryTypes, type Transaction } from 'sequelize';
+import { sequelize } from '../db.ts';
+
+export interface InTransaction {
+  transaction?: Transaction;
+}
+
+type Replacements = Record<string, unknown>;
+
+/** Rows of a SELECT (or of a statement with RETURNING). */
+export const selectRows = <Row extends object>(sql: string, replacements?: Replacements, { transaction }: InTransaction = {}) =>
+  sequelize.query<Row>(sql, { replacements, type: QueryTypes.SELECT, transaction });
+
+/** The first row, or undefined. */
+export const selectRow = async <Row extends object>(sql: string, replacements?: Replacements, options: InTransaction = {}) =>
+  (await selectRows<Row>(sql, replacements, options))[0] as Row | undefined;
+
+/** A statement whose rows nobody reads. */
+export const execute = async (sql: string, replacements?: Replacements, { transaction }: InTransaction = {}) => {
+  await sequelize.query(sql, { replacements, transaction });
+};
