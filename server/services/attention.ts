@@ -7,7 +7,7 @@ import type { ThresholdBasis } from '../../shared/schemas/pests.ts';
 import type { AttentionField, AttentionResponse } from '../../shared/schemas/checks.ts';
 import { listUnacknowledgedNotices } from './notice-reading.ts';
 import { listWaitingGrowerQuestions } from './notice-questions.ts';
-import { liveSighting } from './live-sightings.ts';
+import { liveSighting } from '../queries/sightings.ts';
 
 interface LatestCheckRow {
   checkId: string;

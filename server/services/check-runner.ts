@@ -13,52 +13,20 @@ import { createMonteCarloPool, type MonteCarloPool } from './monte-carlo/monte-c
 import { BACKGROUND_THREAD_NICE } from './background-priority.ts';
 import { closeAnalysisPool, runInAnalysisThread } from './analysis-pool.ts';
 import type { SplitResult } from './check-figures.ts';
-import { liveSighting } from './live-sightings.ts';
+import { liveSightingsByIds, liveSightingsInWindow, type SightingWindow, type StoredSighting } from '../queries/sightings.ts';
 
-export interface StoredSighting {
-  id: string;
-  lon: number;
-  lat: number;
-  count: number | null;
-  walkId?: string | null;
-  accuracyM?: number | null;
-  /** UTC, microseconds, so an edit always changes the hash. */
-  updatedAt: string;
-}
-
-export interface SightingWindow {
-  fieldId: string;
-  pestId: string;
-  from?: string | null;
-  to?: string | null;
-}
+export type { SightingWindow, StoredSighting };
 
 export type SightingProperties = { id: string; count?: number; walk?: string; accuracyM?: number };
 
-const sightingColumns = `s.id, ST_X(s.position) AS lon, ST_Y(s.position) AS lat, s.count, s.walk_id AS "walkId", s.accuracy_m AS "accuracyM",
-  to_char(s.updated_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"') AS "updatedAt"`;
-
-/** The placed, not-deleted sightings of a pest in a field whose walk falls in the window, empty stops included, by id. */
+/** The live sightings of a pest in a field whose walk falls in the window, empty stops included, by id. */
 export async function sightingsInWindow(window: SightingWindow): Promise<StoredSighting[]> {
-  return sequelize.query<StoredSighting>(
-    `SELECT ${sightingColumns}
-       FROM sightings s JOIN walks w ON w.id = s.walk_id
-      WHERE s.field_id = :fieldId AND s.pest_id = :pestId AND ${liveSighting('s')}
-        AND (CAST(:from AS date) IS NULL OR w.walked_on >= CAST(:from AS date))
-        AND (CAST(:to AS date) IS NULL OR w.walked_on <= CAST(:to AS date))
-      ORDER BY s.id`,
-    { replacements: { fieldId: window.fieldId, pestId: window.pestId, from: window.from ?? null, to: window.to ?? null }, type: QueryTypes.SELECT },
-  );
+  return liveSightingsInWindow(window);
 }
 
 /** The exact sightings a stored check names, as they are now (deleted or unplaced ones drop out). */
 export async function sightingsByIds(ids: string[]): Promise<StoredSighting[]> {
-  if (ids.length === 0) return [];
-  return sequelize.query<StoredSighting>(
-    `SELECT ${sightingColumns} FROM sightings s
-      WHERE s.id = ANY(CAST(:ids AS uuid[])) AND ${liveSighting('s')} ORDER BY s.id`,
-    { replacements: { ids: `{${ids.join(',')}}` }, type: QueryTypes.SELECT },
-  );
+  return liveSightingsByIds(ids);
 }
 
 const sha256 = (text: string) => crypto.createHash('sha256').update(text).digest('hex');

@@ -1,7 +1,6 @@
 // Turns uploaded photos into sightings: type from the bytes, position and time from EXIF, field from PostGIS,
 // one sighting per photo per field (SHA-256), the file stored before the row is committed.
 import crypto from 'node:crypto';
-import { QueryTypes } from 'sequelize';
 import { sequelize } from '../db.ts';
 import type { Actor } from '../auth/passport.ts';
 import type { PhotoOutcome, Position } from '../../shared/schemas/sightings.ts';
@@ -15,7 +14,10 @@ import { readPhotoExif, positionProblemSentence, type PhotoReading } from './exi
 import { fieldContains, fieldsContaining, nearestField } from './ingest-fields.ts';
 import { newStorageKey, removeStored, writeStored } from './storage.ts';
 import { requestThumbnails } from './thumbnail-queue.ts';
-import type { PhotoMimeType } from '../models/photo.ts';
+import type { PhotoMimeType } from './photo-type.ts';
+import { findPestInOrganisation } from '../queries/pests.ts';
+import { insertPhoto } from '../queries/photos.ts';
+import { findSightingOfPhotoHash, insertPhotoSighting } from '../queries/sightings.ts';
 
 export interface IncomingPhoto {
   /** The name the phone sent: a label only, never a path. */
@@ -57,10 +59,7 @@ function localToday(now: Date, position: Position | null) {
 
 async function resolveContext(actor: Actor, request: IngestRequest, now: Date): Promise<Context> {
   assertMayRecord(actor);
-  const [pest] = await sequelize.query<{ id: string }>('SELECT id FROM pests WHERE id = :pestId AND organisation_id = :org', {
-    replacements: { pestId: request.pestId, org: actor.organisationId },
-    type: QueryTypes.SELECT,
-  });
+  const pest = await findPestInOrganisation(actor.organisationId, request.pestId);
   if (!pest) throw badRequest('Choose a pest from your organisation’s pest library.', { pestId: 'That pest is not in the library.' });
   const walk = request.walkId ? await writableWalk(actor, request.walkId) : null;
   if (walk && request.fieldId && request.fieldId !== walk.fieldId)
@@ -123,11 +122,7 @@ async function place(context: Context, reading: PhotoReading): Promise<Placement
 }
 
 async function existingSighting(fieldId: string, sha256: string) {
-  const [row] = await sequelize.query<{ id: string; walkId: string; photoId: string }>(
-    'SELECT id, walk_id AS "walkId", photo_id AS "photoId" FROM sightings WHERE field_id = :fieldId AND photo_sha256 = :sha256 AND deleted_at IS NULL',
-    { replacements: { fieldId, sha256 }, type: QueryTypes.SELECT },
-  );
-  return row ?? null;
+  return (await findSightingOfPhotoHash(fieldId, sha256)) ?? null;
 }
 
 function duplicateOutcome(field: FieldRef, existing: { id: string; walkId: string; photoId: string }): Omit<PhotoOutcome, 'fileName' | 'clientId'> {
@@ -160,66 +155,52 @@ async function store(
   try {
     return await sequelize.transaction(async (transaction) => {
       const walkId = context.walk?.id ?? (await findOrCreateWalk(actor, field.id, walkedOn, transaction)).id;
-      const [photoRow] = await sequelize.query<{ id: string }>(
-        `INSERT INTO photos (organisation_id, uploaded_by, sha256, storage_key, mime_type, byte_size, original_name, exif)
-         VALUES (:org, :userId, :sha256, :storageKey, :mimeType, :byteSize, :originalName, CAST(:exif AS jsonb)) RETURNING id`,
+      const photoId = await insertPhoto(
         {
-          replacements: {
-            org: actor.organisationId,
-            userId: actor.id,
-            sha256,
-            storageKey,
-            mimeType,
-            byteSize: photo.bytes.length,
-            originalName: labelFromFileName(photo.fileName),
-            exif: JSON.stringify(reading.kept),
-          },
-          type: QueryTypes.SELECT,
-          transaction,
+          org: actor.organisationId,
+          userId: actor.id,
+          sha256,
+          storageKey,
+          mimeType,
+          byteSize: photo.bytes.length,
+          originalName: labelFromFileName(photo.fileName),
+          exif: JSON.stringify(reading.kept),
         },
+        { transaction },
       );
-      const [sighting] = await sequelize.query<{ id: string }>(
-        `INSERT INTO sightings (organisation_id, field_id, walk_id, pest_id, photo_id, photo_sha256, count, position, position_source,
-                                accuracy_m, altitude_m, direction_deg, observed_at, time_flag, status, created_by)
-         VALUES (:org, :fieldId, :walkId, :pestId, :photoId, :sha256, :count,
-                 CASE WHEN :hasPosition THEN ST_SetSRID(ST_MakePoint(:lon, :lat), 4326) END, :positionSource,
-                 :accuracyM, :altitudeM, :directionDeg, :observedAt, :timeFlag, :status, :userId)
-         RETURNING id`,
+      const sightingId = await insertPhotoSighting(
         {
-          replacements: {
-            org: actor.organisationId,
-            fieldId: field.id,
-            walkId,
-            pestId: context.pestId,
-            photoId: photoRow.id,
-            sha256,
-            count: photo.count ?? null,
-            hasPosition: position !== null,
-            lon: position?.lon ?? 0,
-            lat: position?.lat ?? 0,
-            // A photo without a usable position waits for the scout's pin.
-            positionSource: position ? 'exif' : 'pin',
-            accuracyM: position ? reading.accuracyM : null,
-            altitudeM: reading.altitudeM,
-            directionDeg: reading.directionDeg,
-            observedAt: reading.observedAt,
-            timeFlag: reading.timeFlag,
-            status: position ? 'placed' : 'needs-pin',
-            userId: actor.id,
-          },
-          type: QueryTypes.SELECT,
-          transaction,
+          org: actor.organisationId,
+          fieldId: field.id,
+          walkId,
+          pestId: context.pestId,
+          photoId,
+          sha256,
+          count: photo.count ?? null,
+          hasPosition: position !== null,
+          lon: position?.lon ?? 0,
+          lat: position?.lat ?? 0,
+          // A photo without a usable position waits for the scout's pin.
+          positionSource: position ? 'exif' : 'pin',
+          accuracyM: position ? reading.accuracyM : null,
+          altitudeM: reading.altitudeM,
+          directionDeg: reading.directionDeg,
+          observedAt: reading.observedAt,
+          timeFlag: reading.timeFlag,
+          status: position ? 'placed' : 'needs-pin',
+          userId: actor.id,
         },
+        { transaction },
       );
       await recordAudit(
         actor,
         'create',
         'sighting',
-        sighting.id,
-        { photoId: photoRow.id, walkId, fieldId: field.id, status: position ? 'placed' : 'needs-pin' },
+        sightingId,
+        { photoId, walkId, fieldId: field.id, status: position ? 'placed' : 'needs-pin' },
         transaction,
       );
-      return { sightingId: sighting.id, photoId: photoRow.id, walkId };
+      return { sightingId, photoId, walkId };
     });
   } catch (error) {
     // The row never committed: the file must not stay behind.

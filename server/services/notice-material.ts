@@ -7,7 +7,7 @@ import { Notice } from '../models/notice.ts';
 import { PatternCheck } from '../models/pattern-check.ts';
 import { notFound } from '../errors.ts';
 import { zoneSetInOrganisation } from './zone-sets.ts';
-import { liveSighting } from './live-sightings.ts';
+import { liveSighting } from '../queries/sightings.ts';
 import { zonesGeoJson } from './zone-export.ts';
 import { zoneLocation } from './zone-locations.ts';
 import { NOTICE_CAUTIONS } from '../../shared/notices/cautions.ts';

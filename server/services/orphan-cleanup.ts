@@ -1,7 +1,6 @@
 // Removes files that no committed photo row names: left by a crash between the file write and the commit,
 // or by a temp file whose rename never happened. Files younger than the grace period may still be mid-upload.
-import { QueryTypes } from 'sequelize';
-import { sequelize } from '../db.ts';
+import { findKnownFileKeys } from '../queries/photos.ts';
 import { listStoredFiles } from './storage.ts';
 import fs from 'node:fs/promises';
 
@@ -14,16 +13,7 @@ export async function removeOrphanFiles(options: { graceMs?: number; now?: Date 
   const candidates = files.filter((f) => now.getTime() - f.modifiedAt.getTime() >= graceMs);
   if (candidates.length === 0) return { removed: [] as string[] };
   const keys = candidates.map((f) => f.key).filter((k): k is string => k !== null);
-  const known = new Set(
-    keys.length
-      ? (
-          await sequelize.query<{ key: string }>(
-            `SELECT storage_key AS key FROM photos WHERE storage_key IN (:keys) UNION SELECT thumbnail_key FROM photos WHERE thumbnail_key IN (:keys)`,
-            { replacements: { keys }, type: QueryTypes.SELECT },
-          )
-        ).map((r) => r.key)
-      : [],
-  );
+  const known = new Set(keys.length ? await findKnownFileKeys(keys) : []);
   const removed: string[] = [];
   for (const file of candidates) {
     if (file.key && known.has(file.key)) continue;

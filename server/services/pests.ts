@@ -1,11 +1,11 @@
 import { sequelize } from '../db.ts';
-import { Pest } from '../models/pest.ts';
+import * as pests from '../queries/pests.ts';
 import type { Actor } from '../auth/passport.ts';
 import type { PestInput, PestView } from '../../shared/schemas/pests.ts';
 import { notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 
-const present = (p: Pest): PestView => ({
+const present = (p: pests.PestRow): PestView => ({
   id: p.id,
   name: p.name,
   kind: p.kind,
@@ -18,22 +18,18 @@ const present = (p: Pest): PestView => ({
 });
 
 export async function listPests(actor: Actor, options: { includeInactive?: boolean } = {}) {
-  const pests = await Pest.findAll({
-    where: { organisationId: actor.organisationId, ...(options.includeInactive ? {} : { active: true }) },
-    order: [['name', 'ASC']],
-  });
-  return pests.map(present);
+  return (await pests.listPestsOfOrganisation(actor.organisationId, options.includeInactive ?? false)).map(present);
 }
 
 export async function findPest(actor: Actor, id: string) {
-  const pest = await Pest.findOne({ where: { id, organisationId: actor.organisationId } });
+  const pest = await pests.findPestInOrganisation(actor.organisationId, id);
   if (!pest) throw notFound('That pest');
   return pest;
 }
 
 export async function createPest(actor: Actor, input: PestInput) {
   return sequelize.transaction(async (transaction) => {
-    const pest = await Pest.create({ ...input, organisationId: actor.organisationId }, { transaction });
+    const pest = await pests.insertPest({ ...input, organisationId: actor.organisationId }, { transaction });
     await recordAudit(actor, 'create', 'pest', pest.id, input, transaction);
     return present(pest);
   });
@@ -43,8 +39,8 @@ export async function updatePest(actor: Actor, id: string, input: Partial<PestIn
   const pest = await findPest(actor, id);
   return sequelize.transaction(async (transaction) => {
     const before = present(pest);
-    await pest.update(input, { transaction });
+    const updated = await pests.updatePest(id, input, { transaction });
     await recordAudit(actor, 'update', 'pest', id, { before, after: input }, transaction);
-    return present(pest);
+    return present(updated);
   });
 }

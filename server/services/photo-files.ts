@@ -1,6 +1,5 @@
 // Which stored file a person may fetch: only photos of sightings on fields they may see.
-import { QueryTypes } from 'sequelize';
-import { sequelize } from '../db.ts';
+import { findPhotoFileOfSightings } from '../queries/photos.ts';
 import type { Actor } from '../auth/passport.ts';
 import { AppError, notFound } from '../errors.ts';
 import { visibleFieldIds } from './scope.ts';
@@ -11,15 +10,7 @@ export type PhotoVariant = 'original' | 'thumbnail';
 export async function photoFileFor(actor: Actor, photoId: string, variant: PhotoVariant) {
   const ids = await visibleFieldIds(actor);
   const seesDeleted = actor.role === 'admin' || actor.role === 'adviser';
-  const [photo] = await sequelize.query<{ storageKey: string; mimeType: string; thumbnailKey: string | null; thumbnailStatus: string }>(
-    `SELECT ph.storage_key AS "storageKey", ph.mime_type AS "mimeType", ph.thumbnail_key AS "thumbnailKey", ph.thumbnail_status AS "thumbnailStatus"
-       FROM photos ph
-      WHERE ph.id = :photoId AND ph.organisation_id = :org
-        AND EXISTS (SELECT 1 FROM sightings s WHERE s.photo_id = ph.id
-                      ${ids ? (ids.length ? 'AND s.field_id IN (:ids)' : 'AND false') : ''}
-                      ${seesDeleted ? '' : 'AND s.deleted_at IS NULL'})`,
-    { replacements: { photoId, org: actor.organisationId, ids }, type: QueryTypes.SELECT },
-  );
+  const photo = await findPhotoFileOfSightings(actor.organisationId, photoId, ids, seesDeleted);
   if (!photo) throw notFound('That photo');
   if (variant === 'original') return { path: storedPath(photo.storageKey), mimeType: photo.mimeType };
   if (photo.thumbnailStatus !== 'ready' || !photo.thumbnailKey) {

@@ -1,8 +1,10 @@
 // What a file really is, decided from its bytes (file-type), and whether it arrived whole.
 import { fileTypeFromBuffer } from 'file-type';
 import { imageSize } from 'image-size';
-import { acceptedPhotoTypes, type PhotoMimeType } from '../models/photo.ts';
 import { photoLimits } from './photo-limits.ts';
+
+export const acceptedPhotoTypes = ['image/jpeg', 'image/png', 'image/webp', 'image/heic', 'image/heif'] as const;
+export type PhotoMimeType = (typeof acceptedPhotoTypes)[number];
 
 export const extensionFor: Record<PhotoMimeType, string> = {
   'image/jpeg': 'jpg',

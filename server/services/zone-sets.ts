@@ -14,7 +14,7 @@ import { runInAnalysisThread } from './analysis-pool.ts';
 import { BoundaryError } from '../../shared/boundary/boundary-faults.ts';
 import { toAcres, toHectares } from '../../shared/units/area.ts';
 import type { ZoneSetCreateRequest, ZoneSetView, ZoneView } from '../../shared/schemas/zones.ts';
-import { liveSighting } from './live-sightings.ts';
+import { liveSighting } from '../queries/sightings.ts';
 import { findCheck } from './zone-proposals.ts';
 
 const asMultiPolygon = (geometry: Polygon | MultiPolygon): MultiPolygon => ({

@@ -5,7 +5,7 @@ import { QueryTypes } from 'sequelize';
 import { sequelize } from '../../db.ts';
 import { conflict } from '../../errors.ts';
 import type { ZoneSetView } from '../../../shared/schemas/zones.ts';
-import { liveSighting } from '../live-sightings.ts';
+import { liveSighting } from '../../queries/sightings.ts';
 
 export interface ZoneFileZone {
   number: number;

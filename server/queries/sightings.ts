@@ -1,0 +1,240 @@
+import type { Transaction } from 'sequelize';
+import type { SightingListQuery, SightingView } from '../../shared/schemas/sightings.ts';
+import type { ThresholdBasis } from '../../shared/schemas/pests.ts';
+import { execute, selectRow, selectRows, type InTransaction } from './sql.ts';
+
+// The one statement of what a live sighting is: not deleted and placed on the map (a photo still waiting for its pin
+// has no position). Every query that reads sightings for checks, zones, notices or lists of found pests uses it.
+export const liveSighting = (alias: string) => `${alias}.deleted_at IS NULL AND ${alias}.status = 'placed'`;
+
+const sightingSelect = `
+  SELECT s.id, s.field_id AS "fieldId", s.walk_id AS "walkId", to_char(w.walked_on, 'YYYY-MM-DD') AS "walkedOn",
+         s.pest_id AS "pestId", p.name AS "pestName", s.count,
+         ST_X(s.position) AS lon, ST_Y(s.position) AS lat,
+         s.position_source AS "positionSource", s.accuracy_m AS "accuracyM", s.altitude_m AS "altitudeM",
+         s.direction_deg AS "directionDeg", s.observed_at AS "observedAt", s.time_flag AS "timeFlag", s.status,
+         s.photo_id AS "photoId", ph.thumbnail_status AS "thumbnailStatus", s.created_by AS "scoutId", u.name AS "scoutName",
+         (s.photo_id IS NULL AND s.count = 0) AS "isEmptyStop", s.created_at AS "createdAt", s.deleted_at AS "deletedAt"
+    FROM sightings s
+    JOIN walks w ON w.id = s.walk_id
+    JOIN pests p ON p.id = s.pest_id
+    JOIN users u ON u.id = s.created_by
+    LEFT JOIN photos ph ON ph.id = s.photo_id`;
+
+export type SightingRow = Omit<SightingView, 'position' | 'observedAt' | 'createdAt'> & {
+  lon: number | null;
+  lat: number | null;
+  observedAt: Date | null;
+  createdAt: Date;
+  deletedAt: Date | null;
+};
+
+async function querySightings(where: string[], replacements: Record<string, unknown>, transaction?: Transaction) {
+  return selectRows<SightingRow>(`${sightingSelect} WHERE ${where.join(' AND ')} ORDER BY w.walked_on, s.observed_at NULLS LAST, s.created_at`, replacements, {
+    transaction,
+  });
+}
+
+/** The organisation's sightings not deleted (placed or waiting for a pin) matching the query; only on the fields in `ids` when given. */
+export function listSightingsOfOrganisation(organisationId: string, ids: string[] | null, query: SightingListQuery) {
+  const where = ['s.organisation_id = :org', 's.deleted_at IS NULL'];
+  if (ids) where.push(ids.length ? 's.field_id IN (:ids)' : 'false');
+  if (query.fieldId) where.push('s.field_id = :fieldId');
+  if (query.walkId) where.push('s.walk_id = :walkId');
+  if (query.pestId) where.push('s.pest_id = :pestId');
+  if (query.scoutId) where.push('s.created_by = :scoutId');
+  if (query.from) where.push('w.walked_on >= CAST(:from AS date)');
+  if (query.to) where.push('w.walked_on <= CAST(:to AS date)');
+  if (query.status) where.push('s.status = :status');
+  return querySightings(where, { org: organisationId, ids, ...query });
+}
+
+/** One of the organisation's sightings, deleted or not as asked. */
+export const findSightingInOrganisation = async (organisationId: string, id: string, options: { deleted?: boolean; transaction?: Transaction } = {}) =>
+  (
+    await querySightings(
+      ['s.id = :id', 's.organisation_id = :org', options.deleted ? 's.deleted_at IS NOT NULL' : 's.deleted_at IS NULL'],
+      { id, org: organisationId },
+      options.transaction,
+    )
+  )[0] as SightingRow | undefined;
+
+export interface SightingCorrection {
+  pestId?: string;
+  count?: number | null;
+  position?: { lon: number; lat: number };
+}
+
+/** A correction: a new position is a pin, so the sighting is placed. */
+export const correctSighting = (id: string, input: SightingCorrection, options: InTransaction = {}) =>
+  execute(
+    `UPDATE sightings SET
+         pest_id = COALESCE(:pestId, pest_id),
+         count = CASE WHEN :setCount THEN CAST(:count AS double precision) ELSE count END,
+         position = CASE WHEN :setPosition THEN ST_SetSRID(ST_MakePoint(:lon, :lat), 4326) ELSE position END,
+         position_source = CASE WHEN :setPosition THEN 'pin' ELSE position_source END,
+         accuracy_m = CASE WHEN :setPosition THEN NULL ELSE accuracy_m END,
+         status = CASE WHEN :setPosition THEN 'placed' ELSE status END,
+         updated_at = now()
+       WHERE id = :id`,
+    {
+      id,
+      pestId: input.pestId ?? null,
+      setCount: input.count !== undefined,
+      count: input.count ?? null,
+      setPosition: input.position !== undefined,
+      lon: input.position?.lon ?? 0,
+      lat: input.position?.lat ?? 0,
+    },
+    options,
+  );
+
+export const markSightingDeleted = (id: string, options: InTransaction = {}) =>
+  execute('UPDATE sightings SET deleted_at = now(), updated_at = now() WHERE id = :id', { id }, options);
+
+export const markSightingRestored = (id: string, options: InTransaction = {}) =>
+  execute('UPDATE sightings SET deleted_at = NULL, updated_at = now() WHERE id = :id', { id }, options);
+
+export interface NewEmptyStop {
+  organisationId: string;
+  fieldId: string;
+  walkId: string;
+  pestId: string;
+  lon: number;
+  lat: number;
+  accuracyM: number | null | undefined;
+  userId: string;
+}
+
+/** An empty stop: count 0 at the phone's position, placed at once. */
+export const insertEmptyStop = async (stop: NewEmptyStop, options: InTransaction = {}) =>
+  (await selectRow<{ id: string }>(
+    `INSERT INTO sightings (organisation_id, field_id, walk_id, pest_id, count, position, position_source, accuracy_m, observed_at, status, created_by)
+       VALUES (:org, :fieldId, :walkId, :pestId, 0, ST_SetSRID(ST_MakePoint(:lon, :lat), 4326), 'device', :accuracyM, now(), 'placed', :userId)
+       RETURNING id`,
+    {
+      org: stop.organisationId,
+      fieldId: stop.fieldId,
+      walkId: stop.walkId,
+      pestId: stop.pestId,
+      lon: stop.lon,
+      lat: stop.lat,
+      accuracyM: stop.accuracyM,
+      userId: stop.userId,
+    },
+    options,
+  ))!.id;
+
+/** The field's sighting (not deleted) made from the photo with this hash. */
+export const findSightingOfPhotoHash = (fieldId: string, sha256: string) =>
+  selectRow<{ id: string; walkId: string; photoId: string }>(
+    'SELECT id, walk_id AS "walkId", photo_id AS "photoId" FROM sightings WHERE field_id = :fieldId AND photo_sha256 = :sha256 AND deleted_at IS NULL',
+    { fieldId, sha256 },
+  );
+
+export interface NewPhotoSighting {
+  org: string;
+  fieldId: string;
+  walkId: string;
+  pestId: string;
+  photoId: string;
+  sha256: string;
+  count: number | null;
+  hasPosition: boolean;
+  lon: number;
+  lat: number;
+  positionSource: 'exif' | 'pin';
+  accuracyM: number | null;
+  altitudeM: number | null;
+  directionDeg: number | null;
+  observedAt: Date | string | null;
+  timeFlag: string | null;
+  status: 'placed' | 'needs-pin';
+  userId: string;
+}
+
+export const insertPhotoSighting = async (sighting: NewPhotoSighting, options: InTransaction = {}) =>
+  (await selectRow<{ id: string }>(
+    `INSERT INTO sightings (organisation_id, field_id, walk_id, pest_id, photo_id, photo_sha256, count, position, position_source,
+                                accuracy_m, altitude_m, direction_deg, observed_at, time_flag, status, created_by)
+         VALUES (:org, :fieldId, :walkId, :pestId, :photoId, :sha256, :count,
+                 CASE WHEN :hasPosition THEN ST_SetSRID(ST_MakePoint(:lon, :lat), 4326) END, :positionSource,
+                 :accuracyM, :altitudeM, :directionDeg, :observedAt, :timeFlag, :status, :userId)
+         RETURNING id`,
+    { ...sighting },
+    options,
+  ))!.id;
+
+/** Removes the sightings deleted before the cutoff; the photo ids they held. */
+export const purgeSightingsDeletedBefore = async (cutoff: Date, options: InTransaction = {}) =>
+  selectRows<{ photoId: string | null }>('DELETE FROM sightings WHERE deleted_at < :cutoff RETURNING photo_id AS "photoId"', { cutoff }, options);
+
+export interface StoredSighting {
+  id: string;
+  lon: number;
+  lat: number;
+  count: number | null;
+  walkId?: string | null;
+  accuracyM?: number | null;
+  /** UTC, microseconds, so an edit always changes the hash. */
+  updatedAt: string;
+}
+
+export interface SightingWindow {
+  fieldId: string;
+  pestId: string;
+  from?: string | null;
+  to?: string | null;
+}
+
+const sightingColumns = `s.id, ST_X(s.position) AS lon, ST_Y(s.position) AS lat, s.count, s.walk_id AS "walkId", s.accuracy_m AS "accuracyM",
+  to_char(s.updated_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"') AS "updatedAt"`;
+
+/** The live sightings of a pest in a field whose walk falls in the window, empty stops included, by id. */
+export const liveSightingsInWindow = (window: SightingWindow) =>
+  selectRows<StoredSighting>(
+    `SELECT ${sightingColumns}
+       FROM sightings s JOIN walks w ON w.id = s.walk_id
+      WHERE s.field_id = :fieldId AND s.pest_id = :pestId AND ${liveSighting('s')}
+        AND (CAST(:from AS date) IS NULL OR w.walked_on >= CAST(:from AS date))
+        AND (CAST(:to AS date) IS NULL OR w.walked_on <= CAST(:to AS date))
+      ORDER BY s.id`,
+    { fieldId: window.fieldId, pestId: window.pestId, from: window.from ?? null, to: window.to ?? null },
+  );
+
+/** The live ones of these sightings, by id. */
+export const liveSightingsByIds = (ids: string[]) =>
+  ids.length === 0
+    ? Promise.resolve([] as StoredSighting[])
+    : selectRows<StoredSighting>(
+        `SELECT ${sightingColumns} FROM sightings s
+      WHERE s.id = ANY(CAST(:ids AS uuid[])) AND ${liveSighting('s')} ORDER BY s.id`,
+        { ids: `{${ids.join(',')}}` },
+      );
+
+export interface StopRow {
+  walkId: string;
+  walkedOn: string;
+  pestId: string;
+  pestName: string;
+  countUnit: string;
+  actionThreshold: number;
+  thresholdBasis: ThresholdBasis;
+  thresholdSource: string;
+  counts: Array<number | null>;
+}
+
+/** Live stops per walk and pest for a field (empty stops are count 0), newest walk first. */
+export const liveStopsByWalkAndPest = (fieldId: string, filter: { pestId?: string; walkId?: string } = {}) =>
+  selectRows<StopRow>(
+    `SELECT w.id AS "walkId", to_char(w.walked_on, 'YYYY-MM-DD') AS "walkedOn", p.id AS "pestId", p.name AS "pestName",
+            p.count_unit AS "countUnit", p.action_threshold AS "actionThreshold", p.threshold_basis AS "thresholdBasis",
+            p.threshold_source AS "thresholdSource", array_agg(s.count ORDER BY s.id) AS counts
+       FROM sightings s JOIN walks w ON w.id = s.walk_id JOIN pests p ON p.id = s.pest_id
+      WHERE s.field_id = :fieldId AND ${liveSighting('s')}
+        AND (CAST(:pestId AS uuid) IS NULL OR s.pest_id = CAST(:pestId AS uuid))
+        AND (CAST(:walkId AS uuid) IS NULL OR s.walk_id = CAST(:walkId AS uuid))
+      GROUP BY w.id, w.walked_on, p.id
+      ORDER BY w.walked_on DESC, w.id, p.name`,
+    { fieldId, pestId: filter.pestId ?? null, walkId: filter.walkId ?? null },
+  );

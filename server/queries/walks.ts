@@ -1,0 +1,110 @@
+import type { WalkView } from '../../shared/schemas/walks.ts';
+import { execute, selectRow, selectRows, type InTransaction } from './sql.ts';
+import { liveSighting } from './sightings.ts';
+
+const walkSelect = `
+  SELECT w.id, w.field_id AS "fieldId", f.name AS "fieldName", w.scout_id AS "scoutId", u.name AS "scoutName",
+         to_char(w.walked_on, 'YYYY-MM-DD') AS "walkedOn", w.notes,
+         count(s.id) FILTER (WHERE NOT (s.photo_id IS NULL AND s.count = 0))::int AS "sightingCount",
+         count(s.id) FILTER (WHERE s.photo_id IS NULL AND s.count = 0)::int AS "stopCount",
+         w.created_at AS "createdAt"
+    FROM walks w
+    JOIN fields f ON f.id = w.field_id
+    JOIN users u ON u.id = w.scout_id
+    LEFT JOIN sightings s ON s.walk_id = w.id AND s.deleted_at IS NULL`;
+
+async function queryWalks(where: string, replacements: Record<string, unknown>, options: InTransaction = {}): Promise<WalkView[]> {
+  const rows = await selectRows<WalkView & { createdAt: Date }>(
+    `${walkSelect} WHERE ${where} GROUP BY w.id, f.name, u.name ORDER BY w.walked_on DESC, w.created_at DESC`,
+    replacements,
+    options,
+  );
+  return rows.map((r) => ({ ...r, createdAt: new Date(r.createdAt).toISOString() }));
+}
+
+/** The organisation's walks, newest first: only on the fields in `ids` when given, only on one field when `fieldId` is. */
+export function listWalksOfOrganisation(organisationId: string, ids: string[] | null, fieldId?: string) {
+  const conditions = ['w.organisation_id = :org'];
+  if (ids) conditions.push(ids.length ? 'w.field_id IN (:ids)' : 'false');
+  if (fieldId) conditions.push('w.field_id = :fieldId');
+  return queryWalks(conditions.join(' AND '), { org: organisationId, ids, fieldId });
+}
+
+export const findWalkInOrganisation = async (organisationId: string, id: string, options: InTransaction = {}) =>
+  (await queryWalks('w.id = :id AND w.organisation_id = :org', { id, org: organisationId }, options))[0] as WalkView | undefined;
+
+export interface WalkRef {
+  id: string;
+  fieldId: string;
+  fieldName: string;
+  scoutId: string;
+  walkedOn: string;
+}
+
+export const findWalkRef = (organisationId: string, walkId: string, options: InTransaction = {}) =>
+  selectRow<WalkRef>(
+    `SELECT w.id, w.field_id AS "fieldId", f.name AS "fieldName", w.scout_id AS "scoutId", to_char(w.walked_on, 'YYYY-MM-DD') AS "walkedOn"
+       FROM walks w JOIN fields f ON f.id = w.field_id WHERE w.id = :walkId AND w.organisation_id = :org`,
+    { walkId, org: organisationId },
+    options,
+  );
+
+/** Inserts the walk unless (field, scout, day) has one; the new id, or undefined when it was there already. */
+export const insertWalkIfNew = async (walk: { organisationId: string; fieldId: string; scoutId: string; walkedOn: string }, options: InTransaction = {}) =>
+  (
+    await selectRow<{ id: string }>(
+      `INSERT INTO walks (organisation_id, field_id, scout_id, walked_on) VALUES (:org, :fieldId, :scoutId, :walkedOn)
+     ON CONFLICT (field_id, scout_id, walked_on) DO NOTHING RETURNING id`,
+      { org: walk.organisationId, fieldId: walk.fieldId, scoutId: walk.scoutId, walkedOn: walk.walkedOn },
+      options,
+    )
+  )?.id;
+
+export const findWalkIdOf = async (fieldId: string, scoutId: string, walkedOn: string, options: InTransaction = {}) =>
+  (await selectRow<{ id: string }>(
+    'SELECT id FROM walks WHERE field_id = :fieldId AND scout_id = :scoutId AND walked_on = :walkedOn',
+    { fieldId, scoutId, walkedOn },
+    options,
+  ))!.id;
+
+export const setWalkNotes = (id: string, notes: string, options: InTransaction = {}) =>
+  execute('UPDATE walks SET notes = :notes WHERE id = :id', { notes, id }, options);
+
+/** Changes the notes and the day given (null keeps each as it is). */
+export const updateWalk = (id: string, notes: string | null, walkedOn: string | null, options: InTransaction = {}) =>
+  execute(
+    `UPDATE walks SET notes = COALESCE(:notes, notes), walked_on = COALESCE(CAST(:walkedOn AS date), walked_on), updated_at = now() WHERE id = :id`,
+    { id, notes, walkedOn },
+    options,
+  );
+
+export interface WalkPestRow {
+  walkId: string;
+  walkedOn: string;
+  scoutId: string;
+  scoutName: string;
+  pestId: string | null;
+  pestName: string | null;
+  sightings: number;
+  stops: number;
+  meanCount: number | null;
+}
+
+/** A field's walks, each with its live sightings per pest (one pest only when given); a walk without any still has a row. */
+export const listWalksOfFieldByPest = (fieldId: string, pestId: string | null) =>
+  selectRows<WalkPestRow>(
+    `SELECT w.id AS "walkId", to_char(w.walked_on, 'YYYY-MM-DD') AS "walkedOn", u.id AS "scoutId", u.name AS "scoutName",
+            p.id AS "pestId", p.name AS "pestName",
+            count(s.id) FILTER (WHERE s.count IS NULL OR s.count > 0) AS sightings,
+            count(s.id) AS stops,
+            avg(s.count) AS "meanCount"
+       FROM walks w
+       JOIN users u ON u.id = w.scout_id
+       LEFT JOIN sightings s ON s.walk_id = w.id AND ${liveSighting('s')}
+                             AND (CAST(:pestId AS uuid) IS NULL OR s.pest_id = CAST(:pestId AS uuid))
+       LEFT JOIN pests p ON p.id = s.pest_id
+      WHERE w.field_id = :fieldId
+      GROUP BY w.id, w.walked_on, u.id, p.id
+      ORDER BY w.walked_on, w.id, p.name`,
+    { fieldId, pestId },
+  );
