@@ -1,19 +1,13 @@
 // A finished check's density grid, stored apart from its figures (check-figures.ts) and fetched on its own.
-import { QueryTypes } from 'sequelize';
-import { sequelize } from '../db.ts';
+import { findDensityGrid } from '../queries/pattern-check-density-grids.ts';
+import { findCheckDensityState } from '../queries/pattern-checks.ts';
 import type { Actor } from '../auth/passport.ts';
 import { AppError, conflict, notFound } from '../errors.ts';
 import { densityValues } from './check-figures.ts';
 
 /** The grid's bytes: 64-bit little-endian sightings per ha, row-major from the south, NaN outside the field. */
 async function gridBytes(checkId: string): Promise<Buffer | null> {
-  const [row] = await sequelize.query<{ bytes: Buffer | null; legacy: string | null }>(
-    `SELECT g.values_f64le AS bytes,
-            CASE WHEN g.check_id IS NULL THEN (c.result->'density'->'perHa')::text END AS legacy
-       FROM pattern_checks c LEFT JOIN pattern_check_density_grids g ON g.check_id = c.id
-      WHERE c.id = :checkId`,
-    { replacements: { checkId }, type: QueryTypes.SELECT },
-  );
+  const row = await findDensityGrid(checkId);
   if (row?.bytes) return row.bytes;
   if (!row?.legacy) return null;
   // Checks stored before the grid had a table of its own keep it inside their figures.
@@ -24,11 +18,7 @@ async function gridBytes(checkId: string): Promise<Buffer | null> {
 
 /** The density grid of one of the actor's organisation's finished checks. */
 export async function checkDensityGrid(actor: Actor, checkId: string): Promise<Buffer> {
-  const [check] = await sequelize.query<{ status: string; hasDensity: boolean }>(
-    `SELECT status, (result->'density') IS NOT NULL AND jsonb_typeof(result->'density') = 'object' AS "hasDensity"
-       FROM pattern_checks WHERE id = :checkId AND organisation_id = :org`,
-    { replacements: { checkId, org: actor.organisationId }, type: QueryTypes.SELECT },
-  );
+  const check = await findCheckDensityState(actor.organisationId, checkId);
   if (!check) throw notFound('That pattern check');
   if (check.status !== 'done') throw conflict('This check has not finished yet; its density surface comes with its result.');
   const bytes = check.hasDensity ? await gridBytes(checkId) : null;

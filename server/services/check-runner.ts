@@ -1,11 +1,11 @@
 // Builds the engine's inputs from the database and runs one stored pattern check through the engine.
 // Every figure comes from shared/analysis; this module only reads, hashes and stores.
 import crypto from 'node:crypto';
-import { QueryTypes } from 'sequelize';
 import type { Feature, FeatureCollection, MultiPolygon, Point } from 'geojson';
 import { sequelize } from '../db.ts';
-import { Field } from '../models/field.ts';
-import { PatternCheck } from '../models/pattern-check.ts';
+import { findFieldBoundary } from '../queries/fields.ts';
+import { findCheck, markCheckFailed, markCheckRunning, setRunningCheckProgress, storeCheckResult } from '../queries/pattern-checks.ts';
+import { deleteDensityGrid, upsertDensityGrid } from '../queries/pattern-check-density-grids.ts';
 import { planSimulations } from '../../shared/analysis/analyse.ts';
 import { AnalysisInputError } from '../../shared/analysis/errors.ts';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
@@ -70,7 +70,7 @@ export function sightingsCollection(sightings: StoredSighting[]): FeatureCollect
 }
 
 export async function fieldBoundary(fieldId: string): Promise<MultiPolygon> {
-  const field = await Field.findByPk(fieldId, { attributes: ['id', 'boundary'] });
+  const field = await findFieldBoundary(fieldId);
   if (!field) throw new Error(`Field ${fieldId} no longer exists.`);
   return { type: 'MultiPolygon', coordinates: field.boundary.coordinates };
 }
@@ -123,7 +123,7 @@ function progressWriter(checkId: string) {
   return async (share: number) => {
     if (share - last < 0.05 && share < 1) return;
     last = share;
-    await PatternCheck.update({ progress: Math.min(0.99, Math.max(0, share)) }, { where: { id: checkId, status: 'running' } });
+    await setRunningCheckProgress(checkId, Math.min(0.99, Math.max(0, share)));
   };
 }
 
@@ -132,32 +132,12 @@ async function storeResult(checkId: string, split: SplitResult) {
   await sequelize.transaction(async (transaction) => {
     if (split.densityGrid) {
       const bytes = Buffer.from(split.densityGrid.buffer, split.densityGrid.byteOffset, split.densityGrid.byteLength);
-      await sequelize.query(
-        `INSERT INTO pattern_check_density_grids (check_id, cells, values_f64le) VALUES (:checkId, :cells, :bytes)
-         ON CONFLICT (check_id) DO UPDATE SET cells = EXCLUDED.cells, values_f64le = EXCLUDED.values_f64le`,
-        { replacements: { checkId, cells: split.densityGrid.length, bytes }, transaction },
-      );
+      await upsertDensityGrid(checkId, split.densityGrid.length, bytes, { transaction });
     } else {
-      await sequelize.query('DELETE FROM pattern_check_density_grids WHERE check_id = :checkId', { replacements: { checkId }, transaction });
+      await deleteDensityGrid(checkId, { transaction });
     }
     const { design } = split;
-    await sequelize.query(
-      `UPDATE pattern_checks SET status = 'done', progress = 1, result = CAST(:figures AS jsonb), error = NULL, finished_at = now(), updated_at = now(),
-              design = :design, stop_merges = CAST(:stopMerges AS jsonb), not_scouted_m2 = :notScoutedM2,
-              not_scouted = CASE WHEN CAST(:notScouted AS text) IS NULL THEN NULL ELSE ST_Multi(ST_SetSRID(ST_GeomFromGeoJSON(CAST(:notScouted AS text)), 4326)) END
-        WHERE id = :checkId`,
-      {
-        replacements: {
-          checkId,
-          figures: split.figuresJson,
-          design: design.design,
-          stopMerges: JSON.stringify(design.stopMerges ?? []),
-          notScoutedM2: design.notScoutedM2,
-          notScouted: design.notScouted,
-        },
-        transaction,
-      },
-    );
+    await storeCheckResult(checkId, split.figuresJson, design, { transaction });
   });
 }
 
@@ -166,9 +146,9 @@ async function storeResult(checkId: string, split: SplitResult) {
  * alone. Returns the engine's input error, if any, so a request can answer it as a 400.
  */
 export async function runStoredCheck(checkId: string): Promise<AnalysisInputError | null> {
-  const check = await PatternCheck.findByPk(checkId);
+  const check = await findCheck(checkId);
   if (!check || check.status === 'done' || check.status === 'failed') return null;
-  await check.update({ status: 'running', progress: 0 });
+  await markCheckRunning(check.id);
   try {
     const sightings = await sightingsByIds(check.sightingIds);
     // The check names an exact set of sightings; if any was edited or removed since, its hash no longer holds.
@@ -180,7 +160,7 @@ export async function runStoredCheck(checkId: string): Promise<AnalysisInputErro
     await storeResult(check.id, split);
     return null;
   } catch (error) {
-    await check.update({ status: 'failed', error: (error as Error).message || 'The check failed.', finishedAt: new Date() });
+    await markCheckFailed(check.id, (error as Error).message || 'The check failed.');
     return error instanceof AnalysisInputError ? error : null;
   }
 }

@@ -1,9 +1,7 @@
 // Pattern checks: run one (or find the identical stored one), fetch one, list a field's checks.
-import { Op, QueryTypes } from 'sequelize';
-import { sequelize } from '../db.ts';
-import { PatternCheck } from '../models/pattern-check.ts';
-import { Pest } from '../models/pest.ts';
-import { User } from '../models/user.ts';
+import * as checks from '../queries/pattern-checks.ts';
+import { findPestNames, type PestRow } from '../queries/pests.ts';
+import { findUserNames } from '../queries/users.ts';
 import type { Actor } from '../auth/passport.ts';
 import { badRequest, notFound } from '../errors.ts';
 import { findVisibleField } from './fields.ts';
@@ -22,11 +20,11 @@ import { assertCheckWithinBudget, fieldExtent, INLINE_WORK_UNITS } from './check
 const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
 
 async function peopleById(ids: string[]) {
-  const users = await User.findAll({ where: { id: { [Op.in]: [...new Set(ids)] } }, attributes: ['id', 'name'] });
+  const users = await findUserNames([...new Set(ids)]);
   return new Map(users.map((u) => [u.id, { id: u.id, name: u.name }]));
 }
 
-function presentCheck(check: PatternCheck, people: Map<string, { id: string; name: string }>, reused?: boolean): CheckView {
+function presentCheck(check: checks.PatternCheckRow, people: Map<string, { id: string; name: string }>, reused?: boolean): CheckView {
   return {
     id: check.id,
     fieldId: check.fieldId,
@@ -52,7 +50,7 @@ function presentCheck(check: PatternCheck, people: Map<string, { id: string; nam
   };
 }
 
-const present = async (check: PatternCheck, reused?: boolean) => presentCheck(check, await peopleById([check.createdBy]), reused);
+const present = async (check: checks.PatternCheckRow, reused?: boolean) => presentCheck(check, await peopleById([check.createdBy]), reused);
 
 /** The planar option is for files already in metres; sightings in the database are always longitude/latitude. */
 function assertGeographic(options: AnalysisOptions) {
@@ -64,7 +62,7 @@ function assertGeographic(options: AnalysisOptions) {
 
 /** A queued or running check untouched this long lost its worker (a process stopped mid-run); run it again. */
 const STALE_AFTER_MS = 30 * 60 * 1000;
-const isStale = (check: PatternCheck) =>
+const isStale = (check: checks.PatternCheckRow) =>
   (check.status === 'queued' || check.status === 'running') && Date.now() - new Date(check.updatedAt).getTime() > STALE_AFTER_MS;
 
 export interface CheckOutcome {
@@ -79,7 +77,7 @@ export interface CheckOutcome {
  * Zones follow the pest's own action threshold (a mean count per stop, in its unit) unless the adviser set one; a
  * threshold on the share of plants infested has no mean count to hold, so those zones follow relative risk.
  */
-export function withPestThreshold(options: AnalysisOptions, pest: Pick<Pest, 'actionThreshold' | 'thresholdBasis' | 'countUnit'>): AnalysisOptions {
+export function withPestThreshold(options: AnalysisOptions, pest: Pick<PestRow, 'actionThreshold' | 'thresholdBasis' | 'countUnit'>): AnalysisOptions {
   if (pest.thresholdBasis !== 'mean' || !(pest.actionThreshold > 0) || options.zones.actionThreshold !== undefined) return options;
   const unit = options.zones.unit ?? (pest.countUnit.trim() ? pest.countUnit.trim().slice(0, 80) : undefined);
   return { ...options, zones: { ...options.zones, actionThreshold: pest.actionThreshold, ...(unit ? { unit } : {}) } };
@@ -103,33 +101,24 @@ export async function requestCheck(actor: Actor, asked: CheckRequest): Promise<C
     engineVersion: ENGINE_VERSION,
   };
 
-  const stored = await PatternCheck.findOne({ where: key });
+  const stored = await checks.findCheckWithInputs(key);
   if (stored && stored.status !== 'failed' && !isStale(stored)) return { json: await checkAnswerJson(actor, stored.id, true), happened: 'stored' };
 
-  let check: PatternCheck;
+  let check: checks.PatternCheckRow;
   if (stored) {
     // A failed (or abandoned) check is tried again under the same id rather than answering with the old failure.
-    check = await stored.update({ status: 'queued', progress: 0, error: null, finishedAt: null, createdBy: actor.id });
+    check = await checks.requeueCheck(stored.id, actor.id);
   } else {
-    const [inserted] = await sequelize.query<{ id: string }>(
-      `INSERT INTO pattern_checks (organisation_id, field_id, pest_id, window_from, window_to, options, options_hash, sighting_ids, sightings_hash, engine_version, created_by)
-       VALUES (:org, :fieldId, :pestId, :windowFrom, :windowTo, CAST(:options AS jsonb), :optionsHash, CAST(:sightingIds AS uuid[]), :sightingsHash, :engineVersion, :createdBy)
-       ON CONFLICT DO NOTHING RETURNING id`,
-      {
-        replacements: {
-          ...key,
-          org: actor.organisationId,
-          options: JSON.stringify(request.options),
-          sightingIds: `{${sightings.map((s) => s.id).join(',')}}`,
-          createdBy: actor.id,
-        },
-        type: QueryTypes.SELECT,
-      },
-    );
+    const inserted = await checks.insertCheck({
+      ...key,
+      organisationId: actor.organisationId,
+      options: request.options as unknown as Record<string, unknown>,
+      sightingIds: sightings.map((s) => s.id),
+      createdBy: actor.id,
+    });
     // Two identical requests at once: the second finds the first's row.
-    if (!inserted)
-      return { json: await checkAnswerJson(actor, (await PatternCheck.findOne({ where: key, attributes: ['id'] }))!.id, true), happened: 'stored' };
-    check = (await PatternCheck.findByPk(inserted.id))!;
+    if (!inserted) return { json: await checkAnswerJson(actor, (await checks.findCheckWithInputs(key))!.id, true), happened: 'stored' };
+    check = (await checks.findCheck(inserted))!;
     await recordAudit(actor, 'run', 'pattern-check', check.id, { fieldId: key.fieldId, pestId: key.pestId, sightings: sightings.length });
   }
 
@@ -137,7 +126,7 @@ export async function requestCheck(actor: Actor, asked: CheckRequest): Promise<C
     const inputError = await runStoredCheck(check.id);
     if (inputError) {
       // Input the engine cannot analyse (e.g. a zero area basis) is the adviser's to fix: answer it, keep no row.
-      await PatternCheck.destroy({ where: { id: check.id } });
+      await checks.deleteCheck(check.id);
       throw badRequest(inputError.message);
     }
     return { json: await checkAnswerJson(actor, check.id, false), happened: 'computed' };
@@ -148,24 +137,19 @@ export async function requestCheck(actor: Actor, asked: CheckRequest): Promise<C
 
 /** One check of the actor's organisation (another organisation's id simply is not found). */
 export async function getCheck(actor: Actor, id: string): Promise<CheckView> {
-  const check = await PatternCheck.findOne({ where: { id, organisationId: actor.organisationId } });
+  const check = await checks.findCheckInOrganisation(actor.organisationId, id);
   if (!check) throw notFound('That pattern check');
   return present(check);
 }
 
 /** The stored figures as text: spliced into the answer as they are, never parsed and re-serialised on this thread. */
 async function storedFiguresText(id: string): Promise<string | null> {
-  const [row] = await sequelize.query<{ figures: string | null }>('SELECT result::text AS figures FROM pattern_checks WHERE id = :id', {
-    replacements: { id },
-    type: QueryTypes.SELECT,
-  });
-  return row?.figures ?? null;
+  return checks.findCheckFiguresText(id);
 }
 
 /** `{ check }` as JSON, its result the stored text itself. */
 async function checkAnswerJson(actor: Actor, id: string, reused?: boolean): Promise<string> {
-  const attributes = Object.keys(PatternCheck.getAttributes()).filter((name) => name !== 'result');
-  const check = await PatternCheck.findOne({ where: { id, organisationId: actor.organisationId }, attributes });
+  const check = await checks.findCheckInOrganisationButResult(actor.organisationId, id);
   if (!check) throw notFound('That pattern check');
   const { result: _omitted, ...view } = await present(check, reused);
   const figures = await storedFiguresText(id);
@@ -177,12 +161,7 @@ async function checkAnswerJson(actor: Actor, id: string, reused?: boolean): Prom
  * keyed by what could change them; a cheap scoped look-up still runs first, so a deleted check is gone at once.
  */
 export async function getCheckAnswer(actor: Actor, id: string): Promise<SerialisedAnswer> {
-  const [stored] = await sequelize.query<{ status: string; version: string }>(
-    `SELECT c.status, concat_ws('|', c.updated_at::text, c.finished_at::text, u.name) AS version
-       FROM pattern_checks c LEFT JOIN users u ON u.id = c.created_by
-      WHERE c.id = :id AND c.organisation_id = :org`,
-    { replacements: { id, org: actor.organisationId }, type: QueryTypes.SELECT },
-  );
+  const stored = await checks.findCheckAnswerVersion(actor.organisationId, id);
   if (!stored) throw notFound('That pattern check');
   const build = () => checkAnswerJson(actor, id);
   return stored.status === 'done' ? cachedAnswer(id, stored.version, build) : serialise(await build());
@@ -190,11 +169,11 @@ export async function getCheckAnswer(actor: Actor, id: string): Promise<Serialis
 
 type SpreadOf = { spread?: { verdict?: SpreadVerdict }; n?: number };
 
-export async function summarise(checks: PatternCheck[]): Promise<CheckSummary[]> {
-  const people = await peopleById(checks.map((c) => c.createdBy));
-  const pests = await Pest.findAll({ where: { id: { [Op.in]: [...new Set(checks.map((c) => c.pestId))] } }, attributes: ['id', 'name'] });
+export async function summarise(rows: checks.PatternCheckRow[]): Promise<CheckSummary[]> {
+  const people = await peopleById(rows.map((c) => c.createdBy));
+  const pests = await findPestNames([...new Set(rows.map((c) => c.pestId))]);
   const pestNames = new Map(pests.map((p) => [p.id, p.name]));
-  return checks.map((check) => {
+  return rows.map((check) => {
     const result = check.result as SpreadOf | null;
     return {
       id: check.id,
@@ -215,31 +194,9 @@ export async function summarise(checks: PatternCheck[]): Promise<CheckSummary[]>
   });
 }
 
-// Summaries leave the (large) result out of the query: only the verdict and n are read from it.
-const summaryAttributes = [
-  'id',
-  'fieldId',
-  'pestId',
-  'windowFrom',
-  'windowTo',
-  'status',
-  'progress',
-  'engineVersion',
-  'createdBy',
-  'createdAt',
-  'finishedAt',
-] as const;
-
 export async function fieldCheckSummaries(fieldId: string, pestId?: string): Promise<CheckSummary[]> {
-  const checks = await PatternCheck.findAll({
-    where: { fieldId, ...(pestId ? { pestId } : {}) },
-    attributes: [
-      ...summaryAttributes,
-      [sequelize.literal(`jsonb_build_object('n', result->'n', 'spread', jsonb_build_object('verdict', result->'spread'->'verdict'))`), 'result'],
-    ],
-    order: [['createdAt', 'DESC']],
-  });
-  return summarise(checks);
+  // Summaries leave the (large) result out of the query: only the verdict and n are read from it.
+  return summarise(await checks.listCheckSummariesOfField(fieldId, pestId));
 }
 
 export async function listFieldChecks(actor: Actor, fieldId: string, pestId?: string): Promise<CheckSummary[]> {

@@ -1,0 +1,202 @@
+import type { CheckStatus } from '../../shared/schemas/checks.ts';
+import type { ThresholdBasis } from '../../shared/schemas/pests.ts';
+import { execute, selectRow, selectRows, type InTransaction } from './sql.ts';
+
+/** One pattern check: field × pest × date window, with the exact inputs that reproduce it. */
+export interface PatternCheckRow {
+  id: string;
+  organisationId: string;
+  fieldId: string;
+  pestId: string;
+  /** YYYY-MM-DD, or null for an open window. */
+  windowFrom: string | null;
+  windowTo: string | null;
+  options: Record<string, unknown>;
+  optionsHash: string;
+  sightingIds: string[];
+  sightingsHash: string;
+  engineVersion: string;
+  status: CheckStatus;
+  progress: number;
+  /** Left out (undefined) where the columns read leave it out. */
+  result?: Record<string, unknown> | null;
+  error: string | null;
+  createdBy: string;
+  createdAt: Date;
+  updatedAt: Date;
+  finishedAt: Date | null;
+  /** From the finished result: the design, the same-stop merges and the not-scouted part of the field. */
+  design: 'stops' | 'whole-field' | null;
+  stopMerges: unknown[] | null;
+  notScouted: { type: 'MultiPolygon'; coordinates: number[][][][] } | null;
+  notScoutedM2: number | null;
+}
+
+const COLUMNS_BUT_RESULT = `id, organisation_id AS "organisationId", field_id AS "fieldId", pest_id AS "pestId", window_from AS "windowFrom",
+  window_to AS "windowTo", options, options_hash AS "optionsHash", sighting_ids AS "sightingIds", sightings_hash AS "sightingsHash",
+  engine_version AS "engineVersion", status, progress, error, created_by AS "createdBy", created_at AS "createdAt", updated_at AS "updatedAt",
+  finished_at AS "finishedAt", design, stop_merges AS "stopMerges", not_scouted AS "notScouted", not_scouted_m2 AS "notScoutedM2"`;
+const ALL_COLUMNS = `${COLUMNS_BUT_RESULT}, result`;
+
+export const findCheck = (id: string, options: InTransaction = {}) =>
+  selectRow<PatternCheckRow>(`SELECT ${ALL_COLUMNS} FROM pattern_checks WHERE id = :id`, { id }, options);
+
+export const findCheckInOrganisation = (organisationId: string, id: string) =>
+  selectRow<PatternCheckRow>(`SELECT ${ALL_COLUMNS} FROM pattern_checks WHERE id = :id AND organisation_id = :org`, { id, org: organisationId });
+
+/** The check without its (large) result. */
+export const findCheckInOrganisationButResult = (organisationId: string, id: string) =>
+  selectRow<PatternCheckRow>(`SELECT ${COLUMNS_BUT_RESULT} FROM pattern_checks WHERE id = :id AND organisation_id = :org`, { id, org: organisationId });
+
+export interface CheckInputs {
+  fieldId: string;
+  pestId: string;
+  windowFrom: string | null;
+  windowTo: string | null;
+  optionsHash: string;
+  sightingsHash: string;
+  engineVersion: string;
+}
+
+// An open end of the window is NULL, which `=` never matches.
+const sameInputs = (key: CheckInputs) =>
+  `field_id = :fieldId AND pest_id = :pestId AND ${key.windowFrom === null ? 'window_from IS NULL' : 'window_from = :windowFrom'}
+   AND ${key.windowTo === null ? 'window_to IS NULL' : 'window_to = :windowTo'}
+   AND options_hash = :optionsHash AND sightings_hash = :sightingsHash AND engine_version = :engineVersion`;
+
+/** The stored check with exactly these inputs, if any. */
+export const findCheckWithInputs = (key: CheckInputs) =>
+  selectRow<PatternCheckRow>(`SELECT ${ALL_COLUMNS} FROM pattern_checks WHERE ${sameInputs(key)} LIMIT 1`, { ...key });
+
+/** Stores a new queued check; undefined when an identical one got there first. */
+export const insertCheck = async (
+  check: CheckInputs & { organisationId: string; options: Record<string, unknown>; sightingIds: string[]; createdBy: string },
+) =>
+  (
+    await selectRow<{ id: string }>(
+      `INSERT INTO pattern_checks (organisation_id, field_id, pest_id, window_from, window_to, options, options_hash, sighting_ids, sightings_hash, engine_version, created_by)
+       VALUES (:org, :fieldId, :pestId, :windowFrom, :windowTo, CAST(:options AS jsonb), :optionsHash, CAST(:sightingIds AS uuid[]), :sightingsHash, :engineVersion, :createdBy)
+       ON CONFLICT DO NOTHING RETURNING id`,
+      {
+        fieldId: check.fieldId,
+        pestId: check.pestId,
+        windowFrom: check.windowFrom,
+        windowTo: check.windowTo,
+        optionsHash: check.optionsHash,
+        sightingsHash: check.sightingsHash,
+        engineVersion: check.engineVersion,
+        org: check.organisationId,
+        options: JSON.stringify(check.options),
+        sightingIds: `{${check.sightingIds.join(',')}}`,
+        createdBy: check.createdBy,
+      },
+    )
+  )?.id;
+
+/** A failed or abandoned check queued again under the same id, for this person. */
+export const requeueCheck = async (id: string, createdBy: string) =>
+  (await selectRow<PatternCheckRow>(
+    `UPDATE pattern_checks SET status = 'queued', progress = 0, error = NULL, finished_at = NULL, created_by = :createdBy, updated_at = now()
+      WHERE id = :id RETURNING ${ALL_COLUMNS}`,
+    { id, createdBy },
+  ))!;
+
+export const deleteCheck = (id: string) => execute('DELETE FROM pattern_checks WHERE id = :id', { id });
+
+export const markCheckRunning = (id: string) =>
+  execute(`UPDATE pattern_checks SET status = 'running', progress = 0, updated_at = now() WHERE id = :id`, { id });
+
+export const markCheckFailed = (id: string, error: string) =>
+  execute(`UPDATE pattern_checks SET status = 'failed', error = :error, finished_at = now(), updated_at = now() WHERE id = :id`, { id, error });
+
+/** Progress of a running check (a check no longer running keeps what it has). */
+export const setRunningCheckProgress = (id: string, progress: number) =>
+  execute(`UPDATE pattern_checks SET progress = :progress, updated_at = now() WHERE id = :id AND status = 'running'`, { id, progress });
+
+export interface CheckDesign {
+  design: string | null;
+  stopMerges: unknown[] | null | undefined;
+  notScoutedM2: number | null;
+  notScouted: string | null;
+}
+
+/** Stores the figures as the thread serialised them (JSON text) with the design facts read from them. */
+export const storeCheckResult = (checkId: string, figuresJson: string, design: CheckDesign, options: InTransaction = {}) =>
+  execute(
+    `UPDATE pattern_checks SET status = 'done', progress = 1, result = CAST(:figures AS jsonb), error = NULL, finished_at = now(), updated_at = now(),
+              design = :design, stop_merges = CAST(:stopMerges AS jsonb), not_scouted_m2 = :notScoutedM2,
+              not_scouted = CASE WHEN CAST(:notScouted AS text) IS NULL THEN NULL ELSE ST_Multi(ST_SetSRID(ST_GeomFromGeoJSON(CAST(:notScouted AS text)), 4326)) END
+        WHERE id = :checkId`,
+    {
+      checkId,
+      figures: figuresJson,
+      design: design.design,
+      stopMerges: JSON.stringify(design.stopMerges ?? []),
+      notScoutedM2: design.notScoutedM2,
+      notScouted: design.notScouted,
+    },
+    options,
+  );
+
+/** The stored figures as text, never parsed. */
+export const findCheckFiguresText = async (id: string) =>
+  (await selectRow<{ figures: string | null }>('SELECT result::text AS figures FROM pattern_checks WHERE id = :id', { id }))?.figures ?? null;
+
+/** Status and what the answer's bytes depend on (row times and the author's name). */
+export const findCheckAnswerVersion = (organisationId: string, id: string) =>
+  selectRow<{ status: string; version: string }>(
+    `SELECT c.status, concat_ws('|', c.updated_at::text, c.finished_at::text, u.name) AS version
+       FROM pattern_checks c LEFT JOIN users u ON u.id = c.created_by
+      WHERE c.id = :id AND c.organisation_id = :org`,
+    { id, org: organisationId },
+  );
+
+/** A field's checks, newest first (one pest's when given), with only n and the verdict of their results. */
+export const listCheckSummariesOfField = (fieldId: string, pestId?: string) =>
+  selectRows<PatternCheckRow>(
+    `SELECT id, field_id AS "fieldId", pest_id AS "pestId", window_from AS "windowFrom", window_to AS "windowTo", status, progress,
+            engine_version AS "engineVersion", created_by AS "createdBy", created_at AS "createdAt", finished_at AS "finishedAt",
+            jsonb_build_object('n', result->'n', 'spread', jsonb_build_object('verdict', result->'spread'->'verdict')) AS result
+       FROM pattern_checks WHERE field_id = :fieldId${pestId ? ' AND pest_id = :pestId' : ''} ORDER BY created_at DESC`,
+    { fieldId, pestId },
+  );
+
+export const findCheckDensityState = (organisationId: string, checkId: string) =>
+  selectRow<{ status: string; hasDensity: boolean }>(
+    `SELECT status, (result->'density') IS NOT NULL AND jsonb_typeof(result->'density') = 'object' AS "hasDensity"
+       FROM pattern_checks WHERE id = :checkId AND organisation_id = :org`,
+    { checkId, org: organisationId },
+  );
+
+export interface LatestCheckRow {
+  checkId: string;
+  fieldId: string;
+  fieldName: string;
+  farmName: string;
+  pestId: string;
+  pestName: string;
+  countUnit: string;
+  actionThreshold: number;
+  thresholdBasis: ThresholdBasis;
+  thresholdSource: string;
+  counts: Array<number | null> | null;
+}
+
+/** Latest finished check per field and pest whose verdict is clustered, with the counts of its sightings. */
+export const listClusteredLatestChecks = (organisationId: string) =>
+  selectRows<LatestCheckRow>(
+    `WITH latest AS (
+       SELECT DISTINCT ON (c.field_id, c.pest_id) c.id, c.field_id, c.pest_id, c.sighting_ids, c.result->'spread'->>'verdict' AS verdict
+         FROM pattern_checks c
+        WHERE c.organisation_id = :org AND c.status = 'done'
+        ORDER BY c.field_id, c.pest_id, c.created_at DESC
+     )
+     SELECT l.id AS "checkId", f.id AS "fieldId", f.name AS "fieldName", fa.name AS "farmName",
+            p.id AS "pestId", p.name AS "pestName", p.count_unit AS "countUnit", p.action_threshold AS "actionThreshold",
+            p.threshold_basis AS "thresholdBasis", p.threshold_source AS "thresholdSource",
+            (SELECT array_agg(s.count ORDER BY s.id) FROM sightings s WHERE s.id = ANY(l.sighting_ids) AND s.deleted_at IS NULL) AS counts
+       FROM latest l JOIN fields f ON f.id = l.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = l.pest_id
+      WHERE l.verdict = 'clustered'
+      ORDER BY fa.name, f.name, p.name`,
+    { org: organisationId },
+  );
