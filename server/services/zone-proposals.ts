@@ -2,8 +2,8 @@
 // surface or quadrat cells, re-thresholded, merged, buffered and clipped. Nothing is stored here (zone-sets.ts does that).
 import type { Feature, MultiPolygon, Polygon } from 'geojson';
 import type { Actor } from '../auth/passport.ts';
-import { PatternCheck } from '../models/pattern-check.ts';
-import { Pest } from '../models/pest.ts';
+import { findCheckInOrganisation } from '../queries/pattern-checks.ts';
+import { findPestInOrganisation } from '../queries/pests.ts';
 import { badRequest, conflict, notFound } from '../errors.ts';
 import { findVisibleField } from './fields.ts';
 import { fieldBoundary, sightingsByIds } from './check-runner.ts';
@@ -31,7 +31,7 @@ function fieldFrame(boundary: MultiPolygon) {
 }
 
 export async function findCheck(actor: Actor, checkId: string) {
-  const check = await PatternCheck.findOne({ where: { id: checkId, organisationId: actor.organisationId } });
+  const check = await findCheckInOrganisation(actor.organisationId, checkId);
   if (!check) throw notFound('That pattern check');
   await findVisibleField(actor, check.fieldId);
   return check;
@@ -84,7 +84,7 @@ export async function proposeZones(actor: Actor, checkId: string, input: ZonePro
     note = `Density of at least ${threshold.toFixed(1)} sightings per ha, ${marginM} m margin, zones under ${minZoneAreaM2} m² dropped.`;
   } else {
     if (!result.quadrat) throw badRequest('This check has no quadrat counts (fewer than 2 sightings), so it cannot propose quadrat zones.');
-    const pest = await Pest.findOne({ where: { id: check.pestId, organisationId: actor.organisationId } });
+    const pest = await findPestInOrganisation(actor.organisationId, check.pestId);
     threshold = input.threshold ?? pest?.actionThreshold ?? 0;
     const grid = { ...result.quadrat.grid, originX: result.quadrat.grid.originX - originX, originY: result.quadrat.grid.originY - originY };
     planar = zonesFromQuadrat(field, { ...result.quadrat, grid }, { actionThreshold: threshold, marginM, minZoneAreaM2 });

@@ -1,10 +1,19 @@
 // Accepted, versioned zone sets stored in PostGIS: clipped to the field, slivers dropped, areas on the ellipsoid.
-import { QueryTypes, type Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import type { MultiPolygon, Polygon } from 'geojson';
 import { sequelize } from '../db.ts';
 import type { Actor } from '../auth/passport.ts';
-import { Pest } from '../models/pest.ts';
-import { ZoneSet } from '../models/zone-set.ts';
+import { findPestInOrganisation } from '../queries/pests.ts';
+import { lockField } from '../queries/fields.ts';
+import {
+  findZoneSetInOrganisation,
+  insertZoneSet,
+  listZoneSetsOfField,
+  nextZoneSetVersion,
+  supersedeAcceptedZoneSets,
+  type ZoneSetRow,
+} from '../queries/zone-sets.ts';
+import { clipZoneToField, insertZone, listZonesOfSet } from '../queries/zones.ts';
 import { badRequest, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { findVisibleField } from './fields.ts';
@@ -14,7 +23,6 @@ import { runInAnalysisThread } from './analysis-pool.ts';
 import { BoundaryError } from '../../shared/boundary/boundary-faults.ts';
 import { toAcres, toHectares } from '../../shared/units/area.ts';
 import type { ZoneSetCreateRequest, ZoneSetView, ZoneView } from '../../shared/schemas/zones.ts';
-import { liveSighting } from '../queries/sightings.ts';
 import { findCheck } from './zone-proposals.ts';
 
 const asMultiPolygon = (geometry: Polygon | MultiPolygon): MultiPolygon => ({
@@ -44,27 +52,7 @@ async function clipToField(fieldId: string, zones: Array<{ label: string; geomet
   const adjustments: string[] = [];
   const kept: ClippedZone[] = [];
   for (const zone of zones) {
-    const [row] = await sequelize.query<{
-      valid: boolean;
-      reason: string;
-      drawn_m2: number;
-      parts_m2: number[] | null;
-      kept: string | null;
-      kept_m2: number | null;
-    }>(
-      `WITH z AS (SELECT ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326) AS g),
-            clipped AS (
-              SELECT (ST_Dump(ST_CollectionExtract(ST_Intersection(z.g, f.boundary), 3))).geom AS part FROM z, fields f
-               WHERE f.id = :fieldId AND ST_IsValid(z.g)),
-            measured AS (SELECT part, ST_Area(part::geography, true) AS m2 FROM clipped)
-       SELECT ST_IsValid(z.g) AS valid, ST_IsValidReason(z.g) AS reason,
-              CASE WHEN ST_IsValid(z.g) THEN ST_Area(z.g::geography, true) ELSE 0 END AS drawn_m2,
-              (SELECT array_agg(m2) FROM measured) AS parts_m2,
-              (SELECT ST_AsGeoJSON(ST_Multi(ST_Union(part))) FROM measured WHERE m2 >= :minArea) AS kept,
-              (SELECT ST_Area(ST_Union(part)::geography, true) FROM measured WHERE m2 >= :minArea) AS kept_m2
-         FROM z`,
-      { replacements: { geojson: JSON.stringify(zone.geometry), fieldId, minArea: minAreaM2 }, type: QueryTypes.SELECT, transaction },
-    );
+    const row = await clipZoneToField(fieldId, zone.geometry, minAreaM2, { transaction });
     if (!row.valid)
       throw badRequest(`${zone.label} is not a valid polygon (${row.reason}); redraw it so its edges do not cross.`, {
         zones: `${zone.label} is not a valid polygon.`,
@@ -95,7 +83,7 @@ async function clipToField(fieldId: string, zones: Array<{ label: string; geomet
 /** Stores the adviser's zones as the field's new accepted version for the pest; the previous one is superseded. */
 export async function createZoneSet(actor: Actor, fieldId: string, input: ZoneSetCreateRequest) {
   await findVisibleField(actor, fieldId);
-  const pest = await Pest.findOne({ where: { id: input.pestId, organisationId: actor.organisationId } });
+  const pest = await findPestInOrganisation(actor.organisationId, input.pestId);
   if (!pest) throw badRequest('Choose one of your own pest library entries for these zones.', { pestId: 'That pest is not in your library.' });
   let sightingIds: string[] | null = null;
   if (input.checkId) {
@@ -117,17 +105,10 @@ export async function createZoneSet(actor: Actor, fieldId: string, input: ZoneSe
     const { kept, adjustments } = await clipToField(fieldId, drawn, DEFAULT_MIN_ZONE_AREA_M2, transaction);
     if (kept.length === 0) throw badRequest(`No zone is left inside the field: ${adjustments.join(' ')}`, { zones: adjustments.join(' ') });
     // Lock the field so two acceptances at once cannot take the same version number.
-    await sequelize.query('SELECT id FROM fields WHERE id = :fieldId FOR UPDATE', { replacements: { fieldId }, transaction });
-    const [{ next }] = await sequelize.query<{ next: number }>(
-      'SELECT COALESCE(MAX(version), 0) + 1 AS next FROM zone_sets WHERE field_id = :fieldId AND pest_id = :pestId',
-      {
-        replacements: { fieldId, pestId: pest.id },
-        type: QueryTypes.SELECT,
-        transaction,
-      },
-    );
-    await ZoneSet.update({ status: 'superseded' }, { where: { fieldId, pestId: pest.id, status: 'accepted' }, transaction });
-    const zoneSet = await ZoneSet.create(
+    await lockField(fieldId, { transaction });
+    const next = await nextZoneSetVersion(fieldId, pest.id, { transaction });
+    await supersedeAcceptedZoneSets(fieldId, pest.id, { transaction });
+    const zoneSetId = await insertZoneSet(
       {
         organisationId: actor.organisationId,
         fieldId,
@@ -141,64 +122,20 @@ export async function createZoneSet(actor: Actor, fieldId: string, input: ZoneSe
       { transaction },
     );
     for (const [index, zone] of kept.entries()) {
-      await sequelize.query(
-        `INSERT INTO zones (zone_set_id, position, label, geometry, share_of_field, sightings_inside)
-         SELECT :zoneSetId, :position, :label, g, LEAST(1, ST_Area(g::geography, true) / NULLIF(f.area_m2, 0)),
-                (SELECT count(*) FROM sightings s
-                  WHERE s.field_id = f.id AND s.pest_id = :pestId AND ${liveSighting('s')}
-                    AND (s.count IS NULL OR s.count > 0) AND ST_Covers(g, s.position)
-                    AND (CAST(:ids AS uuid[]) IS NULL OR s.id = ANY(CAST(:ids AS uuid[]))))
-           FROM (SELECT ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326) AS g) z, fields f WHERE f.id = :fieldId`,
-        {
-          replacements: {
-            zoneSetId: zoneSet.id,
-            position: index + 1,
-            label: zone.label,
-            geojson: zone.geojson,
-            fieldId,
-            pestId: pest.id,
-            ids: sightingIds ? `{${sightingIds.join(',')}}` : null,
-          },
-          transaction,
-        },
-      );
+      await insertZone({ zoneSetId, position: index + 1, label: zone.label, geojson: zone.geojson, fieldId, pestId: pest.id, sightingIds }, { transaction });
     }
     await recordAudit(
       actor,
       'accept',
       'zone-set',
-      zoneSet.id,
+      zoneSetId,
       { fieldId, pestId: pest.id, version: next, zones: kept.length, checkId: input.checkId ?? null },
       transaction,
     );
-    return { id: zoneSet.id, adjustments };
+    return { id: zoneSetId, adjustments };
   });
   return { zoneSet: await getZoneSet(actor, result.id), adjustments: result.adjustments };
 }
-
-interface ZoneSetRow {
-  id: string;
-  field_id: string;
-  pest_id: string;
-  pest_name: string;
-  check_id: string | null;
-  version: number;
-  status: ZoneSetView['status'];
-  created_by: string;
-  created_by_name: string;
-  created_at: Date;
-  accepted_at: Date | null;
-  field_name: string;
-  field_area_m2: number;
-  treated_m2: number | null;
-  zone_count: number;
-}
-
-const zoneSetColumns = `zs.id, zs.field_id, zs.pest_id, p.name AS pest_name, zs.check_id, zs.version, zs.status, zs.created_by,
-  u.name AS created_by_name, zs.created_at, zs.accepted_at, f.name AS field_name, f.area_m2 AS field_area_m2,
-  (SELECT ST_Area(ST_Union(z.geometry)::geography, true) FROM zones z WHERE z.zone_set_id = zs.id) AS treated_m2,
-  (SELECT count(*) FROM zones z WHERE z.zone_set_id = zs.id)::int AS zone_count`;
-const zoneSetFrom = `zone_sets zs JOIN pests p ON p.id = zs.pest_id JOIN users u ON u.id = zs.created_by JOIN fields f ON f.id = zs.field_id`;
 
 function summary(row: ZoneSetRow) {
   // Overlapping zones are treated once: the total is the area of their union.
@@ -224,11 +161,7 @@ function summary(row: ZoneSetRow) {
 
 /** The zones of one set, outer rings counter-clockwise as RFC 7946 and KML 2.2 ask. */
 export async function zonesOf(zoneSetId: string): Promise<ZoneView[]> {
-  const rows = await sequelize.query<{ id: string; label: string; area_m2: number; share_of_field: number; sightings_inside: number; geometry: string }>(
-    `SELECT id, label, area_m2, share_of_field, sightings_inside, ST_AsGeoJSON(ST_ForcePolygonCCW(geometry), 9) AS geometry
-       FROM zones WHERE zone_set_id = :zoneSetId ORDER BY position`,
-    { replacements: { zoneSetId }, type: QueryTypes.SELECT },
-  );
+  const rows = await listZonesOfSet(zoneSetId);
   return rows.map((r) => ({
     id: r.id,
     label: r.label,
@@ -243,22 +176,13 @@ export async function zonesOf(zoneSetId: string): Promise<ZoneView[]> {
 
 export async function listZoneSets(actor: Actor, fieldId: string) {
   await findVisibleField(actor, fieldId);
-  const rows = await sequelize.query<ZoneSetRow>(
-    `SELECT ${zoneSetColumns} FROM ${zoneSetFrom} WHERE zs.field_id = :fieldId AND zs.organisation_id = :org ORDER BY p.name, zs.version DESC`,
-    {
-      replacements: { fieldId, org: actor.organisationId },
-      type: QueryTypes.SELECT,
-    },
-  );
+  const rows = await listZoneSetsOfField(actor.organisationId, fieldId);
   return rows.map(summary);
 }
 
 /** A zone set of an organisation with its zones, for work that runs without a signed-in person (mail jobs). */
 export async function zoneSetInOrganisation(organisationId: string, id: string): Promise<ZoneSetView | null> {
-  const [row] = await sequelize.query<ZoneSetRow>(`SELECT ${zoneSetColumns} FROM ${zoneSetFrom} WHERE zs.id = :id AND zs.organisation_id = :org`, {
-    replacements: { id, org: organisationId },
-    type: QueryTypes.SELECT,
-  });
+  const row = await findZoneSetInOrganisation(organisationId, id);
   if (!row) return null;
   const { zoneCount: _count, ...view } = summary(row);
   return { ...view, zones: await zonesOf(id) };

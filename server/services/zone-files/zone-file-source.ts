@@ -1,11 +1,10 @@
 // What the machine-readable zone files (ISO 11783-10 task data, shapefile) carry: the farm, the field
 // boundary, the zone-set version, and for each zone its area, stops, mean count and the pest's threshold.
 import type { MultiPolygon } from 'geojson';
-import { QueryTypes } from 'sequelize';
-import { sequelize } from '../../db.ts';
 import { conflict } from '../../errors.ts';
 import type { ZoneSetView } from '../../../shared/schemas/zones.ts';
-import { liveSighting } from '../../queries/sightings.ts';
+import { findZoneSetFileFacts } from '../../queries/zone-sets.ts';
+import { listZoneStopFigures } from '../../queries/zones.ts';
 
 export interface ZoneFileZone {
   number: number;
@@ -42,34 +41,9 @@ export async function zoneFileSource(zoneSet: ZoneSetView): Promise<ZoneFileSour
     throw conflict(`Version ${zoneSet.version} of these zones is still a draft; accept it in the zone editor before exporting it for a sprayer.`);
   if (zoneSet.status === 'superseded')
     throw conflict(`Version ${zoneSet.version} of these zones was replaced by a later version; export the accepted version instead.`);
-  const [facts] = await sequelize.query<{
-    farm_name: string;
-    field_area_m2: number;
-    boundary: string;
-    count_unit: string;
-    action_threshold: number;
-    threshold_source: string;
-    sighting_ids: string[] | null;
-  }>(
-    `SELECT fa.name AS farm_name, f.area_m2 AS field_area_m2, ST_AsGeoJSON(ST_ForcePolygonCCW(f.boundary), 9) AS boundary,
-            p.count_unit, p.action_threshold, p.threshold_source, pc.sighting_ids
-       FROM zone_sets zs JOIN fields f ON f.id = zs.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = zs.pest_id
-       LEFT JOIN pattern_checks pc ON pc.id = zs.check_id
-      WHERE zs.id = :id`,
-    { replacements: { id: zoneSet.id }, type: QueryTypes.SELECT },
-  );
+  const facts = await findZoneSetFileFacts(zoneSet.id);
   // The stops behind the zones: the check's own sightings, or (hand-drawn zones) the field's live ones of the pest.
-  const stopsFilter = facts.sighting_ids ? 's.id = ANY(CAST(:ids AS uuid[]))' : 's.field_id = :fieldId AND s.pest_id = :pestId';
-  const perZone = await sequelize.query<{ zone_id: string; stops: number; mean_count: number | null }>(
-    `SELECT z.id AS zone_id, count(s.id)::int AS stops, avg(s.count) AS mean_count
-       FROM zones z LEFT JOIN sightings s
-         ON ${stopsFilter} AND ${liveSighting('s')} AND ST_Covers(z.geometry, s.position)
-      WHERE z.zone_set_id = :zoneSetId GROUP BY z.id`,
-    {
-      replacements: { ids: `{${(facts.sighting_ids ?? []).join(',')}}`, fieldId: zoneSet.fieldId, pestId: zoneSet.pestId, zoneSetId: zoneSet.id },
-      type: QueryTypes.SELECT,
-    },
-  );
+  const perZone = await listZoneStopFigures(zoneSet, facts.sighting_ids);
   const figures = new Map(perZone.map((r) => [r.zone_id, r]));
   return {
     farmName: facts.farm_name,
