@@ -33,3 +33,11 @@ export async function insertContacts(farmId: string, contacts: { name: string; e
 
 export const deleteContactsOfFarm = (farmId: string, options: InTransaction = {}) =>
   execute('DELETE FROM farm_contacts WHERE farm_id = :farmId', { farmId }, options);
+
+/** The grower contacts of the farm a field lies on, by name. */
+export const listContactsOfFieldFarm = (fieldId: string, options: InTransaction = {}) =>
+  selectRows<{ name: string; email: string }>(
+    `SELECT c.name, c.email FROM farm_contacts c JOIN fields f ON f.farm_id = c.farm_id WHERE f.id = :fieldId ORDER BY c.name`,
+    { fieldId },
+    options,
+  );

@@ -274,3 +274,34 @@ export const listUncheckedSightings = (organisationId: string) =>
       ORDER BY fa.name, f.name, p.name`,
     { org: organisationId },
   );
+
+/**
+ * The sightings behind a notice: the check's own (`sightingIds`), or (hand-drawn zones, `sightingIds` null) the
+ * field's sightings of the pest. Returns the filter and its replacements for the two queries below.
+ */
+const noticeSightings = (sightingIds: string[] | null, fieldId: string, pestId: string) => ({
+  filter: sightingIds ? 's.id = ANY(CAST(:ids AS uuid[]))' : 's.field_id = :fieldId AND s.pest_id = :pestId',
+  replacements: { ids: sightingIds ? `{${sightingIds.join(',')}}` : '{}', fieldId, pestId },
+});
+
+/** Positions of the live sightings with the pest found (count above 0, or no count). */
+export function listFoundPositions(sightingIds: string[] | null, fieldId: string, pestId: string) {
+  const { filter, replacements } = noticeSightings(sightingIds, fieldId, pestId);
+  return selectRows<{ lon: number; lat: number }>(
+    `SELECT ST_X(s.position) AS lon, ST_Y(s.position) AS lat FROM sightings s
+      WHERE ${filter} AND ${liveSighting('s')} AND (s.count IS NULL OR s.count > 0)`,
+    replacements,
+  );
+}
+
+/** The walk days of the sightings not deleted (placed or not), in order. */
+export async function listWalkDatesOfSightings(sightingIds: string[] | null, fieldId: string, pestId: string) {
+  const { filter, replacements } = noticeSightings(sightingIds, fieldId, pestId);
+  return (
+    await selectRows<{ walked_on: string }>(
+      `SELECT DISTINCT w.walked_on::text AS walked_on FROM sightings s JOIN walks w ON w.id = s.walk_id
+      WHERE ${filter} AND s.deleted_at IS NULL ORDER BY 1`,
+      replacements,
+    )
+  ).map((w) => w.walked_on);
+}

@@ -94,3 +94,18 @@ export const findZoneSetFileFacts = async (id: string) =>
       WHERE zs.id = :id`,
     { id },
   ))!;
+
+export interface ZoneSetRef {
+  id: string;
+  fieldId: string;
+  checkId: string | null;
+  pestId: string;
+  version: number;
+  status: ZoneSetStatus;
+}
+
+export const findZoneSetRefInOrganisation = (organisationId: string, id: string) =>
+  selectRow<ZoneSetRef>(
+    `SELECT id, field_id AS "fieldId", check_id AS "checkId", pest_id AS "pestId", version, status FROM zone_sets WHERE id = :id AND organisation_id = :org`,
+    { id, org: organisationId },
+  );

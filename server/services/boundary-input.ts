@@ -1,6 +1,5 @@
 import type { MultiPolygon } from 'geojson';
-import { QueryTypes } from 'sequelize';
-import { sequelize } from '../db.ts';
+import { boundaryValidity } from '../queries/postgis.ts';
 import { fault } from '../../shared/boundary/boundary-faults.ts';
 import { refuseDeepNesting } from '../../shared/boundary/collection-depth.ts';
 import { runInAnalysisThread } from './analysis-pool.ts';
@@ -25,11 +24,7 @@ export async function readBoundary(input: { boundary?: unknown; boundaryFile?: s
   // A parsed body is checked here, before it is copied to the thread; a file's text is checked where the thread parses it.
   if (input.boundaryFile === undefined && input.boundary !== undefined) refuseDeepNesting(input.boundary);
   const { boundary } = await runInAnalysisThread({ kind: 'boundary', input: { boundary: input.boundary, boundaryFile: input.boundaryFile } });
-  const [check] = await sequelize.query<{ valid: boolean; reason: string | null; x: number | null; y: number | null }>(
-    `SELECT d.valid, d.reason, ST_X(d.location) AS x, ST_Y(d.location) AS y
-       FROM ST_IsValidDetail(ST_SetSRID(ST_GeomFromGeoJSON(:geojson), 4326)) d`,
-    { replacements: { geojson: JSON.stringify(boundary) }, type: QueryTypes.SELECT },
-  );
+  const check = await boundaryValidity(boundary);
   if (!check.valid) throw postgisFault(check);
   return boundary;
 }

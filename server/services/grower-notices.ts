@@ -1,10 +1,9 @@
 // A signed-in grower's own zone notices: those sent about farms linked to their account (farm_growers), opened
 // without the e-mailed token. Their own copy is the notice_recipients row that carries their e-mail address.
-import { QueryTypes } from 'sequelize';
-import { sequelize } from '../db.ts';
 import type { Actor } from '../auth/passport.ts';
 import { AppError, notFound } from '../errors.ts';
-import { NoticeRecipient } from '../models/notice-recipient.ts';
+import { findCopyForEmail, type NoticeRecipientRow } from '../queries/notice-recipients.ts';
+import { findSentNoticeOfGrower } from '../queries/notices.ts';
 import { acknowledge, markOpened, noticeMapImage, noticePageContent } from './notice-links.ts';
 import { noticeMachineFile, type MachineFileKind } from './zone-files/zone-machine-files.ts';
 import { askQuestion, type Asker } from './notice-questions.ts';
@@ -12,19 +11,14 @@ import type { AcknowledgeResponse, NoticeLinkResponse, OpenedResponse } from '..
 
 /** The sent notice, when it is about a farm linked to this grower; any other id (another farm, another organisation, a draft) is not found. */
 export async function findGrowerNotice(actor: Actor, noticeId: string) {
-  const [row] = await sequelize.query<{ id: string }>(
-    `SELECT n.id FROM notices n JOIN fields f ON f.id = n.field_id
-       JOIN farm_growers g ON g.farm_id = f.farm_id AND g.user_id = :userId
-      WHERE n.id = :noticeId AND n.organisation_id = :org AND n.status <> 'draft'`,
-    { replacements: { userId: actor.id, org: actor.organisationId, noticeId }, type: QueryTypes.SELECT },
-  );
-  if (!row) throw notFound('That notice');
-  const copy = await NoticeRecipient.findOne({ where: { noticeId: row.id, email: actor.email.toLowerCase() } });
-  return { noticeId: row.id, copy };
+  const id = await findSentNoticeOfGrower(actor.organisationId, actor.id, noticeId);
+  if (!id) throw notFound('That notice');
+  const copy = (await findCopyForEmail(id, actor.email.toLowerCase())) ?? null;
+  return { noticeId: id, copy };
 }
 
 /** The signed-in grower, under their copy's name when they hold one. */
-const growerAsker = (actor: Actor, copy: NoticeRecipient | null): Asker => ({
+const growerAsker = (actor: Actor, copy: NoticeRecipientRow | null): Asker => ({
   name: copy?.contactName ?? actor.name,
   email: actor.email,
   recipientId: copy?.id ?? null,

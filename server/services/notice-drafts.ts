@@ -1,9 +1,9 @@
 // Writing a zone notice: the draft the adviser composes for one accepted zone set.
 import type { Actor } from '../auth/passport.ts';
 import { sequelize } from '../db.ts';
-import { Notice } from '../models/notice.ts';
-import { ZoneSet } from '../models/zone-set.ts';
-import { PatternCheck } from '../models/pattern-check.ts';
+import { insertNotice } from '../queries/notices.ts';
+import { findZoneSetRefInOrganisation } from '../queries/zone-sets.ts';
+import { findCheckInOrganisation } from '../queries/pattern-checks.ts';
 import { badRequest } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { findVisibleField } from './fields.ts';
@@ -12,7 +12,7 @@ import type { NoticeCreateRequest } from '../../shared/schemas/notices.ts';
 
 export async function createNotice(actor: Actor, input: NoticeCreateRequest) {
   await findVisibleField(actor, input.fieldId);
-  const zoneSet = await ZoneSet.findOne({ where: { id: input.zoneSetId, organisationId: actor.organisationId } });
+  const zoneSet = await findZoneSetRefInOrganisation(actor.organisationId, input.zoneSetId);
   if (!zoneSet || zoneSet.fieldId !== input.fieldId)
     throw badRequest('Choose zones accepted for this field.', { zoneSetId: 'Those zones are not for this field.' });
   if (zoneSet.status !== 'accepted')
@@ -21,12 +21,12 @@ export async function createNotice(actor: Actor, input: NoticeCreateRequest) {
     });
   const checkId = input.checkId ?? zoneSet.checkId;
   if (checkId) {
-    const check = await PatternCheck.findOne({ where: { id: checkId, organisationId: actor.organisationId } });
+    const check = await findCheckInOrganisation(actor.organisationId, checkId);
     if (!check || check.fieldId !== input.fieldId || check.pestId !== zoneSet.pestId)
       throw badRequest('That check is for another field or pest.', { checkId: 'That check is for another field or pest.' });
   }
   const notice = await sequelize.transaction(async (transaction) => {
-    const created = await Notice.create(
+    const created = await insertNotice(
       {
         organisationId: actor.organisationId,
         fieldId: input.fieldId,
@@ -39,8 +39,8 @@ export async function createNotice(actor: Actor, input: NoticeCreateRequest) {
       },
       { transaction },
     );
-    await recordAudit(actor, 'create', 'notice', created.id, { fieldId: input.fieldId, zoneSetId: zoneSet.id }, transaction);
+    await recordAudit(actor, 'create', 'notice', created, { fieldId: input.fieldId, zoneSetId: zoneSet.id }, transaction);
     return created;
   });
-  return getNotice(actor, notice.id);
+  return getNotice(actor, notice);
 }

@@ -2,10 +2,17 @@
 // stored; the raw token exists in the e-mailed link alone. The recipient id lets a wrong secret be refused
 // without scanning, and ties the token to its own copy of its own notice.
 import crypto from 'node:crypto';
-import { QueryTypes, type Transaction } from 'sequelize';
-import { sequelize } from '../db.ts';
+import type { Transaction } from 'sequelize';
 import { AppError } from '../errors.ts';
-import { Notice } from '../models/notice.ts';
+import { findNoticeById, findNoticeVersionStamp } from '../queries/notices.ts';
+import {
+  findLinkableRecipient,
+  findRecipientAcknowledgedAt,
+  findRecipientOpenedAt,
+  markRecipientAcknowledged,
+  markRecipientOpened,
+  setRecipientToken,
+} from '../queries/notice-recipients.ts';
 import { noticeMaterial } from './notice-material.ts';
 import { renderNoticeMap } from './notice-map.ts';
 import { cachedNoticeMap } from './notice-map-cache.ts';
@@ -29,10 +36,7 @@ export const linkRefused = () =>
 /** A fresh token for a recipient (replacing any earlier one); returns the raw token for the e-mail. */
 export async function issueNoticeToken(recipientId: string, transaction?: Transaction): Promise<string> {
   const token = `${recipientId}.${crypto.randomBytes(32).toString('base64url')}`;
-  await sequelize.query(
-    `UPDATE notice_recipients SET token_hash = :hash, token_expires_at = now() + make_interval(days => :days), updated_at = now() WHERE id = :id`,
-    { replacements: { hash: sha256(token), days: NOTICE_LINK_DAYS, id: recipientId }, transaction },
-  );
+  await setRecipientToken(recipientId, sha256(token), NOTICE_LINK_DAYS, { transaction });
   return token;
 }
 
@@ -49,19 +53,7 @@ export interface LinkedCopy {
 export async function resolveNoticeToken(token: string): Promise<LinkedCopy> {
   const shape = TOKEN_SHAPE.exec(token);
   if (!shape) throw linkRefused();
-  const [row] = await sequelize.query<{
-    id: string;
-    notice_id: string;
-    contact_name: string;
-    email: string;
-    token_hash: string | null;
-    opened_at: Date | null;
-    acknowledged_at: Date | null;
-  }>(
-    `SELECT id, notice_id, contact_name, email, token_hash, opened_at, acknowledged_at FROM notice_recipients
-      WHERE id = :id AND revoked_at IS NULL AND token_expires_at > now()`,
-    { replacements: { id: shape[1] }, type: QueryTypes.SELECT },
-  );
+  const row = await findLinkableRecipient(shape[1]);
   if (!row?.token_hash) throw linkRefused();
   const given = Buffer.from(sha256(token), 'hex');
   if (!crypto.timingSafeEqual(given, Buffer.from(row.token_hash, 'hex'))) throw linkRefused();
@@ -77,31 +69,16 @@ export async function resolveNoticeToken(token: string): Promise<LinkedCopy> {
 
 /** Records the first opening of the notice page; later openings change nothing and answer with the first one's time. */
 export async function markOpened(recipientId: string): Promise<{ openedAt: Date; alreadyOpened: boolean }> {
-  const updated = await sequelize.query<{ opened_at: Date }>(
-    `UPDATE notice_recipients SET opened_at = now(), updated_at = now() WHERE id = :id AND opened_at IS NULL RETURNING opened_at`,
-    { replacements: { id: recipientId }, type: QueryTypes.SELECT },
-  );
-  if (updated.length) return { openedAt: updated[0].opened_at, alreadyOpened: false };
-  const [row] = await sequelize.query<{ opened_at: Date }>('SELECT opened_at FROM notice_recipients WHERE id = :id', {
-    replacements: { id: recipientId },
-    type: QueryTypes.SELECT,
-  });
-  return { openedAt: row.opened_at, alreadyOpened: true };
+  const openedAt = await markRecipientOpened(recipientId);
+  if (openedAt) return { openedAt, alreadyOpened: false };
+  return { openedAt: await findRecipientOpenedAt(recipientId), alreadyOpened: true };
 }
 
 /** Records the acknowledgement once; a second one answers with the first one's time. */
 export async function acknowledge(recipientId: string): Promise<{ acknowledgedAt: Date; alreadyAcknowledged: boolean }> {
-  const updated = await sequelize.query<{ acknowledged_at: Date }>(
-    `UPDATE notice_recipients SET acknowledged_at = now(), opened_at = COALESCE(opened_at, now()), updated_at = now()
-      WHERE id = :id AND acknowledged_at IS NULL RETURNING acknowledged_at`,
-    { replacements: { id: recipientId }, type: QueryTypes.SELECT },
-  );
-  if (updated.length) return { acknowledgedAt: updated[0].acknowledged_at, alreadyAcknowledged: false };
-  const [row] = await sequelize.query<{ acknowledged_at: Date }>('SELECT acknowledged_at FROM notice_recipients WHERE id = :id', {
-    replacements: { id: recipientId },
-    type: QueryTypes.SELECT,
-  });
-  return { acknowledgedAt: row.acknowledged_at, alreadyAcknowledged: true };
+  const acknowledgedAt = await markRecipientAcknowledged(recipientId);
+  if (acknowledgedAt) return { acknowledgedAt, alreadyAcknowledged: false };
+  return { acknowledgedAt: await findRecipientAcknowledgedAt(recipientId), alreadyAcknowledged: true };
 }
 
 /** What the notice page shows of one notice to one reader: the copy's contact, or a signed-in grower of the farm. */
@@ -113,7 +90,7 @@ export async function noticePageContent(
 ): Promise<NoticeLinkResponse['notice']> {
   const material = await noticeMaterial(noticeId);
   const questions = await readerQuestions(noticeId, reader.asker);
-  const notice = await Notice.findByPk(noticeId);
+  const notice = await findNoticeById(noticeId);
   return {
     ...material.content,
     sentAt: notice?.sentAt ? notice.sentAt.toISOString() : null,
@@ -142,7 +119,7 @@ export const linkAsker = (copy: LinkedCopy): Asker => ({ name: copy.contactName,
 
 /** A notice's map image, as the e-mail and the notice page carry it: drawn once per notice version. */
 export async function noticeMapImage(noticeId: string): Promise<Buffer> {
-  const notice = await Notice.findByPk(noticeId, { attributes: ['id', 'updatedAt'] });
+  const notice = await findNoticeVersionStamp(noticeId);
   if (!notice) throw linkRefused();
   return cachedNoticeMap(notice.id, notice.updatedAt, async () => {
     const material = await noticeMaterial(noticeId);

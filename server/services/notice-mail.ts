@@ -1,8 +1,13 @@
 // The zone-notice e-mail: composed from the notice's material (HTML and plain text, inline map, GeoJSON
 // attachment) and delivered once per copy, with the Message-ID fixed when the copy was queued.
-import { QueryTypes } from 'sequelize';
 import type Mail from 'nodemailer/lib/mailer';
-import { sequelize } from '../db.ts';
+import {
+  claimRecipientForSending,
+  failRecipientIfRevoked,
+  isRecipientBeingSent,
+  markRecipientFailed,
+  markRecipientSent,
+} from '../queries/notice-recipients.ts';
 import { config } from '../config.ts';
 import { mailTransport } from '../mail/transport.ts';
 import { escapeHtml } from './escape-html.ts';
@@ -147,30 +152,12 @@ const STALE_SENDING_MINUTES = 15;
  * de-duplicate by Message-ID still show one message. Nothing else can send a second copy.
  */
 export async function deliverNoticeCopy(recipientId: string): Promise<'sent' | 'skipped'> {
-  const [claim] = await sequelize.query<{
-    notice_id: string;
-    email: string;
-    contact_name: string;
-    message_id: string;
-    attempts: number;
-    organisation_id: string;
-  }>(
-    `UPDATE notice_recipients r SET status = 'sending', attempts = attempts + 1, updated_at = now()
-       FROM notices n
-      WHERE r.id = :id AND n.id = r.notice_id AND r.smtp_accepted_at IS NULL AND r.revoked_at IS NULL
-        AND (r.status <> 'sending' OR r.updated_at < now() - make_interval(mins => :stale))
-      RETURNING r.notice_id, r.email, r.contact_name, r.message_id, r.attempts, n.organisation_id`,
-    { replacements: { id: recipientId, stale: STALE_SENDING_MINUTES }, type: QueryTypes.SELECT },
-  );
+  const claim = await claimRecipientForSending(recipientId, STALE_SENDING_MINUTES);
   if (!claim) {
     await markWithdrawnIfRevoked(recipientId);
     // A fresh claim by another attempt may still die; fail this job so the queue retries it later,
     // instead of completing it and leaving the copy in 'sending' for good.
-    const [inFlight] = await sequelize.query<{ id: string }>(
-      `SELECT id FROM notice_recipients WHERE id = :id AND status = 'sending' AND smtp_accepted_at IS NULL AND revoked_at IS NULL`,
-      { replacements: { id: recipientId }, type: QueryTypes.SELECT },
-    );
-    if (inFlight) throw new Error('Another attempt is sending this copy right now; the queue will try again later.');
+    if (await isRecipientBeingSent(recipientId)) throw new Error('Another attempt is sending this copy right now; the queue will try again later.');
     return 'skipped';
   }
   try {
@@ -184,17 +171,10 @@ export async function deliverNoticeCopy(recipientId: string): Promise<'sent' | '
       headers: organisationHeader(claim.organisation_id),
     });
     // The single statement after SMTP acceptance (see above).
-    await sequelize.query(`UPDATE notice_recipients SET status = 'sent', smtp_accepted_at = now(), last_error = NULL, updated_at = now() WHERE id = :id`, {
-      replacements: { id: recipientId },
-    });
+    await markRecipientSent(recipientId);
   } catch (error) {
     const reason = (error as Error).message || 'The mail server did not accept the message.';
-    await sequelize.query(
-      `UPDATE notice_recipients SET status = 'failed', last_error = :reason, updated_at = now() WHERE id = :id AND smtp_accepted_at IS NULL`,
-      {
-        replacements: { id: recipientId, reason: `Attempt ${claim.attempts}: ${reason}`.slice(0, 1000) },
-      },
-    );
+    await markRecipientFailed(recipientId, `Attempt ${claim.attempts}: ${reason}`.slice(0, 1000));
     await refreshNoticeStatus(claim.notice_id);
     throw error;
   }
@@ -204,10 +184,6 @@ export async function deliverNoticeCopy(recipientId: string): Promise<'sent' | '
 
 /** A copy withdrawn before it went out is failed with that reason, so the notice's status can settle. */
 async function markWithdrawnIfRevoked(recipientId: string) {
-  const [row] = await sequelize.query<{ notice_id: string }>(
-    `UPDATE notice_recipients SET status = 'failed', last_error = 'The link was withdrawn before the message went out.', updated_at = now()
-      WHERE id = :id AND revoked_at IS NOT NULL AND smtp_accepted_at IS NULL AND status <> 'failed' RETURNING notice_id`,
-    { replacements: { id: recipientId }, type: QueryTypes.SELECT },
-  );
-  if (row) await refreshNoticeStatus(row.notice_id);
+  const noticeId = await failRecipientIfRevoked(recipientId);
+  if (noticeId) await refreshNoticeStatus(noticeId);
 }

@@ -1,12 +1,19 @@
 // Sending a zone notice: queueing one copy per grower contact, re-sending failed copies, each copy's
 // status rolled up into the notice's, and withdrawing a copy's link.
 import crypto from 'node:crypto';
-import { QueryTypes } from 'sequelize';
 import { sequelize } from '../db.ts';
 import { config } from '../config.ts';
 import type { Actor } from '../auth/passport.ts';
-import { Notice } from '../models/notice.ts';
-import { NoticeRecipient } from '../models/notice-recipient.ts';
+import { findNoticeById, markNoticeSent, setNoticeStatus } from '../queries/notices.ts';
+import {
+  findRecipientOfNotice,
+  insertRecipient,
+  listFailedRecipientIds,
+  listRecipientDeliveries,
+  requeueRecipients,
+  revokeRecipientLink,
+} from '../queries/notice-recipients.ts';
+import { listContactsOfFieldFarm } from '../queries/farm-contacts.ts';
 import { badRequest, conflict, notFound } from '../errors.ts';
 import { queue } from '../jobs/queue.ts';
 import { recordAudit } from './audit.ts';
@@ -39,30 +46,27 @@ export async function sendNotice(actor: Actor, id: string) {
   const snapshot = notice.status === 'draft' ? await liveNoticeMaterial(notice) : null;
   const toQueue = await sequelize.transaction(async (transaction) => {
     if (snapshot) {
-      const contacts = await sequelize.query<{ name: string; email: string }>(
-        `SELECT c.name, c.email FROM farm_contacts c JOIN fields f ON f.farm_id = c.farm_id WHERE f.id = :fieldId ORDER BY c.name`,
-        { replacements: { fieldId: notice.fieldId }, type: QueryTypes.SELECT, transaction },
-      );
+      const contacts = await listContactsOfFieldFarm(notice.fieldId, { transaction });
       if (contacts.length === 0) throw badRequest('This farm has no grower contacts yet; add one to the farm (name and e-mail), then send the notice.');
       const ids: string[] = [];
       for (const contact of contacts) {
         const recipientId = crypto.randomUUID();
-        await NoticeRecipient.create(
+        await insertRecipient(
           { id: recipientId, noticeId: notice.id, contactName: contact.name, email: contact.email, messageId: messageIdFor(notice.id, recipientId) },
           { transaction },
         );
         ids.push(recipientId);
       }
-      await notice.update({ status: 'sending', sentAt: new Date(), material: snapshot }, { transaction });
+      await markNoticeSent(notice.id, snapshot, { transaction });
       await recordAudit(actor, 'send', 'notice', notice.id, { recipients: contacts.length }, transaction);
       return ids;
     }
-    const failed = await NoticeRecipient.findAll({ where: { noticeId: notice.id, status: 'failed', revokedAt: null }, transaction });
+    const failed = await listFailedRecipientIds(notice.id, { transaction });
     if (failed.length === 0) throw conflict('No copy of this notice is waiting to be sent again.');
-    await NoticeRecipient.update({ status: 'queued', attempts: 0, lastError: null }, { where: { id: failed.map((r) => r.id) }, transaction });
-    await notice.update({ status: 'sending' }, { transaction });
+    await requeueRecipients(failed, { transaction });
+    await setNoticeStatus(notice.id, 'sending', { transaction });
     await recordAudit(actor, 'resend', 'notice', notice.id, { recipients: failed.length }, transaction);
-    return failed.map((r) => r.id);
+    return failed;
   });
   // Jobs go in after the commit so a worker always finds its recipient row.
   const boss = await queue();
@@ -75,9 +79,9 @@ export async function sendNotice(actor: Actor, id: string) {
 export async function refreshNoticeStatus(noticeId: string) {
   // The notice row is locked first, so two copies finishing at once cannot write their verdicts out of order.
   await sequelize.transaction(async (transaction) => {
-    const locked = await Notice.findByPk(noticeId, { transaction, lock: transaction.LOCK.UPDATE });
+    const locked = await findNoticeById(noticeId, { transaction, forUpdate: true });
     if (!locked) return;
-    const rows = await NoticeRecipient.findAll({ where: { noticeId }, attributes: ['status', 'attempts', 'revokedAt'], transaction });
+    const rows = await listRecipientDeliveries(noticeId, { transaction });
     if (rows.length === 0) return;
     const totalAttempts = noticeRetryPolicy.retryLimit + 1;
     const pending = (s: DeliveryStatus, attempts: number) => s === 'queued' || s === 'sending' || (s === 'failed' && attempts < totalAttempts);
@@ -85,17 +89,17 @@ export async function refreshNoticeStatus(noticeId: string) {
     if (rows.every((r) => r.status === 'sent')) status = 'sent';
     else if (rows.some((r) => !r.revokedAt && pending(r.status, r.attempts))) status = 'sending';
     else status = 'partly-failed';
-    if (locked.status !== status) await locked.update({ status }, { transaction });
+    if (locked.status !== status) await setNoticeStatus(noticeId, status, { transaction });
   });
 }
 
 /** Withdraws one copy's link; an unsent copy is not sent. */
 export async function revokeRecipient(actor: Actor, noticeId: string, recipientId: string) {
   const notice = await findNotice(actor, noticeId);
-  const recipient = await NoticeRecipient.findOne({ where: { id: recipientId, noticeId: notice.id } });
+  const recipient = await findRecipientOfNotice(notice.id, recipientId);
   if (!recipient) throw notFound('That recipient');
   await sequelize.transaction(async (transaction) => {
-    if (!recipient.revokedAt) await recipient.update({ revokedAt: new Date() }, { transaction });
+    if (!recipient.revokedAt) await revokeRecipientLink(recipient.id, { transaction });
     await recordAudit(actor, 'revoke-link', 'notice', notice.id, { recipientId }, transaction);
   });
   return getNotice(actor, noticeId);

@@ -1,7 +1,6 @@
 // One entry for the sprayer-ready files of a zone set: which file, its name and its bytes.
-import { QueryTypes } from 'sequelize';
 import type { ZoneSetView } from '../../../shared/schemas/zones.ts';
-import { sequelize } from '../../db.ts';
+import { findNoticeZoneSetRef } from '../../queries/notices.ts';
 import { notFound } from '../../errors.ts';
 import { exportFileName } from '../zone-export.ts';
 import { zoneSetInOrganisation } from '../zone-sets.ts';
@@ -33,10 +32,7 @@ export async function machineFile(zoneSet: ZoneSetView, kind: MachineFileKind): 
 
 /** The files of the zones a notice was sent with (for its e-mailed link and the grower's own page). */
 export async function noticeMachineFile(noticeId: string, kind: MachineFileKind): Promise<MachineFile> {
-  const [notice] = await sequelize.query<{ organisation_id: string; zone_set_id: string }>('SELECT organisation_id, zone_set_id FROM notices WHERE id = :id', {
-    replacements: { id: noticeId },
-    type: QueryTypes.SELECT,
-  });
+  const notice = await findNoticeZoneSetRef(noticeId);
   const zoneSet = notice ? await zoneSetInOrganisation(notice.organisation_id, notice.zone_set_id) : null;
   if (!zoneSet) throw notFound('The zones of that notice');
   return machineFile(zoneSet, kind);
