@@ -1,7 +1,6 @@
 // The adviser's home list: fields that need a look, for the adviser's own organisation only.
 import type { Actor } from '../auth/passport.ts';
 import { thresholdStatus } from '../../shared/thresholds/threshold-status.ts';
-import type { ThresholdBasis } from '../../shared/schemas/pests.ts';
 import type { AttentionField, AttentionResponse } from '../../shared/schemas/checks.ts';
 import { listUnacknowledgedNotices } from './notice-reading.ts';
 import { listWaitingGrowerQuestions } from './notice-questions.ts';

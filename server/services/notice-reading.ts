@@ -5,7 +5,7 @@ import * as notices from '../queries/notices.ts';
 import { listCopiesForEmail, listRecipientsOfNotice, type NoticeRecipientRow } from '../queries/notice-recipients.ts';
 import { notFound } from '../errors.ts';
 import { findVisibleField } from './fields.ts';
-import type { NoticeView, RecipientState, RecipientView, UnacknowledgedNotice, GrowerNoticeSummary, NoticeStatus } from '../../shared/schemas/notices.ts';
+import type { NoticeView, RecipientState, RecipientView, UnacknowledgedNotice, GrowerNoticeSummary } from '../../shared/schemas/notices.ts';
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
 

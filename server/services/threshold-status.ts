@@ -2,7 +2,6 @@
 import type { Actor } from '../auth/passport.ts';
 import { findVisibleField } from './fields.ts';
 import { thresholdStatus } from '../../shared/thresholds/threshold-status.ts';
-import type { ThresholdBasis } from '../../shared/schemas/pests.ts';
 import type { WalkThresholdStatus } from '../../shared/schemas/checks.ts';
 import { liveStopsByWalkAndPest, type StopRow } from '../queries/sightings.ts';
 
