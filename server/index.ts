@@ -6,14 +6,20 @@ import './jobs/all-workers.ts';
 import { closeSimulationPool } from './services/check-runner.ts';
 import { markStopping } from './services/readiness.ts';
 import { logger } from './logger.ts';
+import { workerMode } from './jobs/worker-mode.ts';
+import { startWorkerProcess } from './worker.ts';
 
 // Requests still running when this runs out are cut off, so a stuck one cannot hold a deploy for ever.
 const SHUTDOWN_GRACE_MS = Number(process.env.SHUTDOWN_GRACE_MS ?? 25_000);
 
-/** Starts the HTTP server and, unless WORKERS=off, the background workers in the same process. */
+/**
+ * Starts the HTTP server and, with WORKERS=all (the default), the background workers in the same process.
+ * The web part keeps nothing another process needs (sessions, limits, jobs and files live in PostgreSQL and storage),
+ * so any number of these run behind a balancer with WORKERS=none.
+ */
 export async function startServer(options: { port?: number; host?: string } = {}) {
   assertSafeForProduction();
-  if (process.env.WORKERS !== 'off') await startWorkers();
+  if (workerMode() === 'all') await startWorkers();
   const app = createApp();
   const server = await new Promise<import('node:http').Server>((resolve) => {
     const s = app.listen(options.port ?? config.port, options.host ?? '127.0.0.1', () => resolve(s));
@@ -38,8 +44,10 @@ export async function startServer(options: { port?: number; host?: string } = {}
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const running = await startServer();
-  logger.info({ url: config.publicUrl }, `Patchwise is serving on ${config.publicUrl}`);
+  // WORKERS=only: the same entry runs as a worker process with no HTTP (server/worker.ts does the same).
+  const running = workerMode() === 'only' ? await startWorkerProcess() : await startServer();
+  if ('server' in running) logger.info({ url: config.publicUrl }, `Patchwise is serving on ${config.publicUrl}`);
+  else logger.info({ workers: running.workers }, 'Patchwise workers are running');
   for (const signal of ['SIGINT', 'SIGTERM'] as const) {
     process.once(signal, () => {
       logger.info({ signal }, 'Stopping: finishing the requests in flight');
