@@ -1,7 +1,7 @@
 // Heavy pattern checks run here, off the request: a thin call into the check runner.
 import type PgBoss from 'pg-boss';
 import { defineWorker } from './workers.ts';
-import { queue } from './queue.ts';
+import { createQueueOnce, queue } from './queue.ts';
 import { runStoredCheck } from '../services/check-runner.ts';
 
 export const CHECK_QUEUE = 'pattern-check';
@@ -12,7 +12,7 @@ interface CheckJob {
 
 const created = new WeakMap<PgBoss, Promise<void>>();
 function ensureQueue(boss: PgBoss) {
-  if (!created.has(boss)) created.set(boss, boss.createQueue(CHECK_QUEUE));
+  if (!created.has(boss)) created.set(boss, createQueueOnce(boss, CHECK_QUEUE));
   return created.get(boss)!;
 }
 

@@ -25,3 +25,19 @@ export async function stopQueue() {
   starting = null;
   if (instance) await instance.stop({ graceful: true, wait: true, timeout: 10_000 });
 }
+
+// Creating a queue adds a partition to pg-boss's job table; two processes creating queues at the same moment (two
+// workers starting together) can deadlock, and PostgreSQL then fails one of them. The queue exists after either.
+const RETRIED_CODES = new Set(['40P01', '40001', '23505', '42P07']);
+
+/** boss.createQueue(), tried again when another process creating queues at the same time made it fail. */
+export async function createQueueOnce(boss: PgBoss, name: string, options?: PgBoss.Queue) {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await boss.createQueue(name, options);
+    } catch (error) {
+      if (attempt >= 5 || !RETRIED_CODES.has((error as { code?: string }).code ?? '')) throw error;
+      await new Promise((resolve) => setTimeout(resolve, 50 * attempt + Math.random() * 100));
+    }
+  }
+}

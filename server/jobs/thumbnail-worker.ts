@@ -1,6 +1,7 @@
 // Thumbnail jobs (one per uploaded photo) and hourly housekeeping: orphan files, the 30-day purge,
 // re-queuing thumbnails left pending. Each job is a thin call into a service.
 import { defineWorker } from './workers.ts';
+import { createQueueOnce } from './queue.ts';
 import { ensureThumbnailQueue, requestThumbnails, THUMBNAIL_QUEUE, thumbnailWorkerStarted } from '../services/thumbnail-queue.ts';
 import { makeThumbnail, stalePendingThumbnails } from '../services/thumbnails.ts';
 import { thumbnailThreads } from '../services/thumbnail-pool.ts';
@@ -36,7 +37,7 @@ defineWorker({
 defineWorker({
   name: HOUSEKEEPING_QUEUE,
   async start(boss) {
-    await boss.createQueue(HOUSEKEEPING_QUEUE, { name: HOUSEKEEPING_QUEUE, policy: 'singleton' });
+    await createQueueOnce(boss, HOUSEKEEPING_QUEUE, { name: HOUSEKEEPING_QUEUE, policy: 'singleton' });
     await boss.schedule(HOUSEKEEPING_QUEUE, '17 * * * *');
     await boss.work(HOUSEKEEPING_QUEUE, async () => {
       await photoHousekeeping();

@@ -15,7 +15,7 @@ import {
 } from '../queries/notice-recipients.ts';
 import { listContactsOfFieldFarm } from '../queries/farm-contacts.ts';
 import { badRequest, conflict, notFound } from '../errors.ts';
-import { queue } from '../jobs/queue.ts';
+import { createQueueOnce, queue } from '../jobs/queue.ts';
 import { recordAudit } from './audit.ts';
 import { findNotice, getNotice } from './notice-reading.ts';
 import { liveNoticeMaterial } from './notice-material.ts';
@@ -70,7 +70,7 @@ export async function sendNotice(actor: Actor, id: string) {
   });
   // Jobs go in after the commit so a worker always finds its recipient row.
   const boss = await queue();
-  await boss.createQueue(NOTICE_QUEUE);
+  await createQueueOnce(boss, NOTICE_QUEUE);
   for (const recipientId of toQueue) await boss.send(NOTICE_QUEUE, { recipientId }, { ...noticeRetryPolicy });
   return getNotice(actor, id);
 }

@@ -1,5 +1,5 @@
 // Hands photos to the thumbnail worker through the PostgreSQL-backed queue (pg-boss).
-import { queue } from '../jobs/queue.ts';
+import { createQueueOnce, queue } from '../jobs/queue.ts';
 
 export const THUMBNAIL_QUEUE = 'photo-thumbnail';
 let created: Promise<void> | null = null;
@@ -10,7 +10,7 @@ export const thumbnailWorkerStarted = (workerId: string) => void localWorkers.ad
 
 export async function ensureThumbnailQueue() {
   const boss = await queue();
-  created ??= boss.createQueue(THUMBNAIL_QUEUE, { name: THUMBNAIL_QUEUE, retryLimit: 2, retryDelay: 5, expireInSeconds: 300 }).catch((error) => {
+  created ??= createQueueOnce(boss, THUMBNAIL_QUEUE, { name: THUMBNAIL_QUEUE, retryLimit: 2, retryDelay: 5, expireInSeconds: 300 }).catch((error) => {
     created = null;
     throw error;
   });

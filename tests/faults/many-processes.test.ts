@@ -9,6 +9,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { sequelize } from '../../server/db.ts';
 import { stopQueue } from '../../server/jobs/queue.ts';
+import { removeOrphanFiles } from '../../server/services/orphan-cleanup.ts';
 import { photoFilePart } from '../../shared/schemas/sightings.ts';
 import { freePort } from '../../scripts/lib/free-port.ts';
 import { startBehindBalancer, type Balancer } from '../../scripts/lib/web-balancer.ts';
@@ -17,7 +18,7 @@ import { makeOrganisation } from '../helpers/org.ts';
 import { messagesTo } from '../helpers/mailbox.ts';
 import { insideField, makeJpeg, scoutingSetUp, uploadedFiles } from '../helpers/photos.ts';
 import { acceptProposedZones, addContacts, makeCheckedField } from '../helpers/zones.ts';
-import { killHard, reapChildren, startModule, until } from './fixtures/child-processes.ts';
+import { hasExited, killHard, reapChildren, startModule, until } from './fixtures/child-processes.ts';
 import { signInBalanced, withClientRetries, type Answer } from './fixtures/connection-per-request.ts';
 
 const PHOTOS = 12;
@@ -84,8 +85,12 @@ describe('many web and worker processes on one database', () => {
 
     const started = await startBehindBalancer(2, () => startWeb());
     balancer = started.balancer;
-    const [webA] = started.processes;
-    const [workerA] = [startWorker(), startWorker()];
+    const [webA, webB] = started.processes;
+    const [workerA, workerB] = [startWorker(), startWorker()];
+    // The survivors must stay up on their own: a process that dies unasked fails the test at once.
+    const survivorsUp = () => {
+      if (hasExited(webB.child) || hasExited(workerB)) throw new Error('a web or worker process that was not killed has exited');
+    };
     const adviser = await signInBalanced(balancer.baseUrl, noticeOrg.users.adviser.email);
     const scout = await signInBalanced(balancer.baseUrl, upload.org.users.scout.email);
 
@@ -129,6 +134,7 @@ describe('many web and worker processes on one database', () => {
     });
     await killHard(workerA);
     await Promise.all(lanes);
+    survivorsUp();
 
     // Every photo's outcome, by its client id: placed the first time, or a duplicate of the one sighting when a
     // retried request had already been stored before its connection was cut.
@@ -147,7 +153,9 @@ describe('many web and worker processes on one database', () => {
     expect(new Map(perPhoto.map((r) => [r.sha, r.sightings]))).toEqual(new Map(photos.map((p) => [sha(p), 1])));
 
     // The killed worker's jobs come back once they expire; the survivor finishes them and the rest.
+    let lastSeen = '';
     const stored = await until('every thumbnail, both checks and every copy settled', async () => {
+      survivorsUp();
       await hurryJobs();
       const thumbnails = await one<{ status: string; storage_key: string; thumbnail_key: string | null }>(
         'SELECT thumbnail_status AS status, storage_key, thumbnail_key FROM photos WHERE organisation_id = :org',
@@ -165,12 +173,23 @@ describe('many web and worker processes on one database', () => {
         { replacements: { noticeId } },
       );
       const [notice] = await one<{ status: string }>('SELECT status FROM notices WHERE id = :noticeId', { noticeId });
+      const copyStates = await one<{ status: string }>('SELECT status FROM notice_recipients WHERE notice_id = :noticeId', { noticeId });
+      const jobs = await one<{ name: string; state: string; n: number }>(
+        'SELECT name, state, count(*)::int AS n FROM pgboss.job WHERE name IN (:queues) GROUP BY name, state',
+        { queues: QUEUES },
+      );
+      lastSeen = JSON.stringify({ thumbnails: thumbnails.map((t) => t.status), checks, notice, copyStates, jobs });
       const settled =
         thumbnails.length === PHOTOS && thumbnails.every((t) => t.status === 'ready') && checks.every((c) => c.status === 'done') && notice.status === 'sent';
       return settled ? { thumbnails, checks } : null;
-    }, 240_000);
+    }, 120_000).catch((error: Error) => {
+      throw new Error(`${error.message}; last seen ${lastSeen}`);
+    });
 
-    // One thumbnail file per photo, beside its original, and nothing else of this organisation's in storage.
+    // One thumbnail file per photo, beside its original, and nothing else of this organisation's in storage once the
+    // hourly housekeeping has run (now, without its 15-minute grace): a photo cut off between its file and its row
+    // leaves only a file no row names.
+    await removeOrphanFiles({ graceMs: 0 });
     const files = uploadedFiles()
       .map((f) => f.split(path.sep).join('/'))
       .filter((f) => f.startsWith(`${upload.org.id}/`));
