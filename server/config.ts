@@ -1,5 +1,6 @@
 // Configuration from environment variables, with safe defaults for local use only.
 import path from 'node:path';
+import { replicaUrlsFrom } from './db-replication.ts';
 
 export const DEFAULT_SESSION_SECRET = 'patchwise-local-development-secret';
 
@@ -37,6 +38,8 @@ function readConfig(env: NodeJS.ProcessEnv = process.env) {
     isTest: env.NODE_ENV === 'test' || env.VITEST === 'true',
     port,
     databaseUrl: env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/patchwise',
+    // Read replicas (comma-separated URLs): plain reads outside transactions go there, everything else to DATABASE_URL.
+    databaseReplicaUrls: replicaUrlsFrom(env.DATABASE_REPLICA_URLS),
     smtpUrl: env.SMTP_URL ?? 'smtp://127.0.0.1:2525',
     mailFrom: env.MAIL_FROM ?? 'Patchwise <notices@patchwise.local>',
     publicUrl: (env.PUBLIC_URL ?? `http://127.0.0.1:${port}`).replace(/\/$/, ''),
