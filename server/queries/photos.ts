@@ -89,3 +89,13 @@ export const listStalePendingThumbnails = async (olderThanMinutes: number) =>
       { olderThanMinutes },
     )
   ).map((r) => r.id);
+
+/** Of these photos, the ones whose thumbnail is still to be made. */
+export const photosAwaitingThumbnail = async (photoIds: string[]) =>
+  photoIds.length === 0
+    ? []
+    : (
+        await selectRows<{ id: string }>(`SELECT id FROM photos WHERE id = ANY(CAST(:photoIds AS uuid[])) AND thumbnail_status = 'pending'`, {
+          photoIds: `{${photoIds.join(',')}}`,
+        })
+      ).map((r) => r.id);

@@ -16,7 +16,7 @@ import { newStorageKey, removeStored, writeStored } from './storage.ts';
 import { requestThumbnails } from './thumbnail-queue.ts';
 import type { PhotoMimeType } from './photo-type.ts';
 import { findPestInOrganisation } from '../queries/pests.ts';
-import { insertPhoto } from '../queries/photos.ts';
+import { insertPhoto, photosAwaitingThumbnail } from '../queries/photos.ts';
 import { findSightingOfPhotoHash, insertPhotoSighting } from '../queries/sightings.ts';
 
 export interface IncomingPhoto {
@@ -259,6 +259,12 @@ export async function ingestPhotos(actor: Actor, request: IngestRequest, photos:
       results.push({ ...head, outcome: 'rejected', message: 'Patchwise could not save this photo just now; nothing was kept. Send it again.' });
     }
   }
-  await requestThumbnails(results.filter((r) => r.photoId && (r.outcome === 'placed' || r.outcome === 'needs-pin')).map((r) => r.photoId!));
+  const stored = results.filter((r) => r.photoId && (r.outcome === 'placed' || r.outcome === 'needs-pin')).map((r) => r.photoId!);
+  // A batch sent again after its connection was cut: photos stored by a process that died before queuing their
+  // thumbnails come back as duplicates, and get their thumbnails queued now instead of at the next housekeeping.
+  const duplicates = results.filter((r) => r.photoId && r.outcome === 'duplicate').map((r) => r.photoId!);
+  // Like queuing itself, a failed look-up only delays them (housekeeping re-queues photos left pending).
+  const resent = await photosAwaitingThumbnail(duplicates).catch(() => []);
+  await requestThumbnails([...stored, ...resent]);
   return results;
 }
