@@ -24,6 +24,8 @@ declare module 'autocannon' {
   export interface Result {
     connections: number;
     requests: { total: number; average: number };
+    /** Milliseconds. */
+    latency: { average: number; p50: number; p99: number };
     non2xx: number;
     errors: number;
     timeouts: number;

@@ -13,6 +13,7 @@ import { photoForm } from './lib/photo-bodies.ts';
 import { signInForBench, type BenchSession } from './lib/bench-session.ts';
 import { startLoadServer, type LoadServer, type ServerMemory } from './lib/load-server-process.ts';
 import { memoryTrend } from './lib/memory-trend.ts';
+import { webProcessScaling } from './lib/load-scale.ts';
 import type { BenchTable } from './table.ts';
 
 const READERS_PER_ROUTE = 10;
@@ -285,7 +286,16 @@ export async function run(): Promise<BenchTable[]> {
         verdict: t.verdict,
       })),
     };
-    return [latency, memory, verdict];
+    // The single server's figures are in; its processes make way for the one-versus-two run.
+    await server.stop();
+    server = null;
+    const scaling = await webProcessScaling(
+      process.env,
+      readRoutes.map((r) => r.path),
+      adviser.cookie,
+      Math.min(seconds, 20),
+    );
+    return [latency, memory, verdict, scaling];
   } finally {
     await server?.stop();
     database.dispose();

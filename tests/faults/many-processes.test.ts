@@ -59,7 +59,9 @@ async function uploadBody(photos: Buffer[], clientIds: string[], fields: Record<
 
 /** Stands in for the minutes pg-boss waits before it gives up on a silent worker, and for the retry back-off. */
 async function hurryJobs() {
-  await sequelize.query(`UPDATE pgboss.job SET expire_in = interval '1 second' WHERE name IN (:queues) AND state = 'active'`, { replacements: { queues: QUEUES } });
+  await sequelize.query(`UPDATE pgboss.job SET expire_in = interval '1 second' WHERE name IN (:queues) AND state = 'active'`, {
+    replacements: { queues: QUEUES },
+  });
   await sequelize.query(`UPDATE pgboss.job SET start_after = now() WHERE name IN (:queues) AND state = 'retry'`, { replacements: { queues: QUEUES } });
 }
 
@@ -97,7 +99,9 @@ describe('many web and worker processes on one database', () => {
     // Checks through both web processes: each asked twice at once, a quick one (run in the web process) and one
     // large enough for the queue (run by a worker).
     const checkRequests = [99, 2999].flatMap((simulations) =>
-      [0, 1].map(() => adviser.request('POST', '/api/checks', { json: { fieldId: scouted.field.id, pestId: scouted.pest.id, options: { simulations, seed: 7 } } })),
+      [0, 1].map(() =>
+        adviser.request('POST', '/api/checks', { json: { fieldId: scouted.field.id, pestId: scouted.pest.id, options: { simulations, seed: 7 } } }),
+      ),
     );
     const checkAnswers = await Promise.all(checkRequests);
     for (const answer of checkAnswers) expect([200, 201, 202], JSON.stringify(answer.body).slice(0, 200)).toContain(answer.status);
@@ -154,35 +158,39 @@ describe('many web and worker processes on one database', () => {
 
     // The killed worker's jobs come back once they expire; the survivor finishes them and the rest.
     let lastSeen = '';
-    const stored = await until('every thumbnail, both checks and every copy settled', async () => {
-      survivorsUp();
-      await hurryJobs();
-      const thumbnails = await one<{ status: string; storage_key: string; thumbnail_key: string | null }>(
-        'SELECT thumbnail_status AS status, storage_key, thumbnail_key FROM photos WHERE organisation_id = :org',
-        { org: upload.org.id },
-      );
-      const checks = await one<{ status: string }>('SELECT status FROM pattern_checks WHERE field_id = :fieldId AND id <> :setUpCheck', {
-        fieldId: scouted.field.id,
-        setUpCheck: scouted.checkId,
-      });
-      // A copy still marked 'sending' with no SMTP acceptance was the killed worker's (the catcher answers at once):
-      // its mark is aged past the 15 minutes after which deliverNoticeCopy counts it a dead attempt.
-      await sequelize.query(
-        `UPDATE notice_recipients SET updated_at = now() - interval '1 hour'
+    const stored = await until(
+      'every thumbnail, both checks and every copy settled',
+      async () => {
+        survivorsUp();
+        await hurryJobs();
+        const thumbnails = await one<{ status: string; storage_key: string; thumbnail_key: string | null }>(
+          'SELECT thumbnail_status AS status, storage_key, thumbnail_key FROM photos WHERE organisation_id = :org',
+          { org: upload.org.id },
+        );
+        const checks = await one<{ status: string }>('SELECT status FROM pattern_checks WHERE field_id = :fieldId AND id <> :setUpCheck', {
+          fieldId: scouted.field.id,
+          setUpCheck: scouted.checkId,
+        });
+        // A copy still marked 'sending' with no SMTP acceptance was the killed worker's (the catcher answers at once):
+        // its mark is aged past the 15 minutes after which deliverNoticeCopy counts it a dead attempt.
+        await sequelize.query(
+          `UPDATE notice_recipients SET updated_at = now() - interval '1 hour'
           WHERE notice_id = :noticeId AND status = 'sending' AND smtp_accepted_at IS NULL AND updated_at < now() - interval '20 seconds'`,
-        { replacements: { noticeId } },
-      );
-      const [notice] = await one<{ status: string }>('SELECT status FROM notices WHERE id = :noticeId', { noticeId });
-      const copyStates = await one<{ status: string }>('SELECT status FROM notice_recipients WHERE notice_id = :noticeId', { noticeId });
-      const jobs = await one<{ name: string; state: string; n: number }>(
-        'SELECT name, state, count(*)::int AS n FROM pgboss.job WHERE name IN (:queues) GROUP BY name, state',
-        { queues: QUEUES },
-      );
-      lastSeen = JSON.stringify({ thumbnails: thumbnails.map((t) => t.status), checks, notice, copyStates, jobs });
-      const settled =
-        thumbnails.length === PHOTOS && thumbnails.every((t) => t.status === 'ready') && checks.every((c) => c.status === 'done') && notice.status === 'sent';
-      return settled ? { thumbnails, checks } : null;
-    }, 120_000).catch((error: Error) => {
+          { replacements: { noticeId } },
+        );
+        const [notice] = await one<{ status: string }>('SELECT status FROM notices WHERE id = :noticeId', { noticeId });
+        const copyStates = await one<{ status: string }>('SELECT status FROM notice_recipients WHERE notice_id = :noticeId', { noticeId });
+        const jobs = await one<{ name: string; state: string; n: number }>(
+          'SELECT name, state, count(*)::int AS n FROM pgboss.job WHERE name IN (:queues) GROUP BY name, state',
+          { queues: QUEUES },
+        );
+        lastSeen = JSON.stringify({ thumbnails: thumbnails.map((t) => t.status), checks, notice, copyStates, jobs });
+        const settled =
+          thumbnails.length === PHOTOS && thumbnails.every((t) => t.status === 'ready') && checks.every((c) => c.status === 'done') && notice.status === 'sent';
+        return settled ? { thumbnails, checks } : null;
+      },
+      120_000,
+    ).catch((error: Error) => {
       throw new Error(`${error.message}; last seen ${lastSeen}`);
     });
 
@@ -197,11 +205,16 @@ describe('many web and worker processes on one database', () => {
     // One stored check per set of inputs, however many processes were asked and whichever died.
     expect(stored.checks).toHaveLength(2);
     // Exactly one e-mail per recipient at the mail catcher, carrying the Message-ID fixed when the copy was queued.
-    const copies = await one<{ email: string; message_id: string }>('SELECT email, message_id FROM notice_recipients WHERE notice_id = :noticeId', { noticeId });
+    const copies = await one<{ email: string; message_id: string }>('SELECT email, message_id FROM notice_recipients WHERE notice_id = :noticeId', {
+      noticeId,
+    });
     expect(copies.map((c) => c.email).sort()).toEqual(recipients.map((r) => r.email).sort());
     for (const copy of copies) {
       const received = await messagesTo(copy.email);
-      expect(received.map((m) => m.messageId), copy.email).toEqual([copy.message_id]);
+      expect(
+        received.map((m) => m.messageId),
+        copy.email,
+      ).toEqual([copy.message_id]);
     }
     // Both web processes took connections before the kill.
     expect(balancer.connections().every((n) => n > 0)).toBe(true);
