@@ -18,6 +18,8 @@ import {
   uploadPhotos,
   withExif,
 } from '../helpers/photos.ts';
+import { QueryTypes } from 'sequelize';
+import { sequelize } from '../../server/db.ts';
 import { stopQueue } from '../../server/jobs/queue.ts';
 import { startWorkers } from '../../server/jobs/workers.ts';
 import '../../server/jobs/thumbnail-worker.ts';
@@ -390,6 +392,30 @@ describe('storage and thumbnails', () => {
     expect(await makeThumbnail(res.body.results[0].photoId)).toMatchObject({ status: 'failed' });
     const sighting = await scout.get(`/api/sightings/${res.body.results[0].sightingId}`).expect(200);
     expect(sighting.body.sighting).toMatchObject({ thumbnailStatus: 'failed', status: 'placed' });
+  });
+
+  it('a batch sent again queues the thumbnail a stored photo lost with its process', async () => {
+    const { scout, pest } = await scoutingSetUp();
+    const bytes = await makeJpeg({ gps: insideField(0.3, 0.6), markSeed: 777 });
+    const first = await uploadPhotos(scout, [{ bytes }], { pestId: pest.id }).expect(200);
+    const photoId = first.body.results[0].photoId as string;
+    const jobs = async () => {
+      const [row] = await sequelize.query<{ n: number }>(
+        `SELECT count(*)::int AS n FROM pgboss.job WHERE name = 'photo-thumbnail' AND data->>'photoId' = :photoId`,
+        {
+          replacements: { photoId },
+          type: QueryTypes.SELECT,
+        },
+      );
+      return row.n;
+    };
+    // As if the process had died after committing the photo and before queuing its thumbnail.
+    await sequelize.query(`DELETE FROM pgboss.job WHERE name = 'photo-thumbnail' AND data->>'photoId' = :photoId`, { replacements: { photoId } });
+    expect(await jobs()).toBe(0);
+
+    const again = await uploadPhotos(scout, [{ bytes }], { pestId: pest.id }).expect(200);
+    expect(again.body.results[0]).toMatchObject({ outcome: 'duplicate', photoId });
+    expect(await jobs()).toBe(1);
   });
 
   it('the queued job makes the thumbnail once workers run', async () => {
