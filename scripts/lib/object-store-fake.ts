@@ -6,7 +6,13 @@ export const FAKE_BUCKET = 'patchwise-test';
 export const FAKE_CREDENTIALS = { AWS_ACCESS_KEY_ID: 'S3RVER', AWS_SECRET_ACCESS_KEY: 'S3RVER' };
 
 export async function startObjectStoreFake(options: { port: number; directory: string }) {
-  const server = new S3rver({ address: '127.0.0.1', port: options.port, directory: options.directory, silent: true, configureBuckets: [{ name: FAKE_BUCKET }] });
+  const server = new S3rver({
+    address: '127.0.0.1',
+    port: options.port,
+    directory: options.directory,
+    silent: true,
+    configureBuckets: [{ name: FAKE_BUCKET }],
+  });
   await server.run();
   return {
     /** STORAGE_URL for the fake's bucket. */

@@ -88,13 +88,13 @@ photosRouter.post(
 function sendPhoto(variant: PhotoVariant): RequestHandler {
   return async (req, res, next) => {
     const file = await photoFileFor(actor(req), parse(idParam, req.params).id, variant);
+    // Streamed through the app after the access check: the store itself is never public.
+    const opened = await openStored(file.key);
+    if (!opened) return next(new AppError(404, 'not_found', 'That photo file is missing from storage.'));
     // Private pictures: no shared cache keeps them, and the browser does not keep them past sign-out (RFC 9111 §5.2.2.5).
     res.setHeader('Cache-Control', 'private, no-store');
     res.setHeader('Content-Type', file.mimeType);
     res.setHeader('X-Content-Type-Options', 'nosniff');
-    // Streamed through the app after the access check: the store itself is never public.
-    const opened = await openStored(file.key);
-    if (!opened) return next(new AppError(404, 'not_found', 'That photo file is missing from storage.'));
     res.setHeader('Content-Length', String(opened.size));
     pipeline(opened.stream, res).catch(() => res.destroy());
   };

@@ -4,8 +4,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 export type StorageLocation =
-  | { driver: 'file'; root: string }
-  | { driver: 's3'; bucket: string; prefix: string; endpoint: string | null; region: string; forcePathStyle: boolean };
+  { driver: 'file'; root: string } | { driver: 's3'; bucket: string; prefix: string; endpoint: string | null; region: string; forcePathStyle: boolean };
 
 const fail = (value: string, why: string): never => {
   throw new Error(`STORAGE_URL “${value}” ${why}`);
@@ -30,7 +29,8 @@ export function parseStorageUrl(value: string | undefined, uploadDir: string): S
   if (!/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/.test(bucket)) fail(value, 'needs a bucket name of 3–63 lower-case letters, digits, dots or hyphens after s3://.');
   if (url.username || url.password) fail(value, 'must not carry credentials; set AWS_ACCESS_KEY_ID and AWS_SECRET_ACCESS_KEY instead.');
   const known = new Set(['endpoint', 'region', 'forcePathStyle']);
-  for (const key of url.searchParams.keys()) if (!known.has(key)) fail(value, `has an unknown option “${key}”; the options are endpoint, region and forcePathStyle.`);
+  for (const key of url.searchParams.keys())
+    if (!known.has(key)) fail(value, `has an unknown option “${key}”; the options are endpoint, region and forcePathStyle.`);
   const endpoint = url.searchParams.get('endpoint');
   if (endpoint !== null) {
     let parsed: URL | null = null;
