@@ -33,7 +33,7 @@ export function parseStorageUrl(value: string | undefined, uploadDir: string): S
     if (!known.has(key)) fail(value, `has an unknown option “${key}”; the options are endpoint, region and forcePathStyle.`);
   const endpoint = url.searchParams.get('endpoint');
   if (endpoint !== null) {
-    let parsed: URL | null = null;
+    let parsed: URL | null;
     try {
       parsed = new URL(endpoint);
     } catch {
