@@ -9,6 +9,7 @@ import { clusterFor, databaseUrl, ensureDatabase, initCluster, reachableDataDir,
 import { freePort } from './lib/free-port.ts';
 import { projectRoot } from './lib/local-env.ts';
 import { testNeeds } from './lib/test-selection.ts';
+import { FAKE_CREDENTIALS, startObjectStoreFake } from './lib/object-store-fake.ts';
 
 process.chdir(projectRoot);
 const vitestArgs = process.argv.slice(2);
@@ -17,6 +18,7 @@ const workDir = fs.mkdtempSync(path.join(os.tmpdir(), 'patchwise-test-'));
 fs.chmodSync(workDir, 0o755);
 let cluster = null as Cluster | null;
 let catcher = null as { close(): Promise<void> } | null;
+let objectStore = null as { close(): Promise<void> } | null;
 
 function cleanUp() {
   try {
@@ -59,6 +61,11 @@ async function startDatabaseAndMail(env: NodeJS.ProcessEnv) {
   if (migrate.status !== 0) throw new Error('Migrations failed.');
   const { startMailCatcher } = await import('../server/mail/catcher.ts');
   catcher = await startMailCatcher({ port: smtpPort, databaseUrl: env.DATABASE_URL! });
+  // The S3 driver's suites store photos in a local fake; the others keep the upload folder (STORAGE_URL unset).
+  const fake = await startObjectStoreFake({ port: await freePort(), directory: path.join(workDir, 'object-store') });
+  objectStore = fake;
+  Object.assign(env, { TEST_S3_STORAGE_URL: fake.storageUrl, ...FAKE_CREDENTIALS });
+  Object.assign(process.env, env);
 }
 
 let exitCode: number;
@@ -106,11 +113,14 @@ try {
   exitCode = vitestCode === 0 && failed === 0 ? 0 : 1;
   await catcher?.close();
   catcher = null;
+  await objectStore?.close();
+  objectStore = null;
   cleanUp();
   console.log(`${summary?.passed ?? 0} passed, ${Math.max(failed, exitCode)} failed`);
 } catch (error) {
   console.error((error as Error).message);
   await catcher?.close().catch(() => {});
+  await objectStore?.close().catch(() => {});
   cleanUp();
   console.log('0 passed, 1 failed');
   exitCode = 1;

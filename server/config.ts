@@ -1,6 +1,7 @@
 // Configuration from environment variables, with safe defaults for local use only.
 import path from 'node:path';
 import { replicaUrlsFrom } from './db-replication.ts';
+import { parseStorageUrl } from './services/storage/storage-url.ts';
 
 export const DEFAULT_SESSION_SECRET = 'patchwise-local-development-secret';
 
@@ -46,6 +47,8 @@ function readConfig(env: NodeJS.ProcessEnv = process.env) {
     tileUrl: env.TILE_URL ?? 'https://tile.openstreetmap.org/{z}/{x}/{y}.png',
     sessionSecret: env.SESSION_SECRET ?? DEFAULT_SESSION_SECRET,
     uploadDir: path.resolve(env.UPLOAD_DIR ?? 'uploads'),
+    // Where photos live: the upload folder unless STORAGE_URL names another folder or a bucket.
+    storage: parseStorageUrl(env.STORAGE_URL, path.resolve(env.UPLOAD_DIR ?? 'uploads')),
     clientDir: path.resolve(env.CLIENT_DIR ?? 'dist'),
     signInLimitPerWindow: Number(env.SIGN_IN_LIMIT ?? 10),
     // Failed sign-ins per client address over every e-mail address, per 15 minutes (against guessing across accounts).

@@ -1,3 +1,4 @@
+import { pipeline } from 'node:stream/promises';
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
@@ -8,6 +9,7 @@ import { photoFilePart, photoUploadFieldsSchema } from '../../shared/schemas/sig
 import { photoLimits } from '../services/photo-limits.ts';
 import { ingestPhotos } from '../services/ingest.ts';
 import { photoFileFor, type PhotoVariant } from '../services/photo-files.ts';
+import { openStored } from '../services/storage.ts';
 
 export const photosRouter = Router();
 const idParam = z.object({ id: z.uuid({ error: 'That photo id is not valid.' }) });
@@ -86,13 +88,15 @@ photosRouter.post(
 function sendPhoto(variant: PhotoVariant): RequestHandler {
   return async (req, res, next) => {
     const file = await photoFileFor(actor(req), parse(idParam, req.params).id, variant);
+    // Streamed through the app after the access check: the store itself is never public.
+    const opened = await openStored(file.key);
+    if (!opened) return next(new AppError(404, 'not_found', 'That photo file is missing from storage.'));
     // Private pictures: no shared cache keeps them, and the browser does not keep them past sign-out (RFC 9111 §5.2.2.5).
     res.setHeader('Cache-Control', 'private, no-store');
     res.setHeader('Content-Type', file.mimeType);
     res.setHeader('X-Content-Type-Options', 'nosniff');
-    res.sendFile(file.path, { dotfiles: 'deny', cacheControl: false, lastModified: false, headers: { 'Content-Type': file.mimeType } }, (error) => {
-      if (error && !res.headersSent) next(new AppError(404, 'not_found', 'That photo file is missing from storage.'));
-    });
+    res.setHeader('Content-Length', String(opened.size));
+    pipeline(opened.stream, res).catch(() => res.destroy());
   };
 }
 

@@ -1,8 +1,7 @@
 // Removes files that no committed photo row names: left by a crash between the file write and the commit,
 // or by a temp file whose rename never happened. Files younger than the grace period may still be mid-upload.
 import { findKnownFileKeys } from '../queries/photos.ts';
-import { listStoredFiles } from './storage.ts';
-import fs from 'node:fs/promises';
+import { listStoredFiles, removeListedFile } from './storage.ts';
 
 export const ORPHAN_GRACE_MS = 15 * 60_000;
 
@@ -17,7 +16,7 @@ export async function removeOrphanFiles(options: { graceMs?: number; now?: Date 
   const removed: string[] = [];
   for (const file of candidates) {
     if (file.key && known.has(file.key)) continue;
-    await fs.rm(file.path, { force: true });
+    await removeListedFile(file);
     removed.push(file.path);
   }
   return { removed };

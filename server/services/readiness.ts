@@ -1,7 +1,7 @@
 // Whether this process can serve: its database answers, its photo storage takes writes, and it is not stopping.
-import fs from 'node:fs/promises';
 import { pingDatabase } from '../db.ts';
-import { storageRoot } from './storage.ts';
+import { config } from '../config.ts';
+import { storageReachable } from './storage.ts';
 
 let stopping = false;
 
@@ -23,11 +23,10 @@ async function databaseCheck(): Promise<Check> {
 
 async function storageCheck(): Promise<Check> {
   try {
-    await fs.mkdir(storageRoot(), { recursive: true });
-    await fs.access(storageRoot(), fs.constants.W_OK);
+    await storageReachable();
     return 'ok';
   } catch {
-    return 'the photo storage folder cannot be written';
+    return config.storage.driver === 'file' ? 'the photo storage folder cannot be written' : 'the photo storage bucket does not answer';
   }
 }
 

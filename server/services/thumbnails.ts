@@ -1,6 +1,6 @@
 // Makes and stores one photo's thumbnail; a photo that cannot be decoded is marked failed, its sighting kept.
 import { findPhotoForThumbnail, listStalePendingThumbnails, markThumbnailFailed, markThumbnailReady } from '../queries/photos.ts';
-import { storedPath, thumbnailKeyFor, writeStored } from './storage.ts';
+import { photoStore, readStored, thumbnailKeyFor, writeStored } from './storage.ts';
 import { renderInPool } from './thumbnail-pool.ts';
 
 export type ThumbnailResult = { status: 'ready'; source: 'embedded' | 'decoded' } | { status: 'failed'; reason: string } | { status: 'skipped' };
@@ -12,7 +12,11 @@ export async function makeThumbnail(photoId: string): Promise<ThumbnailResult> {
   const orientation = Number(photo.exif?.Orientation ?? 1) || 1;
   let rendered;
   try {
-    rendered = await renderInPool({ path: storedPath(photo.storageKey), mimeType: photo.mimeType, orientation });
+    // A local file is read by the render thread itself; an object is fetched here and handed over.
+    const local = photoStore().localPath(photo.storageKey);
+    rendered = await renderInPool(
+      local ? { path: local, mimeType: photo.mimeType, orientation } : { bytes: await readStored(photo.storageKey), mimeType: photo.mimeType, orientation },
+    );
   } catch (error) {
     const reason = (error as Error).message?.slice(0, 500) || 'The photo could not be decoded.';
     await markThumbnailFailed(photoId, reason);
