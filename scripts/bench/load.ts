@@ -14,9 +14,13 @@ import { signInForBench, type BenchSession } from './lib/bench-session.ts';
 import { startLoadServer, type LoadServer, type ServerMemory } from './lib/load-server-process.ts';
 import { memoryTrend } from './lib/memory-trend.ts';
 import { webProcessScaling } from './lib/load-scale.ts';
+import { loadRoutes, type BenchRoute, type RouteFigures } from './lib/route-load.ts';
+import { recordAnswer, startFloorProcess, type RecordedAnswer } from './lib/floor-server.ts';
 import type { BenchTable } from './table.ts';
 
 const READERS_PER_ROUTE = 10;
+/** Connections on one route at a time in the beside-the-floor table. */
+const SOLO_CONNECTIONS = 50;
 const UPLOADERS = 10;
 const BASE_PHOTOS = 24;
 /** Each sample forces a full GC in the server (a pause of its event loop), so not more often than this. */
@@ -110,6 +114,44 @@ function sampleMemoryEvery(server: LoadServer, startedAt: number) {
   };
 }
 
+const ms = (v: number) => (Number.isNaN(v) ? '' : fixed(v));
+
+/**
+ * Each read route alone at SOLO_CONNECTIONS connections, signed in, against the app, and the same paths against a
+ * bare node:http server in a process of its own answering the bytes the app gave (the floor). Same run, same machine.
+ */
+async function besideTheFloor(baseUrl: string, routes: BenchRoute[], headers: Record<string, string>): Promise<BenchTable> {
+  const seconds = Number(process.env.BENCH_SOLO_SECONDS ?? 5);
+  const answers = new Map<string, RecordedAnswer>();
+  for (const route of routes) answers.set(route.path, await recordAnswer(baseUrl, route.path, headers));
+  const floor = await startFloorProcess(answers);
+  let floorFigures: RouteFigures[];
+  try {
+    floorFigures = await loadRoutes(floor.baseUrl, routes, { seconds, connections: SOLO_CONNECTIONS });
+  } finally {
+    await floor.stop();
+  }
+  const appFigures = await loadRoutes(baseUrl, routes, { seconds, connections: SOLO_CONNECTIONS, headers });
+  return {
+    title: `Reads beside the floor: each route alone, ${SOLO_CONNECTIONS} connections, ${seconds} s, signed in, gzip accepted (floor = bare node:http answering the same bytes, in its own process)`,
+    rows: appFigures.map((app, i) => {
+      const bare = floorFigures[i];
+      return {
+        route: app.label,
+        'answer bytes': answers.get(routes[i].path)!.body.length,
+        'floor req/s': fixed(bare.reqPerSec),
+        'floor p95 ms': ms(bare.p95),
+        'app req/s': fixed(app.reqPerSec),
+        'app p50 ms': ms(app.p50),
+        'app p95 ms': ms(app.p95),
+        'app p99 ms': ms(app.p99),
+        'of floor %': fixed((100 * app.reqPerSec) / bare.reqPerSec),
+        'errors + non-2xx': app.errors + app.non2xx,
+      };
+    }),
+  };
+}
+
 export async function run(): Promise<BenchTable[]> {
   const seconds = Number(process.env.BENCH_LOAD_SECONDS ?? 60);
   if (!Number.isFinite(seconds) || seconds <= 0) throw new Error('BENCH_LOAD_SECONDS must be a positive number of seconds.');
@@ -163,6 +205,10 @@ export async function run(): Promise<BenchTable[]> {
     // list would otherwise grow tenfold in a minute, and its latency and in-flight memory with it, which is not a leak.
     const form = photoForm(basePhotos, { fieldId: ids.fields.even, pestId, count: '3' });
 
+    const solo = await besideTheFloor(baseUrl, [...readRoutes, { label: 'GET /api/config', path: '/api/config' }], {
+      cookie: adviser.cookie,
+      'accept-encoding': 'gzip',
+    });
     const loads: RouteLoad[] = [];
     const start = (label: string, options: Omit<LoadOptions, 'url'>) => {
       const load: RouteLoad = { label, latencies: [], outcomes: new Map() };
@@ -295,7 +341,7 @@ export async function run(): Promise<BenchTable[]> {
       adviser.cookie,
       Math.min(seconds, 20),
     );
-    return [latency, memory, verdict, scaling];
+    return [solo, latency, memory, verdict, scaling];
   } finally {
     await server?.stop();
     database.dispose();

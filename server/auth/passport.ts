@@ -1,6 +1,6 @@
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
-import { findUser, findUserByEmail, type UserRow } from '../queries/users.ts';
+import { findActiveActor, findUserByEmail, type UserRow } from '../queries/users.ts';
 import { verifyPassword } from './passwords.ts';
 import type { Role } from '../../shared/schemas/roles.ts';
 
@@ -43,11 +43,11 @@ passport.use(
 
 passport.serializeUser((actor, done) => done(null, actor.id));
 
-// Reload the user on every request so a deactivated account or a changed role takes effect at once.
+// Reload the user on every request so a deactivated account or a changed role takes effect at once: no cache to go
+// stale across processes, one indexed read of five columns through the raw pool.
 passport.deserializeUser(async (id: string, done) => {
   try {
-    const user = await findUser(id);
-    done(null, user && user.active ? actorOf(user) : false);
+    done(null, (await findActiveActor(id)) ?? false);
   } catch (error) {
     done(error);
   }

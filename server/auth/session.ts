@@ -16,7 +16,9 @@ export const sessionCookieOptions = (c: SessionConfig = config): session.CookieO
 });
 
 export function sessionMiddleware(pool: pg.Pool, c: SessionConfig = config) {
-  const store = new PgStore({ pool, tableName: 'session', pruneSessionInterval: c.isTest ? false : 15 * 60 });
+  // disableTouch: with rolling off a session ends a working day after sign-in, so its row's expiry never moves; without it
+  // express-session touches the store (an UPDATE) on every request that did not change the session.
+  const store = new PgStore({ pool, tableName: 'session', pruneSessionInterval: c.isTest ? false : 15 * 60, disableTouch: true });
   // Without a listener the store's own connection errors (a database restart) would be thrown as unhandled events.
   store.on?.('error', () => {});
   return session({
@@ -25,7 +27,7 @@ export function sessionMiddleware(pool: pg.Pool, c: SessionConfig = config) {
     store,
     resave: false,
     saveUninitialized: false,
-    // A session lasts one working day from sign-in; not rolling it spares every read a session UPDATE.
+    // A session lasts one working day from sign-in.
     rolling: false,
     cookie: sessionCookieOptions(c),
   });

@@ -1,5 +1,6 @@
 import type { Role } from '../../shared/schemas/roles.ts';
 import { selectRow, selectRows, type InTransaction } from './sql.ts';
+import { queryPool } from './pool.ts';
 
 export interface UserRow {
   id: string;
@@ -66,3 +67,22 @@ export const updateUser = async (id: string, changes: UserChanges, options: InTr
     options,
   ))!;
 };
+
+export interface ActorRow {
+  id: string;
+  organisationId: string;
+  role: Role;
+  name: string;
+  email: string;
+}
+
+/**
+ * The signed-in user behind a session, or null when the account is gone or deactivated: one indexed read of five
+ * columns per request, straight on the pg pool, since Sequelize's query path costs more than the query itself.
+ */
+export async function findActiveActor(id: string): Promise<ActorRow | null> {
+  const { rows } = await queryPool.query<ActorRow>(`SELECT id, organisation_id AS "organisationId", role, name, email FROM users WHERE id = $1 AND active`, [
+    id,
+  ]);
+  return rows[0] ?? null;
+}
