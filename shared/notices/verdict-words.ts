@@ -66,7 +66,8 @@ export function verdictInWords(result: unknown): VerdictWords {
     figures.push(`Clark–Evans R = ${nearest.R.toFixed(2)} (no edge correction; a value, not evidence).`);
     if (typeof r.spread.alpha === 'number') figures.push(`Significance level α = ${r.spread.alpha}.`);
     for (const warning of r.coverage?.warnings ?? []) figures.push(warning);
-    return { spread: verdict, plain: `${r.spread.headline}.`, headline: `${r.spread.headline}.`, figures };
+    const sentence = `${r.spread.headline.replace(/\.+$/, '')}.`;
+    return { spread: verdict, plain: sentence, headline: sentence, figures };
   }
   const monteCarlo = r.spread.decidedBy === 'monte-carlo' && nearest.monteCarlo?.pValue != null;
   const p = monteCarlo ? (nearest.monteCarlo!.pValue as number) : (nearest.donnelly?.pValue ?? nearest.pValue);
