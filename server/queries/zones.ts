@@ -94,3 +94,24 @@ export function listZoneStopFigures(zoneSet: { id: string; fieldId: string; pest
     { ids: `{${(sightingIds ?? []).join(',')}}`, fieldId: zoneSet.fieldId, pestId: zoneSet.pestId, zoneSetId: zoneSet.id },
   );
 }
+
+export interface ZoneCountRow {
+  zone_id: string;
+  /** Live sightings with a count inside the zone, empty stops (count 0) included. */
+  counted: number;
+  /** Their mean count, null when none has a count. */
+  mean_count: number | null;
+}
+
+/** The mean count per counted sighting inside each zone of a set: the check's own sightings when their ids are given, else the field's of the pest. */
+export const zoneMeanCounts = (params: { zoneSetId: string; sightingIds: string[] | null; fieldId: string; pestId: string }, options: InTransaction = {}) =>
+  selectRows<ZoneCountRow>(
+    `SELECT z.id AS zone_id, count(s.id)::int AS counted, avg(s.count)::float8 AS mean_count
+       FROM zones z
+       LEFT JOIN sightings s ON s.field_id = :fieldId AND s.pest_id = :pestId AND ${liveSighting('s')} AND s.count IS NOT NULL
+             AND (CAST(:ids AS uuid[]) IS NULL OR s.id = ANY(CAST(:ids AS uuid[]))) AND ST_Covers(z.geometry, s.position)
+      WHERE z.zone_set_id = :zoneSetId
+      GROUP BY z.id`,
+    { zoneSetId: params.zoneSetId, ids: params.sightingIds ? `{${params.sightingIds.join(',')}}` : null, fieldId: params.fieldId, pestId: params.pestId },
+    options,
+  );

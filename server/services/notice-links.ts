@@ -98,6 +98,7 @@ export async function noticePageContent(
     acknowledgedAt: reader.acknowledgedAt ? reader.acknowledgedAt.toISOString() : null,
     zonesGeoJson: material.zonesGeoJson,
     boundary: material.boundary,
+    sightings: material.sightings,
     mapPath: `${basePath}/map.png`,
     zoneFiles: noticeMachineFilePaths(basePath),
     questions,

@@ -18,6 +18,7 @@ import { noticeMaterial, type NoticeMaterial } from './notice-material.ts';
 import { refreshNoticeStatus } from './notice-sending.ts';
 import { MACHINE_FILE_CAUTION } from '../../shared/notices/cautions.ts';
 import { fromCornerText, latLonText } from '../../shared/notices/zone-location-words.ts';
+import { decisionText, thresholdSourceText, zoneEvidenceText } from '../../shared/notices/notice-words.ts';
 import { noticeMachineFilePaths } from './zone-files/zone-machine-files.ts';
 import type { NoticeContent } from '../../shared/schemas/notices.ts';
 
@@ -35,34 +36,43 @@ function walkDatesText(c: NoticeContent) {
   return c.walkDates.length ? c.walkDates.map(longDate).join(', ') : 'no walk recorded';
 }
 
+/** The statistics behind the verdict: the full headline (when it carries figures) and the check's figures. */
+function figuresBehind(c: NoticeContent) {
+  const plain = c.verdict.plain ?? c.verdict.headline;
+  return [...(plain === c.verdict.headline ? [] : [c.verdict.headline]), ...c.verdict.figures];
+}
+
 export function noticeText(c: NoticeContent, link: string): string {
   const rows = c.zones.map(
     (z) =>
       `  ${z.label}: ${ha(z.areaM2)} ha (${ac(z.areaM2)} ac), ${percent(z.shareOfField)} of the field, ${z.sightingsInside} sighting${z.sightingsInside === 1 ? '' : 's'}` +
       (z.location ? `; centre ${latLonText(z.location.centre)}, ${fromCornerText(z.location)}` : ''),
   );
+  const figures = figuresBehind(c);
   return [
     `Zone notice from ${c.organisationName}`,
+    `${c.pestName} on ${c.fieldName}, ${c.farmName}`,
     '',
-    `Farm: ${c.farmName}`,
-    `Field: ${c.fieldName} (${ha(c.fieldAreaM2)} ha, ${ac(c.fieldAreaM2)} ac)`,
-    `Pest: ${c.pestName}`,
-    `Walk dates: ${walkDatesText(c)}`,
+    'THE DECISION',
+    decisionText(c),
     '',
-    'WHAT THE SIGHTINGS SHOW',
-    c.verdict.headline,
-    ...c.verdict.figures.map((f) => `- ${f}`),
+    `Recommendation from ${c.adviserName}:`,
+    c.recommendation,
+    ...(c.rescoutOn ? [`Re-scout on: ${longDate(c.rescoutOn)}`] : []),
     '',
     'TREATMENT ZONES',
     ...rows,
     `  Total to treat: ${ha(c.totalTreatedM2)} ha (${ac(c.totalTreatedM2)} ac); ${percent(c.untreatedShare)} of the field is left untreated.`,
     '',
-    `RECOMMENDATION (${c.adviserName})`,
-    c.recommendation,
-    ...(c.rescoutOn ? [`Re-scout on: ${longDate(c.rescoutOn)}`] : []),
-    '',
     'BEFORE ANY TREATMENT',
     ...c.cautions.map((caution) => `- ${caution}`),
+    '',
+    'HOW WE KNOW',
+    `Farm: ${c.farmName}. Field: ${c.fieldName} (${ha(c.fieldAreaM2)} ha, ${ac(c.fieldAreaM2)} ac). Pest: ${c.pestName}. Walk dates: ${walkDatesText(c)}.`,
+    ...c.zones.map((z) => `- ${zoneEvidenceText(z, c.threshold)}`),
+    ...(c.threshold ? [thresholdSourceText(c.threshold)] : []),
+    `The check's verdict: ${c.verdict.plain ?? c.verdict.headline}`,
+    ...(figures.length ? ['The figures behind it:', ...figures.map((f) => `- ${f}`)] : []),
     '',
     `See the map, the zones and acknowledge this notice: ${link}`,
     'The zones are attached as zones.geojson for a mapping program. Files for a sprayer terminal:',
@@ -93,20 +103,19 @@ export function noticeHtml(c: NoticeContent, link: string, mapSrc = `cid:${MAP_C
       .split(/\n{2,}/)
       .map((p) => `<p style="margin:0 0 8px">${e(p).replace(/\n/g, '<br>')}</p>`)
       .join('');
+  const figures = figuresBehind(c);
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><title>${e(noticeSubject(c))}</title></head>
 <body style="margin:0;padding:16px;background:#fbf8f0;color:#241e19;font-family:'Work Sans',Arial,sans-serif;font-size:15px;line-height:1.45">
 <div style="max-width:720px;margin:0 auto">
 <h1 style="font-size:20px;color:#2f5d3a;margin:0 0 12px">${e(c.pestName)} treatment zones: ${e(c.fieldName)}, ${e(c.farmName)}</h1>
-<table role="presentation" style="border-collapse:collapse;margin-bottom:12px">
-<tr><th ${cell}>Farm</th><td ${cell}>${e(c.farmName)}</td></tr>
-<tr><th ${cell}>Field</th><td ${cell}>${e(c.fieldName)} (${ha(c.fieldAreaM2)} ha, ${ac(c.fieldAreaM2)} ac)</td></tr>
-<tr><th ${cell}>Pest</th><td ${cell}>${e(c.pestName)}</td></tr>
-<tr><th ${cell}>Walk dates</th><td ${cell}>${e(walkDatesText(c))}</td></tr>
-</table>
-<h2 style="font-size:17px;color:#2f5d3a">What the sightings show</h2>
-<p style="margin:0 0 6px"><strong>${e(c.verdict.headline)}</strong></p>
-<ul style="margin:0 0 12px;padding-left:20px">${c.verdict.figures.map((f) => `<li>${e(f)}</li>`).join('')}</ul>
+<div style="background:#ffffff;border:1px solid #ebdcb4;border-left:4px solid #2f5d3a;padding:12px 14px;margin:0 0 14px">
+<h2 style="font-size:17px;color:#2f5d3a;margin:0 0 6px">The decision</h2>
+<p style="margin:0 0 8px;font-size:16px"><strong>${e(decisionText(c))}</strong></p>
+<p style="margin:0 0 4px"><strong>Recommendation from ${e(c.adviserName)}:</strong></p>
+${paragraphs(c.recommendation)}
+${c.rescoutOn ? `<p style="margin:0"><strong>Re-scout on:</strong> ${e(longDate(c.rescoutOn))}</p>` : ''}
+</div>
 <img src="${e(mapSrc)}" alt="Map of ${e(c.fieldName)} with the treatment zones and sightings" width="640" style="max-width:100%;height:auto;border:1px solid #ebdcb4">
 <h2 style="font-size:17px;color:#2f5d3a">Treatment zones</h2>
 <table style="border-collapse:collapse;margin-bottom:6px">
@@ -114,11 +123,14 @@ export function noticeHtml(c: NoticeContent, link: string, mapSrc = `cid:${MAP_C
 <tbody>${rows}</tbody>
 </table>
 <p style="margin:0 0 12px">Total to treat: ${ha(c.totalTreatedM2)} ha (${ac(c.totalTreatedM2)} ac); ${percent(c.untreatedShare)} of the field is left untreated.</p>
-<h2 style="font-size:17px;color:#2f5d3a">Recommendation from ${e(c.adviserName)}</h2>
-${paragraphs(c.recommendation)}
-${c.rescoutOn ? `<p style="margin:0 0 12px"><strong>Re-scout on:</strong> ${e(longDate(c.rescoutOn))}</p>` : ''}
 <h2 style="font-size:17px;color:#9a3f14">Before any treatment</h2>
 <ul style="margin:0 0 12px;padding-left:20px">${c.cautions.map((caution) => `<li>${e(caution)}</li>`).join('')}</ul>
+<h2 style="font-size:17px;color:#2f5d3a">How we know</h2>
+<p style="margin:0 0 6px">Farm ${e(c.farmName)}, field ${e(c.fieldName)} (${ha(c.fieldAreaM2)} ha, ${ac(c.fieldAreaM2)} ac), ${e(c.pestName)}; walked on ${e(walkDatesText(c))}.</p>
+<ul style="margin:0 0 6px;padding-left:20px">${c.zones.map((z) => `<li>${e(zoneEvidenceText(z, c.threshold))}</li>`).join('')}</ul>
+${c.threshold ? `<p style="margin:0 0 6px;font-size:13px;color:#5f5142">${e(thresholdSourceText(c.threshold))}</p>` : ''}
+<p style="margin:0 0 6px">The check’s verdict: <strong>${e(c.verdict.plain ?? c.verdict.headline)}</strong></p>
+${figures.length ? `<p style="margin:0 0 2px;font-size:13px;color:#5f5142">The figures behind it:</p><ul style="margin:0 0 12px;padding-left:20px;font-size:13px;color:#5f5142">${figures.map((f) => `<li>${e(f)}</li>`).join('')}</ul>` : ''}
 <p style="margin:16px 0"><a href="${e(link)}" style="background:#2f5d3a;color:#ffffff;padding:10px 16px;text-decoration:none;border-radius:4px">Open the notice and acknowledge it</a></p>
 <p style="margin:0 0 8px;font-size:13px;color:#5f5142">Files for a sprayer terminal: <a href="${e(zoneFileLinks(link).taskData)}">ISO 11783-10 task data</a> · <a href="${e(zoneFileLinks(link).shapefile)}">shapefile</a>. ${e(MACHINE_FILE_CAUTION)}</p>
 <p style="margin:0;font-size:13px;color:#5f5142">Link: ${e(link)}<br>The zones are attached as zones.geojson for a mapping program. Sent by ${e(c.organisationName)}.</p>

@@ -8,6 +8,7 @@ import { zoneSetInOrganisation } from './zone-sets.ts';
 import { listFoundPositions, listWalkDatesOfSightings } from '../queries/sightings.ts';
 import { zonesGeoJson } from './zone-export.ts';
 import { zoneLocation } from './zone-locations.ts';
+import { zoneMeanCounts } from '../queries/zones.ts';
 import { NOTICE_CAUTIONS } from '../../shared/notices/cautions.ts';
 import { verdictInWords } from '../../shared/notices/verdict-words.ts';
 import type { NoticeContent, NoticeMaterial } from '../../shared/schemas/notices.ts';
@@ -33,6 +34,7 @@ export async function liveNoticeMaterial(notice: NoticeRow): Promise<NoticeMater
   const sightingIds = check ? check.sightingIds : null;
   const walkDates = await listWalkDatesOfSightings(sightingIds, notice.fieldId, notice.pestId);
   const points = await listFoundPositions(sightingIds, notice.fieldId, notice.pestId);
+  const counts = await zoneMeanCounts({ zoneSetId: zoneSet.id, sightingIds, fieldId: notice.fieldId, pestId: notice.pestId });
   const boundary = JSON.parse(facts.boundary) as MultiPolygon;
   const content: NoticeContent = {
     farmName: facts.farm_name,
@@ -41,6 +43,7 @@ export async function liveNoticeMaterial(notice: NoticeRow): Promise<NoticeMater
     pestName: facts.pest_name,
     walkDates,
     verdict: verdictInWords(check?.result ?? null),
+    threshold: { value: facts.threshold, unit: facts.count_unit, source: facts.threshold_source },
     zones: zoneSet.zones.map((z) => ({
       label: z.label,
       areaM2: z.areaM2,
@@ -48,6 +51,8 @@ export async function liveNoticeMaterial(notice: NoticeRow): Promise<NoticeMater
       areaAc: z.areaAc,
       shareOfField: z.shareOfField,
       sightingsInside: z.sightingsInside,
+      meanCount: counts.find((c) => c.zone_id === z.id)?.mean_count ?? null,
+      counted: counts.find((c) => c.zone_id === z.id)?.counted ?? 0,
       location: zoneLocation(z.geometry, boundary),
     })),
     totalTreatedM2: zoneSet.totalTreatedM2,

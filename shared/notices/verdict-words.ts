@@ -38,6 +38,8 @@ const reading: Record<Spread, string> = {
 
 export interface VerdictWords {
   spread: Spread | null;
+  /** The verdict in plain words, without figures; absent in notices sent before it was kept (the headline stands in). */
+  plain?: string;
   headline: string;
   figures: string[];
 }
@@ -46,14 +48,16 @@ export interface VerdictWords {
 export function verdictInWords(result: unknown): VerdictWords {
   const r = (result ?? null) as StoredResult | null;
   if (!r?.spread?.verdict) {
-    return { spread: null, headline: 'No pattern check is attached: the adviser drew these zones from the field visit.', figures: [] };
+    const headline = 'No pattern check is attached: the adviser drew these zones from the field visit.';
+    return { spread: null, plain: headline, headline, figures: [] };
   }
   const verdict = r.spread.verdict;
   const nearest = r.nearestNeighbour;
   const figures: string[] = [];
   if (typeof r.n === 'number') figures.push(`${r.n} sighting${r.n === 1 ? '' : 's'} inside the field.`);
   if (verdict === 'too-few' || !nearest) {
-    return { spread: verdict, headline: `${reading['too-few']} (a check needs at least ${r.spread.minSightings ?? 10} sightings).`, figures };
+    const headline = `${reading['too-few']} (a check needs at least ${r.spread.minSightings ?? 10} sightings).`;
+    return { spread: verdict, plain: headline, headline, figures };
   }
   const primary = r.spread.evidence?.find((e) => e.role === 'primary');
   if (r.design === 'stops' && r.spread.headline && primary) {
@@ -62,7 +66,8 @@ export function verdictInWords(result: unknown): VerdictWords {
     figures.push(`Clark–Evans R = ${nearest.R.toFixed(2)} (no edge correction; a value, not evidence).`);
     if (typeof r.spread.alpha === 'number') figures.push(`Significance level α = ${r.spread.alpha}.`);
     for (const warning of r.coverage?.warnings ?? []) figures.push(warning);
-    return { spread: verdict, headline: `${r.spread.headline}.`, figures };
+    const sentence = `${r.spread.headline.replace(/\.+$/, '')}.`;
+    return { spread: verdict, plain: sentence, headline: sentence, figures };
   }
   const monteCarlo = r.spread.decidedBy === 'monte-carlo' && nearest.monteCarlo?.pValue != null;
   const p = monteCarlo ? (nearest.monteCarlo!.pValue as number) : (nearest.donnelly?.pValue ?? nearest.pValue);
@@ -80,5 +85,5 @@ export function verdictInWords(result: unknown): VerdictWords {
   }
   if (typeof r.spread.alpha === 'number') figures.push(`Significance level α = ${r.spread.alpha}.`);
   for (const warning of r.coverage?.warnings ?? []) figures.push(warning);
-  return { spread: verdict, headline, figures };
+  return { spread: verdict, plain: `${reading[verdict]}.`, headline, figures };
 }

@@ -93,6 +93,17 @@ export interface NoticeZoneRow {
   areaAc: number;
   shareOfField: number;
   sightingsInside: number;
+  /** Mean count per counted sighting inside the zone (empty stops included); absent in notices sent before it was kept. */
+  meanCount?: number | null;
+  /** How many sightings with a count lie inside the zone. */
+  counted?: number;
+}
+
+/** The pest's action threshold the zone counts are read against, with its source. */
+export interface NoticeThreshold {
+  value: number;
+  unit: string;
+  source: string;
 }
 
 /** Everything the notice page (/n/:token) and the e-mail show, built once on the server. */
@@ -104,6 +115,8 @@ export interface NoticeContent {
   /** YYYY-MM-DD, oldest first. */
   walkDates: string[];
   verdict: VerdictWords;
+  /** Absent in notices sent before it was kept. */
+  threshold?: NoticeThreshold;
   zones: NoticeZoneRow[];
   totalTreatedM2: number;
   untreatedShare: number;
@@ -133,6 +146,8 @@ export interface NoticeLinkResponse {
     /** RFC 7946 FeatureCollection; each feature's properties hold its zone-table row. */
     zonesGeoJson: FeatureCollection<MultiPolygon, NoticeZoneRow>;
     boundary: MultiPolygon;
+    /** [longitude, latitude] of each sighting with the pest found, for the map. */
+    sightings: Position[];
     mapPath: string;
     /** Sprayer-ready files of the zones: ISO 11783-10 task data and a shapefile, each zipped. */
     zoneFiles: { taskData: string; shapefile: string };

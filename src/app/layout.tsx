@@ -17,11 +17,11 @@ export function AppLayout() {
     <div className="flex min-h-screen flex-col">
       <a
         href="#main"
-        className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-[1000] focus:rounded focus:bg-white focus:px-3 focus:py-2"
+        className="print:hidden sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-[1000] focus:rounded focus:bg-white focus:px-3 focus:py-2"
       >
         Skip to content
       </a>
-      <header className="bg-field-800 text-white shadow">
+      <header className="bg-field-800 text-white shadow print:hidden">
         <div className="mx-auto flex max-w-7xl items-center gap-3 px-4 py-2 sm:px-6">
           <NavLink to="/" className="flex items-center gap-2 text-lg font-semibold tracking-tight">
             <span aria-hidden="true" className="inline-block h-5 w-5 rounded bg-field-400 ring-2 ring-patch-400" />

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { simpleParser, type Attachment, type ParsedMail } from 'mailparser';
 import { Jimp } from 'jimp';
-import { area as turfArea } from '@turf/turf';
+import { area as turfArea, booleanPointInPolygon } from '@turf/turf';
 import { QueryTypes } from 'sequelize';
 import type { MultiPolygon, Position } from 'geojson';
 import { sequelize } from '../../server/db.ts';
@@ -153,6 +153,34 @@ describe('zone notice e-mail', () => {
     expect(text).toContain(`${result.n} sightings inside the field`);
     expect(text).toMatch(/1 July 2026, 3 July 2026/);
     expect(html).toContain(`R = ${result.nearestNeighbour.R.toFixed(2)}`);
+  });
+
+  it('leads with the decision, then says in plain words each zone’s mean count against the threshold, figures last', async () => {
+    const { text, html } = delivered.messages[0].mail[0];
+    const zones = await storedZones(zoneSet.id);
+    // The decision names every zone and the share left untreated, ahead of the statistics.
+    const labels = zones.map((z) => z.label);
+    const total = zones.reduce((sum, z) => sum + z.area_m2, 0);
+    const decision = text!.indexOf('THE DECISION');
+    expect(text!.slice(decision, decision + 400)).toContain(`${(total / 10_000).toFixed(2)} ha (${(total / 4046.8564224).toFixed(2)} ac) in all`);
+    for (const label of labels) expect(text!.slice(decision, decision + 400)).toContain(label);
+    const howWeKnow = text!.indexOf('HOW WE KNOW');
+    expect(decision).toBeGreaterThan(-1);
+    expect(howWeKnow).toBeGreaterThan(text!.indexOf('Spot-spray the two zones'));
+    expect(text!.indexOf('Clark–Evans R =')).toBeGreaterThan(howWeKnow);
+    expect(html!.indexOf('The decision')).toBeLessThan(html!.indexOf('How we know'));
+    // Each zone's mean count, recomputed with turf's point-in-polygon over the stops the check used.
+    for (const zone of zones) {
+      const geometry = JSON.parse(zone.geometry) as MultiPolygon;
+      const inside = scouted.points.filter((p) => p.count !== null && booleanPointInPolygon([p.lon, p.lat], geometry));
+      const mean = inside.reduce((sum, p) => sum + (p.count as number), 0) / inside.length;
+      // makeCheckedField's pest has an action threshold of 5.
+      const side = mean >= 5 ? 'at or above' : 'below';
+      const shown = new RegExp(`${zone.label}: a mean of ([\\d.]+) .* over ${inside.length} counted sightings?, ${side} the action threshold of 5\\.`);
+      const match = shown.exec(text!);
+      expect(match, `${zone.label} line in: ${text}`).not.toBeNull();
+      expect(Number(match![1])).toBeCloseTo(mean, 1);
+    }
   });
 
   it('holds the zone table with the stored areas, the recommendation and every caution in both parts', async () => {

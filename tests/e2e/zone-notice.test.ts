@@ -162,11 +162,60 @@ describe('zone notice in the browser', () => {
       const shownHa = number(await tableRows.nth(i).locator('td').nth(0).textContent());
       expect(Math.abs(shownHa - turfArea(zone) / M2_PER_HA)).toBeLessThanOrEqual(Math.max(0.01, (turfArea(zone) / M2_PER_HA) * 0.01));
     }
+    // The page leads with the decision: the zones, the area and the share left untreated, before the map and the statistics.
+    const decision = growerPage.getByTestId('decision');
+    for (const zone of zones.features) await decision.getByText(new RegExp((zone.properties as { label: string }).label)).waitFor();
+    await decision.getByText(/% of the field is left untreated/).waitFor();
+    const headings = await growerPage.getByRole('heading', { level: 2 }).allTextContents();
+    expect(headings.indexOf('The decision')).toBe(0);
+    expect(headings.indexOf('How we know')).toBeGreaterThan(headings.indexOf('Where the zones are'));
+    // The statistics sit behind a disclosure: hidden until the grower opens it.
+    const figure = growerPage.getByText(/Clark–Evans R =/);
+    expect(await figure.isVisible()).toBe(false);
+    await growerPage.getByText('The figures behind the check').click();
+    await figure.waitFor();
+    await growerPage
+      .getByRole('list', { name: 'Counts in each zone' })
+      .getByText(/the action threshold of/)
+      .first()
+      .waitFor();
+
+    // Every zone is labelled on the live map, and no label box covers a sighting dot.
+    const labelBoxes = await growerPage.locator('.leaflet-marker-icon.zone-label').evaluateAll((els) => els.map((el) => el.getBoundingClientRect().toJSON()));
+    expect(labelBoxes).toHaveLength(zones.features.length);
+    const dotBoxes = await growerPage
+      .locator('.leaflet-overlay-pane path.leaflet-interactive, .leaflet-overlay-pane path')
+      .evaluateAll((els) => els.filter((el) => el.getAttribute('fill') === '#352d25').map((el) => el.getBoundingClientRect().toJSON()));
+    expect(dotBoxes.length).toBeGreaterThan(0);
+    for (const label of labelBoxes)
+      for (const dot of dotBoxes) {
+        const overlaps = label.left < dot.right && dot.left < label.right && label.top < dot.bottom && dot.top < label.bottom;
+        expect(overlaps, `label ${JSON.stringify(label)} over dot ${JSON.stringify(dot)}`).toBe(false);
+      }
     await shot(growerPage, '4-notice-page');
     await growerPage.emulateMedia({ media: 'print' });
     expect(await growerPage.getByRole('button', { name: 'Acknowledge' }).isVisible()).toBe(false);
+    // On paper the app's header is left out and the map image (with its own labels) stands in for the live map.
+    expect(await growerPage.locator('header').filter({ hasText: 'Patchwise' }).isVisible()).toBe(false);
+    expect(await growerPage.getByRole('img', { name: /Map of Long meadow/ }).isVisible()).toBe(true);
+    await growerPage.getByText(NOTICE_CAUTIONS[0]).waitFor();
     await shot(growerPage, '5-notice-page-print');
     await growerPage.emulateMedia({ media: 'screen' });
+
+    // On a phone (390 px) the zone table scrolls inside its own frame; the page itself does not scroll sideways.
+    await growerPage.setViewportSize({ width: 390, height: 844 });
+    const table = growerPage.getByRole('region', { name: /Treatment zones/ });
+    const frame = await table.evaluate((el) => ({ client: el.clientWidth, scroll: el.scrollWidth }));
+    expect(frame.client).toBeLessThanOrEqual(390);
+    expect(await growerPage.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    if (frame.scroll > frame.client) {
+      await table.focus();
+      await growerPage.keyboard.press('ArrowRight');
+      await growerPage.waitForFunction(() => (document.querySelector('[role="region"][aria-label^="Treatment zones"]')?.scrollLeft ?? 0) > 0);
+    }
+    await table.scrollIntoViewIfNeeded();
+    await shot(growerPage, '5b-notice-phone');
+    await growerPage.setViewportSize({ width: 900, height: 1000 });
 
     await growerPage.getByRole('button', { name: 'Acknowledge' }).click();
     await growerPage.getByText(/Acknowledged on/).waitFor();
@@ -214,6 +263,11 @@ describe('zone notice in the browser', () => {
     await growerHome.getByText(NOTICE_CAUTIONS[0]).waitFor();
     await growerHome.getByText(/Acknowledged on/).waitFor();
     expect(await growerHome.getByRole('table', { name: 'Treatment zones' }).locator('tbody tr').count()).toBe(zones.features.length);
+    // Printing from inside the app leaves out its header and navigation.
+    await growerHome.emulateMedia({ media: 'print' });
+    expect(await growerHome.getByRole('button', { name: 'Sign out' }).isVisible()).toBe(false);
+    expect(await growerHome.getByRole('heading', { level: 1, name: /on Long meadow/ }).isVisible()).toBe(true);
+    await growerHome.emulateMedia({ media: 'screen' });
     await shot(growerHome, '9-grower-notice');
   }, 180_000);
 

@@ -1,12 +1,16 @@
 // The notice page's map: the field boundary and the zones as vector layers (useful with no tiles). On paper the
 // server's own map image (with its own legend) stands in, since a live map prints unreliably.
-import { GeoJSON, Tooltip } from 'react-leaflet';
+import { useMemo } from 'react';
+import { CircleMarker, GeoJSON, Tooltip } from 'react-leaflet';
 import type { NoticeLinkResponse } from '@shared/schemas/notices.ts';
 import { MapFrame } from '../map-frame.tsx';
+import { DOT_RADIUS, ZoneLabels } from './zone-labels.tsx';
 
 const zoneStyle = { color: '#9a3f14', weight: 2, fillColor: '#f08a4b', fillOpacity: 0.45 };
+const sightingStyle = { color: '#ffffff', weight: 1, fillColor: '#352d25', fillOpacity: 1 };
 
 export function NoticeMap({ notice }: { notice: NoticeLinkResponse['notice'] }) {
+  const zones = useMemo(() => notice.zonesGeoJson.features.map((f) => ({ label: f.properties.label, geometry: f.geometry })), [notice.zonesGeoJson]);
   return (
     <figure>
       <div className="print:hidden">
@@ -20,6 +24,10 @@ export function NoticeMap({ notice }: { notice: NoticeLinkResponse['notice'] }) 
               <Tooltip sticky>{zone.properties.label}</Tooltip>
             </GeoJSON>
           ))}
+          {notice.sightings.map(([lon, lat], i) => (
+            <CircleMarker key={i} center={[lat, lon]} radius={DOT_RADIUS} pathOptions={sightingStyle} interactive={false} />
+          ))}
+          <ZoneLabels zones={zones} sightings={notice.sightings} />
         </MapFrame>
       </div>
       <img
@@ -33,6 +41,9 @@ export function NoticeMap({ notice }: { notice: NoticeLinkResponse['notice'] }) 
         </span>
         <span className="inline-flex items-center gap-1.5">
           <span aria-hidden="true" className="inline-block h-3 w-5 rounded-sm border-2 border-patch-700 bg-patch-400/60" /> Treatment zone
+        </span>
+        <span className="inline-flex items-center gap-1.5">
+          <span aria-hidden="true" className="inline-block h-2.5 w-2.5 rounded-full bg-soil-800 ring-1 ring-white" /> Sighting
         </span>
       </figcaption>
     </figure>

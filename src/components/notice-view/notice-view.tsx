@@ -1,8 +1,9 @@
-// One zone notice as the grower reads it: what was found, where the zones are, what the adviser recommends, and
-// the cautions. Shared by the e-mailed link's page and the signed-in grower's; calm on screen, clean on paper.
+// One zone notice as the grower reads it: the decision first (zones, area, share untreated, recommendation, re-scout
+// date), then where the zones are, the cautions, and how we know. Shared by the e-mailed link's page and the signed-in grower's; calm on screen, clean on paper.
 import { useEffect, useMemo, type ReactNode } from 'react';
 import { MACHINE_FILE_CAUTION, NOTICE_CAUTIONS } from '@shared/notices/cautions.ts';
 import type { NoticeLinkResponse } from '@shared/schemas/notices.ts';
+import { decisionText, thresholdSourceText, zoneEvidenceText } from '@shared/notices/notice-words.ts';
 import { AreaText } from '../area-text.tsx';
 import { Button } from '../button.tsx';
 import { AcknowledgeBox, type AcknowledgeControl } from './acknowledge-box.tsx';
@@ -13,7 +14,6 @@ import { NoticeZoneTable } from './notice-zone-table.tsx';
 export type NoticePageContent = NoticeLinkResponse['notice'];
 
 const longDate = (isoDay: string) => new Date(`${isoDay}T12:00:00`).toLocaleDateString(undefined, { dateStyle: 'long' });
-const percent = new Intl.NumberFormat('en', { style: 'percent', maximumFractionDigits: 1 });
 
 function Section({ title, children }: { title: string; children: ReactNode }) {
   return (
@@ -50,7 +50,7 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
   useEffect(() => {
     document.title = `${n.pestName} on ${n.fieldName} · Zone notice`;
   }, [n.pestName, n.fieldName]);
-  const treatedShare = 1 - n.untreatedShare;
+  const figures = [...(n.verdict.plain && n.verdict.plain !== n.verdict.headline ? [n.verdict.headline] : []), ...n.verdict.figures];
 
   return (
     <>
@@ -62,68 +62,38 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
         <h1 className="text-2xl font-semibold tracking-tight text-field-900 sm:text-3xl">
           {n.pestName} on {n.fieldName}
         </h1>
-        <p className="text-soil-800">
-          Your adviser {n.adviserName} proposes treating {n.zones.length === 1 ? 'one zone' : `${n.zones.length} zones`} covering{' '}
-          <AreaText m2={n.totalTreatedM2} /> ({percent.format(treatedShare)} of the field), and leaving the rest untreated.
+      </header>
+
+      <section
+        aria-labelledby="decision"
+        className="rounded-lg border-l-4 border-field-700 bg-white p-4 shadow-sm ring-1 ring-soil-300/60 sm:p-5 print:break-inside-avoid print:shadow-none"
+      >
+        <h2 id="decision" className="mb-2 text-lg font-semibold text-field-900">
+          The decision
+        </h2>
+        <p className="text-lg font-medium text-soil-900" data-testid="decision">
+          {decisionText(n)}
         </p>
-        <div className="flex flex-wrap gap-2 pt-1 print:hidden">
+        <h3 className="mt-4 text-sm font-semibold uppercase tracking-wide text-soil-600">Recommendation from {n.adviserName}</h3>
+        <p className="mt-1 whitespace-pre-wrap text-soil-900">{n.recommendation}</p>
+        {n.rescoutOn && <p className="mt-3 font-medium text-soil-900">Re-scout on {longDate(n.rescoutOn)}.</p>}
+        <div className="mt-3 flex flex-wrap gap-2 print:hidden">
           <Button variant="secondary" onClick={() => window.print()}>
             Print
           </Button>
         </div>
-      </header>
+      </section>
 
       <AcknowledgeBox acknowledgedAt={n.acknowledgedAt} control={acknowledge} />
-
-      <Section title="The field">
-        <dl className="grid gap-3 text-sm sm:grid-cols-2">
-          <div>
-            <dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Farm</dt>
-            <dd className="text-base text-soil-900">{n.farmName}</dd>
-          </div>
-          <div>
-            <dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Field</dt>
-            <dd className="text-base text-soil-900">
-              {n.fieldName} (<AreaText m2={n.fieldAreaM2} />)
-            </dd>
-          </div>
-          <div>
-            <dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Pest</dt>
-            <dd className="text-base text-soil-900">{n.pestName}</dd>
-          </div>
-          <div>
-            <dt className="text-xs font-medium uppercase tracking-wide text-soil-600">Walked on</dt>
-            <dd className="text-base text-soil-900">{n.walkDates.length ? n.walkDates.map(longDate).join(', ') : 'No walk recorded'}</dd>
-          </div>
-        </dl>
-      </Section>
-
-      <Section title="What the scouting found">
-        <p className="text-soil-900" data-testid="verdict">
-          {n.verdict.headline}
-        </p>
-        {n.verdict.figures.length > 0 && (
-          <ul className="mt-2 list-disc space-y-1 pl-5 text-sm text-soil-700">
-            {n.verdict.figures.map((figure) => (
-              <li key={figure}>{figure}</li>
-            ))}
-          </ul>
-        )}
-      </Section>
 
       <Section title="Where the zones are">
         <NoticeMap notice={n} />
         <div className="mt-4">
           <NoticeZoneTable zones={n.zones} totalTreatedM2={n.totalTreatedM2} untreatedShare={n.untreatedShare} />
         </div>
-        <p className="mt-2 text-sm">
+        <div className="mt-2 text-sm">
           <ZonesDownload notice={n} />
-        </p>
-      </Section>
-
-      <Section title="What your adviser recommends">
-        <p className="whitespace-pre-wrap text-soil-900">{n.recommendation}</p>
-        {n.rescoutOn && <p className="mt-3 font-medium text-soil-900">Re-scout on {longDate(n.rescoutOn)}.</p>}
+        </div>
       </Section>
 
       <section
@@ -139,6 +109,32 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
           ))}
         </ul>
       </section>
+
+      <Section title="How we know">
+        <p className="text-soil-800">
+          {n.pestName} on {n.fieldName} (<AreaText m2={n.fieldAreaM2} />
+          ), {n.farmName}; walked on {n.walkDates.length ? n.walkDates.map(longDate).join(', ') : 'no recorded walk'}.
+        </p>
+        <ul aria-label="Counts in each zone" className="mt-2 list-disc space-y-1 pl-5 text-soil-900">
+          {n.zones.map((z) => (
+            <li key={z.label}>{zoneEvidenceText(z, n.threshold)}</li>
+          ))}
+        </ul>
+        {n.threshold && <p className="mt-1 text-sm text-soil-700">{thresholdSourceText(n.threshold)}</p>}
+        <p className="mt-3 text-soil-900" data-testid="verdict">
+          The check’s verdict: {n.verdict.plain ?? n.verdict.headline}
+        </p>
+        {figures.length > 0 && (
+          <details className="mt-2 rounded-md bg-straw-50 px-3 py-2 ring-1 ring-inset ring-straw-300 print:bg-white">
+            <summary className="cursor-pointer text-sm font-medium text-field-800">The figures behind the check</summary>
+            <ul className="mt-2 list-disc space-y-1 pl-5 text-sm text-soil-700">
+              {figures.map((figure) => (
+                <li key={figure}>{figure}</li>
+              ))}
+            </ul>
+          </details>
+        )}
+      </Section>
 
       <NoticeQuestions questions={n.questions} adviserName={n.adviserName} control={ask} />
 

@@ -15,11 +15,11 @@ import { useOnceWhen } from '../../../lib/use-once-when.ts';
 function Shell({ organisation, children }: { organisation?: string; children: ReactNode }) {
   return (
     <div className="min-h-screen bg-straw-50 print:bg-white">
-      <header className="bg-field-800 text-white print:bg-white print:text-soil-900">
+      <header className="bg-field-800 text-white print:hidden">
         <div className="mx-auto flex max-w-3xl items-center gap-2 px-4 py-3 sm:px-6">
-          <span aria-hidden="true" className="inline-block h-5 w-5 rounded bg-field-400 ring-2 ring-patch-400 print:hidden" />
+          <span aria-hidden="true" className="inline-block h-5 w-5 rounded bg-field-400 ring-2 ring-patch-400" />
           <span className="text-lg font-semibold tracking-tight">Patchwise</span>
-          {organisation && <span className="ml-auto text-sm text-field-100 print:text-soil-700">Zone notice from {organisation}</span>}
+          {organisation && <span className="ml-auto text-sm text-field-100">Zone notice from {organisation}</span>}
         </div>
       </header>
       <main id="main" className="mx-auto max-w-3xl space-y-6 px-4 py-6 sm:px-6 sm:py-8 print:max-w-none print:space-y-4 print:px-0 print:py-2">
