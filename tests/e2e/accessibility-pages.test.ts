@@ -252,7 +252,7 @@ const rows: PageRow[] = [
         // The arrow keys move through the boundary's radio group; drawing brings up the map's editing toolbar.
         await pressOn(page, page.getByLabel('Upload a file'), 'ArrowRight');
         expect(await page.getByLabel('Draw on the map').isChecked()).toBe(true);
-        await page.getByRole('button', { name: 'Draw Polygons' }).waitFor();
+        await page.getByRole('button', { name: 'Draw a shape corner by corner' }).waitFor();
         await expectAccessible(page);
         await pressOn(page, page.getByLabel('Draw on the map'), 'ArrowLeft');
         expect(await page.getByLabel('Upload a file').isChecked()).toBe(true);
