@@ -111,7 +111,9 @@ const rows: PageRow[] = [
     keyboard: {
       does: 'a field needing attention opened for review',
       run: async (page) => {
-        await pressOn(page, page.locator('[data-attention]').getByRole('link').first());
+        // Lines about a field's sightings open its review (patches open the zone editor, notices their page).
+        const reviewLines = '[data-attention="field-above-threshold"], [data-attention="not-yet-checked"], [data-attention="rescout-due"]';
+        await pressOn(page, page.locator(reviewLines).getByRole('link').first());
         await page.waitForURL(/\/fields\/[0-9a-f-]{36}\/review/);
         await page.getByRole('button', { name: 'Run check' }).waitFor();
       },
