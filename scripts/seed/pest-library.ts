@@ -1,5 +1,6 @@
 // Starting pest library. Thresholds differ by region, crop stage, price and product; admins edit them.
-// Each source is the publication the figure is taken from; figures recalled from memory say so.
+// Each source is the publication the figure is taken from; figures recalled from memory say so, and a re-scout
+// interval not checked against a publication stays unconfirmed for the admin to confirm.
 import type { PestInput } from '../../shared/schemas/pests.ts';
 
 export const pestLibrarySeed: PestInput[] = [
@@ -12,6 +13,9 @@ export const pestLibrarySeed: PestInput[] = [
     thresholdNote: 'Treat at 250 aphids per plant with at least 80 % of plants infested and numbers rising, R1–R5.',
     thresholdSource: 'University of Nebraska–Lincoln CropWatch, 2023',
     active: true,
+    rescoutDays: 7,
+    rescoutSource: 'Iowa State University Extension: scout weekly once aphids arrive (reported in Agri News, Minnesota, 3 July 2007)',
+    rescoutConfirmed: true,
   },
   {
     name: 'Corn rootworm adults',
@@ -22,6 +26,9 @@ export const pestLibrarySeed: PestInput[] = [
     thresholdNote: 'More than 0.75 beetles per plant in continuous corn signals root protection next year.',
     thresholdSource: 'University of Wisconsin IPM',
     active: true,
+    rescoutDays: 7,
+    rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    rescoutConfirmed: false,
   },
   {
     name: 'True armyworm',
@@ -32,6 +39,9 @@ export const pestLibrarySeed: PestInput[] = [
     thresholdNote: '2 or more larvae per seedling with spreading defoliation.',
     thresholdSource: 'Ohio State University agronomy newsletter, 2020',
     active: true,
+    rescoutDays: 7,
+    rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    rescoutConfirmed: false,
   },
   {
     name: 'Grasshoppers',
@@ -42,6 +52,9 @@ export const pestLibrarySeed: PestInput[] = [
     thresholdNote: '8 per square yard inside the field; 21–40 per square yard in margins.',
     thresholdSource: 'South Dakota State University Extension',
     active: true,
+    rescoutDays: 7,
+    rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    rescoutConfirmed: false,
   },
   {
     name: 'Giant ragweed',
@@ -53,6 +66,9 @@ export const pestLibrarySeed: PestInput[] = [
       'Treat before plants reach 6–10 inches tall. The per-area figure of 1 is our starting point (recalled from memory, not from the source); adjust it to local guidance.',
     thresholdSource: 'University of Wisconsin pest bulletin (height rule); count figure recalled from memory',
     active: true,
+    rescoutDays: 7,
+    rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    rescoutConfirmed: false,
   },
   {
     name: 'Gray leaf spot',
@@ -64,5 +80,8 @@ export const pestLibrarySeed: PestInput[] = [
       'Lesions on the third leaf below the ear at VT–R1 on susceptible hybrids. The 50 % incidence figure is recalled from memory; check local guidance.',
     thresholdSource: 'Kansas State University Research and Extension (stage rule); incidence figure recalled from memory',
     active: true,
+    rescoutDays: 7,
+    rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    rescoutConfirmed: false,
   },
 ];

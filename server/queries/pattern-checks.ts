@@ -1,5 +1,4 @@
 import type { CheckStatus } from '../../shared/schemas/checks.ts';
-import type { ThresholdBasis } from '../../shared/schemas/pests.ts';
 import { execute, selectRow, selectRows, type InTransaction } from './sql.ts';
 
 /** One pattern check: field × pest × date window, with the exact inputs that reproduce it. */
@@ -166,37 +165,4 @@ export const findCheckDensityState = (organisationId: string, checkId: string) =
     `SELECT status, (result->'density') IS NOT NULL AND jsonb_typeof(result->'density') = 'object' AS "hasDensity"
        FROM pattern_checks WHERE id = :checkId AND organisation_id = :org`,
     { checkId, org: organisationId },
-  );
-
-export interface LatestCheckRow {
-  checkId: string;
-  fieldId: string;
-  fieldName: string;
-  farmName: string;
-  pestId: string;
-  pestName: string;
-  countUnit: string;
-  actionThreshold: number;
-  thresholdBasis: ThresholdBasis;
-  thresholdSource: string;
-  counts: Array<number | null> | null;
-}
-
-/** Latest finished check per field and pest whose verdict is clustered, with the counts of its sightings. */
-export const listClusteredLatestChecks = (organisationId: string) =>
-  selectRows<LatestCheckRow>(
-    `WITH latest AS (
-       SELECT DISTINCT ON (c.field_id, c.pest_id) c.id, c.field_id, c.pest_id, c.sighting_ids, c.result->'spread'->>'verdict' AS verdict
-         FROM pattern_checks c
-        WHERE c.organisation_id = :org AND c.status = 'done'
-        ORDER BY c.field_id, c.pest_id, c.created_at DESC
-     )
-     SELECT l.id AS "checkId", f.id AS "fieldId", f.name AS "fieldName", fa.name AS "farmName",
-            p.id AS "pestId", p.name AS "pestName", p.count_unit AS "countUnit", p.action_threshold AS "actionThreshold",
-            p.threshold_basis AS "thresholdBasis", p.threshold_source AS "thresholdSource",
-            (SELECT array_agg(s.count ORDER BY s.id) FROM sightings s WHERE s.id = ANY(l.sighting_ids) AND s.deleted_at IS NULL) AS counts
-       FROM latest l JOIN fields f ON f.id = l.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = l.pest_id
-      WHERE l.verdict = 'clustered'
-      ORDER BY fa.name, f.name, p.name`,
-    { org: organisationId },
   );

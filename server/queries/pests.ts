@@ -12,10 +12,14 @@ export interface PestRow {
   thresholdNote: string;
   thresholdSource: string;
   active: boolean;
+  rescoutDays: number;
+  rescoutSource: string;
+  rescoutConfirmed: boolean;
 }
 
 const PEST_COLUMNS = `id, organisation_id AS "organisationId", name, kind, count_unit AS "countUnit", action_threshold AS "actionThreshold",
-  threshold_basis AS "thresholdBasis", threshold_note AS "thresholdNote", threshold_source AS "thresholdSource", active`;
+  threshold_basis AS "thresholdBasis", threshold_note AS "thresholdNote", threshold_source AS "thresholdSource", active,
+  rescout_days AS "rescoutDays", rescout_source AS "rescoutSource", rescout_confirmed AS "rescoutConfirmed"`;
 
 export const listPestsOfOrganisation = (organisationId: string, includeInactive: boolean, options: InTransaction = {}) =>
   selectRows<PestRow>(
@@ -41,15 +45,20 @@ export interface NewPest {
   thresholdNote?: string;
   thresholdSource: string;
   active?: boolean;
+  rescoutDays?: number;
+  rescoutSource?: string;
+  rescoutConfirmed?: boolean;
 }
 
 export const insertPest = async (pest: NewPest, options: InTransaction = {}) =>
   (await selectRow<PestRow>(
-    `INSERT INTO pests (organisation_id, name, kind, count_unit, action_threshold, threshold_basis, threshold_note, threshold_source, active)
+    `INSERT INTO pests (organisation_id, name, kind, count_unit, action_threshold, threshold_basis, threshold_note, threshold_source, active,
+                        rescout_days, rescout_source, rescout_confirmed)
      VALUES (:organisationId, :name, :kind, :countUnit, :actionThreshold, COALESCE(:thresholdBasis, 'mean'), COALESCE(:thresholdNote, ''), :thresholdSource,
-             COALESCE(:active, true))
+             COALESCE(:active, true), COALESCE(:rescoutDays, 7), COALESCE(:rescoutSource, 'Weekly scouting, common practice; confirm for your region'),
+             COALESCE(:rescoutConfirmed, false))
      RETURNING ${PEST_COLUMNS}`,
-    { thresholdBasis: null, thresholdNote: null, active: null, ...pest },
+    { thresholdBasis: null, thresholdNote: null, active: null, rescoutDays: null, rescoutSource: null, rescoutConfirmed: null, ...pest },
     options,
   ))!;
 
@@ -64,6 +73,9 @@ const pestColumn: Record<keyof PestChanges, string> = {
   thresholdNote: 'threshold_note',
   thresholdSource: 'threshold_source',
   active: 'active',
+  rescoutDays: 'rescout_days',
+  rescoutSource: 'rescout_source',
+  rescoutConfirmed: 'rescout_confirmed',
 };
 
 /** Writes the given details (the others stay as they are) and returns the row as stored. */

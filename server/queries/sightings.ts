@@ -239,42 +239,6 @@ export const liveStopsByWalkAndPest = (fieldId: string, filter: { pestId?: strin
     { fieldId, pestId: filter.pestId ?? null, walkId: filter.walkId ?? null },
   );
 
-export interface UncheckedRow {
-  fieldId: string;
-  fieldName: string;
-  farmName: string;
-  pestId: string;
-  pestName: string;
-  actionThreshold: number;
-  thresholdSource: string;
-  checkId: string | null;
-  newSightings: number;
-}
-
-/** Field and pest pairs with live sightings added or edited after their latest check (or never checked). */
-export const listUncheckedSightings = (organisationId: string) =>
-  selectRows<UncheckedRow>(
-    `WITH latest AS (
-       SELECT DISTINCT ON (c.field_id, c.pest_id) c.id, c.field_id, c.pest_id, c.created_at
-         FROM pattern_checks c
-        WHERE c.organisation_id = :org AND c.status <> 'failed'
-        ORDER BY c.field_id, c.pest_id, c.created_at DESC
-     )
-     SELECT f.id AS "fieldId", f.name AS "fieldName", fa.name AS "farmName", p.id AS "pestId", p.name AS "pestName",
-            p.action_threshold AS "actionThreshold", p.threshold_source AS "thresholdSource", l.id AS "checkId",
-            count(*) AS "newSightings"
-       FROM sightings s
-       JOIN fields f ON f.id = s.field_id
-       JOIN farms fa ON fa.id = f.farm_id
-       JOIN pests p ON p.id = s.pest_id
-       LEFT JOIN latest l ON l.field_id = s.field_id AND l.pest_id = s.pest_id
-      WHERE s.organisation_id = :org AND ${liveSighting('s')}
-        AND (l.id IS NULL OR greatest(s.created_at, s.updated_at) > l.created_at)
-      GROUP BY f.id, fa.name, p.id, l.id
-      ORDER BY fa.name, f.name, p.name`,
-    { org: organisationId },
-  );
-
 /**
  * The sightings behind a notice: the check's own (`sightingIds`), or (hand-drawn zones, `sightingIds` null) the
  * field's sightings of the pest. Returns the filter and its replacements for the two queries below.

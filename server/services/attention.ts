@@ -1,48 +1,98 @@
-// The adviser's home list: fields that need a look, for the adviser's own organisation only.
+// The adviser's home list: every field and pest that needs action, for the adviser's own organisation only.
 import type { Actor } from '../auth/passport.ts';
 import { thresholdStatus } from '../../shared/thresholds/threshold-status.ts';
-import type { AttentionField, AttentionResponse } from '../../shared/schemas/checks.ts';
+import type { SpreadVerdict } from '../../shared/analysis/spread.ts';
+import type { AttentionField, AttentionResponse, AttentionRescout } from '../../shared/schemas/checks.ts';
+import { noticePath, reviewPath, zoneEditorPath } from '../../shared/attention-links.ts';
 import { listUnacknowledgedNotices } from './notice-reading.ts';
 import { listWaitingGrowerQuestions } from './notice-questions.ts';
-import { listUncheckedSightings, type UncheckedRow } from '../queries/sightings.ts';
-import { listClusteredLatestChecks, type LatestCheckRow } from '../queries/pattern-checks.ts';
-
-/** Latest finished check per field and pest whose verdict is clustered, with the counts of its sightings. */
-async function clusteredLatestChecks(organisationId: string): Promise<LatestCheckRow[]> {
-  return listClusteredLatestChecks(organisationId);
-}
-
-/** Field and pest pairs with sightings added or edited after their latest check (or never checked). */
-async function uncheckedSightings(organisationId: string): Promise<UncheckedRow[]> {
-  return listUncheckedSightings(organisationId);
-}
+import {
+  selectAcceptedZoneMeans,
+  selectLatestDoneChecks,
+  selectOverdueRescouts,
+  selectUncheckedSightings,
+  type AcceptedZoneMeanRow,
+  type LatestCheckRow,
+} from '../queries/attention.ts';
 
 const figure = (v: number) => (Math.abs(v) >= 10 ? v.toFixed(1) : v.toFixed(2));
+const verdictWords: Record<SpreadVerdict, string> = {
+  clustered: 'spread clustered',
+  random: 'spread random',
+  regular: 'spread out',
+  everywhere: 'found everywhere',
+  'too-few': 'too few sightings to tell the spread',
+  'cant-tell': 'spread not told',
+};
+const spreadWords = (verdict: string | null) => verdictWords[verdict as SpreadVerdict] ?? 'spread unknown';
+
+/** A field whose latest check is above threshold as a whole; otherwise a patch or zone of it above threshold; or nothing. */
+function aboveThresholdLine(row: LatestCheckRow, acceptedZones: AcceptedZoneMeanRow[]): AttentionField | null {
+  const status = thresholdStatus(row.counts ?? [], row);
+  const base = {
+    fieldId: row.fieldId,
+    fieldName: row.fieldName,
+    farmName: row.farmName,
+    pestId: row.pestId,
+    pestName: row.pestName,
+    checkId: row.checkId,
+    meanPerStop: status.meanPerStop,
+    actionThreshold: row.actionThreshold,
+    thresholdSource: row.thresholdSource,
+    newSightings: 0,
+  };
+  // The point estimate decides here; the review page shows the interval and whether it is too close to call.
+  const estimate = row.thresholdBasis === 'incidence' ? status.shareInfested : status.meanPerStop;
+  if (estimate !== null && estimate > row.actionThreshold) {
+    const measured = row.thresholdBasis === 'incidence' ? `${Math.round(estimate * 100)} % of stops infested` : `mean ${figure(estimate)} ${row.countUnit}`;
+    return {
+      ...base,
+      reason: 'field-above-threshold',
+      message: `${row.pestName} in ${row.fieldName} is above its action threshold over the whole field (${measured}; threshold ${row.actionThreshold}), ${spreadWords(row.verdict)}.`,
+      link: reviewPath(row.fieldId, row.pestId, row.checkId),
+      zoneSetId: null,
+    };
+  }
+  // Patches and zones hold mean counts, so they are held against a mean-count threshold only.
+  if (row.thresholdBasis !== 'mean') return null;
+  const accepted = acceptedZones.filter(
+    (z) => z.fieldId === row.fieldId && z.pestId === row.pestId && z.meanCount !== null && z.meanCount > row.actionThreshold,
+  );
+  const fieldMean = status.meanPerStop === null ? '' : ` while the field mean is ${figure(status.meanPerStop)}`;
+  if (accepted.length > 0) {
+    const highest = Math.max(...accepted.map((z) => z.meanCount as number));
+    return {
+      ...base,
+      reason: 'patch-above-threshold',
+      message: `${accepted.length} accepted zone${accepted.length === 1 ? '' : 's'} of ${row.pestName} in ${row.fieldName} above the action threshold (up to ${figure(highest)} ${row.countUnit} against ${row.actionThreshold})${fieldMean}.`,
+      link: zoneEditorPath(row.fieldId, accepted[0].checkId, accepted[0].zoneSetId),
+      zoneSetId: accepted[0].zoneSetId,
+    };
+  }
+  const zones = row.zoneMeans.filter((m) => m > row.actionThreshold);
+  const patches = row.patchMeans.filter((m) => m > row.actionThreshold);
+  if (zones.length === 0 && patches.length === 0) return null;
+  const highest = Math.max(...zones, ...patches);
+  const what =
+    zones.length > 0 ? `${zones.length} proposed zone${zones.length === 1 ? '' : 's'}` : `${patches.length} patch${patches.length === 1 ? '' : 'es'}`;
+  return {
+    ...base,
+    reason: 'patch-above-threshold',
+    message: `${what} of ${row.pestName} in ${row.fieldName} above the action threshold (up to ${figure(highest)} ${row.countUnit} against ${row.actionThreshold})${fieldMean}.`,
+    link: zones.length > 0 ? zoneEditorPath(row.fieldId, row.checkId) : reviewPath(row.fieldId, row.pestId, row.checkId),
+    zoneSetId: null,
+  };
+}
 
 export async function fieldsNeedingAttention(actor: Actor): Promise<AttentionResponse> {
-  const clusteredAboveThreshold: AttentionField[] = [];
-  for (const row of await clusteredLatestChecks(actor.organisationId)) {
-    const status = thresholdStatus(row.counts ?? [], row);
-    // The point estimate decides here; the field page shows the interval and whether it is too close to call.
-    const estimate = row.thresholdBasis === 'incidence' ? status.shareInfested : status.meanPerStop;
-    if (estimate === null || !(estimate > row.actionThreshold)) continue;
-    const measured = row.thresholdBasis === 'incidence' ? `${Math.round(estimate * 100)} % of stops infested` : `mean ${figure(estimate)} ${row.countUnit}`;
-    clusteredAboveThreshold.push({
-      fieldId: row.fieldId,
-      fieldName: row.fieldName,
-      farmName: row.farmName,
-      pestId: row.pestId,
-      pestName: row.pestName,
-      reason: 'clustered-above-threshold',
-      message: `${row.pestName} is clustered in ${row.fieldName} and above its action threshold (${measured}; threshold ${row.actionThreshold}, ${row.thresholdSource}).`,
-      checkId: row.checkId,
-      meanPerStop: status.meanPerStop,
-      actionThreshold: row.actionThreshold,
-      thresholdSource: row.thresholdSource,
-      newSightings: 0,
-    });
-  }
-  const notYetChecked: AttentionField[] = (await uncheckedSightings(actor.organisationId)).map((row) => ({
+  const [latest, acceptedZones, unchecked, overdue] = await Promise.all([
+    selectLatestDoneChecks(actor.organisationId),
+    selectAcceptedZoneMeans(actor.organisationId),
+    selectUncheckedSightings(actor.organisationId),
+    selectOverdueRescouts(actor.organisationId),
+  ]);
+  const aboveThreshold = latest.map((row) => aboveThresholdLine(row, acceptedZones)).filter((line): line is AttentionField => line !== null);
+  const notYetChecked: AttentionField[] = unchecked.map((row) => ({
     fieldId: row.fieldId,
     fieldName: row.fieldName,
     farmName: row.farmName,
@@ -52,15 +102,31 @@ export async function fieldsNeedingAttention(actor: Actor): Promise<AttentionRes
     message: row.checkId
       ? `${row.newSightings} ${row.pestName} sighting${row.newSightings === 1 ? '' : 's'} in ${row.fieldName} added or changed since the last pattern check.`
       : `${row.newSightings} ${row.pestName} sighting${row.newSightings === 1 ? '' : 's'} in ${row.fieldName} not yet checked.`,
+    link: reviewPath(row.fieldId, row.pestId),
     checkId: row.checkId,
+    zoneSetId: null,
     meanPerStop: null,
     actionThreshold: row.actionThreshold,
     thresholdSource: row.thresholdSource,
     newSightings: row.newSightings,
   }));
-  // Sent notices that no grower has acknowledged yet.
-  const unacknowledgedNotices = await listUnacknowledgedNotices(actor);
-  // Grower questions on notices that no adviser has answered yet.
-  const growerQuestions = await listWaitingGrowerQuestions(actor);
-  return { clusteredAboveThreshold, notYetChecked, unacknowledgedNotices, growerQuestions };
+  const rescoutDue: AttentionRescout[] = overdue.map((row) => ({
+    fieldId: row.fieldId,
+    fieldName: row.fieldName,
+    farmName: row.farmName,
+    pestId: row.pestId,
+    pestName: row.pestName,
+    reason: 'rescout-due',
+    message: `${row.fieldName} was last walked ${row.daysSinceWalk} days ago; ${row.pestName} is due a walk every ${row.rescoutDays} days.`,
+    link: reviewPath(row.fieldId, row.pestId, row.checkId),
+    lastWalkedOn: row.lastWalkedOn,
+    daysSinceWalk: row.daysSinceWalk,
+    rescoutDays: row.rescoutDays,
+    rescoutSource: row.rescoutSource,
+    rescoutConfirmed: row.rescoutConfirmed,
+  }));
+  // Sent notices that no grower has acknowledged yet, and grower questions no adviser has answered.
+  const unacknowledgedNotices = (await listUnacknowledgedNotices(actor)).map((n) => ({ ...n, link: noticePath(n.noticeId) }));
+  const growerQuestions = (await listWaitingGrowerQuestions(actor)).map((q) => ({ ...q, link: noticePath(q.noticeId) }));
+  return { aboveThreshold, notYetChecked, rescoutDue, unacknowledgedNotices, growerQuestions };
 }

@@ -15,6 +15,9 @@ const present = (p: pests.PestRow): PestView => ({
   thresholdNote: p.thresholdNote,
   thresholdSource: p.thresholdSource,
   active: p.active,
+  rescoutDays: p.rescoutDays,
+  rescoutSource: p.rescoutSource,
+  rescoutConfirmed: p.rescoutConfirmed,
 });
 
 export async function listPests(actor: Actor, options: { includeInactive?: boolean } = {}) {

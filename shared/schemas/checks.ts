@@ -153,25 +153,49 @@ export interface FieldHistoryResponse {
   checks: CheckSummary[];
 }
 
+/** Why a line is on the adviser's attention list. */
+export type AttentionReason = 'field-above-threshold' | 'patch-above-threshold' | 'not-yet-checked' | 'rescout-due';
 export interface AttentionField {
   fieldId: string;
   fieldName: string;
   farmName: string;
   pestId: string;
   pestName: string;
-  reason: 'clustered-above-threshold' | 'not-yet-checked';
+  reason: AttentionReason;
   /** A sentence for the adviser. */
   message: string;
+  /** The page that opens exactly what the line is about (a check, a zone set or the field's review). */
+  link: string;
   checkId: string | null;
+  zoneSetId: string | null;
   meanPerStop: number | null;
   actionThreshold: number;
   thresholdSource: string;
   newSightings: number;
 }
+export interface AttentionRescout {
+  fieldId: string;
+  fieldName: string;
+  farmName: string;
+  pestId: string;
+  pestName: string;
+  reason: 'rescout-due';
+  message: string;
+  link: string;
+  lastWalkedOn: string;
+  daysSinceWalk: number;
+  rescoutDays: number;
+  rescoutSource: string;
+  /** False while the interval waits for the admin to confirm it against a published source. */
+  rescoutConfirmed: boolean;
+}
 export interface AttentionResponse {
-  clusteredAboveThreshold: AttentionField[];
+  /** Fields above their pest's threshold whatever the spread, and patches or zones above it where the field mean is not. */
+  aboveThreshold: AttentionField[];
   notYetChecked: AttentionField[];
-  unacknowledgedNotices: UnacknowledgedNotice[];
+  /** Fields whose latest walk is older than the pest's re-scout interval, most overdue first. */
+  rescoutDue: AttentionRescout[];
+  unacknowledgedNotices: Array<UnacknowledgedNotice & { link: string }>;
   /** Grower questions on notices waiting for an answer, oldest first. */
-  growerQuestions: WaitingGrowerQuestion[];
+  growerQuestions: Array<WaitingGrowerQuestion & { link: string }>;
 }

@@ -23,13 +23,27 @@ const pestFields = {
     .min(3, { error: 'Say where the threshold comes from (publication, extension service, year).' })
     .max(500),
   active: z.boolean(),
+  /** Days a field may go unscouted for this pest before it is due another walk. */
+  rescoutDays: z.coerce
+    .number({ error: 'Enter the re-scout interval in days.' })
+    .int({ error: 'Enter the re-scout interval as whole days.' })
+    .min(1, { error: 'The re-scout interval is at least 1 day.' })
+    .max(365, { error: 'The re-scout interval is at most 365 days.' }),
+  rescoutSource: z.string().trim().min(3, { error: 'Say where the re-scout interval comes from.' }).max(500),
+  /** True once someone has checked the interval against its published source. */
+  rescoutConfirmed: z.boolean(),
 };
+
+const commonPracticeRescout = 'Weekly scouting, common practice; confirm for your region';
 
 export const pestSchema = z.object({
   ...pestFields,
   thresholdBasis: pestFields.thresholdBasis.default('mean'),
   thresholdNote: pestFields.thresholdNote.default(''),
   active: pestFields.active.default(true),
+  rescoutDays: pestFields.rescoutDays.default(7),
+  rescoutSource: pestFields.rescoutSource.default(commonPracticeRescout),
+  rescoutConfirmed: pestFields.rescoutConfirmed.default(false),
 });
 export type PestInput = z.infer<typeof pestSchema>;
 // No defaults here: a partial update must not reset what it does not mention.

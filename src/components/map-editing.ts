@@ -4,7 +4,27 @@ import '@geoman-io/leaflet-geoman-free';
 import '@geoman-io/leaflet-geoman-free/dist/leaflet-geoman.css';
 import type L from 'leaflet';
 
+// The toolbar's tools and prompts in our own plain words (the buttons are named when they are made, so this comes first).
+export const editingWords = {
+  buttonTitles: {
+    drawPolyButton: 'Draw a shape corner by corner',
+    drawRectButton: 'Draw a rectangle',
+    editButton: 'Move corners',
+    dragButton: 'Move a whole shape',
+    cutButton: 'Cut a hole',
+    deleteButton: 'Remove a shape',
+  },
+  tooltips: {
+    firstVertex: 'Click where the shape starts',
+    continueLine: 'Click to add the next corner',
+    finishPoly: 'Click the first corner to close the shape',
+    finishRect: 'Click the opposite corner',
+  },
+  actions: { finish: 'Done', cancel: 'Stop drawing', removeLastVertex: 'Undo the last corner' },
+};
+
 export function addPolygonEditing(map: L.Map, options: { cutPolygon: boolean }) {
+  map.pm.setLang('en', editingWords, 'en');
   map.pm.addControls({
     position: 'topleft',
     drawMarker: false,

@@ -364,7 +364,7 @@ describe('a field’s checks, threshold status and history', () => {
 });
 
 describe('the adviser’s attention list', () => {
-  it('lists a clustered pest above its threshold and sightings not yet checked, for the own organisation only', async () => {
+  it('lists a clustered pest above its threshold and sightings not yet checked, each opening its page, for the own organisation only', async () => {
     const home = await makeOrganisation('Attention');
     const homeAdviser = await signedIn(home.users.adviser.email);
     const patchy = await makeScoutedField(home, patchyStops(91), { pest: { actionThreshold: 2 } });
@@ -372,10 +372,12 @@ describe('the adviser’s attention list', () => {
     const unchecked = await makeScoutedField(home, scatteredStops(92, 8));
 
     const res = await homeAdviser.get('/api/advisers/attention').expect(200);
-    expect(res.body.clusteredAboveThreshold.map((a: { fieldId: string }) => a.fieldId)).toEqual([patchy.field.id]);
-    expect(res.body.clusteredAboveThreshold[0].meanPerStop).toBeCloseTo(mean(patchyStops(91).map((p) => p.count as number)), 10);
+    expect(res.body.aboveThreshold.map((a: { fieldId: string }) => a.fieldId)).toEqual([patchy.field.id]);
+    expect(res.body.aboveThreshold[0].meanPerStop).toBeCloseTo(mean(patchyStops(91).map((p) => p.count as number)), 10);
     expect(res.body.notYetChecked.map((a: { fieldId: string }) => a.fieldId)).toEqual([unchecked.field.id]);
     expect(res.body.notYetChecked[0].newSightings).toBe(8);
+    expect(res.body.aboveThreshold[0].link).toBe(`/fields/${patchy.field.id}/review?pest=${patchy.pest.id}&check=${res.body.aboveThreshold[0].checkId}`);
+    expect(res.body.notYetChecked[0].link).toBe(`/fields/${unchecked.field.id}/review?pest=${unchecked.pest.id}`);
     expect(res.body.unacknowledgedNotices).toEqual([]);
 
     // A sighting added after the check puts the checked field back on the list.

@@ -95,6 +95,7 @@ describe('a question from the e-mailed link', () => {
     const attention = await adviser.get('/api/advisers/attention').expect(200);
     const waiting = attention.body.growerQuestions.filter((q: { noticeId: string }) => q.noticeId === noticeId);
     expect(waiting).toHaveLength(1);
+    expect(waiting[0].link).toBe(`/notices/${noticeId}`);
     expect(waiting[0].message).toMatch(/^Cleo Tillage asked about the .+ and is waiting for an answer\.$/);
     expect((await outsider.get('/api/advisers/attention').expect(200)).body.growerQuestions.map((q: { questionId: string }) => q.questionId)).not.toContain(
       questionId,

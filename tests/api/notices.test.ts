@@ -482,6 +482,7 @@ describe('notice access and follow-up', () => {
     const ids = res.body.unacknowledgedNotices.map((n: { noticeId: string }) => n.noticeId);
     expect(ids).toContain(unread.id);
     expect(ids).not.toContain(read.id);
+    expect(res.body.unacknowledgedNotices.find((n: { noticeId: string }) => n.noticeId === unread.id).link).toBe(`/notices/${unread.id}`);
     expect(res.body.unacknowledgedNotices.find((n: { noticeId: string }) => n.noticeId === unread.id).message).toMatch(/no grower has acknowledged it yet/);
     const theirs = await outsider.get('/api/advisers/attention').expect(200);
     expect(theirs.body.unacknowledgedNotices.map((n: { noticeId: string }) => n.noticeId)).not.toContain(unread.id);

@@ -111,7 +111,9 @@ const rows: PageRow[] = [
     keyboard: {
       does: 'a field needing attention opened for review',
       run: async (page) => {
-        await pressOn(page, page.locator('[data-attention]').getByRole('link').first());
+        // Lines about a field's sightings open its review (patches open the zone editor, notices their page).
+        const reviewLines = '[data-attention="field-above-threshold"], [data-attention="not-yet-checked"], [data-attention="rescout-due"]';
+        await pressOn(page, page.locator(reviewLines).getByRole('link').first());
         await page.waitForURL(/\/fields\/[0-9a-f-]{36}\/review/);
         await page.getByRole('button', { name: 'Run check' }).waitFor();
       },
@@ -252,7 +254,7 @@ const rows: PageRow[] = [
         // The arrow keys move through the boundary's radio group; drawing brings up the map's editing toolbar.
         await pressOn(page, page.getByLabel('Upload a file'), 'ArrowRight');
         expect(await page.getByLabel('Draw on the map').isChecked()).toBe(true);
-        await page.getByRole('button', { name: 'Draw Polygons' }).waitFor();
+        await page.getByRole('button', { name: 'Draw a shape corner by corner' }).waitFor();
         await expectAccessible(page);
         await pressOn(page, page.getByLabel('Draw on the map'), 'ArrowLeft');
         expect(await page.getByLabel('Upload a file').isChecked()).toBe(true);

@@ -93,7 +93,7 @@ describe('zone notice in the browser', () => {
 
     // A zone drawn by hand in the empty north-west corner of the field joins the table, and deleting it there removes it.
     const field = (await adviserPage.locator('.leaflet-overlay-pane svg path').first().boundingBox())!;
-    await adviserPage.locator('[title="Draw Rectangle"]').click();
+    await adviserPage.locator('[title="Draw a rectangle"]').click();
     await adviserPage.mouse.click(field.x + field.width * 0.08, field.y + field.height * 0.1);
     await adviserPage.mouse.click(field.x + field.width * 0.3, field.y + field.height * 0.3);
     await adviserPage.getByRole('cell', { name: /Drawn by hand/ }).waitFor();

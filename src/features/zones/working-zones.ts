@@ -3,10 +3,10 @@
 // turf (spherical area) until the server measures the accepted version on the ellipsoid.
 import { area, booleanPointInPolygon, feature, featureCollection, union } from '@turf/turf';
 import type { Feature, FeatureCollection, MultiPolygon, Polygon } from 'geojson';
-import type { ProposedZoneProperties } from '@shared/schemas/zones.ts';
+import type { ProposedZoneProperties, ZoneSetView, ZoneView } from '@shared/schemas/zones.ts';
 import type { SightingView } from '@shared/schemas/sightings.ts';
 
-export type ZoneOrigin = 'proposed' | 'edited' | 'drawn';
+export type ZoneOrigin = 'proposed' | 'edited' | 'drawn' | 'stored';
 
 export interface WorkingZone {
   key: string;
@@ -15,6 +15,8 @@ export interface WorkingZone {
   origin: ZoneOrigin;
   /** The engine's figures, kept while the zone is as proposed. */
   proposed?: ProposedZoneProperties;
+  /** The server's figures, kept while the zone is as stored. */
+  stored?: ZoneView;
 }
 
 export interface ZoneFigures {
@@ -40,9 +42,14 @@ export function zonesFromProposal(proposal: FeatureCollection<Polygon, ProposedZ
   }));
 }
 
+/** The zones of a stored version, as the server keeps them (clipped to the field, measured on the ellipsoid). */
+export function zonesFromStored(set: Pick<ZoneSetView, 'zones'>): WorkingZone[] {
+  return set.zones.map((z) => ({ key: newZoneKey(), label: z.label, geometry: z.geometry, origin: 'stored', stored: z }));
+}
+
 /** A zone reshaped on the map: its engine figures no longer apply; a hand-drawn zone stays hand-drawn. */
 export function reshapeZone(zones: WorkingZone[], key: string, geometry: Polygon | MultiPolygon): WorkingZone[] {
-  return zones.map((z) => (z.key === key ? { ...z, geometry, origin: z.origin === 'drawn' ? 'drawn' : 'edited', proposed: undefined } : z));
+  return zones.map((z) => (z.key === key ? { ...z, geometry, origin: z.origin === 'drawn' ? 'drawn' : 'edited', proposed: undefined, stored: undefined } : z));
 }
 
 export const removeZone = (zones: WorkingZone[], key: string) => zones.filter((z) => z.key !== key);
@@ -71,6 +78,9 @@ export function nextZoneLabel(zones: WorkingZone[]) {
 }
 
 export function zoneFigures(zone: WorkingZone, fieldAreaM2: number, sightings: SightingPoint[]): ZoneFigures {
+  if (zone.origin === 'stored' && zone.stored) {
+    return { areaM2: zone.stored.areaM2, shareOfField: zone.stored.shareOfField, sightingsInside: zone.stored.sightingsInside, fromEngine: true };
+  }
   if (zone.origin === 'proposed' && zone.proposed) {
     return { areaM2: zone.proposed.areaM2, shareOfField: zone.proposed.shareOfField, sightingsInside: zone.proposed.sightings, fromEngine: true };
   }
@@ -100,4 +110,37 @@ export function treatedAreaM2(zones: WorkingZone[], figures: ZoneFigures[]) {
 /** The FeatureCollection the server stores: each zone's label in its properties. */
 export function zonesForAcceptance(zones: WorkingZone[]): FeatureCollection<Polygon | MultiPolygon, { label: string }> {
   return { type: 'FeatureCollection', features: zones.map((z) => ({ type: 'Feature', properties: { label: z.label }, geometry: z.geometry })) };
+}
+
+/** A stop with a count as [lon, lat, count]: empty stops are 0, sightings without a count stay out. */
+export type CountedStop = [number, number, number];
+
+/** The stops with a count, of the check's own sightings or every placed one on the field. */
+export function countedStops(sightings: Pick<SightingView, 'id' | 'count' | 'position'>[], checkSightingIds: string[] | null): CountedStop[] {
+  const inCheck = checkSightingIds ? new Set(checkSightingIds) : null;
+  const stops: CountedStop[] = [];
+  for (const s of sightings) if (s.position && s.count !== null && (!inCheck || inCheck.has(s.id))) stops.push([s.position.lon, s.position.lat, s.count]);
+  return stops;
+}
+
+export interface ZoneStanding {
+  /** Mean count per stop inside the zone (mean basis) or share of its stops infested (incidence basis); null without stops. */
+  value: number | null;
+  stops: number;
+  /** Treatment zones are drawn where the figure reaches the threshold, so reaching it counts as above. */
+  standing: 'at-or-above' | 'below' | 'no-stops';
+}
+
+/** A zone's stops held against the pest's action threshold, on the threshold's own basis. */
+export function zoneStanding(
+  zone: Pick<WorkingZone, 'geometry'>,
+  stops: CountedStop[],
+  threshold: { actionThreshold: number; thresholdBasis: 'mean' | 'incidence' },
+): ZoneStanding {
+  const shape = feature(zone.geometry);
+  const inside = stops.filter(([lon, lat]) => booleanPointInPolygon([lon, lat], shape)).map(([, , count]) => count);
+  if (inside.length === 0) return { value: null, stops: 0, standing: 'no-stops' };
+  const value =
+    threshold.thresholdBasis === 'incidence' ? inside.filter((c) => c > 0).length / inside.length : inside.reduce((sum, c) => sum + c, 0) / inside.length;
+  return { value, stops: inside.length, standing: value >= threshold.actionThreshold ? 'at-or-above' : 'below' };
 }

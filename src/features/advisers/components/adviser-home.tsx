@@ -1,18 +1,16 @@
-// The adviser's home: what needs attention now — clustered pests above their threshold, sightings not yet
-// checked, notices the grower has not acknowledged, questions growers asked — each with a link straight to its page.
+// The adviser's home: what needs attention now — fields, patches and zones above their threshold, fields due a walk,
+// sightings not yet checked, notices the grower has not acknowledged, questions growers asked — each line opening its own page.
 import type { ReactNode } from 'react';
 import { Link } from 'react-router';
-import type { AttentionField } from '@shared/schemas/checks.ts';
+import type { AttentionField, AttentionRescout } from '@shared/schemas/checks.ts';
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { useAttention } from '../api/get-attention.ts';
+import { attentionAction } from '../attention-action.ts';
 
-const reviewLink = (a: { fieldId: string; pestId?: string; checkId?: string | null }) => {
-  const search = new URLSearchParams();
-  if (a.pestId) search.set('pest', a.pestId);
-  if (a.checkId) search.set('check', a.checkId);
-  return `/fields/${a.fieldId}/review${search.size ? `?${search}` : ''}`;
-};
+const primaryLink =
+  'shrink-0 rounded-md bg-field-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-field-600';
+const quietLink = 'shrink-0 rounded-md px-3 py-1.5 text-sm font-medium text-field-800 ring-1 ring-inset ring-soil-300 hover:bg-straw-100';
 
 function Section({ title, count, tone, children, empty }: { title: string; count: number; tone: string; children: ReactNode; empty: string }) {
   return (
@@ -29,6 +27,26 @@ function Section({ title, count, tone, children, empty }: { title: string; count
   );
 }
 
+function RescoutRow({ item }: { item: AttentionRescout }) {
+  return (
+    <li className="flex flex-wrap items-start justify-between gap-x-4 gap-y-1 py-2.5" data-attention={item.reason}>
+      <div className="min-w-0">
+        <p className="font-medium text-soil-900">
+          {item.fieldName} <span className="font-normal text-soil-600">· {item.farmName}</span> <span className="text-patch-700">· {item.pestName}</span>
+        </p>
+        <p className="text-sm text-soil-700">{item.message}</p>
+        <p className="text-xs text-soil-500">
+          Every {item.rescoutDays} days — {item.rescoutSource}
+          {!item.rescoutConfirmed && <span className="font-medium text-soil-700"> · interval not yet confirmed in the pest library</span>}
+        </p>
+      </div>
+      <Link to={item.link} className={quietLink}>
+        {attentionAction(item)}
+      </Link>
+    </li>
+  );
+}
+
 function FieldRow({ item, action }: { item: AttentionField; action: string }) {
   return (
     <li className="flex flex-wrap items-start justify-between gap-x-4 gap-y-1 py-2.5" data-attention={item.reason}>
@@ -41,10 +59,7 @@ function FieldRow({ item, action }: { item: AttentionField; action: string }) {
           Threshold {item.actionThreshold} — {item.thresholdSource}
         </p>
       </div>
-      <Link
-        to={reviewLink(item)}
-        className="shrink-0 rounded-md bg-field-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-field-600"
-      >
+      <Link to={item.link} className={primaryLink}>
         {action}
       </Link>
     </li>
@@ -68,13 +83,14 @@ export function AdviserHome() {
         <LoadingState label="Looking for fields that need you…" />
       ) : attention.isError ? (
         <ErrorState error={attention.error} onRetry={() => attention.refetch()} />
-      ) : attention.data.clusteredAboveThreshold.length +
+      ) : attention.data.aboveThreshold.length +
           attention.data.notYetChecked.length +
+          attention.data.rescoutDue.length +
           attention.data.unacknowledgedNotices.length +
           attention.data.growerQuestions.length ===
         0 ? (
         <EmptyState title="Nothing needs you right now">
-          Every field’s sightings are checked, no patchy pest is above its threshold and every notice is acknowledged.
+          Every field’s sightings are checked, no field, patch or zone is above its threshold, no field is due a walk and every notice is acknowledged.
         </EmptyState>
       ) : (
         <div className="grid items-start gap-5 xl:grid-cols-2">
@@ -96,10 +112,7 @@ export function AdviserHome() {
                       {q.askerName}, {new Date(q.askedAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}
                     </p>
                   </div>
-                  <Link
-                    to={`/notices/${q.noticeId}`}
-                    className="shrink-0 rounded-md bg-field-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-field-600"
-                  >
+                  <Link to={q.link} className={primaryLink}>
                     Answer
                   </Link>
                 </li>
@@ -107,13 +120,23 @@ export function AdviserHome() {
             </Section>
           )}
           <Section
-            title="Patchy and above threshold"
-            count={attention.data.clusteredAboveThreshold.length}
+            title="Above the action threshold"
+            count={attention.data.aboveThreshold.length}
             tone="bg-patch-600 text-white"
-            empty="No clustered pest is above its action threshold."
+            empty="No field, patch or zone is above its pest’s action threshold."
           >
-            {attention.data.clusteredAboveThreshold.map((item) => (
-              <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action="Review zones" />
+            {attention.data.aboveThreshold.map((item) => (
+              <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action={attentionAction(item)} />
+            ))}
+          </Section>
+          <Section
+            title="Due a walk"
+            count={attention.data.rescoutDue.length}
+            tone="bg-straw-300 text-soil-900"
+            empty="Every field was walked within its pest’s re-scout interval."
+          >
+            {attention.data.rescoutDue.map((item) => (
+              <RescoutRow key={`${item.fieldId}-${item.pestId}`} item={item} />
             ))}
           </Section>
           <Section
@@ -123,7 +146,7 @@ export function AdviserHome() {
             empty="Every field’s latest sightings have been checked."
           >
             {attention.data.notYetChecked.map((item) => (
-              <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action="Run a check" />
+              <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action={attentionAction(item)} />
             ))}
           </Section>
           <Section
@@ -144,11 +167,8 @@ export function AdviserHome() {
                     waiting
                   </p>
                 </div>
-                <Link
-                  to={reviewLink({ fieldId: n.fieldId })}
-                  className="shrink-0 rounded-md px-3 py-1.5 text-sm font-medium text-field-800 ring-1 ring-inset ring-soil-300 hover:bg-straw-100"
-                >
-                  Open field
+                <Link to={n.link} className={quietLink}>
+                  Open the notice
                 </Link>
               </li>
             ))}

@@ -1,7 +1,8 @@
 // The adviser's zone editor: the engine's proposal from a check, tuned by threshold and margin, edited or
 // drawn by hand on the map, then accepted as the field's next stored version.
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
-import { Link, useParams, useSearchParams } from 'react-router';
+import { Link, useBlocker, useParams, useSearchParams } from 'react-router';
+import { useQueryClient } from '@tanstack/react-query';
 import { CircleMarker } from 'react-leaflet';
 import type { ZoneProposalRequest } from '@shared/schemas/zones.ts';
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
@@ -13,6 +14,7 @@ import { EmptyState, ErrorState, LoadingState } from '../../../components/query-
 import { errorMessage } from '../../../lib/form-errors.ts';
 import { useField } from '../../../lib/api/get-field.ts';
 import { useCheck } from '../../../lib/api/get-check.ts';
+import { useZoneSet, zoneSetQueryOptions } from '../../../lib/api/get-zone-set.ts';
 import { usePests } from '../../../lib/api/get-pests.ts';
 import { useSightings } from '../../../lib/api/get-sightings.ts';
 import { useZoneProposal, type ZoneProposal } from '../api/propose-zones.ts';
@@ -22,8 +24,10 @@ import { NewProposalChoice } from './new-proposal-choice.tsx';
 import { ZoneEditLayer, type ZoneEditHandlers } from './zone-edit-layer.tsx';
 import { ZoneTable } from './zone-table.tsx';
 import { ZoneVersionsPanel } from './zone-versions-panel.tsx';
+import { LeaveWithoutAccepting, useWarnBeforeUnload } from './leave-without-accepting.tsx';
 import {
   addDrawnZone,
+  countedStops,
   foundSightingPoints,
   removeZone,
   reshapeZone,
@@ -31,6 +35,8 @@ import {
   zoneFigures,
   zonesForAcceptance,
   zonesFromProposal,
+  zonesFromStored,
+  zoneStanding,
   type WorkingZone,
 } from '../working-zones.ts';
 
@@ -40,11 +46,14 @@ export function ZoneEditorPage() {
   const { fieldId = '' } = useParams();
   const [search] = useSearchParams();
   const checkId = search.get('checkId');
+  const openedSetId = search.get('zoneSet');
+  const openedSet = useZoneSet(openedSetId);
+  const queryClient = useQueryClient();
   const field = useField(fieldId);
   const check = useCheck(checkId);
   const pests = usePests(false);
   const [chosenPestId, setChosenPestId] = useState('');
-  const pestId = check.data?.pestId ?? (checkId ? null : chosenPestId || null);
+  const pestId = check.data?.pestId ?? openedSet.data?.pestId ?? (checkId ? null : chosenPestId || null);
   const pest = pests.data?.find((p) => p.id === pestId) ?? null;
   const sightings = useSightings({ fieldId, pestId: pestId ?? undefined, status: 'placed' }, Boolean(pestId));
 
@@ -66,9 +75,29 @@ export function ZoneEditorPage() {
   // adviser's choice, so a threshold nudge never throws away their work.
   const handEdited = useRef(false);
   const [waitingProposal, setWaitingProposal] = useState<ZoneProposal | null>(null);
+  // Edits on the map or in the table that no Accept has stored yet: leaving asks first.
+  const [unaccepted, setUnaccepted] = useState(false);
   const markHandEdited = () => {
     handEdited.current = true;
+    setUnaccepted(true);
   };
+  const blocker = useBlocker(({ currentLocation, nextLocation }) => unaccepted && currentLocation.pathname !== nextLocation.pathname);
+  useWarnBeforeUnload(unaccepted);
+  // A stored version opened by its link shows as stored; a proposal then waits for the adviser's choice.
+  const shownSetId = useRef<string | null>(null);
+  const showStored = useCallback(
+    (set: { id: string; zones: Parameters<typeof zonesFromStored>[0]['zones'] }) => {
+      shownSetId.current = set.id;
+      handEdited.current = true;
+      setUnaccepted(false);
+      setWaitingProposal(null);
+      replaceZones(zonesFromStored(set));
+    },
+    [replaceZones],
+  );
+  useEffect(() => {
+    if (openedSet.data && shownSetId.current !== openedSet.data.id) showStored(openedSet.data);
+  }, [openedSet.data, showStored]);
   const takeProposal = useCallback(
     (next: ZoneProposal) => {
       handEdited.current = false;
@@ -86,15 +115,18 @@ export function ZoneEditorPage() {
   const handlers = useMemo<ZoneEditHandlers>(
     () => ({
       onReshape: (key, geometry) => {
-        markHandEdited();
+        handEdited.current = true;
+        setUnaccepted(true);
         setZones((all) => reshapeZone(all, key, geometry));
       },
       onRemove: (key) => {
-        markHandEdited();
+        handEdited.current = true;
+        setUnaccepted(true);
         setZones((all) => removeZone(all, key));
       },
       onDraw: (geometry) => {
-        markHandEdited();
+        handEdited.current = true;
+        setUnaccepted(true);
         replaceZones(addDrawnZone(zonesNow.current, geometry));
       },
     }),
@@ -102,10 +134,15 @@ export function ZoneEditorPage() {
   );
 
   const points = useMemo(() => foundSightingPoints(sightings.data ?? [], check.data?.sightingIds ?? null), [sightings.data, check.data]);
+  const stops = useMemo(() => countedStops(sightings.data ?? [], check.data?.sightingIds ?? null), [sightings.data, check.data]);
 
   const accept = useCreateZoneSet();
   const fieldAreaM2 = field.data?.areaM2 ?? 0;
-  const rows = zones.map((zone) => ({ zone, figures: zoneFigures(zone, fieldAreaM2, points) }));
+  const rows = zones.map((zone) => ({
+    zone,
+    figures: zoneFigures(zone, fieldAreaM2, points),
+    standing: zoneStanding(zone, stops, pest ?? { actionThreshold: Number.POSITIVE_INFINITY, thresholdBasis: 'mean' }),
+  }));
   const treated = treatedAreaM2(
     zones,
     rows.map((r) => r.figures),
@@ -133,7 +170,16 @@ export function ZoneEditorPage() {
   const f = field.data;
   const onAccept = () => {
     if (!pestId) return;
-    accept.mutate({ fieldId, pestId, ...(checkId ? { checkId } : {}), zones: zonesForAcceptance(zones) });
+    accept.mutate(
+      { fieldId, pestId, ...(checkId ? { checkId } : {}), zones: zonesForAcceptance(zones) },
+      {
+        // Show what the server stored (clipped to the field, slivers dropped), read back rather than assumed.
+        onSuccess: async ({ zoneSet }) => {
+          setUnaccepted(false);
+          showStored(await queryClient.fetchQuery({ ...zoneSetQueryOptions(zoneSet.id), staleTime: 0 }));
+        },
+      },
+    );
   };
 
   return (
@@ -271,6 +317,7 @@ export function ZoneEditorPage() {
         ) : (
           <ZoneTable
             rows={rows}
+            threshold={pest ? { actionThreshold: pest.actionThreshold, thresholdBasis: pest.thresholdBasis, countUnit: pest.countUnit } : null}
             onDelete={(key) => {
               markHandEdited();
               replaceZones(removeZone(zones, key));
@@ -280,6 +327,7 @@ export function ZoneEditorPage() {
       </Panel>
 
       <ZoneVersionsPanel fieldId={fieldId} pestId={pestId} />
+      {blocker.state === 'blocked' && <LeaveWithoutAccepting onStay={() => blocker.reset()} onLeave={() => blocker.proceed()} />}
     </PageFrame>
   );
 }
