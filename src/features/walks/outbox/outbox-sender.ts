@@ -99,7 +99,34 @@ export function drainOutbox(ownerId: string): Promise<number> {
   running = pass().finally(() => {
     running = null;
   });
+  void running.then(
+    (left) => retryLater(ownerId, left),
+    () => retryLater(ownerId, 1),
+  );
   return running;
+}
+
+// A connection that answers nothing (a dead Wi-Fi, a server restarting) raises no online event: try again later, less often.
+const RETRY_FIRST_MS = 5_000;
+const RETRY_MOST_MS = 120_000;
+let retryMs = RETRY_FIRST_MS;
+let retryTimer: ReturnType<typeof setTimeout> | undefined;
+
+function retryLater(ownerId: string, left: number) {
+  clearTimeout(retryTimer);
+  if (!left) {
+    retryMs = RETRY_FIRST_MS;
+    return;
+  }
+  // Offline, the online event starts the next drain.
+  if (typeof navigator !== 'undefined' && navigator.onLine === false) return;
+  retryTimer = setTimeout(() => void drainOutbox(ownerId), retryMs);
+  retryMs = Math.min(retryMs * 2, RETRY_MOST_MS);
+}
+
+/** The connection is back: the next wait starts short again. */
+export function resetRetryDelay() {
+  retryMs = RETRY_FIRST_MS;
 }
 
 /** Keeps an item on the phone and sends it at once if it can. */

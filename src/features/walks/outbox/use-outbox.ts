@@ -5,7 +5,7 @@ import { useSignedInUser } from '../../../lib/auth.ts';
 import { walkQueryKey } from '../api/get-walk.ts';
 import { walkListsQueryKey } from '../api/get-walks.ts';
 import { allQueued, onOutboxChange, tidyOutbox, type QueuedItem } from './outbox-store.ts';
-import { drainOutbox, onItemSent, onSendProgress } from './outbox-sender.ts';
+import { drainOutbox, onItemSent, onSendProgress, resetRetryDelay } from './outbox-sender.ts';
 
 /** The signed-in scout's items in the outbox, kept current with changes from this tab and others. */
 export function useOutbox(): QueuedItem[] {
@@ -63,33 +63,18 @@ export async function askForBackgroundSync() {
   }
 }
 
-// A connection that answers nothing (a dead Wi-Fi, a server restarting) raises no online event: try again later, less often.
-const RETRY_FIRST_MS = 5_000;
-const RETRY_MOST_MS = 120_000;
-
 /**
- * Sends the outbox on start, whenever the connection returns, when the service worker relays a Background Sync, and
- * again after a while when items are left waiting though the phone says it is online; the walks whose items arrived
- * are fetched again.
+ * Sends the outbox on start, whenever the connection returns and when the service worker relays a Background Sync
+ * (the sender itself tries again later while items are left and the phone says it is online); the walks whose items
+ * arrived are fetched again.
  */
 export function useOutboxSending() {
   const queryClient = useQueryClient();
   const ownerId = useSignedInUser().id;
   useEffect(() => {
-    let retryMs = RETRY_FIRST_MS;
-    let timer: ReturnType<typeof setTimeout> | undefined;
-    const drain = () => {
-      clearTimeout(timer);
-      void drainOutbox(ownerId).then((left) => {
-        if (!left) retryMs = RETRY_FIRST_MS;
-        else if (navigator.onLine) {
-          timer = setTimeout(drain, retryMs);
-          retryMs = Math.min(retryMs * 2, RETRY_MOST_MS);
-        }
-      });
-    };
+    const drain = () => void drainOutbox(ownerId);
     const online = () => {
-      retryMs = RETRY_FIRST_MS;
+      resetRetryDelay();
       drain();
     };
     const fromWorker = (event: MessageEvent) => {
@@ -104,7 +89,6 @@ export function useOutboxSending() {
     window.addEventListener('online', online);
     navigator.serviceWorker?.addEventListener('message', fromWorker);
     return () => {
-      clearTimeout(timer);
       window.removeEventListener('online', online);
       navigator.serviceWorker?.removeEventListener('message', fromWorker);
       stopSent();
