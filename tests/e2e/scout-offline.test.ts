@@ -92,6 +92,8 @@ describe('scout without signal', () => {
       await page.getByLabel('Pest').waitFor();
 
       await context.setOffline(true);
+      // Headless Chromium's emulated position must be set again once the field list's watch has ended.
+      await context.setGeolocation(standing);
       await page.getByLabel('Pest').selectOption(pest.id);
       await page.getByLabel('Count for each photo').fill('3');
       await page.getByTestId('gallery-input').setInputFiles([
@@ -101,7 +103,8 @@ describe('scout without signal', () => {
       await page.getByRole('button', { name: 'Send 2 photos' }).tap();
       await expect.poll(() => rowStates(page), settle).toEqual(['waiting', 'waiting']);
       await page.getByRole('button', { name: 'Nothing found here' }).tap();
-      await expect.poll(() => page.getByText(/kept on this phone until there is signal/).count(), settle).toBe(1);
+      const stopStatus = page.getByRole('button', { name: 'Nothing found here' }).locator('xpath=following-sibling::p[@role="status"]');
+      await expect.poll(() => stopStatus.textContent(), settle).toMatch(/kept on this phone until there is signal/);
       await expect.poll(() => stopStates(page), settle).toEqual(['waiting']);
       const banner = page.getByTestId('outbox-banner');
       await expect.poll(() => banner.textContent(), settle).toMatch(/offline.*3 items wait on this phone/);
@@ -121,6 +124,12 @@ describe('scout without signal', () => {
       await context.setOffline(false);
       await expect.poll(() => rowStates(page), settle).toEqual(['sent', 'sent']);
       await expect.poll(() => stopStates(page), settle).toEqual([]);
+
+      // Standing inside the field (every test field shares one rectangle), the field list says so and puts it first.
+      await page.getByRole('link', { name: 'Walk a field' }).tap();
+      await expect.poll(() => page.getByText(/^You are in /).count(), settle).toBe(1);
+      const first = page.getByRole('list', { name: 'Fields assigned to you' }).getByRole('listitem').first();
+      expect(await first.textContent()).toContain('you are in it');
       const stored = await walkOnServer(walkId);
       expect(stored.walk).toMatchObject({ sightingCount: 2, stopCount: 1 });
       expect(stored.sightings.filter((s) => s.isEmptyStop)).toHaveLength(1);
