@@ -1,5 +1,6 @@
 import { defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
+import { VitePWA } from 'vite-plugin-pwa';
 import { fileURLToPath } from 'node:url';
 
 const sharedDir = fileURLToPath(new URL('./shared', import.meta.url));
@@ -10,8 +11,36 @@ const serialSuite = { fileParallelism: false, testTimeout: 60_000, hookTimeout: 
 // Projects run one after another (unit first, for the quickest word): the fault suites restart the database.
 const inOrder = (groupOrder: number) => ({ sequence: { groupOrder } });
 
+// The installable scout app: a manifest and our own service worker (src/sw.ts), its precache list filled in by Workbox.
+const pwa = VitePWA({
+  strategies: 'injectManifest',
+  srcDir: 'src',
+  filename: 'sw.ts',
+  registerType: 'autoUpdate',
+  injectRegister: false,
+  injectManifest: { globPatterns: ['**/*.{js,css,html,svg,png,woff2}'], maximumFileSizeToCacheInBytes: 4 * 1024 * 1024 },
+  includeAssets: ['icons/apple-touch-icon.png'],
+  manifest: {
+    name: 'Patchwise',
+    short_name: 'Patchwise',
+    description: 'Scout fields, record pests and empty stops, and send them when there is signal.',
+    start_url: '/',
+    scope: '/',
+    display: 'standalone',
+    orientation: 'portrait',
+    background_color: '#fbf8f0',
+    theme_color: '#2f5d3a',
+    icons: [
+      { src: '/icons/icon-192.png', sizes: '192x192', type: 'image/png' },
+      { src: '/icons/icon-512.png', sizes: '512x512', type: 'image/png' },
+      { src: '/icons/icon-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+    ],
+  },
+  devOptions: { enabled: false },
+});
+
 export default defineConfig({
-  plugins: [react()],
+  plugins: [react(), pwa],
   resolve: { alias: { '@shared': sharedDir } },
   build: { outDir: 'dist', sourcemap: true },
   server: { proxy: { '/api': `http://127.0.0.1:${process.env.PORT ?? 3000}` } },

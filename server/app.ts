@@ -109,7 +109,16 @@ export function createApp(options: AppOptions = {}): Express {
 
   const clientDir = options.clientDir ?? config.clientDir;
   if (fs.existsSync(path.join(clientDir, 'index.html'))) {
-    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.use(
+      express.static(clientDir, {
+        index: false,
+        maxAge: '1h',
+        // The service worker and manifest name the build's files: a phone must see a new build at once, not in an hour.
+        setHeaders: (res, file) => {
+          if (/(^|[\\/])(sw\.js|manifest\.webmanifest)$/.test(file)) res.setHeader('Cache-Control', 'no-cache');
+        },
+      }),
+    );
     app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile(path.join(clientDir, 'index.html')));
   }
 

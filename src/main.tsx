@@ -3,6 +3,7 @@ import { createRoot } from 'react-dom/client';
 import './index.css';
 import { AppProvider } from './app/provider.tsx';
 import { AppRouter } from './app/router.tsx';
+import { registerServiceWorker } from './lib/register-service-worker.ts';
 
 createRoot(document.getElementById('root')!).render(
   <StrictMode>
@@ -11,3 +12,5 @@ createRoot(document.getElementById('root')!).render(
     </AppProvider>
   </StrictMode>,
 );
+
+registerServiceWorker();

@@ -104,26 +104,43 @@ export interface NewEmptyStop {
   lat: number;
   accuracyM: number | null | undefined;
   userId: string;
+  /** When the scout stood there (a stop kept on the phone and sent later); now when absent. */
+  observedAt?: string | null;
+  /** The phone's own id for the stop. */
+  clientId?: string | null;
 }
 
-/** An empty stop: count 0 at the phone's position, placed at once. */
+/** An empty stop: count 0 at the phone's position, placed at once; a client id this scout already used inserts nothing (undefined). */
 export const insertEmptyStop = async (stop: NewEmptyStop, options: InTransaction = {}) =>
-  (await selectRow<{ id: string }>(
-    `INSERT INTO sightings (organisation_id, field_id, walk_id, pest_id, count, position, position_source, accuracy_m, observed_at, status, created_by)
-       VALUES (:org, :fieldId, :walkId, :pestId, 0, ST_SetSRID(ST_MakePoint(:lon, :lat), 4326), 'device', :accuracyM, now(), 'placed', :userId)
-       RETURNING id`,
-    {
-      org: stop.organisationId,
-      fieldId: stop.fieldId,
-      walkId: stop.walkId,
-      pestId: stop.pestId,
-      lon: stop.lon,
-      lat: stop.lat,
-      accuracyM: stop.accuracyM,
-      userId: stop.userId,
-    },
-    options,
-  ))!.id;
+  (
+    await selectRow<{ id: string }>(
+      `INSERT INTO sightings (organisation_id, field_id, walk_id, pest_id, count, position, position_source, accuracy_m, observed_at, status, created_by, client_id)
+         VALUES (:org, :fieldId, :walkId, :pestId, 0, ST_SetSRID(ST_MakePoint(:lon, :lat), 4326), 'device', :accuracyM,
+                 COALESCE(CAST(:observedAt AS timestamptz), now()), 'placed', :userId, :clientId)
+         ON CONFLICT (created_by, client_id) WHERE client_id IS NOT NULL DO NOTHING
+         RETURNING id`,
+      {
+        org: stop.organisationId,
+        fieldId: stop.fieldId,
+        walkId: stop.walkId,
+        pestId: stop.pestId,
+        lon: stop.lon,
+        lat: stop.lat,
+        accuracyM: stop.accuracyM,
+        userId: stop.userId,
+        observedAt: stop.observedAt ?? null,
+        clientId: stop.clientId ?? null,
+      },
+      options,
+    )
+  )?.id;
+
+/** The sighting a scout already made under this client id, deleted or not. */
+export const findSightingByClientId = (userId: string, clientId: string) =>
+  selectRow<{ id: string; walkId: string }>(`SELECT id, walk_id AS "walkId" FROM sightings WHERE created_by = :userId AND client_id = :clientId`, {
+    userId,
+    clientId,
+  });
 
 /** The field's sighting (not deleted) made from the photo with this hash. */
 export const findSightingOfPhotoHash = (fieldId: string, sha256: string) =>

@@ -27,5 +27,6 @@ walksRouter.patch('/:id', requireSignedIn, async (req, res) => {
 });
 
 walksRouter.post('/:id/stops', requireSignedIn, async (req, res) => {
-  res.status(201).json({ sighting: await recordEmptyStop(actor(req), parse(idParam, req.params).id, parse(walkStopSchema, req.body)) });
+  const { sighting, created } = await recordEmptyStop(actor(req), parse(idParam, req.params).id, parse(walkStopSchema, req.body));
+  res.status(created ? 201 : 200).json({ sighting });
 });

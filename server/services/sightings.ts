@@ -139,13 +139,38 @@ export async function recordEmptyStop(actor: Actor, walkId: string, input: WalkS
     const message = `Your position lies outside ${walk.fieldName}; walk into the field before recording a stop.`;
     throw badRequest(message, { position: message });
   }
-  const id = await sequelize.transaction(async (transaction) => {
+  const inserted = await sequelize.transaction(async (transaction) => {
     const id = await sightings.insertEmptyStop(
-      { organisationId: actor.organisationId, fieldId: walk.fieldId, walkId, pestId: input.pestId, ...position, accuracyM: input.accuracyM, userId: actor.id },
+      {
+        organisationId: actor.organisationId,
+        fieldId: walk.fieldId,
+        walkId,
+        pestId: input.pestId,
+        ...position,
+        accuracyM: input.accuracyM,
+        observedAt: input.observedAt ?? null,
+        clientId: input.clientId ?? null,
+        userId: actor.id,
+      },
       { transaction },
     );
-    await recordAudit(actor, 'create', 'sighting', id, { emptyStop: true, walkId, pestId: input.pestId, position, accuracyM: input.accuracyM }, transaction);
+    if (id)
+      await recordAudit(actor, 'create', 'sighting', id, { emptyStop: true, walkId, pestId: input.pestId, position, accuracyM: input.accuracyM }, transaction);
     return id;
   });
-  return getSighting(actor, id);
+  if (inserted) return { sighting: await getSighting(actor, inserted), created: true };
+  return { sighting: await alreadyRecordedStop(actor, input.clientId!), created: false };
+}
+
+/** The stop a retry of the same client id points at; one the scout has since removed stays removed. */
+async function alreadyRecordedStop(actor: Actor, clientId: string) {
+  const existing = await sightings.findSightingByClientId(actor.id, clientId);
+  if (!existing) throw conflict('This stop could not be recorded; record it again.');
+  try {
+    return await getSighting(actor, existing.id);
+  } catch (error) {
+    if (error instanceof AppError && error.status === 404)
+      throw conflict('This stop was sent before and has since been removed; restore it from the walk if it was right.');
+    throw error;
+  }
 }

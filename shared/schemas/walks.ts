@@ -22,6 +22,9 @@ export const walkListQuerySchema = z.object({
   fieldId: z.uuid({ error: 'That field id is not valid.' }).optional(),
 });
 
+/** A phone's clock may run a little ahead of the server's. */
+const STOP_CLOCK_SLACK_MS = 10 * 60_000;
+
 export const walkStopSchema = z.object({
   pestId: z.uuid({ error: 'Choose the pest you were looking for.' }),
   lon: z.coerce
@@ -33,6 +36,13 @@ export const walkStopSchema = z.object({
     .min(-90, { error: 'Latitude must lie between −90 and 90.' })
     .max(90, { error: 'Latitude must lie between −90 and 90.' }),
   accuracyM: z.coerce.number({ error: 'The stop needs the position accuracy in metres.' }).min(0, { error: 'Accuracy cannot be negative.' }).max(100_000),
+  /** The phone's own id for the stop, so a stop sent twice (kept offline, a retry) is recorded once. */
+  clientId: z.string().trim().min(1).max(100, { error: 'The stop id is at most 100 characters.' }).optional(),
+  /** When the stop was recorded on the phone, for a stop sent later; the server's clock when absent. */
+  observedAt: z.iso
+    .datetime({ offset: true, error: 'The stop time must be an ISO 8601 date and time.' })
+    .refine((t) => Date.parse(t) <= Date.now() + STOP_CLOCK_SLACK_MS, { error: 'The stop time lies in the future; check the phone’s clock.' })
+    .optional(),
 });
 export type WalkStopInput = z.infer<typeof walkStopSchema>;
 

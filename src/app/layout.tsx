@@ -7,6 +7,14 @@ import { useSignedInUser } from '../lib/auth.ts';
 import { LoadingState } from '../components/query-states.tsx';
 import { useSignOut } from '../features/auth/api/sign-out.ts';
 import { navFor } from './routes.tsx';
+import { OutboxBanner } from '../features/walks/components/outbox-banner.tsx';
+import { useOutboxSending } from '../features/walks/outbox/use-outbox.ts';
+
+/** A scout's outbox is sent from whichever page is open, and its state shows on every page. */
+function ScoutOutbox() {
+  useOutboxSending();
+  return <OutboxBanner />;
+}
 
 export function AppLayout() {
   const user = useSignedInUser();
@@ -65,6 +73,7 @@ export function AppLayout() {
           </nav>
         )}
       </header>
+      {user.role === 'scout' && <ScoutOutbox />}
       <main id="main" className="flex-1">
         <Suspense
           fallback={

@@ -20,8 +20,10 @@ export function makeQueryClient() {
       },
     }),
     defaultOptions: {
-      queries: { retry: shouldRetry, staleTime: 30_000, refetchOnWindowFocus: false },
-      mutations: { retry: false },
+      // offlineFirst: a query is tried once even without signal, so the service worker can answer from its cache instead of the page waiting.
+      queries: { retry: shouldRetry, staleTime: 30_000, refetchOnWindowFocus: false, networkMode: 'offlineFirst' },
+      // A write without signal fails at once with its message rather than pausing unseen (the outbox keeps photos and stops).
+      mutations: { retry: false, networkMode: 'always' },
     },
   });
   return client;

@@ -9,7 +9,9 @@ export interface PhonePosition {
 
 type Status = { kind: 'idle' } | { kind: 'locating' } | { kind: 'found'; position: PhonePosition } | { kind: 'failed'; message: string };
 
-const LOCATE_TIMEOUT_MS = 20_000;
+const LOCATE_TIMEOUT_MS = 15_000;
+// A fix this young is still where the scout stands (a few steps at walking pace); older ones are asked for afresh.
+const POSITION_MAX_AGE_MS = 10_000;
 
 function explain(error: GeolocationPositionError) {
   if (error.code === error.PERMISSION_DENIED) {
@@ -17,11 +19,12 @@ function explain(error: GeolocationPositionError) {
       ? 'Patchwise may not read this phone’s location. Allow location for this site in the browser settings, then tap again.'
       : 'The browser only shares location with a secure (https) address. Open Patchwise through its https address and tap again.';
   }
-  if (error.code === error.TIMEOUT) return 'The phone did not find its position within 20 seconds. Step into the open, away from buildings, and tap again.';
+  if (error.code === error.TIMEOUT)
+    return 'The phone did not find its position within 15 seconds. Step into the open, away from buildings and trees, check that location is on, and tap again.';
   return 'The phone could not work out its position. Check that location is switched on, then tap again.';
 }
 
-/** Asks for one fresh, high-accuracy fix each time `locate` is called. */
+/** Asks for one high-accuracy fix (at most 10 s old) each time `locate` is called, giving up after 15 s with what to do. */
 export function useCurrentPosition() {
   const [status, setStatus] = useState<Status>({ kind: 'idle' });
 
@@ -44,7 +47,7 @@ export function useCurrentPosition() {
             setStatus({ kind: 'failed', message: explain(error) });
             resolve(null);
           },
-          { enableHighAccuracy: true, timeout: LOCATE_TIMEOUT_MS, maximumAge: 0 },
+          { enableHighAccuracy: true, timeout: LOCATE_TIMEOUT_MS, maximumAge: POSITION_MAX_AGE_MS },
         );
       }),
     [],

@@ -70,6 +70,41 @@ describe('walks', () => {
     expect(res.body.error.message).toMatch(/outside .* walk into the field/);
   });
 
+  it('records a stop sent twice under one client id once, keeping the time it was recorded on the phone', async () => {
+    const { scout, field, pest } = await scoutingSetUp();
+    const walk = await scout.post('/api/walks', { fieldId: field.id, walkedOn: '2026-11-21' }).expect(201);
+    const stop = { pestId: pest.id, ...insideField(0.4, 0.6), accuracyM: 7, clientId: 'phone-stop-1', observedAt: '2026-11-21T09:15:00-03:00' };
+    const first = await scout.post(`/api/walks/${walk.body.walk.id}/stops`, stop).expect(201);
+    const again = await scout.post(`/api/walks/${walk.body.walk.id}/stops`, stop).expect(200);
+    expect(again.body.sighting.id).toBe(first.body.sighting.id);
+    // 09:15 at UTC−03:00 is 12:15 UTC (ISO 8601 offsets).
+    expect(new Date(first.body.sighting.observedAt).toISOString()).toBe('2026-11-21T12:15:00.000Z');
+    const detail = await scout.get(`/api/walks/${walk.body.walk.id}`).expect(200);
+    expect(detail.body.walk.stopCount).toBe(1);
+  });
+
+  it('does not bring back a removed stop when the phone sends it again', async () => {
+    const { scout, field, pest } = await scoutingSetUp();
+    const walk = await scout.post('/api/walks', { fieldId: field.id, walkedOn: '2026-11-21' }).expect(201);
+    const stop = { pestId: pest.id, ...insideField(0.5, 0.5), accuracyM: 4, clientId: 'phone-stop-2' };
+    const first = await scout.post(`/api/walks/${walk.body.walk.id}/stops`, stop).expect(201);
+    await scout.delete(`/api/sightings/${first.body.sighting.id}`).expect(204);
+    const again = await scout.post(`/api/walks/${walk.body.walk.id}/stops`, stop);
+    expect(again.status).toBe(409);
+    expect(again.body.error.message).toMatch(/removed/);
+    const detail = await scout.get(`/api/walks/${walk.body.walk.id}`).expect(200);
+    expect(detail.body.walk.stopCount).toBe(0);
+  });
+
+  it('refuses a stop time in the future with a sentence', async () => {
+    const { scout, field, pest } = await scoutingSetUp();
+    const walk = await scout.post('/api/walks', { fieldId: field.id, walkedOn: '2026-11-21' }).expect(201);
+    const later = new Date(Date.now() + 86_400_000).toISOString();
+    const res = await scout.post(`/api/walks/${walk.body.walk.id}/stops`, { pestId: pest.id, ...insideField(0.5, 0.5), accuracyM: 4, observedAt: later });
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/future/);
+  });
+
   it('edits notes and date, audited', async () => {
     const { scout, field, org } = await scoutingSetUp();
     const walk = await scout.post('/api/walks', { fieldId: field.id, walkedOn: '2026-11-21' }).expect(201);

@@ -1,8 +1,9 @@
-// The scout's upload queue as plain data: which photos go next, with which count, and what a reload leaves
-// of the list. The hook (hooks/use-photo-uploads.ts) holds the files and sends them.
+// The scout's upload queue as plain data: which photos go next, with which count, and what a reload or a
+// restart leaves of the outbox (the photos and stops kept on the phone until they are sent; outbox/ stores and sends them).
 import type { PhotoOutcome } from '@shared/schemas/sightings.ts';
 
-export type UploadState = 'ready' | 'sending' | 'sent' | 'failed';
+/** ready: chosen, not yet sent; waiting: kept on the phone for the next connection; refused: the server said no, with its reason. */
+export type UploadState = 'ready' | 'waiting' | 'sending' | 'sent' | 'refused';
 
 export interface UploadEntry {
   clientId: string;
@@ -46,23 +47,53 @@ export function entriesToSend(entries: UploadEntry[], only?: string[]): UploadEn
 export const withChange = (entries: UploadEntry[], clientId: string, change: Partial<UploadEntry>) =>
   entries.map((e) => (e.clientId === clientId ? { ...e, ...change } : e));
 
-/** A failure the scout can retry only while the file is still in memory and the fault was the network's or the server's. */
-export const failed = (message: string, retryable: boolean): Partial<UploadEntry> => ({ state: 'failed', error: { message, retryable } });
+/** What one attempt to send an outbox item came to. */
+export type SendResult =
+  | { kind: 'sent'; outcome?: PhotoOutcome }
+  | { kind: 'refused'; message: string }
+  /** No connection, a dropped one or a server fault: the item waits for the next try. */
+  | { kind: 'unreachable'; message: string };
 
-/**
- * The list after a reload: the files themselves cannot be kept, so a photo that was on its way (or failed
- * and could have been retried) must be chosen again; a sent photo keeps its outcome.
- */
-export function entriesAfterReload(saved: UploadEntry[]): UploadEntry[] {
-  return saved.map((entry) =>
-    entry.state === 'sending' || (entry.state === 'failed' && entry.error?.retryable)
-      ? { ...entry, progress: 0, ...failed('The page was reloaded before this photo arrived; add it again to send it.', false) }
-      : entry,
-  );
+export interface OutboxItemState {
+  clientId: string;
+  state: Exclude<UploadState, 'ready'>;
+  attempts: number;
+  lastError?: string;
+  refusal?: string;
+  outcome?: PhotoOutcome;
 }
 
-/** Photos merely chosen are not worth keeping across a reload: their files are gone with the page. */
-export const entriesWorthKeeping = (entries: UploadEntry[]) => entries.filter((e) => e.state !== 'ready');
+/** The item after an attempt: sent and refused are final; an unreachable server leaves it waiting, one attempt more. */
+export function afterAttempt<T extends OutboxItemState>(item: T, result: SendResult): T {
+  const attempts = item.attempts + 1;
+  switch (result.kind) {
+    case 'sent':
+      return { ...item, state: 'sent', attempts, outcome: result.outcome, lastError: undefined };
+    case 'refused':
+      return { ...item, state: 'refused', attempts, refusal: result.message };
+    case 'unreachable':
+      return { ...item, state: 'waiting', attempts, lastError: result.message };
+  }
+}
+
+/**
+ * The outbox after a reload or restart: an item that was on its way when the page went may or may not have arrived,
+ * so it waits to be sent again (the server knows it by its client id or its content and records it once).
+ */
+export const outboxAfterRestart = <T extends OutboxItemState>(items: T[]): T[] =>
+  items.map((item) => (item.state === 'sending' ? { ...item, state: 'waiting' } : item));
+
+/** What a drain sends: everything waiting, oldest first. */
+export const outboxToSend = <T extends OutboxItemState & { createdAt: number }>(items: T[]): T[] =>
+  items.filter((item) => item.state === 'waiting').sort((a, b) => a.createdAt - b.createdAt);
+
+/** Items still on the phone: waiting or on their way (a refused one is on the phone too, but needs the scout). */
+export const unsentCount = (items: OutboxItemState[]) => items.filter((item) => item.state === 'waiting' || item.state === 'sending').length;
+
+/** A sent item is kept this long so its outcome (placed, needs a pin) stays in view, then leaves the phone. */
+export const SENT_KEPT_MS = 24 * 3_600_000;
+export const outboxExpired = <T extends OutboxItemState & { sentAt?: number }>(items: T[], now: number): T[] =>
+  items.filter((item) => item.state === 'sent' && item.sentAt !== undefined && now - item.sentAt > SENT_KEPT_MS);
 
 /** Runs `work` over the queue in order, at most `parallel` at a time; resolves when every item is done. */
 export async function drainQueue<T>(queue: readonly T[], parallel: number, work: (item: T) => Promise<void>): Promise<void> {

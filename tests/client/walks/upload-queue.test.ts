@@ -1,12 +1,17 @@
-// The scout's upload queue: which photos go, with which count, how many at once, and what a reload keeps.
+// The scout's upload queue: which photos go, with which count, how many at once, and what the outbox keeps across attempts and restarts.
 import { describe, expect, it } from 'vitest';
 import {
   countFor,
+  afterAttempt,
   drainQueue,
-  entriesAfterReload,
   entriesToSend,
-  entriesWorthKeeping,
+  outboxAfterRestart,
+  outboxExpired,
+  outboxToSend,
   readyEntry,
+  SENT_KEPT_MS,
+  unsentCount,
+  type OutboxItemState,
   withChange,
   type UploadEntry,
 } from '../../../src/features/walks/upload-queue.ts';
@@ -36,7 +41,7 @@ describe('the count sent with a photo', () => {
 });
 
 describe('a press of send', () => {
-  const list = [entry('a'), entry('b', { state: 'sent' }), entry('c', { state: 'failed', error: { message: 'x', retryable: true } }), entry('d')];
+  const list = [entry('a'), entry('b', { state: 'sent' }), entry('c', { state: 'refused', error: { message: 'x', retryable: false } }), entry('d')];
 
   it('takes every photo that is ready, in the order chosen', () => {
     expect(entriesToSend(list).map((e) => e.clientId)).toEqual(['a', 'd']);
@@ -91,32 +96,50 @@ describe('one photo’s progress', () => {
   });
 });
 
-describe('after a reload', () => {
-  it('marks a photo that was on its way as to be added again: its file is gone with the page', () => {
-    const [after] = entriesAfterReload([entry('a', { state: 'sending', progress: 0.6 })]);
-    expect(after).toMatchObject({ state: 'failed', progress: 0, error: { retryable: false } });
-    expect(after.error?.message).toMatch(/add it again/);
+const item = (clientId: string, change: Partial<OutboxItemState & { createdAt: number; sentAt: number }> = {}) => ({
+  clientId,
+  state: 'waiting' as const,
+  attempts: 0,
+  createdAt: 0,
+  ...change,
+});
+
+describe('one attempt to send an outbox item', () => {
+  it('keeps an item waiting when the server cannot be reached, counting the attempt and saying why', () => {
+    const after = afterAttempt(item('a', { state: 'sending' }), { kind: 'unreachable', message: 'No connection.' });
+    expect(after).toMatchObject({ state: 'waiting', attempts: 1, lastError: 'No connection.' });
   });
 
-  it('does the same for a failed photo that could have been retried', () => {
-    const [after] = entriesAfterReload([entry('a', { state: 'failed', error: { message: 'The connection dropped.', retryable: true } })]);
-    expect(after.error).toMatchObject({ retryable: false });
+  it('marks it refused with the server’s own reason, so it is not sent again by itself', () => {
+    const after = afterAttempt(item('a', { state: 'sending' }), { kind: 'refused', message: 'Your position lies outside North.' });
+    expect(after).toMatchObject({ state: 'refused', refusal: 'Your position lies outside North.' });
+    expect(outboxToSend([after])).toEqual([]);
   });
 
-  it('keeps a refused photo’s own reason (a retry would be refused again)', () => {
-    const refused = entry('a', { state: 'failed', error: { message: 'This file is not a JPEG.', retryable: false } });
-    expect(entriesAfterReload([refused])).toEqual([refused]);
-  });
-
-  it('keeps a sent photo as sent', () => {
-    const sent = entry('a', { state: 'sent', progress: 1 });
-    expect(entriesAfterReload([sent])).toEqual([sent]);
+  it('marks it sent with its outcome and forgets an earlier network error', () => {
+    const after = afterAttempt(item('a', { state: 'sending', lastError: 'No connection.', attempts: 2 }), { kind: 'sent' });
+    expect(after).toMatchObject({ state: 'sent', attempts: 3, lastError: undefined });
   });
 });
 
-describe('what is kept for a reload', () => {
-  it('is everything but the photos merely chosen', () => {
-    const list = [entry('a'), entry('b', { state: 'sent' }), entry('c', { state: 'sending' }), entry('d', { state: 'failed' })];
-    expect(entriesWorthKeeping(list).map((e) => e.clientId)).toEqual(['b', 'c', 'd']);
+describe('the outbox after a reload or restart', () => {
+  it('sends again an item that was on its way: whether it arrived is unknown, and the server records it once', () => {
+    const restored = outboxAfterRestart([item('a', { state: 'sending' }), item('b', { state: 'sent' }), item('c', { state: 'refused' })]);
+    expect(restored.map((i) => i.state)).toEqual(['waiting', 'sent', 'refused']);
+  });
+
+  it('drains the waiting items oldest first', () => {
+    const items = [item('late', { createdAt: 30 }), item('sent', { state: 'sent', createdAt: 1 }), item('early', { createdAt: 10 })];
+    expect(outboxToSend(items).map((i) => i.clientId)).toEqual(['early', 'late']);
+  });
+
+  it('counts what is still to go: waiting and on its way, not sent or refused', () => {
+    expect(unsentCount([item('a'), item('b', { state: 'sending' }), item('c', { state: 'sent' }), item('d', { state: 'refused' })])).toBe(2);
+  });
+
+  it('lets a sent item leave the phone a day after it was sent, and nothing else', () => {
+    const now = 10 * SENT_KEPT_MS;
+    const items = [item('old', { state: 'sent', sentAt: now - SENT_KEPT_MS - 1 }), item('new', { state: 'sent', sentAt: now - 1 }), item('w', { sentAt: 0 })];
+    expect(outboxExpired(items, now).map((i) => i.clientId)).toEqual(['old']);
   });
 });

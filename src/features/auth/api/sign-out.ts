@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api, setCsrfToken } from '../../../lib/api-client.ts';
 import { meQueryKey } from '../../../lib/query-client.ts';
+import { forgetOfflineReads } from '../../../lib/offline-reads.ts';
 
 export const signOut = () => api<void>('/api/auth/sign-out', { method: 'POST' });
 
@@ -13,6 +14,7 @@ export function useSignOut() {
       // Nothing of the last person's data stays in memory.
       queryClient.clear();
       queryClient.setQueryData(meQueryKey, { user: null });
+      void forgetOfflineReads();
     },
   });
 }

@@ -3,6 +3,7 @@ import { useState } from 'react';
 import type { QueryKey } from '@tanstack/react-query';
 import type { Position, SightingView } from '@shared/schemas/sightings.ts';
 import { MapFrame, type MapBoundary } from '../../../components/map-frame.tsx';
+import { YouAreHere } from '../../../components/you-are-here.tsx';
 import { Button } from '../../../components/button.tsx';
 import { FormMessage } from '../../../components/form-field.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
@@ -55,6 +56,7 @@ export function PinSightingPanel({
       <p className="text-base text-soil-800">Tap the map where this photo was taken, or give the place below the map.</p>
       <MapFrame boundaries={[boundary]} label="Map of the field: tap where the photo was taken" className="h-[26rem] [&_.leaflet-container]:cursor-crosshair">
         <SightingMarkers sightings={neighbours} />
+        <YouAreHere />
         <PinPicker chosen={chosen} onChoose={setChosen} />
       </MapFrame>
       <PinByCoordinates chosen={chosen} onChoose={setChosen} />

@@ -23,6 +23,7 @@ export function PhotoUploadPanel({
   const batch = { pestId, count };
   const ready = uploads.entries.filter((e) => e.state === 'ready').length;
   const sent = uploads.entries.filter((e) => e.state === 'sent').length;
+  const pending = uploads.entries.filter((e) => e.state === 'waiting' || e.state === 'sending').length;
   const countInvalid = count.trim() !== '' && !(Number(count) >= 0);
 
   return (
@@ -31,8 +32,7 @@ export function PhotoUploadPanel({
       <UploadList
         entries={uploads.entries}
         pinnedIds={pinnedIds}
-        canRetry={(id) => uploads.hasFile(id) && !!uploads.entries.find((e) => e.clientId === id)?.error?.retryable}
-        onRetry={(id) => void uploads.retry(id, batch)}
+        onSendNow={uploads.sendNow}
         onRemove={uploads.removeEntry}
         onCount={uploads.setCount}
         batchCount={count}
@@ -44,6 +44,11 @@ export function PhotoUploadPanel({
         <Button size="lg" className="w-full min-h-14 text-lg" disabled={!pestId || countInvalid} onClick={() => void uploads.send(batch)}>
           Send {ready} {ready === 1 ? 'photo' : 'photos'}
         </Button>
+      )}
+      {pending > 0 && (
+        <p className="text-sm text-soil-700" role="status">
+          {pending} {pending === 1 ? 'photo is' : 'photos are'} kept on this phone until {pending === 1 ? 'it arrives' : 'they arrive'}; you can close the page.
+        </p>
       )}
       {sent > 0 && !uploads.busy && (
         <Button variant="quiet" size="lg" className="w-full" onClick={uploads.clearFinished}>

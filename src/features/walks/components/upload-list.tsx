@@ -4,17 +4,15 @@ import { UploadRow } from './upload-row.tsx';
 export function UploadList({
   entries,
   pinnedIds,
-  canRetry,
-  onRetry,
+  onSendNow,
   onRemove,
   onCount,
   batchCount,
   linkToWalk,
 }: {
-  entries: UploadEntry[];
+  entries: (UploadEntry & { preview?: Blob })[];
   pinnedIds: ReadonlySet<string>;
-  canRetry: (clientId: string) => boolean;
-  onRetry: (clientId: string) => void;
+  onSendNow: () => void;
   onRemove: (clientId: string) => void;
   onCount: (clientId: string, count: string) => void;
   batchCount: string;
@@ -28,8 +26,7 @@ export function UploadList({
           key={entry.clientId}
           entry={entry}
           pinned={!!entry.outcome?.sightingId && entry.outcome.outcome === 'needs-pin' && pinnedIds.has(entry.outcome.sightingId)}
-          canRetry={canRetry(entry.clientId)}
-          onRetry={() => onRetry(entry.clientId)}
+          onSendNow={onSendNow}
           onRemove={() => onRemove(entry.clientId)}
           onCount={(count) => onCount(entry.clientId, count)}
           batchCount={batchCount}

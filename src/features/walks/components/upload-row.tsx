@@ -1,4 +1,5 @@
 // One photo on its way: name, progress bar, and what became of it, in words a scout reads at a glance.
+import { useEffect, useState } from 'react';
 import { Link } from 'react-router';
 import type { PhotoOutcome } from '@shared/schemas/sightings.ts';
 import { Button, buttonClass } from '../../../components/button.tsx';
@@ -30,21 +31,48 @@ function headline(outcome: PhotoOutcome, pinned: boolean) {
   }
 }
 
+function stateHeadline(state: UploadEntry['state']) {
+  switch (state) {
+    case 'waiting':
+      return { text: 'Waiting on this phone for a connection', look: tone.attention };
+    case 'sending':
+      return { text: 'Sending…', look: tone.neutral };
+    case 'refused':
+      return { text: 'Not accepted', look: tone.bad };
+    default:
+      return { text: 'Ready to send', look: tone.neutral };
+  }
+}
+
+/** An object URL for the preview, revoked when the row goes or the preview changes. */
+function usePreviewUrl(preview: Blob | undefined) {
+  const [url, setUrl] = useState<string>();
+  useEffect(() => {
+    if (!preview) return;
+    const made = URL.createObjectURL(preview);
+    setUrl(made);
+    return () => {
+      URL.revokeObjectURL(made);
+      setUrl(undefined);
+    };
+  }, [preview]);
+  return url;
+}
+
 export function UploadRow({
   entry,
   pinned,
-  canRetry,
-  onRetry,
+  onSendNow,
   onRemove,
   onCount,
   batchCount,
   linkToWalk,
 }: {
-  entry: UploadEntry;
+  entry: UploadEntry & { preview?: Blob };
   /** A needs-a-pin photo that has been pinned since it was sent. */
   pinned: boolean;
-  canRetry: boolean;
-  onRetry: () => void;
+  /** Tries the waiting photos now rather than at the next signal. */
+  onSendNow: () => void;
   onRemove: () => void;
   onCount: (count: string) => void;
   batchCount: string;
@@ -52,11 +80,8 @@ export function UploadRow({
   linkToWalk: boolean;
 }) {
   const { outcome, error } = entry;
-  const shown = outcome
-    ? headline(outcome, pinned)
-    : error
-      ? { text: 'Not sent', look: tone.bad }
-      : { text: entry.state === 'sending' ? 'Sending…' : 'Ready to send', look: tone.neutral };
+  const shown = outcome ? headline(outcome, pinned) : stateHeadline(entry.state);
+  const previewUrl = usePreviewUrl(entry.preview);
   return (
     <li
       className={`rounded-lg border-l-8 p-3 shadow-sm ring-1 ring-soil-300/60 ${shown.look}`}
@@ -64,11 +89,12 @@ export function UploadRow({
       data-outcome={outcome?.outcome ?? ''}
     >
       <div className="flex items-start justify-between gap-2">
-        <div className="min-w-0">
+        {previewUrl && <img src={previewUrl} alt={`Preview of ${entry.fileName}`} className="h-14 w-14 shrink-0 rounded object-cover" />}
+        <div className="min-w-0 flex-1">
           <p className="truncate text-sm text-soil-700">{entry.fileName}</p>
           <p className="text-base font-semibold">{shown.text}</p>
         </div>
-        {entry.state === 'ready' && (
+        {(entry.state === 'ready' || entry.state === 'refused') && (
           <Button variant="quiet" size="lg" onClick={onRemove} aria-label={`Remove ${entry.fileName}`}>
             Remove
           </Button>
@@ -119,9 +145,9 @@ export function UploadRow({
             Open the walk
           </Link>
         )}
-        {error && canRetry && (
-          <Button size="lg" onClick={onRetry}>
-            Try again
+        {entry.state === 'waiting' && (
+          <Button size="lg" variant="secondary" onClick={onSendNow}>
+            Send now
           </Button>
         )}
       </div>

@@ -14,6 +14,19 @@ import { PestCountPicker } from './pest-count-picker.tsx';
 import { PhotoUploadPanel } from './photo-upload-panel.tsx';
 import { WalkHeader, walkDate } from './walk-header.tsx';
 import { WalkMap } from './walk-map.tsx';
+import { QueuedStops } from './queued-stops.tsx';
+import type { QueuedPlace } from './queued-markers.tsx';
+import { useOutbox } from '../outbox/use-outbox.ts';
+import type { QueuedItem, QueuedStop } from '../outbox/outbox-store.ts';
+
+/** Items of this walk still on the phone (sent ones are sightings on the map already), where their position is known. */
+function queuedPlacesOf(items: QueuedItem[]): QueuedPlace[] {
+  return items.flatMap((item) => {
+    if (item.state === 'sent') return [];
+    const where = item.kind === 'stop' ? { lon: item.lon, lat: item.lat } : item.position;
+    return where ? [{ clientId: item.clientId, kind: item.kind, ...where, refused: item.state === 'refused' }] : [];
+  });
+}
 
 export function WalkPage() {
   const { walkId = '' } = useParams();
@@ -22,6 +35,7 @@ export function WalkPage() {
   const field = useQuery({ ...fieldQueryOptions(fieldId), enabled: !!walk.data });
   const pests = usePests(false);
   const tags = useBatchTags();
+  const outbox = useOutbox();
 
   if (walk.isPending)
     return (
@@ -41,6 +55,8 @@ export function WalkPage() {
   const pest = pestList.find((p) => p.id === tags.pestId);
   const needsPin = sightings.filter((s) => s.status === 'needs-pin');
   const placedIds = new Set(sightings.filter((s) => s.status === 'placed').map((s) => s.id));
+  const queuedStops = outbox.filter((item): item is QueuedStop => item.kind === 'stop' && item.walkId === info.id);
+  const queuedPlaces = queuedPlacesOf(outbox.filter((item) => item.walkId === info.id));
 
   return (
     <PageFrame title={info.fieldName} eyebrow={`Walk · ${walkDate(info.walkedOn)}`}>
@@ -57,6 +73,7 @@ export function WalkPage() {
           )}
           <PhotoUploadPanel target={{ walkId: info.id, fieldId: info.fieldId }} pestId={pest ? tags.pestId : ''} count={tags.count} pinnedIds={placedIds} />
           <EmptyStopButton walkId={info.id} pestId={pest ? tags.pestId : ''} pestName={pest?.name} />
+          <QueuedStops stops={queuedStops} />
         </div>
       </Panel>
 
@@ -69,7 +86,7 @@ export function WalkPage() {
 
       <Panel title="Map">
         {field.data ? (
-          <WalkMap field={field.data} sightings={sightings} />
+          <WalkMap field={field.data} sightings={sightings} queued={queuedPlaces} />
         ) : field.isError ? (
           <ErrorState error={field.error} onRetry={() => field.refetch()} />
         ) : (

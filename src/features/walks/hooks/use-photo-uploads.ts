@@ -1,13 +1,14 @@
-// The scout's upload queue: one request per photo, two at a time, each with its progress and outcome.
-import { useCallback, useEffect, useRef, useState } from 'react';
-import { useQueryClient } from '@tanstack/react-query';
-import { csrfTokenForUpload, uploadPhoto, PhotoUploadError } from '../api/upload-photo.ts';
-import { walkQueryKey } from '../api/get-walk.ts';
-import { walkListsQueryKey } from '../api/get-walks.ts';
-import { countFor, drainQueue, entriesToSend, failed, readyEntry, withChange, type BatchTags, type UploadEntry } from '../upload-queue.ts';
-import { loadEntries, newClientId, saveEntries } from './upload-store.ts';
-
-const PARALLEL_UPLOADS = 2;
+// The scout's photos for one walk (or for "let Patchwise find the field"): chosen ones wait in memory for the pest
+// and count; a press of send puts each into the outbox on the phone, which sends it now or when signal returns.
+import { useCallback, useMemo, useState } from 'react';
+import { useSignedInUser } from '../../../lib/auth.ts';
+import { countFor, entriesToSend, readyEntry, withChange, type BatchTags, type UploadEntry } from '../upload-queue.ts';
+import { newClientId } from '../client-id.ts';
+import { removeQueued, type QueuedPhoto } from '../outbox/outbox-store.ts';
+import { drainOutbox, queueAndSend } from '../outbox/outbox-sender.ts';
+import { makePhotoPreview } from '../outbox/photo-preview.ts';
+import { photoPosition } from '../outbox/photo-position.ts';
+import { askForBackgroundSync, useOutbox, useSendProgress } from '../outbox/use-outbox.ts';
 
 export interface UploadTarget {
   /** Photos go into this walk; without it the server finds the field and walk from each photo's position. */
@@ -15,83 +16,107 @@ export interface UploadTarget {
   fieldId?: string;
 }
 
+/** One row of the list for a photo in the outbox. */
+export function entryFromQueued(item: QueuedPhoto, progress = 0): UploadEntry & { preview?: Blob } {
+  return {
+    clientId: item.clientId,
+    fileName: item.fileName,
+    sizeBytes: item.file.size,
+    state: item.state,
+    progress: item.state === 'sent' ? 1 : progress,
+    count: item.count === undefined ? '' : String(item.count),
+    outcome: item.outcome,
+    error: item.refusal ? { message: item.refusal, retryable: false } : item.lastError ? { message: item.lastError, retryable: true } : undefined,
+    preview: item.preview,
+  };
+}
+
 export function usePhotoUploads(target: UploadTarget) {
-  const scope = target.walkId ?? 'find-field';
-  const queryClient = useQueryClient();
-  const [entries, setEntries] = useState<UploadEntry[]>(() => loadEntries(scope));
-  const files = useRef(new Map<string, File>());
-  const entriesRef = useRef(entries);
-  entriesRef.current = entries;
+  const [chosen, setChosen] = useState<UploadEntry[]>([]);
+  const [files] = useState(() => new Map<string, File>());
+  const outbox = useOutbox();
+  const ownerId = useSignedInUser().id;
+  const progress = useSendProgress();
 
-  useEffect(() => saveEntries(scope, entries), [scope, entries]);
-
-  const patch = useCallback((clientId: string, change: Partial<UploadEntry>) => {
-    setEntries((list) => withChange(list, clientId, change));
-  }, []);
-
-  const addFiles = useCallback((chosen: FileList | File[]) => {
-    const added: UploadEntry[] = [];
-    for (const file of Array.from(chosen)) {
-      const clientId = newClientId();
-      files.current.set(clientId, file);
-      added.push(readyEntry(clientId, file));
-    }
-    setEntries((list) => [...list, ...added]);
-  }, []);
-
-  const removeEntry = useCallback((clientId: string) => {
-    files.current.delete(clientId);
-    setEntries((list) => list.filter((e) => e.clientId !== clientId));
-  }, []);
-
-  const sendOne = useCallback(
-    async (entry: UploadEntry, batch: BatchTags) => {
-      const file = files.current.get(entry.clientId);
-      if (!file) return;
-      patch(entry.clientId, { state: 'sending', progress: 0, error: undefined });
-      try {
-        const outcome = await uploadPhoto(
-          { file, clientId: entry.clientId, pestId: batch.pestId, count: countFor(entry, batch), walkId: target.walkId, fieldId: target.fieldId },
-          await csrfTokenForUpload(),
-          (progress) => patch(entry.clientId, { progress }),
-        );
-        patch(entry.clientId, { state: 'sent', progress: 1, outcome });
-        files.current.delete(entry.clientId);
-        const walkId = outcome.walkId ?? target.walkId;
-        if (walkId) void queryClient.invalidateQueries({ queryKey: walkQueryKey(walkId) });
-        // A photo without a walk may have started one on whichever field it fell in.
-        void queryClient.invalidateQueries({ queryKey: walkListsQueryKey });
-      } catch (error) {
-        const retryable = error instanceof PhotoUploadError ? error.retryable : true;
-        patch(entry.clientId, failed((error as Error).message, retryable));
-      }
-    },
-    [patch, queryClient, target.walkId, target.fieldId],
+  const queued = useMemo(
+    () =>
+      outbox
+        .filter((item): item is QueuedPhoto => item.kind === 'photo' && (target.walkId ? item.walkId === target.walkId : !item.walkId))
+        .map((item) => entryFromQueued(item, progress.get(item.clientId))),
+    [outbox, progress, target.walkId],
   );
 
-  /** Sends the given photos (all ready ones by default) a few at a time. */
+  const addFiles = useCallback(
+    (list: FileList | File[]) => {
+      const added = Array.from(list).map((file) => {
+        const clientId = newClientId();
+        files.set(clientId, file);
+        return readyEntry(clientId, file);
+      });
+      setChosen((entries) => [...entries, ...added]);
+    },
+    [files],
+  );
+
+  const removeEntry = useCallback(
+    (clientId: string) => {
+      files.delete(clientId);
+      setChosen((entries) => entries.filter((e) => e.clientId !== clientId));
+      if (queued.some((e) => e.clientId === clientId)) void removeQueued(clientId);
+    },
+    [files, queued],
+  );
+
+  /** Puts every chosen photo into the outbox with its pest, count and preview; they go now or with the next signal. */
   const send = useCallback(
-    async (batch: BatchTags, only?: string[]) => {
-      await drainQueue(entriesToSend(entriesRef.current, only), PARALLEL_UPLOADS, (entry) => sendOne(entry, batch));
+    async (batch: BatchTags) => {
+      const going = entriesToSend(chosen);
+      const createdAt = Date.now();
+      const items = await Promise.all(
+        going.map(async (entry, i): Promise<QueuedPhoto> => {
+          const file = files.get(entry.clientId)!;
+          return {
+            kind: 'photo',
+            clientId: entry.clientId,
+            ownerId,
+            state: 'waiting',
+            attempts: 0,
+            createdAt: createdAt + i,
+            pestId: batch.pestId,
+            count: countFor(entry, batch),
+            walkId: target.walkId,
+            fieldId: target.fieldId,
+            file,
+            fileName: file.name,
+            preview: await makePhotoPreview(file),
+            position: await photoPosition(file),
+          };
+        }),
+      );
+      await queueAndSend(...items);
+      const gone = new Set(going.map((e) => e.clientId));
+      gone.forEach((id) => files.delete(id));
+      setChosen((entries) => entries.filter((e) => !gone.has(e.clientId)));
+      void askForBackgroundSync();
     },
-    [sendOne],
+    [chosen, files, ownerId, target.walkId, target.fieldId],
   );
 
-  const retry = useCallback((clientId: string, batch: BatchTags) => send(batch, [clientId]), [send]);
+  const setCount = useCallback((clientId: string, count: string) => setChosen((entries) => withChange(entries, clientId, { count })), []);
 
-  const setCount = useCallback((clientId: string, count: string) => patch(clientId, { count }), [patch]);
-
-  const clearFinished = useCallback(() => setEntries((list) => list.filter((e) => e.state !== 'sent')), []);
+  const clearFinished = useCallback(() => {
+    for (const entry of queued) if (entry.state === 'sent') void removeQueued(entry.clientId);
+  }, [queued]);
 
   return {
-    entries,
-    hasFile: (clientId: string) => files.current.has(clientId),
+    entries: [...queued, ...chosen],
     addFiles,
     removeEntry,
     setCount,
     send,
-    retry,
+    /** Tries the waiting photos now rather than at the next signal. */
+    sendNow: () => void drainOutbox(ownerId),
     clearFinished,
-    busy: entries.some((e) => e.state === 'sending'),
+    busy: queued.some((e) => e.state === 'sending'),
   };
 }

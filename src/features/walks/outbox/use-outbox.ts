@@ -1,0 +1,97 @@
+// The outbox as React state: the items kept on the phone, whether the phone has a connection, and the drain's triggers.
+import { useEffect, useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import { useSignedInUser } from '../../../lib/auth.ts';
+import { walkQueryKey } from '../api/get-walk.ts';
+import { walkListsQueryKey } from '../api/get-walks.ts';
+import { allQueued, onOutboxChange, tidyOutbox, type QueuedItem } from './outbox-store.ts';
+import { drainOutbox, onItemSent, onSendProgress, resetRetryDelay } from './outbox-sender.ts';
+
+/** The signed-in scout's items in the outbox, kept current with changes from this tab and others. */
+export function useOutbox(): QueuedItem[] {
+  const ownerId = useSignedInUser().id;
+  const [items, setItems] = useState<QueuedItem[]>([]);
+  useEffect(() => {
+    let live = true;
+    const load = () =>
+      void allQueued(ownerId).then(
+        (all) => live && setItems(all),
+        () => {},
+      );
+    load();
+    const stop = onOutboxChange(load);
+    return () => {
+      live = false;
+      stop();
+    };
+  }, [ownerId]);
+  return items;
+}
+
+/** Share of each photo's bytes on their way, by client id. */
+export function useSendProgress(): ReadonlyMap<string, number> {
+  const [progress, setProgress] = useState<ReadonlyMap<string, number>>(new Map());
+  useEffect(() => onSendProgress((clientId, share) => setProgress((map) => new Map(map).set(clientId, share))), []);
+  return progress;
+}
+
+export function useOnline() {
+  const [online, setOnline] = useState(() => navigator.onLine);
+  useEffect(() => {
+    const on = () => setOnline(true);
+    const off = () => setOnline(false);
+    window.addEventListener('online', on);
+    window.addEventListener('offline', off);
+    return () => {
+      window.removeEventListener('online', on);
+      window.removeEventListener('offline', off);
+    };
+  }, []);
+  return online;
+}
+
+const SYNC_TAG = 'patchwise-outbox';
+
+/** Asks the browser to wake the service worker when a connection returns (Background Sync, where the browser has it). */
+export async function askForBackgroundSync() {
+  try {
+    const registration = await navigator.serviceWorker?.getRegistration();
+    const sync = (registration as (ServiceWorkerRegistration & { sync?: { register(tag: string): Promise<void> } }) | undefined)?.sync;
+    await sync?.register(SYNC_TAG);
+  } catch {
+    // No Background Sync (Firefox, Safari) or no worker yet: the online event and the next start still send.
+  }
+}
+
+/**
+ * Sends the outbox on start, whenever the connection returns and when the service worker relays a Background Sync
+ * (the sender itself tries again later while items are left and the phone says it is online); the walks whose items
+ * arrived are fetched again.
+ */
+export function useOutboxSending() {
+  const queryClient = useQueryClient();
+  const ownerId = useSignedInUser().id;
+  useEffect(() => {
+    const drain = () => void drainOutbox(ownerId);
+    const online = () => {
+      resetRetryDelay();
+      drain();
+    };
+    const fromWorker = (event: MessageEvent) => {
+      if (event.data === 'drain-outbox') drain();
+    };
+    const stopSent = onItemSent((item) => {
+      const walkId = item.walkId ?? (item.kind === 'photo' ? item.outcome?.walkId : undefined);
+      if (walkId) void queryClient.invalidateQueries({ queryKey: walkQueryKey(walkId) });
+      void queryClient.invalidateQueries({ queryKey: walkListsQueryKey });
+    });
+    void tidyOutbox().then(drain, drain);
+    window.addEventListener('online', online);
+    navigator.serviceWorker?.addEventListener('message', fromWorker);
+    return () => {
+      window.removeEventListener('online', online);
+      navigator.serviceWorker?.removeEventListener('message', fromWorker);
+      stopSent();
+    };
+  }, [queryClient, ownerId]);
+}

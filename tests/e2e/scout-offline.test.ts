@@ -1,0 +1,193 @@
+// A scout in a field without signal, on a phone: the walk opens from the service worker's cache, photos and an empty
+// stop recorded offline wait on the phone through a reload, and each is placed exactly once when the signal returns.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { signedIn } from '../helpers/http.ts';
+import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
+import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
+import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
+import { makeJpeg } from '../helpers/photos.ts';
+import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
+
+const boundary = rectangleBoundary();
+const insideA = { lon: TEST_FIELD_CORNER.lon + 0.001, lat: TEST_FIELD_CORNER.lat + 0.0008 };
+const insideB = { lon: TEST_FIELD_CORNER.lon + 0.0041, lat: TEST_FIELD_CORNER.lat + 0.0024 };
+const standing = { longitude: TEST_FIELD_CORNER.lon + 0.0025, latitude: TEST_FIELD_CORNER.lat + 0.0015, accuracy: 5 };
+const settle = { timeout: 30_000, interval: 200 };
+
+let server: TestServer;
+let browser: Browser;
+let org: TestOrganisation;
+let pest: { id: string; name: string };
+
+beforeAll(async () => {
+  server = await startTestServer();
+  browser = await launchBrowser();
+  org = await makeOrganisation('Scout offline');
+  const admin = await signedIn(org.users.admin.email);
+  pest = await createPest(admin, { countUnit: 'aphids per plant' });
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+async function assignedField(name: string) {
+  const admin = await signedIn(org.users.admin.email);
+  const farm = await createFarm(admin);
+  const field = await createField(admin, farm.id, boundary, { name });
+  await admin.post(`/api/fields/${field.id}/scouts`, { userId: org.users.scout.id }).expect(204);
+  return field;
+}
+
+async function phone(): Promise<BrowserContext> {
+  const context = await browser.newContext({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true });
+  await context.grantPermissions(['geolocation'], { origin: server.url });
+  await context.setGeolocation(standing);
+  return context;
+}
+
+async function startWalk(context: BrowserContext, fieldId: string): Promise<{ page: Page; walkId: string }> {
+  const page = await context.newPage();
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail address').fill(org.users.scout.email);
+  await page.getByLabel('Password').fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).tap();
+  await page.getByRole('link', { name: 'Walk a field' }).waitFor();
+  await page.goto(`${server.url}/scout/fields/${fieldId}`);
+  await page.getByRole('button', { name: 'Start a walk for today' }).tap();
+  await page.waitForURL(/\/scout\/walks\/[0-9a-f-]{36}$/);
+  return { page, walkId: page.url().split('/').at(-1)! };
+}
+
+const uploadRows = (page: Page) => page.getByRole('list', { name: 'Photos in this batch' }).getByRole('listitem');
+const rowStates = (page: Page) => uploadRows(page).evaluateAll((items) => items.map((i) => i.getAttribute('data-upload-state')));
+const stopStates = (page: Page) =>
+  page
+    .getByRole('list', { name: 'Stops kept on this phone' })
+    .getByRole('listitem')
+    .evaluateAll((items) => items.map((i) => i.getAttribute('data-stop-state')));
+
+async function walkOnServer(walkId: string) {
+  const scout = await signedIn(org.users.scout.email);
+  return (await scout.get(`/api/walks/${walkId}`).expect(200)).body as {
+    walk: { sightingCount: number; stopCount: number };
+    sightings: Array<{ isEmptyStop: boolean; positionSource: string }>;
+  };
+}
+
+describe('scout without signal', () => {
+  it('keeps photos and a stop recorded offline through a reload, and places each exactly once when the signal returns', async () => {
+    const field = await assignedField('Far Paddock');
+    const context = await phone();
+    try {
+      const { page, walkId } = await startWalk(context, field.id);
+      // Once the service worker runs the page, a reload lets it keep the walk's own reads for later.
+      await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
+      await page.reload();
+      await page.getByLabel('Pest').waitFor();
+      await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller), settle).toBe(true);
+      await page.reload();
+      await page.getByLabel('Pest').waitFor();
+
+      await context.setOffline(true);
+      // Headless Chromium's emulated position must be set again once the field list's watch has ended.
+      await context.setGeolocation(standing);
+      await page.getByLabel('Pest').selectOption(pest.id);
+      await page.getByLabel('Count for each photo').fill('3');
+      await page.getByTestId('gallery-input').setInputFiles([
+        { name: 'offline-a.jpg', mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: insideA, markSeed: 61 }) },
+        { name: 'offline-b.jpg', mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: insideB, markSeed: 62 }) },
+      ]);
+      await page.getByRole('button', { name: 'Send 2 photos' }).tap();
+      await expect.poll(() => rowStates(page), settle).toEqual(['waiting', 'waiting']);
+      await page.getByRole('button', { name: 'Nothing found here' }).tap();
+      const stopStatus = page.getByRole('button', { name: 'Nothing found here' }).locator('xpath=following-sibling::p[@role="status"]');
+      await expect.poll(() => stopStatus.textContent(), settle).toMatch(/kept on this phone until there is signal/);
+      await expect.poll(() => stopStates(page), settle).toEqual(['waiting']);
+      const banner = page.getByTestId('outbox-banner');
+      await expect.poll(() => banner.textContent(), settle).toMatch(/offline.*3 items wait on this phone/);
+      // Each waiting photo shows the preview made on the phone, and the map shows what waits.
+      const previews = uploadRows(page).locator('img');
+      await expect.poll(() => previews.evaluateAll((imgs) => imgs.filter((i) => (i as HTMLImageElement).naturalWidth > 0).length), settle).toBe(2);
+      await expect.poll(() => page.locator('path.queued-marker').count(), settle).toBe(3);
+      await expect.poll(() => page.locator('path.you-are-here').count(), settle).toBe(1);
+
+      // Still without signal, the page reloads from the phone: the shell, the walk and the outbox are all there.
+      await page.reload();
+      await page.getByLabel('Pest').waitFor();
+      await expect.poll(() => rowStates(page), settle).toEqual(['waiting', 'waiting']);
+      await expect.poll(() => stopStates(page), settle).toEqual(['waiting']);
+      expect((await walkOnServer(walkId)).sightings).toHaveLength(0);
+
+      await context.setOffline(false);
+      await expect.poll(() => rowStates(page), settle).toEqual(['sent', 'sent']);
+      await expect.poll(() => stopStates(page), settle).toEqual([]);
+
+      // Standing inside the field (every test field shares one rectangle), the field list says so and puts it first.
+      await page.getByRole('link', { name: 'Walk a field' }).tap();
+      await expect.poll(() => page.getByText(/^You are in /).count(), settle).toBe(1);
+      const first = page.getByRole('list', { name: 'Fields assigned to you' }).getByRole('listitem').first();
+      expect(await first.textContent()).toContain('you are in it');
+      const stored = await walkOnServer(walkId);
+      expect(stored.walk).toMatchObject({ sightingCount: 2, stopCount: 1 });
+      expect(stored.sightings.filter((s) => s.isEmptyStop)).toHaveLength(1);
+      await expect.poll(() => banner.count(), settle).toBe(0);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('sends again a photo whose connection dropped mid-send, by itself, and records it once', async () => {
+    const field = await assignedField('Long Acre');
+    // Route interception sees only what no service worker answers.
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    try {
+      const { page, walkId } = await startWalk(context, field.id);
+      let dropped = 0;
+      await page.route('**/api/photos', async (route) => {
+        if (dropped++ === 0) {
+          // The request reaches the server, but its answer never comes back to the phone.
+          await route.fetch();
+          return route.abort('connectionreset');
+        }
+        return route.continue();
+      });
+      await page.getByLabel('Pest').selectOption(pest.id);
+      await page
+        .getByTestId('gallery-input')
+        .setInputFiles([{ name: 'shaky.jpg', mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: insideA, markSeed: 71 }) }]);
+      await page.getByRole('button', { name: 'Send 1 photo' }).tap();
+      await expect.poll(() => rowStates(page), settle).toEqual(['waiting']);
+      // The retry comes by itself a few seconds later; the server knows the photo by its content.
+      await expect.poll(() => rowStates(page), settle).toEqual(['sent']);
+      expect(dropped).toBe(2);
+      const stored = await walkOnServer(walkId);
+      expect(stored.sightings).toHaveLength(1);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('shows the server’s reason on a stop it refused, and keeps it on the phone until the scout removes it', async () => {
+    const field = await assignedField('Stony Rise');
+    const context = await phone();
+    try {
+      const { page, walkId } = await startWalk(context, field.id);
+      await context.setGeolocation({ longitude: TEST_FIELD_CORNER.lon - 0.01, latitude: TEST_FIELD_CORNER.lat - 0.01, accuracy: 5 });
+      await page.getByLabel('Pest').selectOption(pest.id);
+      await page.getByRole('button', { name: 'Nothing found here' }).tap();
+      await expect.poll(() => stopStates(page), settle).toEqual(['refused']);
+      const refused = page.getByRole('list', { name: 'Stops kept on this phone' }).getByRole('listitem');
+      expect(await refused.textContent()).toMatch(/outside Stony Rise; walk into the field/);
+      await page.reload();
+      await expect.poll(() => stopStates(page), settle).toEqual(['refused']);
+      await refused.getByRole('button', { name: 'Remove this stop' }).tap();
+      await expect.poll(() => stopStates(page), settle).toEqual([]);
+      expect((await walkOnServer(walkId)).sightings).toHaveLength(0);
+    } finally {
+      await context.close();
+    }
+  });
+});
