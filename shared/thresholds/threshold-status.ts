@@ -3,6 +3,7 @@
 // "too close to call" rather than a bare number, and "too few stops to call" below MIN_STOPS_TO_CALL. Pure: the server and the client both run it.
 import jstat from 'jstat';
 import { mean, sampleStandardDeviation, sampleVariance } from 'simple-statistics';
+import { countWithUnit } from '../units/count-unit.ts';
 
 export type ThresholdBasis = 'mean' | 'incidence';
 export type ThresholdVerdict = 'above' | 'below' | 'too-close' | 'too-few';
@@ -117,6 +118,7 @@ export function verdictAgainst(interval: { low: number; high: number } | null, t
 
 const figure = (value: number) => (Math.abs(value) >= 100 ? value.toFixed(0) : Math.abs(value) >= 10 ? value.toFixed(1) : value.toFixed(2));
 const percent = (share: number) => `${(share * 100).toFixed(0)} %`;
+const thresholdWritten = (value: number) => value.toLocaleString('en-GB', { maximumFractionDigits: 4 });
 const stopsWord = (n: number) => `${n} stop${n === 1 ? '' : 's'}`;
 
 function sentenceFor(s: Omit<ThresholdStatus, 'sentence'>, unit: string): string {
@@ -136,9 +138,9 @@ function sentenceFor(s: Omit<ThresholdStatus, 'sentence'>, unit: string): string
   }
   const interval = s.meanInterval!;
   const figures = `mean ${figure(s.meanPerStop!)} ${unit} over ${stopsWord(s.countedStops)} (95 % interval ${figure(interval.low)}–${figure(interval.high)}, ${interval.method})`;
-  if (s.status === 'above') return `Above the action threshold: ${figures}, above ${figure(s.actionThreshold)}${source}.`;
-  if (s.status === 'below') return `Below the action threshold: ${figures}, below ${figure(s.actionThreshold)}${source}.`;
-  return `Too close to call — scout again: ${figures} includes the action threshold of ${figure(s.actionThreshold)}${source}.`;
+  if (s.status === 'above') return `Above the action threshold: ${figures}, above ${countWithUnit(s.actionThreshold, unit, thresholdWritten)}${source}.`;
+  if (s.status === 'below') return `Below the action threshold: ${figures}, below ${countWithUnit(s.actionThreshold, unit, thresholdWritten)}${source}.`;
+  return `Too close to call — scout again: ${figures} includes the action threshold of ${countWithUnit(s.actionThreshold, unit, thresholdWritten)}${source}.`;
 }
 
 /**

@@ -128,3 +128,17 @@ describe('threshold status', () => {
     expect(status.meanPerStop).toBeCloseTo(2, 12);
   });
 });
+
+describe('threshold sentence wording', () => {
+  it('writes the threshold with its unit in grammatical English', () => {
+    const status = thresholdStatus([0, 0, 0, 0, 0, 0, 0, 0, 1, 2], {
+      actionThreshold: 1,
+      thresholdBasis: 'mean',
+      thresholdSource: 'test source',
+      countUnit: 'larvae per seedling',
+    });
+    expect(status.sentence).toContain('below 1 larva per seedling');
+    const two = thresholdStatus([0, 0, 0, 0, 0, 0, 0, 0, 1, 2], meanRule);
+    expect(two.sentence).toContain('below 2 larvae per seedling');
+  });
+});

@@ -5,6 +5,7 @@ import { Panel } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { useThresholdStatus } from '../api/get-threshold-status.ts';
 import { fixed, percent } from '../utils/figures.ts';
+import { countWithUnit } from '@shared/units/count-unit.ts';
 
 const statusText = {
   above: 'Above threshold',
@@ -41,7 +42,7 @@ function Figures({ s }: { s: WalkThresholdStatus }) {
       </td>
       <td className="px-2 py-1.5 tabular-nums">{s.meanInterval ? `${fixed(s.meanInterval.low)}–${fixed(s.meanInterval.high)}` : '—'}</td>
       <td className="px-2 py-1.5 text-right tabular-nums">
-        {fixed(s.actionThreshold)} {s.countUnit}
+        {countWithUnit(s.actionThreshold, s.countUnit, (v) => v.toLocaleString('en-GB', { maximumFractionDigits: 4 }))}
       </td>
     </>
   );
