@@ -2,6 +2,8 @@
 // few stops, "Show on map" bringing the map into view, and a photo opening in a viewer with what it shows.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
+import { QueryTypes } from 'sequelize';
+import { sequelize } from '../../server/db.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
 import { addSightings, makeWalk } from '../helpers/sightings.ts';
 import type { TestOrganisation } from '../helpers/org.ts';
@@ -67,6 +69,13 @@ describe('the numbers an adviser reads', () => {
     await signInAsAdviser(page);
     await page.goto(`${server.url}/fields/${demo.fields.patchy}/review?pest=${demo.pests[PEST]}`);
     await page.locator('.leaflet-overlay-pane canvas').first().waitFor();
+    // Every row is a stop: the table names its found and empty stops apart, as the database holds them.
+    const [stored] = await sequelize.query<{ found: number; empty: number }>(
+      `SELECT count(*) FILTER (WHERE NOT (photo_id IS NULL AND count = 0))::int AS found, count(*) FILTER (WHERE photo_id IS NULL AND count = 0)::int AS empty
+         FROM sightings WHERE field_id = :fieldId AND status = 'placed' AND deleted_at IS NULL`,
+      { replacements: { fieldId: demo.fields.patchy }, type: QueryTypes.SELECT },
+    );
+    await page.getByText(`of ${stored.found + stored.empty} stops: ${stored.found} with pests, ${stored.empty} empty match`).waitFor();
     const buttons = page.getByRole('button', { name: 'Show on map' });
     await buttons.first().waitFor();
     const inView = () =>

@@ -1,5 +1,6 @@
 // The adviser's field review: map, sightings, the pattern check with its evidence, its robustness,
 // the threshold status and the season — for one field, pest and date window (kept in the address).
+import { stopsSummary } from '@shared/units/stops-summary.ts';
 import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router';
 import type { CheckView } from '@shared/schemas/checks.ts';
@@ -101,7 +102,7 @@ export function FieldReviewPage() {
   const f = field.data;
   const pestName = pests.data.find((p) => p.id === pestId)?.name ?? 'this pest';
   const found = pestSightings.filter((s) => !s.isEmptyStop).length;
-  const summary = sightings.isPending ? 'Loading sightings…' : `${found} sightings of ${pestName}, ${pestSightings.length - found} empty stops`;
+  const summary = sightings.isPending ? 'Loading sightings…' : stopsSummary(found, pestSightings.length - found, pestName);
 
   return (
     <PageFrame
