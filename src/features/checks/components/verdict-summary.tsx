@@ -63,7 +63,9 @@ export function VerdictSummary({ check, result }: { check: CheckView; result: An
       </p>
       <details className="text-xs text-soil-600" data-technical-details>
         <summary className="cursor-pointer">Technical details</summary>
-        Engine version {result.engineVersion}; distances measured in the projection {result.crs}.
+        <p>
+          Engine version {result.engineVersion}; distances measured in the projection {result.crs}.
+        </p>
       </details>
       {primary ? (
         supporting.length > 0 && (
