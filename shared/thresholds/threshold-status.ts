@@ -1,11 +1,12 @@
 // Threshold status of one walk for one pest: the mean count per stop (empty stops included) against the
 // pest's action threshold, with a confidence interval, so the adviser reads "above", "below" or
-// "too close to call" rather than a bare number. Pure: the server and the client both run it.
+// "too close to call" rather than a bare number, and "too few stops to call" below MIN_STOPS_TO_CALL. Pure: the server and the client both run it.
 import jstat from 'jstat';
-import { mean, sampleStandardDeviation } from 'simple-statistics';
+import { mean, sampleStandardDeviation, sampleVariance } from 'simple-statistics';
+import { countWithUnit } from '../units/count-unit.ts';
 
 export type ThresholdBasis = 'mean' | 'incidence';
-export type ThresholdVerdict = 'above' | 'below' | 'too-close';
+export type ThresholdVerdict = 'above' | 'below' | 'too-close' | 'too-few';
 
 export interface ThresholdRule {
   actionThreshold: number;
@@ -40,17 +41,57 @@ export interface ThresholdStatus {
   sentence: string;
 }
 
-// jstat ships no types for its Student t distribution; this is the one call used here.
-const studentT = (jstat.jStat as unknown as { studentt: { inv(p: number, dof: number): number } }).studentt;
+const chiSquare = jstat.jStat.chisquare;
 const standardNormal = jstat.jStat.normal;
 
-/** Two-sided Student t interval for a mean: x̄ ± t(1−α/2, n−1)·s/√n (Student 1908), quantile from jstat. */
-export function meanConfidenceInterval(values: number[], level = 0.95): Interval | null {
+/** Fewer counted stops than this and no verdict is given: a walk of about 5 areas is the usual minimum. */
+export const MIN_STOPS_TO_CALL = 5;
+
+/**
+ * Exact interval for a Poisson mean from an observed total x (Garwood 1936, Biometrika 28:437–442):
+ * low = χ²(α/2; 2x)/2, high = χ²(1−α/2; 2x+2)/2, quantiles from jstat. Never below zero.
+ */
+export function garwoodInterval(total: number, level = 0.95): { low: number; high: number } {
+  const alpha = 1 - level;
+  return { low: total > 0 ? chiSquare.inv(alpha / 2, 2 * total) / 2 : 0, high: chiSquare.inv(1 - alpha / 2, 2 * total + 2) / 2 };
+}
+
+/**
+ * Index of dispersion test (Fisher 1950; Cochran 1954): D = (n−1)s²/x̄ against χ² with n−1 df; the upper-tail p
+ * says whether the counts vary more between stops than a Poisson count would.
+ */
+export function dispersionTest(values: number[]): { ratio: number; pValue: number } | null {
   if (values.length < 2) return null;
   const m = mean(values);
-  const s = sampleStandardDeviation(values);
-  const half = studentT.inv(1 - (1 - level) / 2, values.length - 1) * (s / Math.sqrt(values.length));
-  return { low: m - half, high: m + half, level, method: 'Student t interval (quantile from jstat studentt.inv)' };
+  if (m === 0) return { ratio: 0, pValue: 1 };
+  const ratio = sampleVariance(values) / m;
+  return { ratio, pValue: 1 - chiSquare.cdf((values.length - 1) * ratio, values.length - 1) };
+}
+
+/**
+ * Interval for the mean count per stop. Counts are never negative, so the interval is Garwood's exact Poisson
+ * interval of the total, divided by the number of stops. When the index of dispersion shows the counts
+ * overdispersed (p < 0.05, as aggregated pests usually are), the total is scaled by the dispersion φ = s²/x̄
+ * before and after (quasi-Poisson, McCullagh & Nelder 1989, §4.5), which widens the interval as a negative
+ * binomial spread would.
+ */
+export function meanConfidenceInterval(values: number[], level = 0.95): Interval | null {
+  if (values.length < 2) return null;
+  const n = values.length;
+  const total = values.reduce((a, b) => a + b, 0);
+  const dispersion = dispersionTest(values)!;
+  if (dispersion.pValue < 0.05 && dispersion.ratio > 1) {
+    const phi = dispersion.ratio;
+    const scaled = garwoodInterval(total / phi, level);
+    return {
+      low: (scaled.low * phi) / n,
+      high: (scaled.high * phi) / n,
+      level,
+      method: `Garwood (1936) exact Poisson interval, scaled for overdispersion φ = ${phi.toFixed(2)} (McCullagh & Nelder 1989)`,
+    };
+  }
+  const exact = garwoodInterval(total, level);
+  return { low: exact.low / n, high: exact.high / n, level, method: 'Garwood (1936) exact Poisson interval' };
 }
 
 /**
@@ -77,10 +118,16 @@ export function verdictAgainst(interval: { low: number; high: number } | null, t
 
 const figure = (value: number) => (Math.abs(value) >= 100 ? value.toFixed(0) : Math.abs(value) >= 10 ? value.toFixed(1) : value.toFixed(2));
 const percent = (share: number) => `${(share * 100).toFixed(0)} %`;
+const thresholdWritten = (value: number) => value.toLocaleString('en-GB', { maximumFractionDigits: 4 });
+const stopsWord = (n: number) => `${n} stop${n === 1 ? '' : 's'}`;
 
 function sentenceFor(s: Omit<ThresholdStatus, 'sentence'>, unit: string): string {
   const source = ` (threshold source: ${s.thresholdSource})`;
   if (s.stops === 0) return 'No stops recorded for this pest on this walk — scout again.';
+  if (s.status === 'too-few') {
+    const have = s.thresholdBasis === 'incidence' ? stopsWord(s.stops) : `${stopsWord(s.countedStops)} with a count`;
+    return `Too few stops to call: ${have}; at least ${MIN_STOPS_TO_CALL} are needed before this walk can be compared with the threshold — scout again.`;
+  }
   if (s.thresholdBasis === 'incidence') {
     const share = s.shareInfested ?? 0;
     const interval = s.shareInterval!;
@@ -89,13 +136,11 @@ function sentenceFor(s: Omit<ThresholdStatus, 'sentence'>, unit: string): string
     if (s.status === 'below') return `Below the action threshold: ${figures}, below ${percent(s.actionThreshold)}${source}.`;
     return `Too close to call — scout again: ${figures} includes the action threshold of ${percent(s.actionThreshold)}${source}.`;
   }
-  if (!s.meanInterval) {
-    return `Too close to call — scout again: only ${s.countedStops} counted stop${s.countedStops === 1 ? '' : 's'}, too few for an interval around the mean (threshold ${figure(s.actionThreshold)} ${unit}${source}).`;
-  }
-  const figures = `mean ${figure(s.meanPerStop!)} ${unit} over ${s.countedStops} stops (95 % interval ${figure(s.meanInterval.low)}–${figure(s.meanInterval.high)})`;
-  if (s.status === 'above') return `Above the action threshold: ${figures}, above ${figure(s.actionThreshold)}${source}.`;
-  if (s.status === 'below') return `Below the action threshold: ${figures}, below ${figure(s.actionThreshold)}${source}.`;
-  return `Too close to call — scout again: ${figures} includes the action threshold of ${figure(s.actionThreshold)}${source}.`;
+  const interval = s.meanInterval!;
+  const figures = `mean ${figure(s.meanPerStop!)} ${unit} over ${stopsWord(s.countedStops)} (95 % interval ${figure(interval.low)}–${figure(interval.high)}, ${interval.method})`;
+  if (s.status === 'above') return `Above the action threshold: ${figures}, above ${countWithUnit(s.actionThreshold, unit, thresholdWritten)}${source}.`;
+  if (s.status === 'below') return `Below the action threshold: ${figures}, below ${countWithUnit(s.actionThreshold, unit, thresholdWritten)}${source}.`;
+  return `Too close to call — scout again: ${figures} includes the action threshold of ${countWithUnit(s.actionThreshold, unit, thresholdWritten)}${source}.`;
 }
 
 /**
@@ -108,7 +153,12 @@ export function thresholdStatus(counts: Array<number | null>, rule: ThresholdRul
   const infestedStops = counts.filter((c) => c === null || c > 0).length;
   const meanInterval = meanConfidenceInterval(counted, level);
   const shareInterval = wilsonInterval(infestedStops, counts.length, level);
-  const status = rule.thresholdBasis === 'incidence' ? verdictAgainst(shareInterval, rule.actionThreshold) : verdictAgainst(meanInterval, rule.actionThreshold);
+  const enough = rule.thresholdBasis === 'incidence' ? counts.length >= MIN_STOPS_TO_CALL : counted.length >= MIN_STOPS_TO_CALL;
+  const status: ThresholdVerdict = !enough
+    ? 'too-few'
+    : rule.thresholdBasis === 'incidence'
+      ? verdictAgainst(shareInterval, rule.actionThreshold)
+      : verdictAgainst(meanInterval, rule.actionThreshold);
   const base = {
     stops: counts.length,
     countedStops: counted.length,

@@ -1,6 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import jstat from 'jstat';
-import { mean, sampleStandardDeviation } from 'simple-statistics';
+import { mean } from 'simple-statistics';
 import { QueryTypes } from 'sequelize';
 import { sequelize } from '../../server/db.ts';
 import { signedIn, type Client } from '../helpers/http.ts';
@@ -17,8 +16,6 @@ import { closeSimulationPool, INLINE_WORK_LIMIT } from '../../server/services/ch
 /** The options a check runs with: the adviser's, plus the test pest's library threshold for its zones. */
 const withLibraryThreshold = <T extends object>(options: T) => ({ ...options, zones: { actionThreshold: 2, unit: 'aphids per plant' } });
 import { withDensityGrid } from '../helpers/density-grid.ts';
-
-const { jStat } = jstat as unknown as { jStat: { tci(mean: number, alpha: number, sd: number, n: number): [number, number] } };
 
 // Invented sightings: two tight patches (clustered) or uniform over the field (for changes and access tests).
 function patchyStops(seed: number, perPatch = 20): StopPoint[] {
@@ -304,15 +301,18 @@ describe('a field’s checks, threshold status and history', () => {
     expect(res.body.checks[0].result).toBeUndefined();
   });
 
-  it('reports each walk above, below or too close to call, with the t interval of the mean per stop', async () => {
+  it('reports each walk above, below, too close or too few to call, with the exact Poisson interval of the mean per stop', async () => {
     const field = await makeField(org);
     const pest = await makePest(org, { actionThreshold: 2, countUnit: 'larvae per seedling' });
     const at = (i: number) => ({ lon: TEST_FIELD_CORNER.lon + 0.0004 * (i + 1), lat: TEST_FIELD_CORNER.lat + 0.0002 * ((i % 10) + 1) });
     const walks = {
-      above: { date: '2026-06-01', counts: [4, 5, 6, 5, 4, 6, 5, 5] },
+      above: { date: '2026-06-01', counts: [4, 4, 4, 4, 4] },
       below: { date: '2026-06-08', counts: [0, 0, 1, 0, 0, 1, 0, 0, 0, 1] },
-      close: { date: '2026-06-15', counts: [0, 4, 1, 3, 2, 0, 5, 1] },
+      close: { date: '2026-06-15', counts: [2, 2, 2, 2, 2] },
+      few: { date: '2026-06-22', counts: [9, 9, 9] },
     };
+    // Garwood (1936), Table 1: exact 95 % limits for Poisson totals 20, 3 and 10, divided by the stops.
+    const limits = { above: [12.217 / 5, 30.888 / 5], below: [0.6187 / 10, 8.767 / 10], close: [4.7954 / 5, 18.39 / 5] } as const;
     const walkIds: Record<string, string> = {};
     for (const [label, walk] of Object.entries(walks)) {
       walkIds[label] = await makeWalk(org, field.id, walk.date);
@@ -323,9 +323,9 @@ describe('a field’s checks, threshold status and history', () => {
       );
     }
     const res = await adviser.get(`/api/fields/${field.id}/threshold-status?pestId=${pest.id}`).expect(200);
-    expect(res.body.statuses).toHaveLength(3);
+    expect(res.body.statuses).toHaveLength(4);
     const byWalk = new Map(res.body.statuses.map((s: { walkId: string }) => [s.walkId, s]));
-    const expected = { above: 'above', below: 'below', close: 'too-close' } as const;
+    const expected = { above: 'above', below: 'below', close: 'too-close', few: 'too-few' } as const;
     for (const [label, walk] of Object.entries(walks)) {
       const status = byWalk.get(walkIds[label]) as Record<string, never> & { meanInterval: { low: number; high: number } };
       expect(status).toMatchObject({
@@ -334,10 +334,10 @@ describe('a field’s checks, threshold status and history', () => {
         actionThreshold: 2,
         thresholdSource: 'Test threshold, not agronomic advice',
       });
-      // Reference: jstat's t confidence interval with mean and sd from simple-statistics.
-      const [low, high] = jStat.tci(mean(walk.counts), 0.05, sampleStandardDeviation(walk.counts), walk.counts.length);
-      expect(status.meanInterval.low).toBeCloseTo(low, 10);
-      expect(status.meanInterval.high).toBeCloseTo(high, 10);
+      if (label === 'few') continue;
+      const [low, high] = limits[label as keyof typeof limits];
+      expect(status.meanInterval.low).toBeCloseTo(low, 3);
+      expect(status.meanInterval.high).toBeCloseTo(high, 2);
     }
     const one = await adviser.get(`/api/fields/${field.id}/threshold-status?walkId=${walkIds.close}`).expect(200);
     expect(one.body.statuses).toHaveLength(1);

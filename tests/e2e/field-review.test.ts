@@ -136,6 +136,11 @@ describe('field review in the browser', () => {
     await page.locator('[data-verdict]').waitFor({ timeout: 60_000 });
     expect(await page.locator('[data-verdict]').getAttribute('data-verdict')).toBe('clustered');
     await expect.poll(() => page.getByLabel('Spread: Clustered').count()).toBe(1);
+    // Engine version and projection code stay behind a disclosure until asked for.
+    const technical = page.locator('[data-technical-details]');
+    expect(await technical.getByText(/Engine version/).isVisible()).toBe(false);
+    await technical.locator('summary').click();
+    expect(await technical.getByText(/Engine version .*projection EPSG:\d+/).isVisible()).toBe(true);
     // The design and the one primary test come first, in plain words; the rest of the field is drawn as not scouted.
     expect(await page.locator('[data-design]').getAttribute('data-design')).toBe('stops');
     expect(await page.locator('[data-primary-test]').textContent()).toMatch(/more bunched among the places the scout stopped.*relabellings/);

@@ -1,29 +1,54 @@
 import { describe, expect, it } from 'vitest';
-import jstat from 'jstat';
-import { mean, sampleStandardDeviation } from 'simple-statistics';
-import { meanConfidenceInterval, thresholdStatus, wilsonInterval } from '../../shared/thresholds/threshold-status.ts';
-
-const { jStat } = jstat as unknown as { jStat: { tci(mean: number, alpha: number, sd: number, n: number): [number, number] } };
+import { dispersionTest, garwoodInterval, meanConfidenceInterval, thresholdStatus, wilsonInterval } from '../../shared/thresholds/threshold-status.ts';
 
 const meanRule = { actionThreshold: 2, thresholdBasis: 'mean' as const, thresholdSource: 'test source', countUnit: 'larvae per seedling' };
 const incidenceRule = { actionThreshold: 0.5, thresholdBasis: 'incidence' as const, thresholdSource: 'test source' };
 
+// Exact 95 % limits for a Poisson mean from an observed count x, as tabulated by Garwood (1936), Biometrika 28,
+// Table 1 (the same figures R's poisson.test(x)$conf.int prints: 10 → 4.795389 18.390356).
+const garwoodTable: Array<[number, number, number]> = [
+  [0, 0, 3.689],
+  [1, 0.0253, 5.572],
+  [2, 0.2422, 7.225],
+  [3, 0.6187, 8.767],
+  [5, 1.6235, 11.668],
+  [10, 4.7954, 18.39],
+  [20, 12.217, 30.888],
+];
+
 describe('mean count interval', () => {
-  it('matches jstat.tci (Student t confidence interval) on the same stops', () => {
-    const counts = [0, 3, 1, 4, 0, 2, 5, 1, 0, 2, 3, 6];
-    const interval = meanConfidenceInterval(counts)!;
-    // Reference: jstat's own t confidence interval, with mean and sd from simple-statistics.
-    const [low, high] = jStat.tci(mean(counts), 0.05, sampleStandardDeviation(counts), counts.length);
-    expect(interval.low).toBeCloseTo(low, 10);
-    expect(interval.high).toBeCloseTo(high, 10);
+  it.each(garwoodTable)('gives Garwood’s exact Poisson limits for a total of %i', (x, low, high) => {
+    const interval = garwoodInterval(x);
+    expect(interval.low).toBeCloseTo(low, 3);
+    expect(interval.high).toBeCloseTo(high, 2);
   });
 
-  it('uses the t quantile of the handbook table for 9 degrees of freedom', () => {
-    // NIST/SEMATECH e-Handbook, table of the t distribution: t(0.975, 9) = 2.262.
-    const counts = [1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
+  it('divides the exact limits of the total by the number of stops when counts are not overdispersed', () => {
+    // Total 10 over 5 stops, no spread between stops: Garwood's limits for 10, divided by 5.
+    const interval = meanConfidenceInterval([2, 2, 2, 2, 2])!;
+    expect(interval.low).toBeCloseTo(4.7954 / 5, 4);
+    expect(interval.high).toBeCloseTo(18.39 / 5, 3);
+    expect(interval.method).toMatch(/Garwood \(1936\)/);
+  });
+
+  it('never goes below zero, even when most stops are empty', () => {
+    // The Student t interval of these counts would run from −0.18: an impossible negative count.
+    const interval = meanConfidenceInterval([0, 0, 0, 0, 0, 0, 0, 0, 1, 2])!;
+    expect(interval.low).toBeGreaterThanOrEqual(0);
+    expect(interval.low).toBeCloseTo(0.6187 / 10, 4);
+    expect(interval.high).toBeCloseTo(8.767 / 10, 3);
+  });
+
+  it('widens by the dispersion when counts are overdispersed (quasi-Poisson scaling)', () => {
+    // Mean 2, variance 4: index of dispersion φ = 2, D = 9·2 = 18 on 9 df, p ≈ 0.035 (χ² table: 16.92 at 0.05).
+    // Scaled total 20/2 = 10 → Garwood (10) × φ / n = [4.7954, 18.390] × 0.2.
+    const counts = [0, 0, 0, 0, 1, 3, 3, 4, 4, 5];
+    expect(dispersionTest(counts)!.ratio).toBeCloseTo(2, 12);
+    expect(dispersionTest(counts)!.pValue).toBeLessThan(0.05);
     const interval = meanConfidenceInterval(counts)!;
-    const half = (interval.high - interval.low) / 2;
-    expect(half / (sampleStandardDeviation(counts) / Math.sqrt(10))).toBeCloseTo(2.262, 3);
+    expect(interval.low).toBeCloseTo(4.7954 * 0.2, 4);
+    expect(interval.high).toBeCloseTo(18.39 * 0.2, 3);
+    expect(interval.method).toMatch(/overdispersion/);
   });
 
   it('gives no interval from a single stop', () => {
@@ -56,6 +81,12 @@ describe('Wilson interval for the share of stops infested', () => {
 });
 
 describe('threshold status', () => {
+  it('says plainly when there are too few stops to call it', () => {
+    const status = thresholdStatus([9, 8, 7, 9], meanRule);
+    expect(status.status).toBe('too-few');
+    expect(status.sentence).toMatch(/^Too few stops to call: 4 stops with a count; at least 5/);
+  });
+
   it('says above when the whole interval lies over the threshold', () => {
     const status = thresholdStatus([4, 5, 6, 5, 4, 6, 5, 5], meanRule);
     expect(status.meanInterval!.low).toBeGreaterThan(2);
@@ -95,5 +126,19 @@ describe('threshold status', () => {
     expect(status.countedStops).toBe(3);
     expect(status.infestedStops).toBe(3);
     expect(status.meanPerStop).toBeCloseTo(2, 12);
+  });
+});
+
+describe('threshold sentence wording', () => {
+  it('writes the threshold with its unit in grammatical English', () => {
+    const status = thresholdStatus([0, 0, 0, 0, 0, 0, 0, 0, 1, 2], {
+      actionThreshold: 1,
+      thresholdBasis: 'mean',
+      thresholdSource: 'test source',
+      countUnit: 'larvae per seedling',
+    });
+    expect(status.sentence).toContain('below 1 larva per seedling');
+    const two = thresholdStatus([0, 0, 0, 0, 0, 0, 0, 0, 1, 2], meanRule);
+    expect(two.sentence).toContain('below 2 larvae per seedling');
   });
 });

@@ -1,4 +1,5 @@
 import type { PestView as Pest } from '@shared/schemas/pests.ts';
+import { unitFor } from '@shared/units/count-unit.ts';
 
 const basisLabels: Record<Pest['thresholdBasis'], string> = { mean: 'mean count per stop', incidence: 'share of stops infested' };
 export const thresholdBasisLabel = (basis: Pest['thresholdBasis']) => basisLabels[basis];
@@ -8,7 +9,8 @@ export function ThresholdText({ pest }: { pest: Pest }) {
   return (
     <div className="space-y-0.5">
       <p>
-        <span className="font-semibold">{pest.actionThreshold.toLocaleString('en')}</span> {pest.countUnit}{' '}
+        <span className="font-semibold">{pest.actionThreshold.toLocaleString('en-GB')}</span>{' '}
+        {unitFor(pest.actionThreshold, pest.countUnit, pest.actionThreshold.toLocaleString('en-GB'))}{' '}
         <span className="text-xs text-soil-600">({basisLabels[pest.thresholdBasis]})</span>
       </p>
       {pest.thresholdNote && <p className="text-xs text-soil-700">{pest.thresholdNote}</p>}

@@ -1,6 +1,7 @@
 // The adviser's field review: map, sightings, the pattern check with its evidence, its robustness,
 // the threshold status and the season — for one field, pest and date window (kept in the address).
-import { lazy, Suspense, useCallback, useEffect, useMemo, useState } from 'react';
+import { stopsSummary } from '@shared/units/stops-summary.ts';
+import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router';
 import type { CheckView } from '@shared/schemas/checks.ts';
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
@@ -42,6 +43,12 @@ export function FieldReviewPage() {
   const check = useCheck(checkId);
   const [draft, setDraft] = useState<CheckOptionsDraft>(defaultDraft);
   const [selectedId, setSelectedId] = useState<string | null>(null);
+  const mapRef = useRef<HTMLDivElement>(null);
+  // "Show on map" from the table far below: select the sighting and bring the map into view.
+  const showOnMap = (sightingId: string) => {
+    setSelectedId(sightingId);
+    mapRef.current?.scrollIntoView({ behavior: 'smooth', block: 'center' });
+  };
 
   // Without a chosen pest, review the one with the most found sightings here.
   const pestId = useMemo(() => {
@@ -95,7 +102,7 @@ export function FieldReviewPage() {
   const f = field.data;
   const pestName = pests.data.find((p) => p.id === pestId)?.name ?? 'this pest';
   const found = pestSightings.filter((s) => !s.isEmptyStop).length;
-  const summary = sightings.isPending ? 'Loading sightings…' : `${found} sightings of ${pestName}, ${pestSightings.length - found} empty stops`;
+  const summary = sightings.isPending ? 'Loading sightings…' : stopsSummary(found, pestSightings.length - found, pestName);
 
   return (
     <PageFrame
@@ -114,28 +121,30 @@ export function FieldReviewPage() {
     >
       <ReviewToolbar pests={pests.data} window={{ pestId, from, to }} onChange={changeWindow} summary={summary} />
       <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_27rem]">
-        <Panel>
-          {sightings.isError ? (
-            <ErrorState error={sightings.error} onRetry={() => sightings.refetch()} />
-          ) : (
-            <Suspense
-              fallback={
-                <div className="flex h-[40rem] items-center justify-center rounded-lg bg-straw-100">
-                  <LoadingState label="Loading the map…" />
-                </div>
-              }
-            >
-              <ReviewMap
-                field={f}
-                sightings={pestSightings}
-                result={result}
-                checkId={result ? (check.data?.id ?? null) : null}
-                selectedId={selectedId}
-                onSelect={setSelectedId}
-              />
-            </Suspense>
-          )}
-        </Panel>
+        <div ref={mapRef} data-review-map-frame>
+          <Panel>
+            {sightings.isError ? (
+              <ErrorState error={sightings.error} onRetry={() => sightings.refetch()} />
+            ) : (
+              <Suspense
+                fallback={
+                  <div className="flex h-[40rem] items-center justify-center rounded-lg bg-straw-100">
+                    <LoadingState label="Loading the map…" />
+                  </div>
+                }
+              >
+                <ReviewMap
+                  field={f}
+                  sightings={pestSightings}
+                  result={result}
+                  checkId={result ? (check.data?.id ?? null) : null}
+                  selectedId={selectedId}
+                  onSelect={setSelectedId}
+                />
+              </Suspense>
+            )}
+          </Panel>
+        </div>
         <CheckPanel window={window} draft={draft} onDraftChange={setDraft} check={check} onCheckOpened={openCheck} />
       </div>
       {result && check.data && <CheckEvidence result={result} zoneEditorPath={`/fields/${f.id}/zones?checkId=${check.data.id}`} />}
@@ -157,7 +166,7 @@ export function FieldReviewPage() {
             filters={tableFilters}
             onFiltersChange={setTableFilters}
             selectedId={selectedId}
-            onShowOnMap={setSelectedId}
+            onShowOnMap={showOnMap}
           />
         )}
       </Panel>

@@ -1,5 +1,6 @@
 // The review map (lazy-loaded with Leaflet): boundary, the chosen pest's sightings on a canvas, and the
 // check's quadrat grid, density surface and proposed zones as layers the adviser switches on and off.
+import { stopsSummary } from '@shared/units/stops-summary.ts';
 import { useMemo, useState } from 'react';
 import { GeoJSON, Popup } from 'react-leaflet';
 import type { SightingView } from '@shared/schemas/sightings.ts';
@@ -71,7 +72,7 @@ export function ReviewMap({
       </fieldset>
       <MapFrame
         boundaries={[{ id: field.id, geometry: field.boundary, label: field.name }]}
-        label={`Map of ${field.name} with ${sightings.length} sightings`}
+        label={`Map of ${field.name} with ${stopsSummary(sightings.filter((s) => !s.isEmptyStop).length, sightings.filter((s) => s.isEmptyStop).length)}`}
         className="h-[38rem]"
       >
         {shown.density && result?.density && checkId && toLonLat && <DensityLayer checkId={checkId} density={result.density} toLonLat={toLonLat} />}

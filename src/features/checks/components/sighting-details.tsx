@@ -1,19 +1,21 @@
 // What an adviser needs about one sighting: its photo, pest, count, scout, time and where its position came from.
 import type { SightingView } from '@shared/schemas/sightings.ts';
-import { dateTime } from '../utils/figures.ts';
+import { useState } from 'react';
 import { positionSourceText } from '../utils/position-source-text.ts';
+import { countText, PhotoViewer, timeText } from './photo-viewer.tsx';
 
 export function SightingDetails({ sighting }: { sighting: SightingView }) {
+  const [viewing, setViewing] = useState(false);
   return (
     <div className="w-56 space-y-2 font-sans text-sm text-soil-800" data-sighting-details={sighting.id}>
       {sighting.photoId ? (
-        <a href={`/api/photos/${sighting.photoId}/original`} target="_blank" rel="noreferrer" className="block" title="Open the original photo">
+        <button type="button" className="block w-full" title="View the photo" onClick={() => setViewing(true)}>
           <img
             src={`/api/photos/${sighting.photoId}/thumbnail`}
             alt={`Photo of ${sighting.pestName}`}
             className="h-36 w-full rounded bg-straw-100 object-cover ring-1 ring-soil-300"
           />
-        </a>
+        </button>
       ) : (
         <p className="rounded bg-straw-100 px-2 py-3 text-center text-xs text-soil-600">{sighting.isEmptyStop ? 'Empty stop — no photo' : 'No photo'}</p>
       )}
@@ -21,11 +23,11 @@ export function SightingDetails({ sighting }: { sighting: SightingView }) {
         <dt className="text-soil-600">Pest</dt>
         <dd className="font-medium">{sighting.pestName}</dd>
         <dt className="text-soil-600">Count</dt>
-        <dd>{sighting.isEmptyStop ? '0 (nothing found)' : (sighting.count ?? 'present, not counted')}</dd>
+        <dd>{countText(sighting)}</dd>
         <dt className="text-soil-600">Scout</dt>
         <dd>{sighting.scoutName}</dd>
         <dt className="text-soil-600">Time</dt>
-        <dd>{sighting.observedAt ? dateTime(sighting.observedAt) : `walk of ${sighting.walkedOn}`}</dd>
+        <dd>{timeText(sighting)}</dd>
         <dt className="text-soil-600">Position</dt>
         <dd>
           {positionSourceText(sighting.positionSource)}
@@ -33,10 +35,11 @@ export function SightingDetails({ sighting }: { sighting: SightingView }) {
         </dd>
       </dl>
       {sighting.photoId && (
-        <a href={`/api/photos/${sighting.photoId}/original`} target="_blank" rel="noreferrer" className="font-medium text-field-700 underline">
-          Original photo
-        </a>
+        <button type="button" onClick={() => setViewing(true)} className="font-medium text-field-700 underline">
+          View photo
+        </button>
       )}
+      {viewing && sighting.photoId && <PhotoViewer sighting={sighting} onClose={() => setViewing(false)} />}
     </div>
   );
 }

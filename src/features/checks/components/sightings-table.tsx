@@ -1,5 +1,6 @@
 // The field's sightings as a dense table: sort, filter by pest, scout, walk and date, pages, row selection,
 // inline edits of pest and count, thumbnails, and export of the filtered rows as CSV or GeoJSON.
+import { stopsSummary } from '@shared/units/stops-summary.ts';
 import { useEffect, useMemo, useState } from 'react';
 import {
   createColumnHelper,
@@ -198,7 +199,7 @@ export function SightingsTable({
           <span data-filtered-count={filtered.length} className="font-semibold text-soil-900">
             {filtered.length}
           </span>{' '}
-          of {sightings.length} sightings match
+          of {stopsSummary(sightings.filter((s) => !s.isEmptyStop).length, sightings.filter((s) => s.isEmptyStop).length)} match
           {selected.length > 0 && <> · {selected.length} selected</>}
         </p>
         <div className="flex flex-wrap gap-2">

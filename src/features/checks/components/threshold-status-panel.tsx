@@ -5,9 +5,20 @@ import { Panel } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { useThresholdStatus } from '../api/get-threshold-status.ts';
 import { fixed, percent } from '../utils/figures.ts';
+import { countWithUnit } from '@shared/units/count-unit.ts';
 
-const statusText = { above: 'Above threshold', below: 'Below threshold', 'too-close': 'Too close to call — scout again' } as const;
-const statusTone = { above: 'bg-patch-600 text-white', below: 'bg-field-100 text-field-900', 'too-close': 'bg-straw-200 text-soil-900' } as const;
+const statusText = {
+  above: 'Above threshold',
+  below: 'Below threshold',
+  'too-close': 'Too close to call — scout again',
+  'too-few': 'Too few stops to call',
+} as const;
+const statusTone = {
+  above: 'bg-patch-600 text-white',
+  below: 'bg-field-100 text-field-900',
+  'too-close': 'bg-straw-200 text-soil-900',
+  'too-few': 'bg-straw-200 text-soil-900',
+} as const;
 
 function Figures({ s }: { s: WalkThresholdStatus }) {
   if (s.thresholdBasis === 'incidence') {
@@ -31,7 +42,7 @@ function Figures({ s }: { s: WalkThresholdStatus }) {
       </td>
       <td className="px-2 py-1.5 tabular-nums">{s.meanInterval ? `${fixed(s.meanInterval.low)}–${fixed(s.meanInterval.high)}` : '—'}</td>
       <td className="px-2 py-1.5 text-right tabular-nums">
-        {fixed(s.actionThreshold)} {s.countUnit}
+        {countWithUnit(s.actionThreshold, s.countUnit, (v) => v.toLocaleString('en-GB', { maximumFractionDigits: 4 }))}
       </td>
     </>
   );
@@ -88,6 +99,10 @@ export function ThresholdStatusPanel({ fieldId, pestId }: { fieldId: string; pes
               ))}
             </tbody>
           </table>
+          <p className="mt-2 text-xs text-soil-700">
+            The 95 % interval of a mean count per stop is Garwood’s exact Poisson interval (Garwood 1936), widened by the dispersion when counts vary more
+            between stops than chance would (quasi-Poisson, McCullagh &amp; Nelder 1989); the share of stops infested uses Wilson’s interval (Wilson 1927).
+          </p>
           <ul className="mt-2 space-y-1 text-xs text-soil-700">
             {statuses.data.map((s) => (
               <li key={`${s.walkId}-${s.pestId}`}>

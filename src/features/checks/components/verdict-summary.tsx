@@ -58,9 +58,15 @@ export function VerdictSummary({ check, result }: { check: CheckView; result: An
             : spread.decidedBy === 'donnelly'
               ? 'decided by the edge-corrected normal p'
               : `the check needs at least ${spread.minSightings} sightings`}
-        . Check run by {check.createdBy.name}, {dateTime(check.createdAt)}; engine {result.engineVersion}, {result.crs}
+        . Check run by {check.createdBy.name}, {dateTime(check.createdAt)}
         {check.reused ? ' · stored result (same sightings and options)' : ''}.
       </p>
+      <details className="text-xs text-soil-600" data-technical-details>
+        <summary className="cursor-pointer">Technical details</summary>
+        <p>
+          Engine version {result.engineVersion}; distances measured in the projection {result.crs}.
+        </p>
+      </details>
       {primary ? (
         supporting.length > 0 && (
           <div>
