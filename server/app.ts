@@ -29,6 +29,7 @@ import { advisersRouter } from './routes/advisers.ts';
 import { healthRouter } from './routes/health.ts';
 import { logger, requestLogging } from './logger.ts';
 import { queryPool } from './queries/pool.ts';
+import { readYourWrites } from './db-freshness.ts';
 import type { Logger } from 'pino';
 
 function tileOrigin(tileUrl: string) {
@@ -81,6 +82,7 @@ export function createApp(options: AppOptions = {}): Express {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
+  app.use('/api', readYourWrites());
   // The public POSTs of the e-mailed link, without a session: a grower acknowledging a notice, and the page recording
   // its opening. Exempt from CSRF only because the unguessable token in the path is itself the credential (a forged
   // request cannot know it).

@@ -41,6 +41,8 @@ function readConfig(env: NodeJS.ProcessEnv = process.env) {
     databaseUrl: env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/patchwise',
     // Read replicas (comma-separated URLs): plain reads outside transactions go there, everything else to DATABASE_URL.
     databaseReplicaUrls: replicaUrlsFrom(env.DATABASE_REPLICA_URLS),
+    // After a write, the same browser reads from the primary this long: longer than replicas usually trail behind.
+    replicaCatchUpSeconds: Number(env.REPLICA_CATCH_UP_SECONDS ?? 5),
     smtpUrl: env.SMTP_URL ?? 'smtp://127.0.0.1:2525',
     mailFrom: env.MAIL_FROM ?? 'Patchwise <notices@patchwise.local>',
     publicUrl: (env.PUBLIC_URL ?? `http://127.0.0.1:${port}`).replace(/\/$/, ''),

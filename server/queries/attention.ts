@@ -1,6 +1,7 @@
 // What the adviser's attention list reads: latest checks, their patches and zones, accepted zones, fields overdue a walk.
 import { QueryTypes } from 'sequelize';
 import { sequelize } from '../db.ts';
+import { readsFromPrimary } from '../db-freshness.ts';
 import type { ThresholdBasis } from '../../shared/schemas/pests.ts';
 import { liveSighting } from './sightings.ts';
 
@@ -42,7 +43,7 @@ export async function selectLatestDoneChecks(organisationId: string): Promise<La
                    WHERE h ? 'meanCount') AS "patchMeans"
        FROM latest l JOIN fields f ON f.id = l.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = l.pest_id
       ORDER BY fa.name, f.name, p.name`,
-    { replacements: { org: organisationId }, type: QueryTypes.SELECT },
+    { replacements: { org: organisationId }, type: QueryTypes.SELECT, useMaster: readsFromPrimary() },
   );
 }
 
@@ -65,7 +66,7 @@ export async function selectAcceptedZoneMeans(organisationId: string): Promise<A
        FROM zone_sets zs JOIN zones z ON z.zone_set_id = zs.id
       WHERE zs.organisation_id = :org AND zs.status = 'accepted'
       ORDER BY zs.id, z.position`,
-    { replacements: { org: organisationId }, type: QueryTypes.SELECT },
+    { replacements: { org: organisationId }, type: QueryTypes.SELECT, useMaster: readsFromPrimary() },
   );
 }
 
@@ -102,7 +103,7 @@ export async function selectUncheckedSightings(organisationId: string): Promise<
         AND (l.id IS NULL OR greatest(s.created_at, s.updated_at) > l.created_at)
       GROUP BY f.id, fa.name, p.id, l.id
       ORDER BY fa.name, f.name, p.name`,
-    { replacements: { org: organisationId }, type: QueryTypes.SELECT },
+    { replacements: { org: organisationId }, type: QueryTypes.SELECT, useMaster: readsFromPrimary() },
   );
 }
 
@@ -140,6 +141,6 @@ export async function selectOverdueRescouts(organisationId: string): Promise<Ove
        JOIN pests p ON p.id = sc.pest_id AND p.active
       WHERE current_date - lw.walked_on > p.rescout_days
       ORDER BY current_date - lw.walked_on - p.rescout_days DESC, fa.name, f.name, p.name`,
-    { replacements: { org: organisationId }, type: QueryTypes.SELECT },
+    { replacements: { org: organisationId }, type: QueryTypes.SELECT, useMaster: readsFromPrimary() },
   );
 }
