@@ -1,6 +1,7 @@
 // Sending a zone notice: queueing one copy per grower contact, re-sending failed copies, each copy's
 // status rolled up into the notice's, and withdrawing a copy's link.
 import crypto from 'node:crypto';
+import type { Transaction } from 'sequelize';
 import { sequelize } from '../db.ts';
 import { config } from '../config.ts';
 import type { Actor } from '../auth/passport.ts';
@@ -16,6 +17,7 @@ import {
 import { listContactsOfFieldFarm } from '../queries/farm-contacts.ts';
 import { badRequest, conflict, notFound } from '../errors.ts';
 import { createQueueOnce, queue } from '../jobs/queue.ts';
+import { jobsInTransaction } from '../queries/job-queue.ts';
 import { recordAudit } from './audit.ts';
 import { findNotice, getNotice } from './notice-reading.ts';
 import { liveNoticeMaterial } from './notice-material.ts';
@@ -44,7 +46,15 @@ export async function sendNotice(actor: Actor, id: string) {
   if (notice.status === 'sending') throw conflict('This notice is being sent; its status updates as each copy goes out.');
   // A draft's material becomes the notice's snapshot: what every copy, page and map shows from now on.
   const snapshot = notice.status === 'draft' ? await liveNoticeMaterial(notice) : null;
-  const toQueue = await sequelize.transaction(async (transaction) => {
+  const boss = await queue();
+  await createQueueOnce(boss, NOTICE_QUEUE);
+  // Each copy's job is queued in the same transaction as its recipient row: a process killed half-way leaves both or
+  // neither, never a notice stuck at "sending" with a copy nobody will send.
+  const queueCopies = async (recipientIds: string[], transaction: Transaction) => {
+    const db = jobsInTransaction(transaction);
+    for (const recipientId of recipientIds) await boss.send(NOTICE_QUEUE, { recipientId }, { ...noticeRetryPolicy, db });
+  };
+  await sequelize.transaction(async (transaction) => {
     if (snapshot) {
       const contacts = await listContactsOfFieldFarm(notice.fieldId, { transaction });
       if (contacts.length === 0) throw badRequest('This farm has no grower contacts yet; add one to the farm (name and e-mail), then send the notice.');
@@ -59,19 +69,16 @@ export async function sendNotice(actor: Actor, id: string) {
       }
       await markNoticeSent(notice.id, snapshot, { transaction });
       await recordAudit(actor, 'send', 'notice', notice.id, { recipients: contacts.length }, transaction);
-      return ids;
+      await queueCopies(ids, transaction);
+      return;
     }
     const failed = await listFailedRecipientIds(notice.id, { transaction });
     if (failed.length === 0) throw conflict('No copy of this notice is waiting to be sent again.');
     await requeueRecipients(failed, { transaction });
     await setNoticeStatus(notice.id, 'sending', { transaction });
     await recordAudit(actor, 'resend', 'notice', notice.id, { recipients: failed.length }, transaction);
-    return failed;
+    await queueCopies(failed, transaction);
   });
-  // Jobs go in after the commit so a worker always finds its recipient row.
-  const boss = await queue();
-  await createQueueOnce(boss, NOTICE_QUEUE);
-  for (const recipientId of toQueue) await boss.send(NOTICE_QUEUE, { recipientId }, { ...noticeRetryPolicy });
   return getNotice(actor, id);
 }
 
