@@ -1,7 +1,9 @@
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { findActiveActor, findUserByEmail, type UserRow } from '../queries/users.ts';
+import type { Request } from 'express';
 import { verifyPassword } from './passwords.ts';
+import { actorReadWithSession } from './session.ts';
 import type { Role } from '../../shared/schemas/roles.ts';
 
 export interface Actor {
@@ -44,9 +46,11 @@ passport.use(
 passport.serializeUser((actor, done) => done(null, actor.id));
 
 // Reload the user on every request so a deactivated account or a changed role takes effect at once: no cache to go
-// stale across processes, one indexed read of five columns through the raw pool.
-passport.deserializeUser(async (id: string, done) => {
+// stale across processes. The session store reads the user with the session (one query); otherwise, one indexed read.
+passport.deserializeUser(async (req: Request, id: string, done: (error: unknown, actor?: Actor | false) => void) => {
   try {
+    const readWithSession = actorReadWithSession(req);
+    if (readWithSession !== undefined && (readWithSession === null || readWithSession.id === id)) return done(null, (readWithSession as Actor | null) ?? false);
     done(null, (await findActiveActor(id)) ?? false);
   } catch (error) {
     done(error);
