@@ -19,8 +19,10 @@ export interface SessionWithActorRow {
  * on the pg pool. A session that names a missing or deactivated user comes back with `actor: null`.
  */
 export async function findLiveSessionWithActor(pool: pg.Pool, sid: string): Promise<SessionWithActorRow | null> {
-  const { rows } = await pool.query<SessionWithActorRow>(
-    `SELECT s.sess,
+  // A named statement: PostgreSQL parses and plans it once per connection, not on every request.
+  const { rows } = await pool.query<SessionWithActorRow>({
+    name: 'live-session-with-actor',
+    text: `SELECT s.sess,
             CASE WHEN u.id IS NULL THEN NULL
                  ELSE json_build_object('id', u.id, 'organisationId', u.organisation_id, 'role', u.role, 'name', u.name, 'email', u.email) END AS actor
        FROM session s
@@ -28,7 +30,7 @@ export async function findLiveSessionWithActor(pool: pg.Pool, sid: string): Prom
               ON u.id = CASE WHEN s.sess->'passport'->>'user' ~ '^[0-9a-f-]{36}$' THEN (s.sess->'passport'->>'user')::uuid END
              AND u.active
       WHERE s.sid = $1 AND s.expire >= now()`,
-    [sid],
-  );
+    values: [sid],
+  });
   return rows[0] ?? null;
 }

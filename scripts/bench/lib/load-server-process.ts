@@ -37,7 +37,7 @@ function within<T>(ms: number, what: string, promise: Promise<T>): Promise<T> {
 /** The environment must already name the throwaway database (DATABASE_URL) and the upload folder. */
 export async function startLoadServer(env: NodeJS.ProcessEnv): Promise<LoadServer> {
   const child = fork(serverModule, [], {
-    execArgv: ['--import', 'tsx', '--expose-gc'],
+    execArgv: ['--import', 'tsx', '--expose-gc', ...(process.env.PROF_DIR ? ['--cpu-prof', '--cpu-prof-dir=' + process.env.PROF_DIR] : [])],
     env: { ...env, WORKERS: 'off' },
     stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
   });
