@@ -7,8 +7,13 @@ import { pinoHttp } from 'pino-http';
 // The suites would drown in request lines; LOG_LEVEL turns them back on.
 const defaultLevel = process.env.LOG_LEVEL ?? (process.env.NODE_ENV === 'test' ? 'silent' : 'info');
 
+// Lines go to stdout without blocking the request: while one write is under way the next lines queue and go out
+// together, so under load there is one write per batch, not one blocking write per request (a slow log pipe would
+// otherwise stall every answer). pino flushes what is left when the process exits.
+const bufferedStdout = () => pino.destination({ dest: 1, sync: false });
+
 export function createLogger(destination?: DestinationStream, level = defaultLevel): Logger {
-  return pino({ level, base: { service: 'patchwise', pid: process.pid } }, destination);
+  return pino({ level, base: { service: 'patchwise', pid: process.pid } }, destination ?? (level === 'silent' ? undefined : bufferedStdout()));
 }
 
 export const logger = createLogger();

@@ -120,7 +120,8 @@ const ms = (v: number) => (Number.isNaN(v) ? '' : fixed(v));
  * Each read route alone at SOLO_CONNECTIONS connections, signed in, against the app, and the same paths against a
  * bare node:http server in a process of its own answering the bytes the app gave (the floor). Same run, same machine.
  */
-async function besideTheFloor(baseUrl: string, routes: BenchRoute[], headers: Record<string, string>): Promise<BenchTable> {
+async function besideTheFloor(server: LoadServer, routes: BenchRoute[], headers: Record<string, string>): Promise<BenchTable> {
+  const baseUrl = server.baseUrl;
   const seconds = Number(process.env.BENCH_SOLO_SECONDS ?? 5);
   const answers = new Map<string, RecordedAnswer>();
   for (const route of routes) answers.set(route.path, await recordAnswer(baseUrl, route.path, headers));
@@ -131,7 +132,16 @@ async function besideTheFloor(baseUrl: string, routes: BenchRoute[], headers: Re
   } finally {
     await floor.stop();
   }
-  const appFigures = await loadRoutes(baseUrl, routes, { seconds, connections: SOLO_CONNECTIONS, headers });
+  // The server's own CPU per answer, from process.cpuUsage() around each route: unlike requests/s it hardly moves
+  // when other work shares the machine, so runs on a busy and a quiet machine can be compared.
+  const appFigures: Array<RouteFigures & { cpuMsPerAnswer: number }> = [];
+  for (const route of routes) {
+    const before = await server.cpu();
+    const [figures] = await loadRoutes(baseUrl, [route], { seconds, connections: SOLO_CONNECTIONS, headers });
+    const after = await server.cpu();
+    const cpuMs = (after.user + after.system - before.user - before.system) / 1000;
+    appFigures.push({ ...figures, cpuMsPerAnswer: figures.answered ? cpuMs / figures.answered : NaN });
+  }
   return {
     title: `Reads beside the floor: each route alone, ${SOLO_CONNECTIONS} connections, ${seconds} s, signed in, gzip accepted (floor = bare node:http answering the same bytes, in its own process)`,
     rows: appFigures.map((app, i) => {
@@ -145,6 +155,7 @@ async function besideTheFloor(baseUrl: string, routes: BenchRoute[], headers: Re
         'app p50 ms': ms(app.p50),
         'app p95 ms': ms(app.p95),
         'app p99 ms': ms(app.p99),
+        'app CPU ms/answer': Number.isNaN(app.cpuMsPerAnswer) ? '' : app.cpuMsPerAnswer.toFixed(3),
         'of floor %': fixed((100 * app.reqPerSec) / bare.reqPerSec),
         'errors + non-2xx': app.errors + app.non2xx,
       };
@@ -205,7 +216,7 @@ export async function run(): Promise<BenchTable[]> {
     // list would otherwise grow tenfold in a minute, and its latency and in-flight memory with it, which is not a leak.
     const form = photoForm(basePhotos, { fieldId: ids.fields.even, pestId, count: '3' });
 
-    const solo = await besideTheFloor(baseUrl, [...readRoutes, { label: 'GET /api/config', path: '/api/config' }], {
+    const solo = await besideTheFloor(server, [...readRoutes, { label: 'GET /api/config', path: '/api/config' }], {
       cookie: adviser.cookie,
       'accept-encoding': 'gzip',
     });

@@ -3,7 +3,13 @@
 import { fork, type ChildProcess } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 
-export type LoadServerRequest = { type: 'memory'; id: number } | { type: 'stop' };
+export type LoadServerRequest = { type: 'memory'; id: number } | { type: 'cpu'; id: number } | { type: 'stop' };
+
+/** process.cpuUsage() of the server: microseconds of CPU since it started, in user and kernel mode. */
+export interface ServerCpu {
+  user: number;
+  system: number;
+}
 
 export interface ServerMemory {
   /** process.memoryUsage() figures in bytes, taken right after global.gc(). `external` includes `arrayBuffers`. */
@@ -14,12 +20,13 @@ export interface ServerMemory {
   rss: number;
 }
 
-export type LoadServerReply = { type: 'listening'; port: number } | ({ type: 'memory'; id: number } & ServerMemory);
+export type LoadServerReply = { type: 'listening'; port: number } | ({ type: 'memory'; id: number } & ServerMemory) | ({ type: 'cpu'; id: number } & ServerCpu);
 
 export interface LoadServer {
   baseUrl: string;
   pid: number;
   memory(): Promise<ServerMemory>;
+  cpu(): Promise<ServerCpu>;
   stop(): Promise<void>;
 }
 
@@ -42,6 +49,7 @@ export async function startLoadServer(env: NodeJS.ProcessEnv): Promise<LoadServe
     stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
   });
   const pending = new Map<number, (memory: ServerMemory) => void>();
+  const pendingCpu = new Map<number, (cpu: ServerCpu) => void>();
   let nextId = 0;
   const port = new Promise<number>((resolve, reject) => {
     child.once('exit', (code, signal) => reject(new Error(`the load server exited before listening (${signal ?? `code ${code}`})`)));
@@ -50,6 +58,9 @@ export async function startLoadServer(env: NodeJS.ProcessEnv): Promise<LoadServe
       else if (reply.type === 'memory') {
         pending.get(reply.id)?.(reply);
         pending.delete(reply.id);
+      } else if (reply.type === 'cpu') {
+        pendingCpu.get(reply.id)?.(reply);
+        pendingCpu.delete(reply.id);
       }
     });
   });
@@ -70,6 +81,12 @@ export async function startLoadServer(env: NodeJS.ProcessEnv): Promise<LoadServe
         const sample = new Promise<ServerMemory>((resolve) => pending.set(id, resolve));
         child.send({ type: 'memory', id } satisfies LoadServerRequest);
         return within(30_000, 'a memory sample', sample);
+      },
+      cpu: () => {
+        const id = nextId++;
+        const sample = new Promise<ServerCpu>((resolve) => pendingCpu.set(id, resolve));
+        child.send({ type: 'cpu', id } satisfies LoadServerRequest);
+        return within(30_000, 'a CPU sample', sample);
       },
       stop,
     };

@@ -28,6 +28,9 @@ process.on('message', (request: LoadServerRequest) => {
     collectGarbage();
     const m = process.memoryUsage();
     send({ type: 'memory', id: request.id, heapUsed: m.heapUsed, heapTotal: m.heapTotal, external: m.external, arrayBuffers: m.arrayBuffers, rss: m.rss });
+  } else if (request.type === 'cpu') {
+    const { user, system } = process.cpuUsage();
+    send({ type: 'cpu', id: request.id, user, system });
   } else if (request.type === 'stop') {
     running.server.closeAllConnections();
     void untilDatabaseIdle()

@@ -13,6 +13,8 @@ export interface RouteFigures {
   label: string;
   connections: number;
   reqPerSec: number;
+  /** Answers received in the run. */
+  answered: number;
   p50: number;
   p95: number;
   p99: number;
@@ -46,6 +48,7 @@ export function loadOneRoute(baseUrl: string, route: BenchRoute, options: RouteL
         label: route.label,
         connections: result.connections,
         reqPerSec: result.requests.average,
+        answered: sorted.length,
         p50: q(0.5),
         p95: q(0.95),
         p99: q(0.99),
