@@ -1,7 +1,8 @@
 // Two stored checks side by side: the figures each one's summary row holds, and what changed from the earlier
 // to the later. Nothing is computed here beyond the difference of two stored figures.
 import type { CheckSummary } from '@shared/schemas/checks.ts';
-import { hectaresAndAcres, spreadLabels } from './utils/figures.ts';
+import { hectaresAndAcres } from './utils/figures.ts';
+import { spreadLabels } from '../../lib/spread-labels.ts';
 
 export interface ComparisonRow {
   key: string;

@@ -7,7 +7,8 @@ import { Panel } from '../../../components/page-frame.tsx';
 import { Button } from '../../../components/button.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import type { useFieldChecks } from '../../../lib/api/get-field-checks.ts';
-import { dateTime, spreadLabels } from '../utils/figures.ts';
+import { dateTime } from '../utils/figures.ts';
+import { spreadLabels } from '../../../lib/spread-labels.ts';
 import { optionsText, windowText, zonesAreaText } from '../check-comparison.ts';
 
 export function PastChecksPanel({
