@@ -29,6 +29,7 @@ export function windowText(check: Pick<CheckSummary, 'from' | 'to'>): string {
 export function optionsText(check: Pick<CheckSummary, 'options'>): string {
   const o = check.options;
   const parts = [`${o.simulations} simulations`, `α ${o.alpha}`, `${o.areaBasis} area`, `${o.kernel} kernel`];
+  parts.push(`seed ${o.seed}`);
   if (o.cellSizeM) parts.push(`cells ${o.cellSizeM} m`);
   if (o.bandwidthM) parts.push(`bandwidth ${o.bandwidthM} m`);
   return parts.join(' · ');
@@ -67,7 +68,7 @@ export function compareChecks(earlier: CheckSummary, later: CheckSummary): Compa
     wordsRow('walks', 'Walks included', earlier.walkDates.join(', ') || blank, later.walkDates.join(', ') || blank),
     wordsRow('options', 'Options', optionsText(earlier), optionsText(later)),
     wordsRow('verdict', 'Spread', verdictText(earlier), verdictText(later)),
-    numberRow('sightings', 'Sightings taken in', earlier.sightings, later.sightings, 0),
+    numberRow('sightings', 'Sightings and empty stops taken in', earlier.sightings, later.sightings, 0),
     numberRow('stops', 'Stops (after same-stop merging)', f(earlier).stops, f(later).stops, 0),
     numberRow('found', 'Stops with the pest (n)', earlier.n, later.n, 0),
     numberRow('mean', `Mean count per stop (${later.threshold.countUnit})`, meanText(earlier), meanText(later), 2),

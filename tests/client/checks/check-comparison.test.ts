@@ -4,7 +4,7 @@ import type { CheckSummary } from '../../../shared/schemas/checks.ts';
 import { analysisOptionsSchema } from '../../../shared/analysis/options.ts';
 import { compareChecks, inRunOrder } from '../../../src/features/checks/check-comparison.ts';
 
-function summary(change: Partial<CheckSummary> & { figures?: Partial<CheckSummary['figures']> }): CheckSummary {
+function summary(change: Partial<Omit<CheckSummary, 'figures'>> & { figures?: Partial<CheckSummary['figures']> } = {}): CheckSummary {
   const base: CheckSummary = {
     id: 'a',
     fieldId: 'f',

@@ -63,7 +63,7 @@ export function PastChecksPanel({
                 Walks included
               </th>
               <th scope="col" className="px-2 py-1.5 text-right">
-                Sightings
+                Sightings and empty stops
               </th>
               <th scope="col" className="px-2 py-1.5">
                 Options

@@ -47,7 +47,7 @@ export function LatestCheckPanel({ fieldId }: { fieldId: string }) {
         </p>
         {t.meanPerStop !== null && t.thresholdBasis === 'mean' && (
           <p className="text-soil-800" data-latest-mean={t.meanPerStop}>
-            Mean {t.meanPerStop.toFixed(2)} {t.countUnit} per stop against a threshold of {t.actionThreshold}: {standing[t.status]}.
+            Mean per stop {t.meanPerStop.toFixed(2)} {t.countUnit}, against an action threshold of {t.actionThreshold}: {standing[t.status]}.
           </p>
         )}
         {t.shareInfested !== null && t.thresholdBasis === 'incidence' && (
@@ -56,11 +56,13 @@ export function LatestCheckPanel({ fieldId }: { fieldId: string }) {
           </p>
         )}
         <p className="text-xs text-soil-600">
-          {latest.sightings} sightings from {latest.walkDates.length} walk{latest.walkDates.length === 1 ? '' : 's'}. Threshold source: {t.thresholdSource}.
+          {latest.sightings} sightings and empty stops from {latest.walkDates.length} walk{latest.walkDates.length === 1 ? '' : 's'}. Threshold source:{' '}
+          {t.thresholdSource}.
         </p>
         {checks.data.length > 1 && (
           <p className="text-xs text-soil-600">
-            {checks.data.length - 1} earlier check{checks.data.length === 2 ? '' : 's'} are listed and can be compared in the review.
+            {checks.data.length === 2 ? 'One earlier check is' : `${checks.data.length - 1} earlier checks are`} listed in the review, where any two can be
+            compared.
           </p>
         )}
       </div>
