@@ -64,6 +64,7 @@ const shareText = (c: CheckSummary) => (c.threshold.shareInfested === null ? nul
 export function compareChecks(earlier: CheckSummary, later: CheckSummary): ComparisonRow[] {
   const f = (c: CheckSummary) => c.figures;
   const rows: ComparisonRow[] = [
+    wordsRow('pest', 'Pest', earlier.pestName, later.pestName),
     wordsRow('window', 'Date window', windowText(earlier), windowText(later)),
     wordsRow('walks', 'Walks included', earlier.walkDates.join(', ') || blank, later.walkDates.join(', ') || blank),
     wordsRow('options', 'Options', optionsText(earlier), optionsText(later)),
