@@ -9,6 +9,14 @@ export function reviewPath(fieldId: string, pestId?: string, checkId?: string | 
   return `/fields/${fieldId}/review${text ? `?${text}` : ''}`;
 }
 
+/** The field's review on a pest, a date window and a stored check, each when given (the field page's links). */
+export function reviewWindowPath(fieldId: string, params: { pest?: string; from?: string | null; to?: string | null; check?: string } = {}): string {
+  const search = new URLSearchParams();
+  for (const [key, value] of Object.entries(params)) if (value) search.set(key, value);
+  const text = search.toString();
+  return `/fields/${fieldId}/review${text ? `?${text}` : ''}`;
+}
+
 /** The zone editor on a check's zones, opened on one stored zone set when given. */
 export function zoneEditorPath(fieldId: string, checkId: string | null, zoneSetId?: string | null): string {
   const search = new URLSearchParams();

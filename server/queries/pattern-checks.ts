@@ -150,14 +150,69 @@ export const findCheckAnswerVersion = (organisationId: string, id: string) =>
     { id, org: organisationId },
   );
 
-/** A field's checks, newest first (one pest's when given), with only n and the verdict of their results. */
-export const listCheckSummariesOfField = (fieldId: string, pestId?: string) =>
-  selectRows<PatternCheckRow>(
-    `SELECT id, field_id AS "fieldId", pest_id AS "pestId", window_from AS "windowFrom", window_to AS "windowTo", status, progress,
-            engine_version AS "engineVersion", created_by AS "createdBy", created_at AS "createdAt", finished_at AS "finishedAt",
-            jsonb_build_object('n', result->'n', 'spread', jsonb_build_object('verdict', result->'spread'->'verdict')) AS result
-       FROM pattern_checks WHERE field_id = :fieldId${pestId ? ' AND pest_id = :pestId' : ''} ORDER BY created_at DESC`,
-    { fieldId, pestId },
+/** One row of a field's list of checks: the scalars read out of the stored result, never its figures. */
+export interface CheckSummaryRow {
+  id: string;
+  fieldId: string;
+  pestId: string;
+  pestName: string;
+  windowFrom: string | null;
+  windowTo: string | null;
+  status: CheckStatus;
+  progress: number;
+  engineVersion: string;
+  options: Record<string, unknown>;
+  design: 'stops' | 'whole-field' | null;
+  createdBy: string;
+  createdAt: Date;
+  finishedAt: Date | null;
+  sightingCount: number;
+  /** The days of the walks whose sightings the check took in, oldest first. */
+  walkDates: string[];
+  verdict: string | null;
+  n: number | null;
+  stops: number | null;
+  emptyStops: number | null;
+  clarkEvansR: number | null;
+  donnellyR: number | null;
+  moranI: number | null;
+  zoneCount: number | null;
+  zonesM2: number | null;
+  notScoutedM2: number | null;
+  /** The counts of the check's sightings still live, by id: the mean per stop is taken from them. */
+  counts: Array<number | null> | null;
+  countUnit: string;
+  actionThreshold: number;
+  thresholdBasis: 'mean' | 'incidence';
+  thresholdSource: string;
+}
+
+const resultNumber = (path: string) => `CAST(c.result #>> '{${path}}' AS float8)`;
+
+/** A field's checks in the organisation, newest first (one pest's when given), without their (large) results. */
+export const listCheckSummariesOfField = (organisationId: string, fieldId: string, pestId?: string) =>
+  selectRows<CheckSummaryRow>(
+    `SELECT c.id, c.field_id AS "fieldId", c.pest_id AS "pestId", p.name AS "pestName", to_char(c.window_from, 'YYYY-MM-DD') AS "windowFrom",
+            to_char(c.window_to, 'YYYY-MM-DD') AS "windowTo", c.status, c.progress, c.engine_version AS "engineVersion", c.options, c.design,
+            c.created_by AS "createdBy", c.created_at AS "createdAt", c.finished_at AS "finishedAt",
+            cardinality(c.sighting_ids) AS "sightingCount",
+            ARRAY(SELECT DISTINCT to_char(w.walked_on, 'YYYY-MM-DD') FROM sightings s JOIN walks w ON w.id = s.walk_id
+                   WHERE s.id = ANY(c.sighting_ids) ORDER BY 1) AS "walkDates",
+            c.result #>> '{spread,verdict}' AS verdict,
+            ${resultNumber('n')} AS n, ${resultNumber('stops,count')} AS stops, ${resultNumber('stops,empty')} AS "emptyStops",
+            ${resultNumber('nearestNeighbour,R')} AS "clarkEvansR", ${resultNumber('nearestNeighbour,donnelly,R')} AS "donnellyR",
+            ${resultNumber('counts,moran,I')} AS "moranI",
+            CASE WHEN jsonb_typeof(c.result #> '{zones,features}') = 'array' THEN jsonb_array_length(c.result #> '{zones,features}') END AS "zoneCount",
+            (SELECT sum(CAST(z #>> '{properties,areaM2}' AS float8)) FROM jsonb_array_elements(
+               CASE WHEN jsonb_typeof(c.result #> '{zones,features}') = 'array' THEN c.result #> '{zones,features}' ELSE CAST('[]' AS jsonb) END) z) AS "zonesM2",
+            c.not_scouted_m2 AS "notScoutedM2",
+            (SELECT array_agg(s.count ORDER BY s.id) FROM sightings s WHERE s.id = ANY(c.sighting_ids) AND s.deleted_at IS NULL) AS counts,
+            p.count_unit AS "countUnit", p.action_threshold AS "actionThreshold", p.threshold_basis AS "thresholdBasis",
+            p.threshold_source AS "thresholdSource"
+       FROM pattern_checks c JOIN pests p ON p.id = c.pest_id
+      WHERE c.organisation_id = :org AND c.field_id = :fieldId${pestId ? ' AND c.pest_id = :pestId' : ''}
+      ORDER BY c.created_at DESC, c.id`,
+    { org: organisationId, fieldId, pestId },
   );
 
 export const findCheckDensityState = (organisationId: string, checkId: string) =>

@@ -1,6 +1,7 @@
 // Pattern checks: run one (or find the identical stored one), fetch one, list a field's checks.
 import * as checks from '../queries/pattern-checks.ts';
-import { findPestNames, type PestRow } from '../queries/pests.ts';
+import type { PestRow } from '../queries/pests.ts';
+import { thresholdStatus } from '../../shared/thresholds/threshold-status.ts';
 import { findUserNames } from '../queries/users.ts';
 import type { Actor } from '../auth/passport.ts';
 import { badRequest, notFound } from '../errors.ts';
@@ -167,39 +168,58 @@ export async function getCheckAnswer(actor: Actor, id: string): Promise<Serialis
   return stored.status === 'done' ? cachedAnswer(id, stored.version, build) : serialise(await build());
 }
 
-type SpreadOf = { spread?: { verdict?: SpreadVerdict }; n?: number };
-
-export async function summarise(rows: checks.PatternCheckRow[]): Promise<CheckSummary[]> {
+export async function summarise(rows: checks.CheckSummaryRow[]): Promise<CheckSummary[]> {
   const people = await peopleById(rows.map((c) => c.createdBy));
-  const pests = await findPestNames([...new Set(rows.map((c) => c.pestId))]);
-  const pestNames = new Map(pests.map((p) => [p.id, p.name]));
   return rows.map((check) => {
-    const result = check.result as SpreadOf | null;
+    const threshold = thresholdStatus(check.counts ?? [], check);
     return {
       id: check.id,
       fieldId: check.fieldId,
       pestId: check.pestId,
-      pestName: pestNames.get(check.pestId) ?? '',
+      pestName: check.pestName,
       from: check.windowFrom,
       to: check.windowTo,
       status: check.status,
       progress: check.progress,
-      verdict: result?.spread?.verdict ?? null,
-      n: result?.n ?? null,
+      verdict: (check.verdict as SpreadVerdict | null) ?? null,
+      n: check.n,
       engineVersion: check.engineVersion,
       createdBy: people.get(check.createdBy) ?? { id: check.createdBy, name: '' },
       createdAt: iso(check.createdAt)!,
       finishedAt: iso(check.finishedAt ?? null),
+      options: check.options as AnalysisOptions,
+      design: check.design,
+      sightings: check.sightingCount,
+      walkDates: check.walkDates,
+      figures: {
+        stops: check.stops,
+        emptyStops: check.emptyStops,
+        clarkEvansR: check.clarkEvansR,
+        donnellyR: check.donnellyR,
+        moranI: check.moranI,
+        zoneCount: check.zoneCount,
+        zonesM2: check.zonesM2,
+        notScoutedM2: check.notScoutedM2,
+      },
+      threshold: {
+        meanPerStop: threshold.meanPerStop,
+        shareInfested: threshold.shareInfested,
+        actionThreshold: check.actionThreshold,
+        thresholdBasis: check.thresholdBasis,
+        thresholdSource: check.thresholdSource,
+        countUnit: check.countUnit,
+        status: threshold.status,
+      },
     };
   });
 }
 
-export async function fieldCheckSummaries(fieldId: string, pestId?: string): Promise<CheckSummary[]> {
-  // Summaries leave the (large) result out of the query: only the verdict and n are read from it.
-  return summarise(await checks.listCheckSummariesOfField(fieldId, pestId));
+export async function fieldCheckSummaries(organisationId: string, fieldId: string, pestId?: string): Promise<CheckSummary[]> {
+  // Summaries leave the (large) result out of the query: only its scalars are read from it.
+  return summarise(await checks.listCheckSummariesOfField(organisationId, fieldId, pestId));
 }
 
 export async function listFieldChecks(actor: Actor, fieldId: string, pestId?: string): Promise<CheckSummary[]> {
   await findVisibleField(actor, fieldId);
-  return fieldCheckSummaries(fieldId, pestId);
+  return fieldCheckSummaries(actor.organisationId, fieldId, pestId);
 }

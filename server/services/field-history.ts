@@ -15,5 +15,5 @@ export async function fieldHistory(actor: Actor, fieldId: string, pestId?: strin
     walks.set(row.walkId, walk);
     if (row.pestId) walk.pests.push({ pestId: row.pestId, pestName: row.pestName ?? '', sightings: row.sightings, stops: row.stops, meanCount: row.meanCount });
   }
-  return { walks: [...walks.values()], checks: await fieldCheckSummaries(fieldId, pestId) };
+  return { walks: [...walks.values()], checks: await fieldCheckSummaries(actor.organisationId, fieldId, pestId) };
 }

@@ -90,6 +90,40 @@ export interface CheckSummary {
   createdBy: PersonRef;
   createdAt: string;
   finishedAt: string | null;
+  /** The options the check ran with, as stored. */
+  options: z.output<typeof analysisOptionsSchema>;
+  design: 'stops' | 'whole-field' | null;
+  /** Sightings (photos and empty stops) the check took in, and the days of their walks, oldest first. */
+  sightings: number;
+  walkDates: string[];
+  /** Read from the stored result (null until it is done, or where the check has no such figure). */
+  figures: CheckSummaryFigures;
+  /** The check's sightings against the pest's action threshold, as the threshold status reads them. */
+  threshold: CheckSummaryThreshold;
+}
+
+export interface CheckSummaryFigures {
+  /** Stops after same-stop merging, found and empty. */
+  stops: number | null;
+  emptyStops: number | null;
+  clarkEvansR: number | null;
+  /** Clark–Evans R with Donnelly's edge correction. */
+  donnellyR: number | null;
+  moranI: number | null;
+  zoneCount: number | null;
+  /** Total area of the proposed zones, m². */
+  zonesM2: number | null;
+  notScoutedM2: number | null;
+}
+
+export interface CheckSummaryThreshold {
+  meanPerStop: number | null;
+  shareInfested: number | null;
+  actionThreshold: number;
+  thresholdBasis: 'mean' | 'incidence';
+  thresholdSource: string;
+  countUnit: string;
+  status: ThresholdStatus['status'];
 }
 
 export interface CheckResponse {

@@ -5,7 +5,7 @@ import { Link } from 'react-router';
 import type { AttentionField, AttentionRescout } from '@shared/schemas/checks.ts';
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
-import { useAttention } from '../api/get-attention.ts';
+import { useAttention } from '../../../lib/api/get-attention.ts';
 import { attentionAction } from '../attention-action.ts';
 
 const primaryLink =

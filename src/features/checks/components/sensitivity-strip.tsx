@@ -4,7 +4,8 @@ import { Button } from '../../../components/button.tsx';
 import { Panel } from '../../../components/page-frame.tsx';
 import { ErrorState } from '../../../components/query-states.tsx';
 import { useRunSensitivity } from '../api/run-sensitivity.ts';
-import { fixed, metres, pText, spreadLabels } from '../utils/figures.ts';
+import { fixed, metres, pText } from '../utils/figures.ts';
+import { spreadLabels } from '../../../lib/spread-labels.ts';
 import type { SpreadVerdict } from '@shared/analysis/spread.ts';
 
 const bases = [

@@ -1,7 +1,8 @@
 // The spread verdict in words, with the engine's own sentences behind it; never a bare label.
 import type { AnalysisResult } from '@shared/analysis/analyse.ts';
 import type { CheckView } from '@shared/schemas/checks.ts';
-import { areaBasisLabels, dateTime, spreadLabels } from '../utils/figures.ts';
+import { areaBasisLabels, dateTime } from '../utils/figures.ts';
+import { spreadLabels } from '../../../lib/spread-labels.ts';
 
 const tone: Record<AnalysisResult['spread']['verdict'], string> = {
   clustered: 'bg-patch-600 text-white',

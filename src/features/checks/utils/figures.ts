@@ -1,5 +1,4 @@
 // Formatting of the engine's figures for screen: digits and units only, never a new computation.
-import type { SpreadVerdict } from '@shared/analysis/spread.ts';
 
 const blank = '—';
 
@@ -36,15 +35,6 @@ export const areaBasisLabels = {
   hull: 'Convex hull of the sightings',
   custom: 'Custom area',
 } as const;
-
-export const spreadLabels: Record<SpreadVerdict, string> = {
-  clustered: 'Clustered',
-  random: 'Random',
-  regular: 'Spread out',
-  'too-few': 'Too few sightings',
-  everywhere: 'Everywhere',
-  'cant-tell': "Can't tell",
-};
 
 export function dateTime(iso: string | null): string {
   if (!iso) return blank;

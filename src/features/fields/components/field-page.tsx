@@ -1,4 +1,5 @@
-// One field: its boundary on the map and its facts. Lazy-loaded, since it brings the map in.
+// One field's hub: its boundary and facts, recent walks, the latest check, the current zones, the notices and
+// what needs attention here, each linking on. Lazy-loaded, since it brings the map in.
 import type { ReactNode } from 'react';
 import { Link, useParams } from 'react-router';
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
@@ -8,6 +9,12 @@ import { AreaText } from '../../../components/area-text.tsx';
 import { ButtonLink } from '../../../components/button.tsx';
 import { useSignedInUser } from '../../../lib/auth.ts';
 import { useField } from '../../../lib/api/get-field.ts';
+import { useNotices } from '../../../lib/api/get-notices.ts';
+import { FieldWalksPanel } from './hub/field-walks-panel.tsx';
+import { LatestCheckPanel } from './hub/latest-check-panel.tsx';
+import { FieldZoneSetsPanel } from './hub/field-zone-sets-panel.tsx';
+import { FieldNoticesList } from './hub/field-notices-list.tsx';
+import { FieldAttentionPanel } from './hub/field-attention-panel.tsx';
 
 function Fact({ label, children }: { label: string; children: ReactNode }) {
   return (
@@ -22,6 +29,7 @@ export function FieldPage() {
   const { fieldId = '' } = useParams();
   const user = useSignedInUser();
   const field = useField(fieldId);
+  const advises = user.role === 'adviser' || user.role === 'admin';
 
   if (field.isPending)
     return (
@@ -51,7 +59,7 @@ export function FieldPage() {
       }
       actions={
         <>
-          {(user.role === 'adviser' || user.role === 'admin') && <ButtonLink to={`/fields/${f.id}/review`}>Review sightings</ButtonLink>}
+          {advises && <ButtonLink to={`/fields/${f.id}/review`}>Review sightings</ButtonLink>}
           {user.role === 'admin' && (
             <ButtonLink to={`/admin/fields/${f.id}/edit`} variant="secondary">
               Edit field
@@ -74,6 +82,25 @@ export function FieldPage() {
           </dl>
         </Panel>
       </div>
+      {advises && <AdviserHub fieldId={f.id} />}
+      <div className="grid gap-5 lg:grid-cols-2">
+        <FieldWalksPanel fieldId={f.id} role={user.role} />
+        {(advises || user.role === 'grower') && <FieldZoneSetsPanel fieldId={f.id} canEdit={advises} />}
+      </div>
     </PageFrame>
+  );
+}
+
+/** What only advisers and admins read: the attention lines, the latest check and the notices. */
+function AdviserHub({ fieldId }: { fieldId: string }) {
+  const notices = useNotices(fieldId);
+  return (
+    <>
+      <FieldAttentionPanel fieldId={fieldId} noticeIds={notices.data?.map((n) => n.id) ?? []} />
+      <div className="grid gap-5 lg:grid-cols-2">
+        <LatestCheckPanel fieldId={fieldId} />
+        <FieldNoticesList fieldId={fieldId} />
+      </div>
+    </>
   );
 }

@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import { noticeQueryKey } from './get-notice.ts';
-import { noticeListsQueryKey } from './get-notices.ts';
+import { noticeListsQueryKey } from '../../../lib/api/get-notices.ts';
 import type { NoticeCreateRequest, NoticeResponse } from '@shared/schemas/notices.ts';
 
 export const createNotice = (request: NoticeCreateRequest) => api<NoticeResponse>('/api/notices', { method: 'POST', body: request }).then((r) => r.notice);

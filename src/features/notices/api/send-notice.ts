@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import { noticeQueryKey } from './get-notice.ts';
-import { noticeListsQueryKey } from './get-notices.ts';
+import { noticeListsQueryKey } from '../../../lib/api/get-notices.ts';
 import type { NoticeResponse } from '@shared/schemas/notices.ts';
 
 export const sendNotice = (id: string) => api<NoticeResponse>(`/api/notices/${id}/send`, { method: 'POST' }).then((r) => r.notice);

@@ -2,7 +2,7 @@
 import { Link } from 'react-router';
 import { Panel } from '../../../components/page-frame.tsx';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
-import { useNotices } from '../api/get-notices.ts';
+import { useNotices } from '../../../lib/api/get-notices.ts';
 
 const statusWords = { draft: 'draft', sending: 'sending', sent: 'sent', 'partly-failed': 'some copies failed' } as const;
 

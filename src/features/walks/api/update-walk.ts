@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import type { WalkUpdateInput, WalkView } from '@shared/schemas/walks.ts';
 import { walkQueryKey } from './get-walk.ts';
-import { walksQueryKey } from './get-walks.ts';
+import { walksQueryKey } from '../../../lib/api/get-walks.ts';
 
 export const updateWalk = (walkId: string, input: WalkUpdateInput) =>
   api<{ walk: WalkView }>(`/api/walks/${encodeURIComponent(walkId)}`, { method: 'PATCH', body: input });

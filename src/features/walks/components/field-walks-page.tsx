@@ -10,7 +10,7 @@ import { ErrorState, LoadingState, EmptyState } from '../../../components/query-
 import { errorMessage } from '../../../lib/form-errors.ts';
 import { useSignedInUser } from '../../../lib/auth.ts';
 import { fieldQueryOptions } from '../../../lib/api/get-field.ts';
-import { useWalks } from '../api/get-walks.ts';
+import { useWalks } from '../../../lib/api/get-walks.ts';
 import { useCreateWalk } from '../api/create-walk.ts';
 import { scoutPaths } from '../paths.ts';
 import { walkDate } from './walk-header.tsx';

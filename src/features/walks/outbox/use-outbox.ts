@@ -3,7 +3,7 @@ import { useEffect, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { useSignedInUser } from '../../../lib/auth.ts';
 import { walkQueryKey } from '../api/get-walk.ts';
-import { walkListsQueryKey } from '../api/get-walks.ts';
+import { walkListsQueryKey } from '../../../lib/api/get-walks.ts';
 import { allQueued, onOutboxChange, tidyOutbox, type QueuedItem } from './outbox-store.ts';
 import { drainOutbox, onItemSent, onSendProgress, resetRetryDelay } from './outbox-sender.ts';
 

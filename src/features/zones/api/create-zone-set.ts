@@ -3,7 +3,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import { zoneSetQueryKey } from '../../../lib/api/get-zone-set.ts';
 import type { ZoneSetCreateRequest, ZoneSetResponse } from '@shared/schemas/zones.ts';
-import { zoneSetsQueryKey } from './get-zone-sets.ts';
+import { zoneSetsQueryKey } from '../../../lib/api/get-zone-sets.ts';
 
 export const createZoneSet = ({ fieldId, ...request }: ZoneSetCreateRequest & { fieldId: string }) =>
   api<ZoneSetResponse>(`/api/fields/${fieldId}/zone-sets`, { method: 'POST', body: request });

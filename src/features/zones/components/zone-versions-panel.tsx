@@ -5,7 +5,7 @@ import { Panel } from '../../../components/page-frame.tsx';
 import { AreaText } from '../../../components/area-text.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { MACHINE_FILE_CAUTION } from '@shared/notices/cautions.ts';
-import { useZoneSets, zoneSetExportUrl } from '../api/get-zone-sets.ts';
+import { useZoneSets, zoneSetExportUrl } from '../../../lib/api/get-zone-sets.ts';
 
 const statusWords = { draft: 'Draft', accepted: 'Current', superseded: 'Replaced' } as const;
 

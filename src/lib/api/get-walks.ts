@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client.ts';
+import { api } from '../api-client.ts';
 import type { WalkListResponse } from '@shared/schemas/walks.ts';
 
 export const getWalks = (fieldId: string) => api<WalkListResponse>('/api/walks', { query: { fieldId } });

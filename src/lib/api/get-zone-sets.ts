@@ -1,6 +1,6 @@
 // A field's accepted zone versions, newest first as the server lists them.
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client.ts';
+import { api } from '../api-client.ts';
 import type { ZoneSetListResponse } from '@shared/schemas/zones.ts';
 
 export const getZoneSets = (fieldId: string) => api<ZoneSetListResponse>(`/api/fields/${fieldId}/zone-sets`).then((r) => r.zoneSets);

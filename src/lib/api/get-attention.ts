@@ -1,6 +1,6 @@
 // GET /api/advisers/attention: the fields that need the adviser now.
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client.ts';
+import { api } from '../api-client.ts';
 import type { AttentionResponse } from '@shared/schemas/checks.ts';
 
 export const getAttention = () => api<AttentionResponse>('/api/advisers/attention');

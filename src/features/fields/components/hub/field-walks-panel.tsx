@@ -1,0 +1,90 @@
+// The field's recent walks with their counts, each opening where the reader can act on it.
+import { Link } from 'react-router';
+import type { Role } from '@shared/schemas/roles.ts';
+import type { WalkView } from '@shared/schemas/walks.ts';
+import { Panel } from '../../../../components/page-frame.tsx';
+import { EmptyState, ErrorState, LoadingState } from '../../../../components/query-states.tsx';
+import { useWalks } from '../../../../lib/api/get-walks.ts';
+import { reviewWindowPath } from '@shared/attention-links.ts';
+
+const RECENT = 6;
+
+/** Scouts open their own walk page; advisers and admins the review on that day's sightings; growers read only. */
+function walkHref(role: Role, walk: WalkView): string | null {
+  if (role === 'scout') return `/scout/walks/${walk.id}`;
+  if (role === 'adviser' || role === 'admin') return reviewWindowPath(walk.fieldId, { from: walk.walkedOn, to: walk.walkedOn });
+  return null;
+}
+
+export function FieldWalksPanel({ fieldId, role }: { fieldId: string; role: Role }) {
+  const walks = useWalks(fieldId);
+  if (walks.isPending)
+    return (
+      <Panel title="Recent walks">
+        <LoadingState label="Loading walks…" />
+      </Panel>
+    );
+  if (walks.isError)
+    return (
+      <Panel title="Recent walks">
+        <ErrorState error={walks.error} onRetry={() => walks.refetch()} />
+      </Panel>
+    );
+  const recent = [...walks.data.walks].sort((a, b) => (a.walkedOn < b.walkedOn ? 1 : a.walkedOn > b.walkedOn ? -1 : 0)).slice(0, RECENT);
+  return (
+    <Panel title="Recent walks">
+      {recent.length === 0 ? (
+        <EmptyState title="No walks yet">A scout’s visit shows here with its sightings and stops.</EmptyState>
+      ) : (
+        <table className="w-full text-left text-sm" aria-label="Recent walks">
+          <thead className="text-xs uppercase tracking-wide text-soil-600">
+            <tr>
+              <th scope="col" className="py-1 pr-2">
+                Day
+              </th>
+              <th scope="col" className="py-1 pr-2">
+                Scout
+              </th>
+              <th scope="col" className="py-1 pr-2 text-right">
+                Sightings
+              </th>
+              <th scope="col" className="py-1 text-right">
+                Empty stops
+              </th>
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-straw-200 tabular-nums">
+            {recent.map((walk) => {
+              const href = walkHref(role, walk);
+              return (
+                <tr key={walk.id} data-walk={walk.id}>
+                  <td className="py-1.5 pr-2">
+                    {href ? (
+                      <Link to={href} className="font-medium text-field-700 underline-offset-2 hover:underline">
+                        {walk.walkedOn}
+                      </Link>
+                    ) : (
+                      walk.walkedOn
+                    )}
+                  </td>
+                  <td className="py-1.5 pr-2">{walk.scoutName}</td>
+                  <td className="py-1.5 pr-2 text-right" data-walk-sightings>
+                    {walk.sightingCount}
+                  </td>
+                  <td className="py-1.5 text-right" data-walk-stops>
+                    {walk.stopCount}
+                  </td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      )}
+      {walks.data.walks.length > RECENT && (
+        <p className="mt-2 text-xs text-soil-600">
+          The {RECENT} most recent of {walks.data.walks.length} walks.
+        </p>
+      )}
+    </Panel>
+  );
+}
