@@ -39,9 +39,12 @@ export const listRecipientsOfNotice = (noticeId: string, options: InTransaction 
 /** The copies of these notices (one page of the adviser's list), by contact name. */
 export const listRecipientsOfNotices = (noticeIds: string[]) =>
   noticeIds.length
-    ? selectRows<NoticeRecipientRow>(`SELECT ${RECIPIENT_COLUMNS} FROM notice_recipients WHERE notice_id IN (:noticeIds) ORDER BY contact_name ASC, email ASC`, {
-        noticeIds,
-      })
+    ? selectRows<NoticeRecipientRow>(
+        `SELECT ${RECIPIENT_COLUMNS} FROM notice_recipients WHERE notice_id IN (:noticeIds) ORDER BY contact_name ASC, email ASC`,
+        {
+          noticeIds,
+        },
+      )
     : Promise.resolve([]);
 
 /** The copies addressed to this e-mail among these notices. */
