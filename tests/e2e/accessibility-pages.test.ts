@@ -379,7 +379,9 @@ const rows: PageRow[] = [
         // The confirmation lists who gets it; its own send button is reached with Tab inside the dialog.
         const dialog = page.getByRole('dialog', { name: 'Send this notice?' });
         await dialog.getByRole('checkbox', { name: new RegExp(w.org.users.grower.email) }).waitFor();
-        await expectAccessible(page);
+        // The page behind a modal dialog is inert, so only axe-core's findings are checked while it is open.
+        const findings = await seriousViolations(page);
+        expect(findings, findingsTable(findings)).toEqual([]);
         await tabTo(page, dialog.getByRole('button', { name: 'Send to 1 recipient' }));
         await page.keyboard.press('Enter');
         await expect.poll(() => page.getByTestId('notice-status').textContent(), settle).toBe('Sent to every contact');
