@@ -9,6 +9,7 @@ import { findVisibleField } from './fields.ts';
 import { recipientView } from './notice-reading.ts';
 import { visibleFarmIds, visibleFieldIds } from './scope.ts';
 import type { NoticeListPage, NoticeListQuery } from '../../shared/schemas/notices.ts';
+import { isCalendarDate } from '../../shared/schemas/calendar-date.ts';
 
 interface Position {
   dated: string;
@@ -17,7 +18,13 @@ interface Position {
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
 /** PostgreSQL's text of a timestamptz, e.g. 2026-07-01 09:30:00.123456+00. */
-const TIMESTAMP = /^\d{4}-\d{2}-\d{2}[ T]\d{2}:\d{2}:\d{2}(\.\d{1,6})?([+-]\d{2}(:?\d{2})?|Z)$/;
+const TIMESTAMP = /^(\d{4}-\d{2}-\d{2}) ([01]\d|2[0-3]):[0-5]\d:[0-5]\d(\.\d{1,6})?[+-]\d{2}(:[0-5]\d)?$/;
+
+/** A timestamp the database will read back: a real calendar day and a time of day, so a forged one cannot reach the query. */
+const isTimestamp = (text: string) => {
+  const parts = TIMESTAMP.exec(text);
+  return !!parts && isCalendarDate(parts[1]);
+};
 
 export const encodeCursor = (position: Position) => Buffer.from(JSON.stringify([position.dated, position.id])).toString('base64url');
 
@@ -25,7 +32,7 @@ export const encodeCursor = (position: Position) => Buffer.from(JSON.stringify([
 export function decodeCursor(cursor: string): Position {
   try {
     const [dated, id] = JSON.parse(Buffer.from(cursor, 'base64url').toString('utf8')) as unknown[];
-    if (typeof dated === 'string' && TIMESTAMP.test(dated) && typeof id === 'string' && UUID.test(id)) return { dated, id };
+    if (typeof dated === 'string' && isTimestamp(dated) && typeof id === 'string' && UUID.test(id)) return { dated, id };
   } catch {
     // Falls through to the one message below.
   }

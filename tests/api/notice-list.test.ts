@@ -157,6 +157,9 @@ describe('pages', () => {
     const forged = await adviser.get(`/api/notices/overview?cursor=${Buffer.from("['x'; DROP TABLE notices]").toString('base64url')}`);
     expect(forged.status).toBe(400);
     expect(forged.body.error.message).toMatch(/start again from the first page/);
+    // The right shape, but no such day: refused as a cursor, never handed to the database.
+    const noSuchDay = Buffer.from(JSON.stringify(['2026-02-30 10:00:00+00', ids.draft])).toString('base64url');
+    expect((await adviser.get(`/api/notices/overview?cursor=${noSuchDay}`)).status).toBe(400);
   });
 });
 
