@@ -36,8 +36,8 @@ export const deleteContactsOfFarm = (farmId: string, options: InTransaction = {}
 
 /** The grower contacts of the farm a field lies on, by name. */
 export const listContactsOfFieldFarm = (fieldId: string, options: InTransaction = {}) =>
-  selectRows<{ name: string; email: string }>(
-    `SELECT c.name, c.email FROM farm_contacts c JOIN fields f ON f.farm_id = c.farm_id WHERE f.id = :fieldId ORDER BY c.name`,
+  selectRows<{ id: string; name: string; email: string }>(
+    `SELECT c.id, c.name, c.email FROM farm_contacts c JOIN fields f ON f.farm_id = c.farm_id WHERE f.id = :fieldId ORDER BY c.name`,
     { fieldId },
     options,
   );

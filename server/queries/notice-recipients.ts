@@ -18,13 +18,15 @@ export interface NoticeRecipientRow {
   smtpAcceptedAt: Date | null;
   openedAt: Date | null;
   acknowledgedAt: Date | null;
+  /** An address added for this notice only, not one of the farm's contacts. */
+  addedForNotice: boolean;
   createdAt: Date;
   updatedAt: Date;
 }
 
 const RECIPIENT_COLUMNS = `id, notice_id AS "noticeId", contact_name AS "contactName", email, token_hash AS "tokenHash", token_expires_at AS "tokenExpiresAt",
   revoked_at AS "revokedAt", status, attempts, last_error AS "lastError", message_id AS "messageId", smtp_accepted_at AS "smtpAcceptedAt",
-  opened_at AS "openedAt", acknowledged_at AS "acknowledgedAt", created_at AS "createdAt", updated_at AS "updatedAt"`;
+  opened_at AS "openedAt", acknowledged_at AS "acknowledgedAt", added_for_notice AS "addedForNotice", created_at AS "createdAt", updated_at AS "updatedAt"`;
 
 /** A notice's copies by contact name. */
 export const listRecipientsOfNotice = (noticeId: string, options: InTransaction = {}) =>
@@ -33,6 +35,17 @@ export const listRecipientsOfNotice = (noticeId: string, options: InTransaction 
     { noticeId },
     options,
   );
+
+/** The copies of these notices (one page of the adviser's list), by contact name. */
+export const listRecipientsOfNotices = (noticeIds: string[]) =>
+  noticeIds.length
+    ? selectRows<NoticeRecipientRow>(
+        `SELECT ${RECIPIENT_COLUMNS} FROM notice_recipients WHERE notice_id IN (:noticeIds) ORDER BY contact_name ASC, email ASC`,
+        {
+          noticeIds,
+        },
+      )
+    : Promise.resolve([]);
 
 /** The copies addressed to this e-mail among these notices. */
 export const listCopiesForEmail = (noticeIds: string[], email: string) =>
@@ -53,12 +66,13 @@ export const findRecipientOfNotice = (noticeId: string, id: string) =>
   selectRow<NoticeRecipientRow>(`SELECT ${RECIPIENT_COLUMNS} FROM notice_recipients WHERE id = :id AND notice_id = :noticeId`, { id, noticeId });
 
 export const insertRecipient = (
-  recipient: { id: string; noticeId: string; contactName: string; email: string; messageId: string },
+  recipient: { id: string; noticeId: string; contactName: string; email: string; messageId: string; addedForNotice?: boolean },
   options: InTransaction = {},
 ) =>
   execute(
-    'INSERT INTO notice_recipients (id, notice_id, contact_name, email, message_id) VALUES (:id, :noticeId, :contactName, :email, :messageId)',
-    { ...recipient },
+    `INSERT INTO notice_recipients (id, notice_id, contact_name, email, message_id, added_for_notice)
+     VALUES (:id, :noticeId, :contactName, :email, :messageId, :addedForNotice)`,
+    { ...recipient, addedForNotice: recipient.addedForNotice ?? false },
     options,
   );
 

@@ -1,4 +1,4 @@
-import type { GrowerNoticeSummary, NoticeMaterial, NoticeStatus } from '../../shared/schemas/notices.ts';
+import type { GrowerNoticeSummary, NoticeListState, NoticeMaterial, NoticeStatus } from '../../shared/schemas/notices.ts';
 import { execute, selectRow, selectRows, type InTransaction } from './sql.ts';
 
 /** A zone notice: the adviser's message to a farm's grower contacts about one zone set. */
@@ -194,3 +194,76 @@ export const findNoticeMailNames = async (noticeId: string) =>
        JOIN organisations o ON o.id = n.organisation_id JOIN users u ON u.id = n.created_by WHERE n.id = :noticeId`,
     { noticeId },
   ))!;
+
+/** One row of the adviser's list of notices, with the live names it is filed under. */
+export interface NoticeListRow {
+  id: string;
+  field_id: string;
+  field_name: string;
+  farm_id: string;
+  farm_name: string;
+  pest_name: string;
+  version: number;
+  status: NoticeStatus;
+  created_at: Date;
+  sent_at: Date | null;
+  /** The notice's date (sent, or written for a draft) as PostgreSQL's own text, microseconds kept, for the page cursor. */
+  dated: string;
+}
+
+/** Notices that have at least one copy in this state; the fragments are fixed text, never a value from a request. */
+const STATE_CONDITIONS: Record<NoticeListState, string> = {
+  draft: `n.status = 'draft'`,
+  'not-acknowledged': `n.status <> 'draft' AND EXISTS (SELECT 1 FROM notice_recipients r WHERE r.notice_id = n.id AND r.revoked_at IS NULL AND r.acknowledged_at IS NULL)`,
+  acknowledged: `EXISTS (SELECT 1 FROM notice_recipients r WHERE r.notice_id = n.id AND r.acknowledged_at IS NOT NULL)`,
+  opened: `EXISTS (SELECT 1 FROM notice_recipients r WHERE r.notice_id = n.id AND r.opened_at IS NOT NULL AND r.acknowledged_at IS NULL)`,
+  accepted: `EXISTS (SELECT 1 FROM notice_recipients r WHERE r.notice_id = n.id AND r.revoked_at IS NULL AND r.status = 'sent' AND r.opened_at IS NULL)`,
+  'on-its-way': `EXISTS (SELECT 1 FROM notice_recipients r WHERE r.notice_id = n.id AND r.revoked_at IS NULL AND r.status IN ('queued', 'sending'))`,
+  failed: `EXISTS (SELECT 1 FROM notice_recipients r WHERE r.notice_id = n.id AND r.revoked_at IS NULL AND r.status = 'failed')`,
+};
+
+export interface NoticeListFilter {
+  organisationId: string;
+  /** Only these fields (the actor's visible ones), or every field of the organisation when null. */
+  fieldIds: string[] | null;
+  farmId?: string;
+  fieldId?: string;
+  state?: NoticeListState;
+  from?: string;
+  before?: string;
+  /** Strictly after this position in the order (date, then id, both descending). */
+  after?: { dated: string; id: string };
+  limit: number;
+}
+
+/** One page of the organisation's notices, newest first (by the date sent, or written for a draft). */
+export function listNoticePage(filter: NoticeListFilter) {
+  const where = ['n.organisation_id = :org'];
+  if (filter.fieldIds) where.push(filter.fieldIds.length ? 'n.field_id IN (:fieldIds)' : 'false');
+  if (filter.farmId) where.push('f.farm_id = :farmId');
+  if (filter.fieldId) where.push('n.field_id = :fieldId');
+  if (filter.state) where.push(STATE_CONDITIONS[filter.state]);
+  if (filter.from) where.push('COALESCE(n.sent_at, n.created_at) >= CAST(:from AS timestamptz)');
+  if (filter.before) where.push('COALESCE(n.sent_at, n.created_at) < CAST(:before AS timestamptz)');
+  if (filter.after) where.push('(COALESCE(n.sent_at, n.created_at), n.id) < (CAST(:afterDated AS timestamptz), CAST(:afterId AS uuid))');
+  return selectRows<NoticeListRow>(
+    `SELECT n.id, n.field_id, f.name AS field_name, fa.id AS farm_id, fa.name AS farm_name, p.name AS pest_name, zs.version, n.status, n.created_at, n.sent_at,
+            COALESCE(n.sent_at, n.created_at)::text AS dated
+       FROM notices n JOIN fields f ON f.id = n.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = n.pest_id
+       JOIN zone_sets zs ON zs.id = n.zone_set_id
+      WHERE ${where.join(' AND ')}
+      ORDER BY COALESCE(n.sent_at, n.created_at) DESC, n.id DESC
+      LIMIT :limit`,
+    {
+      org: filter.organisationId,
+      fieldIds: filter.fieldIds,
+      farmId: filter.farmId,
+      fieldId: filter.fieldId,
+      from: filter.from,
+      before: filter.before,
+      afterDated: filter.after?.dated,
+      afterId: filter.after?.id,
+      limit: filter.limit,
+    },
+  );
+}

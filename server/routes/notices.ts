@@ -2,9 +2,10 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { requireRole, actor } from '../middleware/access.ts';
 import { parse } from '../middleware/validate.ts';
-import { noticeCreateSchema } from '../../shared/schemas/notices.ts';
+import { noticeCreateSchema, noticeListQuerySchema, noticeSendSchema } from '../../shared/schemas/notices.ts';
 import { createNotice } from '../services/notice-drafts.ts';
 import { getNotice, listNotices } from '../services/notice-reading.ts';
+import { listNoticeOverview } from '../services/notice-list.ts';
 import { noticeMaterial } from '../services/notice-material.ts';
 import { revokeRecipient, sendNotice } from '../services/notice-sending.ts';
 import { answerQuestion, listNoticeQuestions } from '../services/notice-questions.ts';
@@ -23,6 +24,11 @@ noticesRouter.use(requireRole('admin', 'adviser'));
 
 noticesRouter.get('/', async (req, res) => {
   res.json({ notices: await listNotices(actor(req), parse(listQuery, req.query)) });
+});
+
+// Every notice of the organisation with each copy's state, filtered and paged (declared before '/:id').
+noticesRouter.get('/overview', async (req, res) => {
+  res.json(await listNoticeOverview(actor(req), parse(noticeListQuerySchema, req.query)));
 });
 
 noticesRouter.post('/', async (req, res) => {
@@ -46,7 +52,8 @@ noticesRouter.get('/:id/map.png', async (req, res) => {
 });
 
 noticesRouter.post('/:id/send', async (req, res) => {
-  res.status(202).json({ notice: await sendNotice(actor(req), parse(idParam, req.params).id) });
+  const { id } = parse(idParam, req.params);
+  res.status(202).json({ notice: await sendNotice(actor(req), id, parse(noticeSendSchema, req.body ?? {}).recipients) });
 });
 
 noticesRouter.post('/:id/recipients/:rid/revoke', async (req, res) => {

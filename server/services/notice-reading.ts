@@ -15,7 +15,7 @@ export function recipientState(r: Pick<NoticeRecipientRow, 'status' | 'openedAt'
   return r.status;
 }
 
-function recipientView(r: NoticeRecipientRow): RecipientView {
+export function recipientView(r: NoticeRecipientRow): RecipientView {
   return {
     id: r.id,
     name: r.contactName,
@@ -29,6 +29,7 @@ function recipientView(r: NoticeRecipientRow): RecipientView {
     acknowledgedAt: iso(r.acknowledgedAt ?? null),
     revokedAt: iso(r.revokedAt ?? null),
     linkExpiresAt: iso(r.tokenExpiresAt ?? null),
+    addedForNotice: r.addedForNotice ?? false,
   };
 }
 

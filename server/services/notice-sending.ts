@@ -21,7 +21,7 @@ import { jobsInTransaction } from '../queries/job-queue.ts';
 import { recordAudit } from './audit.ts';
 import { findNotice, getNotice } from './notice-reading.ts';
 import { liveNoticeMaterial } from './notice-material.ts';
-import type { NoticeStatus, DeliveryStatus } from '../../shared/schemas/notices.ts';
+import type { NoticeStatus, DeliveryStatus, NoticeRecipientChoice } from '../../shared/schemas/notices.ts';
 
 export const NOTICE_QUEUE = 'notice-copy';
 
@@ -39,11 +39,47 @@ function messageIdFor(noticeId: string, recipientId: string) {
   return `<notice-${noticeId}.${recipientId}@${domain}>`;
 }
 
-/** Queues one copy per grower contact of the farm (a draft), or the copies that finally failed (a re-send). */
-export async function sendNotice(actor: Actor, id: string) {
+interface ChosenRecipient {
+  name: string;
+  email: string;
+  addedForNotice: boolean;
+}
+
+/**
+ * Who gets the copies: every contact of the farm, or the adviser's choice of them plus addresses added for this
+ * notice only. A contact id that is not one of this farm's contacts is refused, never looked up elsewhere.
+ */
+export function chooseRecipients(contacts: Array<{ id: string; name: string; email: string }>, choice?: NoticeRecipientChoice): ChosenRecipient[] {
+  if (!choice) {
+    if (contacts.length === 0) throw badRequest('This farm has no grower contacts yet; add one to the farm (name and e-mail), then send the notice.');
+    return contacts.map((c) => ({ name: c.name, email: c.email, addedForNotice: false }));
+  }
+  const kept = [...new Set(choice.contactIds)].map((contactId) => {
+    const contact = contacts.find((c) => c.id === contactId);
+    if (!contact)
+      throw badRequest('One of the chosen contacts is not a contact of this farm (the farm may have just been edited); reload the page and choose again.', {
+        contactIds: 'Reload and choose again.',
+      });
+    return { name: contact.name, email: contact.email, addedForNotice: false };
+  });
+  const added = choice.added.map((a, i) => {
+    const contact = contacts.find((c) => c.email === a.email);
+    if (contact)
+      throw badRequest(`${a.email} is already a contact of this farm (${contact.name}); keep them in the list instead of adding the address.`, {
+        [`added.${i}.email`]: 'Already a contact of this farm.',
+      });
+    return { name: a.name, email: a.email, addedForNotice: true };
+  });
+  return [...kept, ...added];
+}
+
+/** Queues one copy per chosen recipient (a draft; by default every grower contact of the farm), or the copies that finally failed (a re-send). */
+export async function sendNotice(actor: Actor, id: string, choice?: NoticeRecipientChoice) {
   const notice = await findNotice(actor, id);
   if (notice.status === 'sent') throw conflict('This notice has already gone to every grower contact.');
   if (notice.status === 'sending') throw conflict('This notice is being sent; its status updates as each copy goes out.');
+  if (choice && notice.status !== 'draft')
+    throw badRequest('The recipients were chosen when this notice was first sent; sending again goes to the copies that failed, without a list.');
   // A draft's material becomes the notice's snapshot: what every copy, page and map shows from now on.
   const snapshot = notice.status === 'draft' ? await liveNoticeMaterial(notice) : null;
   const boss = await queue();
@@ -57,18 +93,33 @@ export async function sendNotice(actor: Actor, id: string) {
   await sequelize.transaction(async (transaction) => {
     if (snapshot) {
       const contacts = await listContactsOfFieldFarm(notice.fieldId, { transaction });
-      if (contacts.length === 0) throw badRequest('This farm has no grower contacts yet; add one to the farm (name and e-mail), then send the notice.');
+      const recipients = chooseRecipients(contacts, choice);
       const ids: string[] = [];
-      for (const contact of contacts) {
+      for (const recipient of recipients) {
         const recipientId = crypto.randomUUID();
         await insertRecipient(
-          { id: recipientId, noticeId: notice.id, contactName: contact.name, email: contact.email, messageId: messageIdFor(notice.id, recipientId) },
+          {
+            id: recipientId,
+            noticeId: notice.id,
+            contactName: recipient.name,
+            email: recipient.email,
+            messageId: messageIdFor(notice.id, recipientId),
+            addedForNotice: recipient.addedForNotice,
+          },
           { transaction },
         );
         ids.push(recipientId);
       }
       await markNoticeSent(notice.id, snapshot, { transaction });
-      await recordAudit(actor, 'send', 'notice', notice.id, { recipients: contacts.length }, transaction);
+      const added = recipients.filter((r) => r.addedForNotice).length;
+      await recordAudit(
+        actor,
+        'send',
+        'notice',
+        notice.id,
+        { recipients: recipients.length, leftOut: contacts.length - (recipients.length - added), added },
+        transaction,
+      );
       await queueCopies(ids, transaction);
       return;
     }

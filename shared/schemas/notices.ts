@@ -1,6 +1,8 @@
 // The zone-notice API's contract: requests (zod) and the answers' types, for the adviser, grower and notice page.
 import { z } from 'zod';
 import { calendarDateSchema } from './calendar-date.ts';
+import { emailSchema } from './auth.ts';
+import { oneLineNameSchema } from './one-line-name.ts';
 import type { FeatureCollection, MultiPolygon, Position } from 'geojson';
 import type { NoticeQuestionView } from './notice-questions.ts';
 import type { VerdictWords } from '../notices/verdict-words.ts';
@@ -42,6 +44,8 @@ export interface RecipientView {
   acknowledgedAt: string | null;
   revokedAt: string | null;
   linkExpiresAt: string | null;
+  /** An address the adviser added for this notice only, not one of the farm's contacts. */
+  addedForNotice: boolean;
 }
 
 export interface NoticeView {
@@ -191,4 +195,95 @@ export interface UnacknowledgedNotice {
   daysSinceSent: number;
   recipientsWaiting: number;
   message: string;
+}
+
+// --- Choosing who gets a notice (the send request) ---
+
+/** At most this many copies of one notice: a farm's 20 contacts and a few addresses added for one notice. */
+export const MAX_NOTICE_RECIPIENTS = 30;
+
+export const addedRecipientSchema = z
+  .object({
+    name: oneLineNameSchema('Enter the name of the person to add.', 120, 'Keep the name to 120 characters or fewer.'),
+    email: emailSchema,
+  })
+  .strict();
+
+/**
+ * Who gets this one notice: the farm's contacts kept (by id; the rest are left out) and addresses added for this
+ * notice only. Without a body, every contact of the farm gets a copy.
+ */
+export const noticeRecipientChoiceSchema = z
+  .object({
+    contactIds: z.array(z.uuid({ error: 'That contact id is not valid.' })).max(MAX_NOTICE_RECIPIENTS),
+    added: z.array(addedRecipientSchema).max(10, { error: 'Add at most 10 addresses to one notice.' }).default([]),
+  })
+  .strict()
+  .refine((choice) => choice.contactIds.length + choice.added.length > 0, {
+    error: 'Choose at least one recipient: keep a contact of the farm or add an address.',
+    path: ['contactIds'],
+  })
+  .refine((choice) => new Set(choice.added.map((a) => a.email)).size === choice.added.length, {
+    error: 'Each added address can be given once.',
+    path: ['added'],
+  });
+export type NoticeRecipientChoice = z.output<typeof noticeRecipientChoiceSchema>;
+
+export const noticeSendSchema = z.object({ recipients: noticeRecipientChoiceSchema.optional() }).strict();
+export type NoticeSendRequest = z.output<typeof noticeSendSchema>;
+
+// --- The adviser's list of every notice (filters and pages) ---
+
+/** What the list can be narrowed to: notices with at least one live copy in that state (or drafts). */
+export const noticeListStates = ['draft', 'not-acknowledged', 'acknowledged', 'opened', 'accepted', 'on-its-way', 'failed'] as const;
+export type NoticeListState = (typeof noticeListStates)[number];
+
+export const NOTICE_PAGE_DEFAULT = 25;
+/** The most notices one page may ask for. */
+export const NOTICE_PAGE_MAX = 100;
+
+const instant = (what: string) => z.iso.datetime({ offset: true, error: `Give ${what} as a date and time with its offset, like 2026-07-01T00:00:00+02:00.` });
+
+export const noticeListQuerySchema = z
+  .object({
+    farmId: z.uuid({ error: 'That farm id is not valid.' }).optional(),
+    fieldId: z.uuid({ error: 'That field id is not valid.' }).optional(),
+    state: z.enum(noticeListStates, { error: `Choose a state among: ${noticeListStates.join(', ')}.` }).optional(),
+    /** The notice's date (sent, or written for a draft) on or after this instant. */
+    from: instant('the start of the date range').optional(),
+    /** …and before this instant. */
+    before: instant('the end of the date range').optional(),
+    limit: z.coerce
+      .number({ error: 'The page size must be a number.' })
+      .int({ error: 'The page size must be a whole number.' })
+      .min(1, { error: 'Ask for at least one notice per page.' })
+      .max(NOTICE_PAGE_MAX, { error: `Ask for at most ${NOTICE_PAGE_MAX} notices per page.` })
+      .default(NOTICE_PAGE_DEFAULT),
+    cursor: z.string().max(200, { error: 'That page cursor is not valid; start again from the first page.' }).optional(),
+  })
+  .strict()
+  .refine((q) => !q.from || !q.before || Date.parse(q.from) < Date.parse(q.before), {
+    error: 'The end of the date range must come after its start.',
+    path: ['before'],
+  });
+export type NoticeListQuery = z.output<typeof noticeListQuerySchema>;
+
+export interface NoticeListEntry {
+  id: string;
+  fieldId: string;
+  fieldName: string;
+  farmId: string;
+  farmName: string;
+  pestName: string;
+  zoneSetVersion: number;
+  status: NoticeStatus;
+  createdAt: string;
+  sentAt: string | null;
+  recipients: RecipientView[];
+}
+export interface NoticeListPage {
+  notices: NoticeListEntry[];
+  /** Pass back as `cursor` for the next page; null on the last one. */
+  nextCursor: string | null;
+  limit: number;
 }

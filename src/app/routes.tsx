@@ -66,6 +66,12 @@ export const appRoutes: AppRoute[] = [
     roles: ['admin', 'adviser'],
     Page: lazyPage(() => import('../features/notices/components/compose-notice-page.tsx'), 'ComposeNoticePage'),
   },
+  {
+    path: 'notices',
+    roles: ['adviser', 'admin'],
+    nav: 'Notices',
+    Page: lazyPage(() => import('../features/notices/components/notices-page.tsx'), 'NoticesPage'),
+  },
   { path: 'notices/:noticeId', roles: ['admin', 'adviser'], Page: lazyPage(() => import('../features/notices/components/notice-page.tsx'), 'NoticePage') },
 
   // --- Grower ---

@@ -345,6 +345,25 @@ const rows: PageRow[] = [
     },
   },
   {
+    page: '/notices',
+    role: 'adviser',
+    device: 'desk',
+    url: () => '/notices',
+    ready: (page) => page.getByRole('table', { name: 'Zone notices' }).locator('tbody tr').first().waitFor(),
+    keyboard: {
+      does: 'the list narrowed to drafts and a draft opened',
+      run: async (page, w) => {
+        await tabTo(page, page.getByLabel('State'));
+        // A native select takes the first option starting with the typed letters.
+        await page.keyboard.type('Drafts');
+        const statuses = page.getByRole('table', { name: 'Zone notices' }).locator('tbody tr td:nth-child(3)');
+        await expect.poll(async () => [...new Set(await statuses.allTextContents())], settle).toEqual(['Draft']);
+        await pressOn(page, page.locator(`tr[data-notice="${w.draftNoticeId}"]`).getByRole('link'));
+        await page.waitForURL(new RegExp(`/notices/${w.draftNoticeId}$`));
+      },
+    },
+  },
+  {
     page: '/notices/:noticeId',
     role: 'adviser',
     device: 'desk',
@@ -357,6 +376,14 @@ const rows: PageRow[] = [
       does: 'the draft sent and its copies followed',
       run: async (page, w) => {
         await pressOn(page, page.getByRole('button', { name: 'Send the notice' }));
+        // The confirmation lists who gets it; its own send button is reached with Tab inside the dialog.
+        const dialog = page.getByRole('dialog', { name: 'Send this notice?' });
+        await dialog.getByRole('checkbox', { name: new RegExp(w.org.users.grower.email) }).waitFor();
+        // The page behind a modal dialog is inert, so only axe-core's findings are checked while it is open.
+        const findings = await seriousViolations(page);
+        expect(findings, findingsTable(findings)).toEqual([]);
+        await tabTo(page, dialog.getByRole('button', { name: 'Send to 1 recipient' }));
+        await page.keyboard.press('Enter');
         await expect.poll(() => page.getByTestId('notice-status').textContent(), settle).toBe('Sent to every contact');
         await page.getByRole('table', { name: 'Recipients of this notice' }).waitFor();
         await expectAccessible(page);

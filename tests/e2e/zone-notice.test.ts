@@ -119,6 +119,10 @@ describe('zone notice in the browser', () => {
     await preview.getByText(NOTICE_CAUTIONS[0]).waitFor();
     await shot(adviserPage, '2-notice-preview');
     await adviserPage.getByRole('button', { name: 'Send the notice' }).click();
+    // The confirmation lists the farm's one contact, ticked.
+    const confirm = adviserPage.getByRole('dialog', { name: 'Send this notice?' });
+    expect(await confirm.getByRole('checkbox', { name: new RegExp(contact.email) }).isChecked()).toBe(true);
+    await confirm.getByRole('button', { name: 'Send to 1 recipient' }).click();
     const state = adviserPage.locator(`tr[data-recipient="${contact.email}"] [data-testid="recipient-state"]`);
     await state.getByText(/^(queued|sending|sent)$/).waitFor();
 

@@ -178,6 +178,8 @@ export const scoutingRoutes: AccessRow[] = [
 
   row('GET', '/api/notices', deskOnly(200, 200)),
   row('GET', '/api/notices?fieldId={checkedField}', deskOnly(200), undefined, "another organisation's field id is not found"),
+  row('GET', '/api/notices/overview', deskOnly(200, 200), undefined, "each adviser lists their own organisation's notices"),
+  row('GET', '/api/notices/overview?fieldId={checkedField}&state=not-acknowledged', deskOnly(200), undefined, "another organisation's field id is not found"),
   row('POST', '/api/notices', deskOnly(201), { fieldId: '{checkedField}', zoneSetId: '{zoneSet}', recommendation: aSentence }),
   row('GET', '/api/notices/{notice}', deskOnly(200)),
   row('GET', '/api/notices/{notice}/preview', deskOnly(200)),

@@ -1,5 +1,6 @@
 // The adviser's view of one notice: a draft previews and sends; a sent notice shows each copy's status,
 // refreshing by itself while any copy is still on its way.
+import { useState } from 'react';
 import { Link, useParams } from 'react-router';
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { Button } from '../../../components/button.tsx';
@@ -11,6 +12,7 @@ import { useSendNotice } from '../api/send-notice.ts';
 import { NoticePreview } from './notice-preview.tsx';
 import { RecipientsTable } from './recipients-table.tsx';
 import { NoticeQuestionsPanel } from './notice-questions-panel.tsx';
+import { SendNoticeDialog } from './send-notice-dialog.tsx';
 
 const statusWords = { draft: 'Draft, not sent', sending: 'Sending', sent: 'Sent to every contact', 'partly-failed': 'Some copies failed' } as const;
 
@@ -18,6 +20,7 @@ export function NoticePage() {
   const { noticeId = '' } = useParams();
   const notice = useNotice(noticeId);
   const send = useSendNotice();
+  const [choosing, setChoosing] = useState(false);
   if (notice.isPending)
     return (
       <PageFrame title="Zone notice">
@@ -57,11 +60,25 @@ export function NoticePage() {
         {n.status === 'draft' ? (
           <div className="space-y-3">
             <p className="text-sm text-soil-700">
-              Check the preview below, then send one e-mail to each grower contact of {n.farmName}. Each copy carries its own link to the notice page.
+              Check the preview below, then send one e-mail to each grower contact of {n.farmName}; you see who gets it before it goes. Each copy carries its
+              own link to the notice page.
             </p>
-            <Button onClick={() => send.mutate(n.id)} busy={send.isPending}>
+            <Button
+              onClick={() => {
+                send.reset();
+                setChoosing(true);
+              }}
+            >
               Send the notice
             </Button>
+            <SendNoticeDialog
+              notice={n}
+              open={choosing}
+              busy={send.isPending}
+              error={send.error}
+              onCancel={() => setChoosing(false)}
+              onSend={(recipients) => send.mutate({ id: n.id, recipients }, { onSuccess: () => setChoosing(false) })}
+            />
           </div>
         ) : (
           <div className="space-y-3">
@@ -71,13 +88,13 @@ export function NoticePage() {
             </p>
             <RecipientsTable notice={n} />
             {failed.length > 0 && n.status === 'partly-failed' && (
-              <Button variant="secondary" onClick={() => send.mutate(n.id)} busy={send.isPending}>
+              <Button variant="secondary" onClick={() => send.mutate({ id: n.id })} busy={send.isPending}>
                 Send the {failed.length} failed cop{failed.length === 1 ? 'y' : 'ies'} again
               </Button>
             )}
           </div>
         )}
-        {send.isError && (
+        {send.isError && !choosing && (
           <div className="mt-3">
             <FormMessage>{errorMessage(send.error)}</FormMessage>
           </div>

@@ -59,6 +59,7 @@ export function RecipientsTable({ notice }: { notice: NoticeView }) {
                 <td className="px-3 py-2 align-top">
                   <p className="font-medium text-soil-900">{r.name}</p>
                   <p className="text-soil-600">{r.email}</p>
+                  {r.addedForNotice && <p className="text-xs text-soil-600">Added for this notice only</p>}
                 </td>
                 <td className="px-3 py-2 align-top" data-testid="recipient-state">
                   <RecipientStateBadge state={r.state} />
