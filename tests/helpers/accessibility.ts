@@ -16,9 +16,25 @@ export interface AxeFinding {
  * each sandboxed frame on it (e-mails shown as the recipient sees them) checked as a document of its own.
  */
 export async function seriousViolations(page: Page): Promise<AxeFinding[]> {
+  await colourTransitionsSettled(page);
   // axe-core cannot run inside a frame sandboxed without scripts, and waits on one for ever; see sandboxedFrameViolations.
   const results = await new AxeBuilder({ page }).exclude('iframe[sandbox]').analyze();
   return [...findingsOf(results.violations), ...(await sandboxedFrameViolations(page))];
+}
+
+/**
+ * Waits for CSS transitions already running (a button fading from its disabled shade) to end: axe measures contrast on
+ * the colour of the moment, and a half-faded button is not what anyone reads. Endless animations (spinners) are left be.
+ */
+async function colourTransitionsSettled(page: Page): Promise<void> {
+  await page.evaluate(async () => {
+    const running = document
+      .getAnimations()
+      .filter((a) => a instanceof CSSTransition && a.playState === 'running')
+      .map((a) => a.finished.catch(() => undefined));
+    const giveUp = new Promise((resolve) => setTimeout(resolve, 2000));
+    await Promise.race([Promise.all(running), giveUp]);
+  });
 }
 
 /** The content of each sandboxed frame with a srcdoc, loaded as a page of its own in the same context and checked there. */
