@@ -76,13 +76,18 @@ export interface NoticeNames {
   author: string;
 }
 
-export const findNoticeNames = async (id: string) =>
-  (await selectRow<NoticeNames>(
-    `SELECT f.name AS field_name, fa.id AS farm_id, fa.name AS farm_name, p.name AS pest_name, zs.version, u.name AS author
+const NOTICE_NAMES_FROM = `SELECT n.id AS notice_id, f.name AS field_name, fa.id AS farm_id, fa.name AS farm_name, p.name AS pest_name, zs.version, u.name AS author
        FROM notices n JOIN fields f ON f.id = n.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = n.pest_id
-       JOIN zone_sets zs ON zs.id = n.zone_set_id JOIN users u ON u.id = n.created_by WHERE n.id = :id`,
-    { id },
-  ))!;
+       JOIN zone_sets zs ON zs.id = n.zone_set_id JOIN users u ON u.id = n.created_by`;
+
+export const findNoticeNames = async (id: string) => (await selectRow<NoticeNames>(`${NOTICE_NAMES_FROM} WHERE n.id = :id`, { id }))!;
+
+/** The names of several notices (one list) in one query, by notice id. */
+export const findNamesOfNotices = async (ids: string[]): Promise<Map<string, NoticeNames>> => {
+  if (ids.length === 0) return new Map();
+  const rows = await selectRows<NoticeNames & { notice_id: string }>(`${NOTICE_NAMES_FROM} WHERE n.id IN (:ids)`, { ids });
+  return new Map(rows.map((row) => [row.notice_id, row]));
+};
 
 export interface GrowerNoticeRow {
   id: string;

@@ -2,7 +2,7 @@
 // unacknowledged notices for the attention list.
 import type { Actor } from '../auth/passport.ts';
 import * as notices from '../queries/notices.ts';
-import { listCopiesForEmail, listRecipientsOfNotice, type NoticeRecipientRow } from '../queries/notice-recipients.ts';
+import { listCopiesForEmail, listRecipientsOfNotice, listRecipientsOfNotices, type NoticeRecipientRow } from '../queries/notice-recipients.ts';
 import { notFound } from '../errors.ts';
 import { findVisibleField } from './fields.ts';
 import type { NoticeView, RecipientState, RecipientView, UnacknowledgedNotice, GrowerNoticeSummary } from '../../shared/schemas/notices.ts';
@@ -51,12 +51,25 @@ export async function getNotice(actor: Actor, id: string): Promise<NoticeView> {
 /** The organisation's notices, newest first, optionally for one field. */
 export async function listNotices(actor: Actor, filter: { fieldId?: string } = {}): Promise<NoticeView[]> {
   if (filter.fieldId) await findVisibleField(actor, filter.fieldId);
-  return Promise.all((await notices.listNoticesOfOrganisation(actor.organisationId, filter.fieldId)).map(noticeView));
+  const rows = await notices.listNoticesOfOrganisation(actor.organisationId, filter.fieldId);
+  // Three queries for the whole list, not two per notice.
+  const ids = rows.map((n) => n.id);
+  const [names, copies] = await Promise.all([notices.findNamesOfNotices(ids), listRecipientsOfNotices(ids)]);
+  return rows.map((notice) =>
+    noticeViewOf(
+      notice,
+      names.get(notice.id)!,
+      copies.filter((c) => c.noticeId === notice.id),
+    ),
+  );
 }
 
 async function noticeView(notice: notices.NoticeRow): Promise<NoticeView> {
-  const names = await notices.findNoticeNames(notice.id);
-  const recipients = await listRecipientsOfNotice(notice.id);
+  const [names, recipients] = await Promise.all([notices.findNoticeNames(notice.id), listRecipientsOfNotice(notice.id)]);
+  return noticeViewOf(notice, names, recipients);
+}
+
+function noticeViewOf(notice: notices.NoticeRow, names: notices.NoticeNames, recipients: NoticeRecipientRow[]): NoticeView {
   return {
     id: notice.id,
     fieldId: notice.fieldId,

@@ -131,6 +131,15 @@ describe('the list of notices', () => {
   });
 });
 
+describe('a field’s notices (GET /api/notices?fieldId=)', () => {
+  it('gives each notice of the field with the same names and copies as the notice on its own, and none of another field', async () => {
+    const listed = (await adviser.get(`/api/notices?fieldId=${north.field.id}`).expect(200)).body.notices as Array<{ id: string }>;
+    expect(listed.map((n) => n.id)).toEqual([ids.unread, ids.acknowledged]);
+    for (const notice of listed) expect(notice).toEqual((await adviser.get(`/api/notices/${notice.id}`).expect(200)).body.notice);
+    expect((await outsider.get(`/api/notices?fieldId=${north.field.id}`)).status).toBe(404);
+  });
+});
+
 describe('pages', () => {
   it('walks the whole list a page at a time, without repeats or gaps', async () => {
     const all = await listedIds();
