@@ -55,13 +55,9 @@ export async function listNotices(actor: Actor, filter: { fieldId?: string } = {
   // Three queries for the whole list, not two per notice.
   const ids = rows.map((n) => n.id);
   const [names, copies] = await Promise.all([notices.findNamesOfNotices(ids), listRecipientsOfNotices(ids)]);
-  return rows.map((notice) =>
-    noticeViewOf(
-      notice,
-      names.get(notice.id)!,
-      copies.filter((c) => c.noticeId === notice.id),
-    ),
-  );
+  const copiesByNotice = new Map<string, NoticeRecipientRow[]>(ids.map((id) => [id, []]));
+  for (const copy of copies) copiesByNotice.get(copy.noticeId)!.push(copy);
+  return rows.map((notice) => noticeViewOf(notice, names.get(notice.id)!, copiesByNotice.get(notice.id)!));
 }
 
 async function noticeView(notice: notices.NoticeRow): Promise<NoticeView> {
