@@ -173,12 +173,22 @@ const sparsePlan = (random: Random): PlannedPhoto[] =>
     [820, 170],
   ].map(([x, y]) => ({ x: x + (random() - 0.5) * 20, y: y + (random() - 0.5) * 20, count: 2 + Math.floor(random() * 20) }));
 
-function clock(date: string, startMinutes: number, index: number) {
+/** Walk-day time of the index-th stop, two minutes apart from startMinutes after midnight. */
+function timeOfDay(startMinutes: number, index: number) {
   const minutes = startMinutes + index * 2;
   const hh = String(Math.floor(minutes / 60)).padStart(2, '0');
   const mm = String(minutes % 60).padStart(2, '0');
-  return `${date.replaceAll('-', ':')} ${hh}:${mm}:${String((index * 17) % 60).padStart(2, '0')}`;
+  return `${hh}:${mm}:${String((index * 17) % 60).padStart(2, '0')}`;
 }
+
+/** EXIF DateTimeOriginal form ("YYYY:MM:DD hh:mm:ss"); the zone goes in OffsetTimeOriginal. */
+const clock = (date: string, startMinutes: number, index: number) => `${date.replaceAll('-', ':')} ${timeOfDay(startMinutes, index)}`;
+
+/** ISO 8601 with the walk's offset, as a phone sends an empty stop's time. */
+const isoClock = (date: string, startMinutes: number, index: number, offset: string) => `${date}T${timeOfDay(startMinutes, index)}${offset}`;
+
+const WALK_START_MINUTES = 9 * 60;
+const WALK_OFFSET = '-05:00';
 
 export async function seedPhotos(ids: DemoIds) {
   const started = Date.now();
@@ -211,8 +221,8 @@ export async function seedPhotos(ids: DemoIds) {
           accuracyM: 3 + Math.round(random() * 40) / 10,
           altitudeM: 540 + random() * 6,
           directionDeg: Math.floor(random() * 360),
-          takenAt: clock(run.date, 9 * 60, i),
-          offset: '-05:00',
+          takenAt: clock(run.date, WALK_START_MINUTES, i),
+          offset: WALK_OFFSET,
         },
         embedded[i % bases.length],
       ),
@@ -227,11 +237,14 @@ export async function seedPhotos(ids: DemoIds) {
     }
     if (run.key === 'patchy' && walkId) {
       // Enough empty stops along the walk that the patches hold under half of all stops: a patchy field, not "everywhere".
-      for (const stop of wWalkStops(random, 800, 500, 90)
+      // They are recorded on the walk day after the photos (each at its own time), as a scout's phone would send them.
+      const emptyStops = wWalkStops(random, 800, 500, 90)
         .map((s) => toLonLat(f, s.x, s.y))
-        .filter((p) => insideBoundary(f, p))) {
+        .filter((p) => insideBoundary(f, p));
+      for (const [i, stop] of emptyStops.entries()) {
         stops++;
-        await recordEmptyStop(actor, walkId, { pestId: ids.pests[run.pest], ...stop, accuracyM: 4 + Math.round(random() * 30) / 10 });
+        const observedAt = isoClock(run.date, WALK_START_MINUTES + photos.length * 2, i + 1, WALK_OFFSET);
+        await recordEmptyStop(actor, walkId, { pestId: ids.pests[run.pest], ...stop, accuracyM: 4 + Math.round(random() * 30) / 10, observedAt });
       }
     }
   }

@@ -45,6 +45,22 @@ async function signInAsAdviser(page: Page) {
 
 const thresholdPanel = (page: Page) => page.locator('section').filter({ has: page.getByRole('heading', { name: 'Against the action threshold' }) });
 
+describe('the demo scenario', () => {
+  it('gives every empty stop the time it was recorded on its walk day, as a phone sends it', async () => {
+    const rows = await sequelize.query<{ stops: number; onWalkDay: number; distinctTimes: number }>(
+      `SELECT count(*)::int AS stops,
+              count(*) FILTER (WHERE (s.observed_at AT TIME ZONE 'America/Chicago')::date = w.walked_on)::int AS "onWalkDay",
+              count(DISTINCT s.observed_at)::int AS "distinctTimes"
+         FROM sightings s JOIN walks w ON w.id = s.walk_id
+        WHERE s.organisation_id = :org AND s.photo_id IS NULL AND s.count = 0 AND w.walked_on < '2026-08-01'`,
+      { replacements: { org: demo.organisationId }, type: QueryTypes.SELECT },
+    );
+    expect(rows[0].stops).toBeGreaterThan(0);
+    expect(rows[0].onWalkDay).toBe(rows[0].stops);
+    expect(rows[0].distinctTimes).toBe(rows[0].stops);
+  });
+});
+
 describe('the numbers an adviser reads', () => {
   it('shows threshold intervals that never run below zero, names their source and says when there are too few stops', async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
