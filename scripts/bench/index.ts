@@ -5,7 +5,7 @@ import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import type { BenchOutput, BenchTable } from './table.ts';
 
-const modules = ['./engine.ts', './stops.ts', './review.ts', './ingest.ts', './load.ts', './stalls.ts'];
+const modules = ['./engine.ts', './stops.ts', './review.ts', './ingest.ts', './load.ts', './stalls.ts', './scout.ts'];
 
 function printTable(table: BenchTable): void {
   console.log(`\n${table.title}`);

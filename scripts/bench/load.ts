@@ -4,10 +4,9 @@
 // per second, p50/p95/p99 latency, errors and non-2xx answers per route; the server's memory after a forced GC
 // every 5 s; and the slope of that memory over the second half of the run. Measures; never asserts a time.
 import autocannon, { type Options as LoadOptions, type Result as LoadResult } from 'autocannon';
-import { booleanPointInPolygon, bbox } from '@turf/turf';
 import { quantileSorted } from 'simple-statistics';
-import { createRandom } from '../../shared/analysis/random.ts';
-import { DEMO_PASSWORD, demoFields, demoUsers, type DemoField } from '../seed/demo-scenario.ts';
+import { DEMO_PASSWORD, demoUsers } from '../seed/demo-scenario.ts';
+import { pointsInsideField } from './lib/field-points.ts';
 import { startThrowawayDatabase } from './lib/throwaway-database.ts';
 import { photoForm } from './lib/photo-bodies.ts';
 import { signInForBench, type BenchSession } from './lib/bench-session.ts';
@@ -52,19 +51,6 @@ async function postJson<T>(baseUrl: string, session: BenchSession, path: string,
   });
   if (!res.ok) throw new Error(`POST ${path}: ${res.status} ${await res.text()}`);
   return (await res.json()) as T;
-}
-
-/** Positions inside one of the demo's fields (holes excluded), drawn from a seeded generator. */
-function pointsInsideField(key: DemoField['key'], count: number) {
-  const field = demoFields.find((f) => f.key === key)!;
-  const [west, south, east, north] = bbox(field.boundary);
-  const random = createRandom('load-bench');
-  const points: Array<{ lon: number; lat: number }> = [];
-  while (points.length < count) {
-    const p = { lon: west + random() * (east - west), lat: south + random() * (north - south) };
-    if (booleanPointInPolygon([p.lon, p.lat], field.boundary)) points.push(p);
-  }
-  return points;
 }
 
 interface RouteLoad {
