@@ -28,7 +28,8 @@ export function setCsrfToken(token: string | null) {
   csrfToken = token ? Promise.resolve(token) : null;
 }
 
-function currentCsrfToken() {
+/** The session's CSRF token, fetched once and kept until a sign-in, a sign-out or a refusal drops it. */
+export function currentCsrfToken() {
   csrfToken ??= fetchCsrfToken().catch((error) => {
     csrfToken = null;
     throw error;

@@ -1,6 +1,6 @@
 // POST /api/photos, one file per request through XMLHttpRequest: fetch() still has no upload progress,
 // and one file per request gives each photo its own progress bar, outcome and retry.
-import { api } from '../../../lib/api-client.ts';
+import { currentCsrfToken, setCsrfToken } from '../../../lib/api-client.ts';
 import type { PhotoOutcome, PhotoUploadResponse } from '@shared/schemas/sightings.ts';
 
 export interface PhotoUpload {
@@ -23,8 +23,8 @@ export class PhotoUploadError extends Error {
   }
 }
 
-/** The session's CSRF token for a multipart write (the server hands back the token it already holds). */
-export const csrfTokenForUpload = () => api<{ csrfToken: string }>('/api/auth/csrf').then((r) => r.csrfToken);
+/** The session's CSRF token for a multipart write: the one the API client keeps, so a queue of photos does not ask for it each time. */
+export const csrfTokenForUpload = () => currentCsrfToken();
 
 export function uploadPhoto(upload: PhotoUpload, csrfToken: string, onProgress: (share: number) => void): Promise<PhotoOutcome> {
   const form = new FormData();
@@ -56,6 +56,7 @@ export function uploadPhoto(upload: PhotoUpload, csrfToken: string, onProgress: 
       }
       const message = body?.error?.message ?? `The server answered ${xhr.status} without an explanation.`;
       // A stale CSRF token (the session was renewed) is cured by asking again.
+      if (body?.error?.code === 'csrf') setCsrfToken(null);
       reject(new PhotoUploadError(message, xhr.status >= 500 || xhr.status === 0 || body?.error?.code === 'csrf'));
     };
     xhr.send(form);

@@ -51,6 +51,7 @@ export function useOnline() {
 }
 
 const SYNC_TAG = 'patchwise-outbox';
+const WALK_REFRESH_EVERY_MS = 1_000;
 
 /** Asks the browser to wake the service worker when a connection returns (Background Sync, where the browser has it). */
 export async function askForBackgroundSync() {
@@ -80,10 +81,20 @@ export function useOutboxSending() {
     const fromWorker = (event: MessageEvent) => {
       if (event.data === 'drain-outbox') drain();
     };
+    // A draining queue sends an item every few hundred milliseconds; the walks are fetched again at most once a
+    // second, not after each item (fifty photos would otherwise fetch a growing walk fifty times).
+    const sentWalks = new Set<string>();
+    let refresh: ReturnType<typeof setTimeout> | undefined;
+    const refreshWalks = () => {
+      refresh = undefined;
+      for (const walkId of sentWalks) void queryClient.invalidateQueries({ queryKey: walkQueryKey(walkId) });
+      sentWalks.clear();
+      void queryClient.invalidateQueries({ queryKey: walkListsQueryKey });
+    };
     const stopSent = onItemSent((item) => {
       const walkId = item.walkId ?? (item.kind === 'photo' ? item.outcome?.walkId : undefined);
-      if (walkId) void queryClient.invalidateQueries({ queryKey: walkQueryKey(walkId) });
-      void queryClient.invalidateQueries({ queryKey: walkListsQueryKey });
+      if (walkId) sentWalks.add(walkId);
+      refresh ??= setTimeout(refreshWalks, WALK_REFRESH_EVERY_MS);
     });
     void tidyOutbox().then(drain, drain);
     window.addEventListener('online', online);
@@ -92,6 +103,10 @@ export function useOutboxSending() {
       window.removeEventListener('online', online);
       navigator.serviceWorker?.removeEventListener('message', fromWorker);
       stopSent();
+      if (refresh) {
+        clearTimeout(refresh);
+        refreshWalks();
+      }
     };
   }, [queryClient, ownerId]);
 }
