@@ -212,10 +212,20 @@ describe('zone notice in the browser', () => {
     const frame = await table.evaluate((el) => ({ client: el.clientWidth, scroll: el.scrollWidth }));
     expect(frame.client).toBeLessThanOrEqual(390);
     expect(await growerPage.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    const cue = growerPage.locator('[data-scroll-cue]');
     if (frame.scroll > frame.client) {
+      // Columns out of sight are announced in words, and the zone's name stays in view while the rest slides.
+      await expect.poll(() => cue.textContent()).toMatch(/More columns to the right/);
       await table.focus();
       await growerPage.keyboard.press('ArrowRight');
       await growerPage.waitForFunction(() => (document.querySelector('[role="region"][aria-label^="Treatment zones"]')?.scrollLeft ?? 0) > 0);
+      await table.evaluate((el) => el.scrollTo({ left: el.scrollWidth }));
+      await expect.poll(() => cue.textContent()).toMatch(/Swipe back for the first columns/);
+      const zoneName = table.getByRole('rowheader').first();
+      const [nameBox, frameBox] = [await zoneName.boundingBox(), await table.boundingBox()];
+      expect(nameBox!.x).toBeGreaterThanOrEqual(frameBox!.x - 1);
+    } else {
+      expect(await cue.count()).toBe(0);
     }
     await table.scrollIntoViewIfNeeded();
     await shot(growerPage, '5b-notice-phone');

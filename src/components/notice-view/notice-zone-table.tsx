@@ -1,6 +1,7 @@
 // The zone table as the grower reads it: area in hectares and acres, share of the field, sightings inside.
 import { toAcres, toHectares } from '@shared/units/area.ts';
 import type { NoticeZoneRow } from '@shared/schemas/notices.ts';
+import { SidewaysScroll } from '../sideways-scroll.tsx';
 import { fromCornerText, latLonText } from '@shared/notices/zone-location-words.ts';
 
 const two = new Intl.NumberFormat('en', { minimumFractionDigits: 2, maximumFractionDigits: 2 });
@@ -8,18 +9,13 @@ const percent = new Intl.NumberFormat('en', { style: 'percent', maximumFractionD
 
 export function NoticeZoneTable({ zones, totalTreatedM2, untreatedShare }: { zones: NoticeZoneRow[]; totalTreatedM2: number; untreatedShare: number }) {
   return (
-    // Wider than a phone: the table scrolls sideways, and keyboard users can scroll it too.
-    <div
-      className="overflow-x-auto rounded-lg ring-1 ring-soil-300/60 focus-visible:outline focus-visible:outline-2 focus-visible:outline-field-600 print:ring-soil-400"
-      role="region"
-      aria-label="Treatment zones (scrolls sideways)"
-      tabIndex={0}
-    >
+    // Wider than a phone: the table scrolls sideways inside its frame, which says so while columns are out of sight.
+    <SidewaysScroll label="Treatment zones" className="rounded-lg ring-1 ring-soil-300/60 print:ring-soil-400">
       <table className="min-w-full text-left text-sm">
         <caption className="sr-only">Treatment zones</caption>
         <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
           <tr>
-            <th scope="col" className="px-3 py-2">
+            <th scope="col" className="sticky left-0 bg-straw-100 px-3 py-2">
               Zone
             </th>
             <th scope="col" className="px-3 py-2 text-right">
@@ -45,7 +41,7 @@ export function NoticeZoneTable({ zones, totalTreatedM2, untreatedShare }: { zon
         <tbody className="divide-y divide-straw-200 bg-white">
           {zones.map((z) => (
             <tr key={z.label}>
-              <th scope="row" className="px-3 py-2 font-medium text-soil-900">
+              <th scope="row" className="sticky left-0 bg-white px-3 py-2 font-medium text-soil-900">
                 {z.label}
               </th>
               <td className="px-3 py-2 text-right tabular-nums">{two.format(z.areaHa)}</td>
@@ -59,7 +55,7 @@ export function NoticeZoneTable({ zones, totalTreatedM2, untreatedShare }: { zon
         </tbody>
         <tfoot className="border-t-2 border-straw-300 bg-straw-50 font-medium">
           <tr>
-            <th scope="row" className="px-3 py-2">
+            <th scope="row" className="sticky left-0 bg-straw-50 px-3 py-2">
               All zones
             </th>
             <td className="px-3 py-2 text-right tabular-nums">{two.format(toHectares(totalTreatedM2))}</td>
@@ -69,6 +65,6 @@ export function NoticeZoneTable({ zones, totalTreatedM2, untreatedShare }: { zon
           </tr>
         </tfoot>
       </table>
-    </div>
+    </SidewaysScroll>
   );
 }
