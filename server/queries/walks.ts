@@ -50,22 +50,32 @@ export const findWalkRef = (organisationId: string, walkId: string, options: InT
   );
 
 /** Inserts the walk unless (field, scout, day) has one; the new id, or undefined when it was there already. */
-export const insertWalkIfNew = async (walk: { organisationId: string; fieldId: string; scoutId: string; walkedOn: string }, options: InTransaction = {}) =>
+/**
+ * Inserts the walk unless the scout has one on that field and day, or (with a phone's id) the id is taken;
+ * undefined when nothing was inserted.
+ */
+export const insertWalkIfNew = async (
+  walk: { id?: string; organisationId: string; fieldId: string; scoutId: string; walkedOn: string },
+  options: InTransaction = {},
+) =>
   (
     await selectRow<{ id: string }>(
-      `INSERT INTO walks (organisation_id, field_id, scout_id, walked_on) VALUES (:org, :fieldId, :scoutId, :walkedOn)
-     ON CONFLICT (field_id, scout_id, walked_on) DO NOTHING RETURNING id`,
-      { org: walk.organisationId, fieldId: walk.fieldId, scoutId: walk.scoutId, walkedOn: walk.walkedOn },
+      `INSERT INTO walks (id, organisation_id, field_id, scout_id, walked_on)
+       VALUES (COALESCE(CAST(:id AS uuid), gen_random_uuid()), :org, :fieldId, :scoutId, :walkedOn)
+       ON CONFLICT DO NOTHING RETURNING id`,
+      { id: walk.id ?? null, org: walk.organisationId, fieldId: walk.fieldId, scoutId: walk.scoutId, walkedOn: walk.walkedOn },
       options,
     )
   )?.id;
 
 export const findWalkIdOf = async (fieldId: string, scoutId: string, walkedOn: string, options: InTransaction = {}) =>
-  (await selectRow<{ id: string }>(
-    'SELECT id FROM walks WHERE field_id = :fieldId AND scout_id = :scoutId AND walked_on = :walkedOn',
-    { fieldId, scoutId, walkedOn },
-    options,
-  ))!.id;
+  (
+    await selectRow<{ id: string }>(
+      'SELECT id FROM walks WHERE field_id = :fieldId AND scout_id = :scoutId AND walked_on = :walkedOn',
+      { fieldId, scoutId, walkedOn },
+      options,
+    )
+  )?.id;
 
 export const setWalkNotes = (id: string, notes: string, options: InTransaction = {}) =>
   execute('UPDATE walks SET notes = :notes WHERE id = :id', { notes, id }, options);

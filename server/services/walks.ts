@@ -3,7 +3,7 @@ import type { Transaction } from 'sequelize';
 import { sequelize } from '../db.ts';
 import type { Actor } from '../auth/passport.ts';
 import type { WalkCreateInput, WalkUpdateInput, WalkView } from '../../shared/schemas/walks.ts';
-import { badRequest, notFound } from '../errors.ts';
+import { badRequest, conflict, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { visibleFieldIds } from './scope.ts';
 import { writableField, writableWalk } from './ingest-access.ts';
@@ -31,20 +31,23 @@ export async function getWalk(actor: Actor, id: string) {
  * The walk for (field, scout, day), made if it does not exist yet. Safe under concurrent uploads: the unique
  * index decides and the loser reads the winner's row.
  */
-export async function findOrCreateWalk(actor: Actor, fieldId: string, walkedOn: string, transaction?: Transaction) {
-  const inserted = await walks.insertWalkIfNew({ organisationId: actor.organisationId, fieldId, scoutId: actor.id, walkedOn }, { transaction });
+export async function findOrCreateWalk(actor: Actor, fieldId: string, walkedOn: string, transaction?: Transaction, phoneId?: string) {
+  const inserted = await walks.insertWalkIfNew({ id: phoneId, organisationId: actor.organisationId, fieldId, scoutId: actor.id, walkedOn }, { transaction });
   if (inserted) {
     await recordAudit(actor, 'create', 'walk', inserted, { fieldId, walkedOn }, transaction);
     return { id: inserted, created: true };
   }
-  return { id: await walks.findWalkIdOf(fieldId, actor.id, walkedOn, { transaction }), created: false };
+  const existing = await walks.findWalkIdOf(fieldId, actor.id, walkedOn, { transaction });
+  // Only a phone's id can make the insert give way without a walk on that field and day: the id belongs to another walk.
+  if (!existing) throw conflict('That walk id from the phone is already used by another walk; start the walk again.');
+  return { id: existing, created: false };
 }
 
 /** Starts a walk; starting the same field and day again returns the walk already there. */
 export async function createWalk(actor: Actor, input: WalkCreateInput) {
   await writableField(actor, input.fieldId);
   const { id, created } = await sequelize.transaction(async (transaction) => {
-    const found = await findOrCreateWalk(actor, input.fieldId, input.walkedOn, transaction);
+    const found = await findOrCreateWalk(actor, input.fieldId, input.walkedOn, transaction, input.id);
     if (input.notes !== undefined && found.created) {
       await walks.setWalkNotes(found.id, input.notes, { transaction });
     }

@@ -7,6 +7,11 @@ const isoDate = calendarDateSchema({ shape: 'Enter the walk date as YYYY-MM-DD.'
 const notes = z.string({ error: 'Notes must be text.' }).max(4000, { error: 'Keep the notes under 4000 characters.' });
 
 export const walkCreateSchema = z.object({
+  /**
+   * The phone's own id for a walk started without signal, so the photos and stops kept for it can name it before the
+   * server has it. Ignored when the scout already has a walk on that field and day: the answer then names that one.
+   */
+  id: z.uuid({ error: 'The walk id from the phone must be a UUID.' }).optional(),
   fieldId: z.uuid({ error: 'Choose the field for this walk.' }),
   walkedOn: isoDate,
   notes: notes.optional(),

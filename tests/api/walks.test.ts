@@ -37,6 +37,30 @@ describe('walks', () => {
     expect(refused.status).toBe(403);
   });
 
+  it('keeps the id a phone gave a walk started without signal, and answers a second phone id with the walk already there', async () => {
+    const { scout, field } = await scoutingSetUp();
+    const phoneId = crypto.randomUUID();
+    const first = await scout.post('/api/walks', { id: phoneId, fieldId: field.id, walkedOn: '2026-11-22' }).expect(201);
+    expect(first.body.walk).toMatchObject({ id: phoneId, fieldId: field.id, walkedOn: '2026-11-22' });
+    await scout.get(`/api/walks/${phoneId}`).expect(200);
+    // Sent again (the answer was lost) or from a second phone: the walk of that field and day, never a second one.
+    expect((await scout.post('/api/walks', { id: phoneId, fieldId: field.id, walkedOn: '2026-11-22' }).expect(200)).body.walk.id).toBe(phoneId);
+    const other = await scout.post('/api/walks', { id: crypto.randomUUID(), fieldId: field.id, walkedOn: '2026-11-22' }).expect(200);
+    expect(other.body.walk.id).toBe(phoneId);
+    const listed = await scout.get(`/api/walks?fieldId=${field.id}`).expect(200);
+    expect(listed.body.walks.filter((w: { walkedOn: string }) => w.walkedOn === '2026-11-22')).toHaveLength(1);
+
+    // An id another walk holds (here the one above, for another day) is refused in a sentence, and makes no walk.
+    const taken = await scout.post('/api/walks', { id: phoneId, fieldId: field.id, walkedOn: '2026-11-23' });
+    expect(taken.status).toBe(409);
+    expect(taken.body.error.message).toMatch(/already used by another walk; start the walk again/);
+    const after = await scout.get(`/api/walks?fieldId=${field.id}`).expect(200);
+    expect(after.body.walks.map((w: { walkedOn: string }) => w.walkedOn)).not.toContain('2026-11-23');
+    const bad = await scout.post('/api/walks', { id: 'not-a-uuid', fieldId: field.id, walkedOn: '2026-11-24' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.message).toMatch(/walk id from the phone must be a UUID/);
+  });
+
   it('explains a bad walk date', async () => {
     const { scout, field } = await scoutingSetUp();
     const res = await scout.post('/api/walks', { fieldId: field.id, walkedOn: '2026-02-30' });
