@@ -69,12 +69,59 @@ const stopStates = (page: Page) =>
     .getByRole('listitem')
     .evaluateAll((items) => items.map((i) => i.getAttribute('data-stop-state')));
 
+// One API session for the file: the sign-in limiter counts every sign-in of the scout, the browser's among them.
+let scoutSession: Promise<Awaited<ReturnType<typeof signedIn>>> | undefined;
+const scoutClient = () => (scoutSession ??= signedIn(org.users.scout.email));
+
 async function walkOnServer(walkId: string) {
-  const scout = await signedIn(org.users.scout.email);
+  const scout = await scoutClient();
   return (await scout.get(`/api/walks/${walkId}`).expect(200)).body as {
     walk: { sightingCount: number; stopCount: number };
     sightings: Array<{ isEmptyStop: boolean; positionSource: string }>;
   };
+}
+
+/** Opens the field's page online until the service worker runs it, so the page and the field's reads are kept. */
+async function openFieldForOffline(context: BrowserContext, fieldId: string): Promise<Page> {
+  const page = await context.newPage();
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail address').fill(org.users.scout.email);
+  await page.getByLabel('Password').fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).tap();
+  await page.getByRole('link', { name: 'Walk a field' }).waitFor();
+  await page.goto(`${server.url}/scout/fields/${fieldId}`);
+  await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
+  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller), settle).toBe(true);
+  await page.reload();
+  await page.getByRole('button', { name: 'Start a walk for today' }).waitFor();
+  // The field page reads the pest library the walk page needs, so the service worker keeps it.
+  await expect
+    .poll(() => page.evaluate(async () => !!(await caches.open('patchwise-scout-api').then((c) => c.match('/api/pests?includeInactive=false')))), settle)
+    .toBe(true);
+  return page;
+}
+
+async function recordPhotoAndStop(page: Page, markSeed: number) {
+  await page.getByLabel('Pest').selectOption(pest.id);
+  await page.getByLabel('Count for each photo').fill('3');
+  await page
+    .getByTestId('gallery-input')
+    .setInputFiles([{ name: `gully-${markSeed}.jpg`, mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: insideA, markSeed }) }]);
+  await page.getByRole('button', { name: 'Send 1 photo' }).tap();
+  await expect.poll(() => rowStates(page), settle).toEqual(['waiting']);
+  await page.getByRole('button', { name: 'Nothing found here' }).tap();
+  await expect.poll(() => stopStates(page), settle).toEqual(['waiting']);
+}
+
+/** Today on the phone's calendar; the browser and this process share the machine's time zone. */
+function phoneToday() {
+  const now = new Date();
+  return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
+}
+
+async function walksOfField(fieldId: string) {
+  const scout = await scoutClient();
+  return (await scout.get(`/api/walks?fieldId=${fieldId}`).expect(200)).body.walks as Array<{ id: string; sightingCount: number; stopCount: number }>;
 }
 
 describe('scout without signal', () => {
@@ -134,6 +181,65 @@ describe('scout without signal', () => {
       expect(stored.walk).toMatchObject({ sightingCount: 2, stopCount: 1 });
       expect(stored.sightings.filter((s) => s.isEmptyStop)).toHaveLength(1);
       await expect.poll(() => banner.count(), settle).toBe(0);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('starts today’s walk without signal, and the walk, its photo and its stop each reach the server once', async () => {
+    const field = await assignedField('Dry Gully');
+    const context = await phone();
+    try {
+      const page = await openFieldForOffline(context, field.id);
+      await context.setOffline(true);
+      await context.setGeolocation(standing);
+      await page.reload();
+      await page.getByRole('button', { name: 'Start a walk for today' }).tap();
+      await page.waitForURL(/\/scout\/walks\/[0-9a-f-]{36}$/);
+      const phoneWalkId = page.url().split('/').at(-1)!;
+      await page.getByText(/Started on this phone without signal/).waitFor();
+      await recordPhotoAndStop(page, 81);
+
+      // Reopened without signal, the walk comes from the phone with what waits for it.
+      await page.reload();
+      await page.getByText(/Started on this phone without signal/).waitFor();
+      await expect.poll(() => rowStates(page), settle).toEqual(['waiting']);
+      await expect.poll(() => stopStates(page), settle).toEqual(['waiting']);
+
+      await context.setOffline(false);
+      await expect.poll(() => rowStates(page), settle).toEqual(['sent']);
+      await expect.poll(() => stopStates(page), settle).toEqual([]);
+      await expect.poll(() => page.getByText(/Started on this phone without signal/).count(), settle).toBe(0);
+      const walks = await walksOfField(field.id);
+      expect(walks).toHaveLength(1);
+      expect(walks[0]).toMatchObject({ id: phoneWalkId, sightingCount: 1, stopCount: 1 });
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('puts what was kept for a walk started offline into the walk the scout had already started there that day', async () => {
+    const field = await assignedField('Mill Corner');
+    const context = await phone();
+    try {
+      const page = await openFieldForOffline(context, field.id);
+      await context.setOffline(true);
+      await context.setGeolocation(standing);
+      await page.reload();
+      await page.getByRole('button', { name: 'Start a walk for today' }).tap();
+      await page.waitForURL(/\/scout\/walks\/[0-9a-f-]{36}$/);
+      await recordPhotoAndStop(page, 91);
+      // Meanwhile the same scout started today's walk on this field from another phone.
+      const scout = await scoutClient();
+      const elsewhere = (await scout.post('/api/walks', { fieldId: field.id, walkedOn: phoneToday() }).expect(201)).body.walk.id as string;
+
+      await context.setOffline(false);
+      await page.waitForURL(new RegExp(`/scout/walks/${elsewhere}$`), { timeout: 30_000 });
+      await expect.poll(() => rowStates(page), settle).toEqual(['sent']);
+      await expect.poll(() => stopStates(page), settle).toEqual([]);
+      const walks = await walksOfField(field.id);
+      expect(walks).toHaveLength(1);
+      expect(walks[0]).toMatchObject({ id: elsewhere, sightingCount: 1, stopCount: 1 });
     } finally {
       await context.close();
     }

@@ -11,7 +11,9 @@ import { errorMessage } from '../../../lib/form-errors.ts';
 import { useSignedInUser } from '../../../lib/auth.ts';
 import { fieldQueryOptions } from '../../../lib/api/get-field.ts';
 import { useWalks } from '../../../lib/api/get-walks.ts';
-import { useCreateWalk } from '../api/create-walk.ts';
+import { useStartWalk } from '../api/start-walk.ts';
+import { useKeepForNoSignal } from '../hooks/use-keep-for-no-signal.ts';
+import { useWalksStartedOffline } from '../outbox/use-outbox.ts';
 import { scoutPaths } from '../paths.ts';
 import { walkDate } from './walk-header.tsx';
 
@@ -27,7 +29,9 @@ export function FieldWalksPage() {
   const navigate = useNavigate();
   const field = useQuery(fieldQueryOptions(fieldId));
   const walks = useWalks(fieldId);
-  const createWalk = useCreateWalk();
+  const startWalk = useStartWalk();
+  const startedOffline = useWalksStartedOffline();
+  useKeepForNoSignal();
   const today = localToday();
 
   if (field.isPending)
@@ -43,8 +47,11 @@ export function FieldWalksPage() {
       </PageFrame>
     );
 
-  const todays = walks.data?.walks.find((w) => w.walkedOn === today && w.scoutId === me.id);
-  const start = () => createWalk.mutate({ fieldId, walkedOn: today }, { onSuccess: ({ walk }) => navigate(scoutPaths.walk(walk.id)) });
+  const todaysOnServer = walks.data?.walks.find((w) => w.walkedOn === today && w.scoutId === me.id)?.id;
+  const todaysOnPhone = startedOffline.find((w) => w.fieldId === fieldId && w.walkedOn === today);
+  const todays = todaysOnServer ?? todaysOnPhone?.serverId ?? todaysOnPhone?.id;
+  const start = () =>
+    startWalk.mutate({ field: { id: fieldId, name: field.data.name }, walkedOn: today }, { onSuccess: ({ walkId }) => navigate(scoutPaths.walk(walkId)) });
 
   return (
     <PageFrame title={field.data.name} eyebrow={`${field.data.farmName} · ${field.data.crop} ${field.data.season}`}>
@@ -53,17 +60,17 @@ export function FieldWalksPage() {
           <AreaText m2={field.data.areaM2} />
         </p>
         {todays ? (
-          <ButtonLink to={scoutPaths.walk(todays.id)} size="lg" className="w-full min-h-14 text-lg">
+          <ButtonLink to={scoutPaths.walk(todays)} size="lg" className="w-full min-h-14 text-lg">
             Carry on with today’s walk
           </ButtonLink>
         ) : (
-          <Button size="lg" className="w-full min-h-14 text-lg" onClick={start} busy={createWalk.isPending} disabled={walks.isPending}>
+          <Button size="lg" className="w-full min-h-14 text-lg" onClick={start} busy={startWalk.isPending}>
             Start a walk for today
           </Button>
         )}
-        {createWalk.isError && (
+        {startWalk.isError && (
           <div className="mt-2">
-            <FormMessage>{errorMessage(createWalk.error)}</FormMessage>
+            <FormMessage>{errorMessage(startWalk.error)}</FormMessage>
           </div>
         )}
       </Panel>

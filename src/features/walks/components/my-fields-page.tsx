@@ -10,6 +10,7 @@ import { useFields } from '../../../lib/api/get-fields.ts';
 import { useWatchedPosition } from '../../../lib/use-watched-position.ts';
 import { orderFieldsForScout, type PlacedField } from '../field-order.ts';
 import { scoutPaths } from '../paths.ts';
+import { useKeepForNoSignal } from '../hooks/use-keep-for-no-signal.ts';
 
 const distance = (m: number) => (m < 1000 ? `${Math.round(m)} m away` : `${(m / 1000).toFixed(1)} km away`);
 
@@ -73,6 +74,7 @@ function OrderedFields({ fields }: { fields: FieldAnswer[] }) {
 
 export function MyFieldsPage() {
   const fields = useFields();
+  useKeepForNoSignal(fields.data?.map((f) => f.id));
   return (
     <PageFrame title="Walk a field" eyebrow="Fields assigned to you">
       <ButtonLink to={scoutPaths.justUpload} size="lg" variant="secondary" className="w-full min-h-14 text-lg">

@@ -1,5 +1,6 @@
 // The scout's walk: tag and send photos, record empty stops, and see the walk on its field.
-import { useParams } from 'react-router';
+import { useEffect } from 'react';
+import { useNavigate, useParams } from 'react-router';
 import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { useQuery } from '@tanstack/react-query';
@@ -17,6 +18,7 @@ import { WalkMap } from './walk-map.tsx';
 import { QueuedStops } from './queued-stops.tsx';
 import type { QueuedPlace } from './queued-markers.tsx';
 import { useOutbox } from '../outbox/use-outbox.ts';
+import { useSignedInUser } from '../../../lib/auth.ts';
 import type { QueuedItem, QueuedStop } from '../outbox/outbox-store.ts';
 
 /** Items of this walk still on the phone (sent ones are sightings on the map already), where their position is known. */
@@ -30,12 +32,25 @@ function queuedPlacesOf(items: QueuedItem[]): QueuedPlace[] {
 
 export function WalkPage() {
   const { walkId = '' } = useParams();
-  const walk = useWalk(walkId);
+  const me = useSignedInUser();
+  const navigate = useNavigate();
+  const walk = useWalk(walkId, me.name);
   const fieldId = walk.data?.walk.fieldId ?? '';
   const field = useQuery({ ...fieldQueryOptions(fieldId), enabled: !!walk.data });
   const pests = usePests(false);
   const tags = useBatchTags();
   const outbox = useOutbox();
+  const keptOnPhone = walk.data?.keptOnPhone ?? false;
+  const shownId = walk.data?.walk.id;
+  const { refetch } = walk;
+  // A walk started without signal: ask again as the outbox moves, until the server has it.
+  useEffect(() => {
+    if (keptOnPhone) void refetch();
+  }, [keptOnPhone, outbox, refetch]);
+  // The server answered with the walk the scout had already started there today: carry on under its id.
+  useEffect(() => {
+    if (shownId && shownId !== walkId) void navigate(scoutPaths.walk(shownId), { replace: true });
+  }, [shownId, walkId, navigate]);
 
   if (walk.isPending)
     return (
@@ -62,6 +77,11 @@ export function WalkPage() {
     <PageFrame title={info.fieldName} eyebrow={`Walk · ${walkDate(info.walkedOn)}`}>
       <Panel>
         <WalkHeader walk={info} farmName={field.data?.farmName} />
+        {keptOnPhone && (
+          <p className="mt-3 rounded-md bg-straw-100 px-3 py-2 text-sm text-soil-900" role="status" data-walk-kept-on-phone>
+            Started on this phone without signal. Record photos and stops as usual: they wait here and go, with the walk, when the phone has signal.
+          </p>
+        )}
       </Panel>
 
       <Panel title="Photos and stops">

@@ -4,7 +4,17 @@ import { api, ApiError, setCsrfToken } from '../../../lib/api-client.ts';
 import type { SightingView } from '@shared/schemas/sightings.ts';
 import { csrfTokenForUpload, PhotoUploadError, uploadPhoto } from '../api/upload-photo.ts';
 import { afterAttempt, drainQueue, outboxToSend, type SendResult } from '../upload-queue.ts';
-import { allQueued, patchQueued, putQueued, type QueuedItem, type QueuedPhoto, type QueuedStop } from './outbox-store.ts';
+import { createWalk } from '../api/create-walk.ts';
+import {
+  allQueued,
+  patchQueued,
+  putQueued,
+  settleWalkStartedOffline,
+  walksStartedOffline,
+  type QueuedItem,
+  type QueuedPhoto,
+  type QueuedStop,
+} from './outbox-store.ts';
 
 const PARALLEL_SENDS = 2;
 const NO_CONNECTION = 'No connection yet: it goes by itself when the phone has signal.';
@@ -19,7 +29,8 @@ export function onItemSent(listener: (item: QueuedItem) => void) {
 function unreachable(error: unknown): SendResult | null {
   if (error instanceof TypeError) return { kind: 'unreachable', message: NO_CONNECTION };
   if (error instanceof PhotoUploadError && error.retryable) return { kind: 'unreachable', message: error.message };
-  if (error instanceof ApiError && (error.status >= 500 || error.code === 'csrf')) return { kind: 'unreachable', message: error.message };
+  // Status 0: the request never got an answer (the API client's "cannot be reached").
+  if (error instanceof ApiError && (error.status === 0 || error.status >= 500 || error.code === 'csrf')) return { kind: 'unreachable', message: error.message };
   // Signed out on this phone: the item waits for the next sign-in rather than being refused.
   if (error instanceof ApiError && error.status === 401) return { kind: 'unreachable', message: 'Sign in again to send what waits on this phone.' };
   return null;
@@ -60,9 +71,35 @@ export function onSendProgress(listener: (clientId: string, share: number) => vo
   return () => void progressListeners.delete(listener);
 }
 
+/**
+ * Starts on the server the walks started without signal, oldest first; answers the phone ids whose walk the server
+ * does not have yet, so their photos and stops wait for it.
+ */
+async function sendWalksStartedOffline(ownerId: string): Promise<Set<string>> {
+  const unsettled = (await walksStartedOffline(ownerId)).filter((w) => !w.serverId && !w.refusal);
+  const waiting = new Set(unsettled.map((w) => w.id));
+  for (const walk of unsettled) {
+    if (typeof navigator !== 'undefined' && navigator.onLine === false) break;
+    try {
+      const { walk: stored } = await createWalk({ id: walk.id, fieldId: walk.fieldId, walkedOn: walk.walkedOn });
+      await settleWalkStartedOffline(walk.id, { serverId: stored.id });
+      waiting.delete(walk.id);
+    } catch (error) {
+      if (error instanceof ApiError && error.code === 'csrf') setCsrfToken(null);
+      if (unreachable(error)) break;
+      // Refused (the field is no longer assigned, say): its items go to the server, which gives each its own reason.
+      await settleWalkStartedOffline(walk.id, { refusal: (error as Error).message });
+      waiting.delete(walk.id);
+    }
+  }
+  return waiting;
+}
+
 async function drainOnce(ownerId: string) {
   let connectionLost = false;
-  await drainQueue(outboxToSend(await allQueued(ownerId)), PARALLEL_SENDS, async (item) => {
+  const walksNotThere = await sendWalksStartedOffline(ownerId);
+  const ready = outboxToSend(await allQueued(ownerId)).filter((item) => !item.walkId || !walksNotThere.has(item.walkId));
+  await drainQueue(ready, PARALLEL_SENDS, async (item) => {
     if (connectionLost) return;
     await patchQueued(item.clientId, (i) => ({ ...i, state: 'sending' }));
     const result = await attempt(item, (share) => progressListeners.forEach((l) => l(item.clientId, share)));

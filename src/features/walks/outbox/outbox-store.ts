@@ -38,15 +38,38 @@ export interface QueuedStop extends OutboxBase {
 
 export type QueuedItem = QueuedPhoto | QueuedStop;
 
+/** A walk the scout started without signal: the server has it once `serverId` is set. */
+export interface WalkStartedOffline {
+  /** The phone's id for the walk; its photos and stops name it until the server answers. */
+  id: string;
+  ownerId: string;
+  fieldId: string;
+  fieldName: string;
+  /** YYYY-MM-DD on the phone's calendar. */
+  walkedOn: string;
+  createdAt: number;
+  /** The walk's id on the server: the phone's own, or the walk the scout had already started there that day. */
+  serverId?: string;
+  /** The server's reason when it would not start the walk (the field is no longer assigned, say). */
+  refusal?: string;
+}
+
 interface OutboxSchema extends DBSchema {
   items: { key: string; value: QueuedItem };
+  walks: { key: string; value: WalkStartedOffline };
 }
 
 const DB_NAME = 'patchwise-outbox';
 const CHANNEL = 'patchwise-outbox';
 
 let opened: Promise<IDBPDatabase<OutboxSchema>> | undefined;
-const db = () => (opened ??= openDB<OutboxSchema>(DB_NAME, 1, { upgrade: (d) => void d.createObjectStore('items', { keyPath: 'clientId' }) }));
+const db = () =>
+  (opened ??= openDB<OutboxSchema>(DB_NAME, 2, {
+    upgrade(d, oldVersion) {
+      if (oldVersion < 1) d.createObjectStore('items', { keyPath: 'clientId' });
+      if (oldVersion < 2) d.createObjectStore('walks', { keyPath: 'id' });
+    },
+  }));
 
 const listeners = new Set<() => void>();
 const channel = typeof BroadcastChannel === 'undefined' ? null : new BroadcastChannel(CHANNEL);
@@ -90,6 +113,7 @@ export async function removeQueued(clientId: string) {
 
 /** On app start: items left on their way are put back to wait, sent ones older than a day leave the phone. */
 export async function tidyOutbox(now = Date.now()) {
+  await forgetSettledWalks(now);
   const items = await allQueued();
   const restored = outboxAfterRestart(items).filter((item, i) => item !== items[i]);
   const expired = outboxExpired(items, now);
@@ -97,6 +121,43 @@ export async function tidyOutbox(now = Date.now()) {
   const tx = (await db()).transaction('items', 'readwrite');
   await Promise.all([...restored.map((i) => tx.store.put(i)), ...expired.map((i) => tx.store.delete(i.clientId)), tx.done]);
   announce();
+}
+
+export async function putWalkStartedOffline(walk: WalkStartedOffline) {
+  await (await db()).put('walks', walk);
+  announce();
+}
+
+export async function walkStartedOffline(id: string): Promise<WalkStartedOffline | undefined> {
+  return (await db()).get('walks', id);
+}
+
+export async function walksStartedOffline(ownerId: string): Promise<WalkStartedOffline[]> {
+  return (await (await db()).getAll('walks')).filter((w) => w.ownerId === ownerId).sort((a, b) => a.createdAt - b.createdAt);
+}
+
+/**
+ * Records the server's answer for a walk started offline; when the server named another walk (the scout had started
+ * that field's walk that day already), the photos and stops kept for the phone's id move to it.
+ */
+export async function settleWalkStartedOffline(id: string, answer: { serverId: string } | { refusal: string }) {
+  const tx = (await db()).transaction(['walks', 'items'], 'readwrite');
+  const walk = await tx.objectStore('walks').get(id);
+  if (walk) await tx.objectStore('walks').put({ ...walk, ...answer });
+  if ('serverId' in answer && answer.serverId !== id) {
+    const items = tx.objectStore('items');
+    for (const item of await items.getAll()) if (item.walkId === id) await items.put({ ...item, walkId: answer.serverId });
+  }
+  await tx.done;
+  announce();
+}
+
+/** Walks started offline leave the phone a week after the server has them (their pages redirect until then). */
+const OFFLINE_WALK_KEPT_MS = 7 * 24 * 60 * 60 * 1000;
+
+async function forgetSettledWalks(now: number) {
+  const store = (await db()).transaction('walks', 'readwrite').store;
+  for (const walk of await store.getAll()) if (walk.serverId && now - walk.createdAt > OFFLINE_WALK_KEPT_MS) await store.delete(walk.id);
 }
 
 export type { PhotoOutcome };

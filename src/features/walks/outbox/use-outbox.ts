@@ -4,7 +4,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useSignedInUser } from '../../../lib/auth.ts';
 import { walkQueryKey } from '../api/get-walk.ts';
 import { walkListsQueryKey } from '../../../lib/api/get-walks.ts';
-import { allQueued, onOutboxChange, tidyOutbox, type QueuedItem } from './outbox-store.ts';
+import { allQueued, onOutboxChange, tidyOutbox, walksStartedOffline, type QueuedItem, type WalkStartedOffline } from './outbox-store.ts';
 import { drainOutbox, onItemSent, onSendProgress, resetRetryDelay } from './outbox-sender.ts';
 
 /** The signed-in scout's items in the outbox, kept current with changes from this tab and others. */
@@ -26,6 +26,27 @@ export function useOutbox(): QueuedItem[] {
     };
   }, [ownerId]);
   return items;
+}
+
+/** The signed-in scout's walks started on this phone without signal, settled or not. */
+export function useWalksStartedOffline(): WalkStartedOffline[] {
+  const ownerId = useSignedInUser().id;
+  const [walks, setWalks] = useState<WalkStartedOffline[]>([]);
+  useEffect(() => {
+    let live = true;
+    const load = () =>
+      void walksStartedOffline(ownerId).then(
+        (all) => live && setWalks(all),
+        () => {},
+      );
+    load();
+    const stop = onOutboxChange(load);
+    return () => {
+      live = false;
+      stop();
+    };
+  }, [ownerId]);
+  return walks;
 }
 
 /** Share of each photo's bytes on their way, by client id. */
