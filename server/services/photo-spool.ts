@@ -23,6 +23,8 @@ export interface SpooledFile {
 /** Bytes of photo data the engine holds in memory right now, and the most it ever held (inspectable by tests). */
 export const spoolMemory = { heldBytes: 0, peakHeldBytes: 0 };
 
+const SPOOL_SUFFIX = '.part';
+
 const spooledByRequest = new WeakMap<Request, Set<string>>();
 
 /** Creates the spool folder (at start, and before each file in case someone cleared the temp folder since). */
@@ -31,6 +33,28 @@ export async function ensureSpoolDir(dir = config.photoSpoolDir) {
 }
 
 const remove = (file: string) => fsp.rm(file, { force: true });
+
+/**
+ * Left by a process killed mid-upload: temp files untouched for this long. Node cuts a request body off after 5 minutes
+ * (http.Server requestTimeout) and the ingest after it takes seconds, so no upload still running, even one in another
+ * process sharing the folder, has a file this old.
+ */
+export const STALE_SPOOL_MS = 15 * 60_000;
+
+/** Makes the spool folder and removes what a killed process left in it; run when a web process starts. */
+export async function prepareSpool(dir = config.photoSpoolDir, now = Date.now()) {
+  await ensureSpoolDir(dir);
+  const removed: string[] = [];
+  for (const name of await fsp.readdir(dir)) {
+    if (!name.endsWith(SPOOL_SUFFIX)) continue;
+    const file = path.join(dir, name);
+    const stat = await fsp.stat(file).catch(() => null);
+    if (!stat?.isFile() || now - stat.mtimeMs < STALE_SPOOL_MS) continue;
+    await remove(file);
+    removed.push(name);
+  }
+  return removed;
+}
 
 /** Removes every temp file this request spooled; safe to call more than once. */
 export async function releaseSpool(req: Request) {
@@ -76,7 +100,7 @@ function tap() {
 export function photoSpoolStorage(dir = config.photoSpoolDir): StorageEngine {
   return {
     _handleFile(req, file, callback) {
-      const target = path.join(dir, `${crypto.randomUUID()}.part`);
+      const target = path.join(dir, `${crypto.randomUUID()}${SPOOL_SUFFIX}`);
       track(req, target);
       const meter = tap();
       ensureSpoolDir(dir)

@@ -13,7 +13,7 @@ import request from 'supertest';
 import { Jimp } from 'jimp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { HEAD_BYTES } from '../../server/services/photo-source.ts';
-import { photoSpoolStorage, releaseSpool, spoolMemory, type SpooledFile } from '../../server/services/photo-spool.ts';
+import { STALE_SPOOL_MS, photoSpoolStorage, prepareSpool, releaseSpool, spoolMemory, type SpooledFile } from '../../server/services/photo-spool.ts';
 
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'patchwise-spool-test-'));
 const spoolFiles = () => fs.readdirSync(dir);
@@ -107,5 +107,16 @@ describe('the photo spool engine', () => {
     req.destroy();
     await until('the spool folder to empty', () => spoolFiles().length === 0);
     expect(spoolMemory.heldBytes).toBe(0);
+  });
+
+  it('clears temp files a killed process left when a process starts, and keeps those of uploads still running', async () => {
+    const now = Date.now();
+    fs.writeFileSync(path.join(dir, 'left-by-a-crash.part'), 'half a photo');
+    fs.writeFileSync(path.join(dir, 'arriving.part'), 'half a photo');
+    const old = new Date(now - STALE_SPOOL_MS - 1000);
+    fs.utimesSync(path.join(dir, 'left-by-a-crash.part'), old, old);
+    expect(await prepareSpool(dir, now)).toEqual(['left-by-a-crash.part']);
+    expect(spoolFiles()).toEqual(['arriving.part']);
+    fs.rmSync(path.join(dir, 'arriving.part'));
   });
 });
