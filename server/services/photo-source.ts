@@ -55,6 +55,23 @@ export const asSource = (input: Uint8Array | PhotoSource): PhotoSource => (input
 const SCAN_CHUNK = 64 * 1024;
 
 /**
+ * Small reads served from one 64 KB window of the file at a time: walking thousands of tiny segments costs one
+ * file read per window, not one per segment.
+ */
+export function windowed(source: PhotoSource): (start: number, end: number) => Promise<Uint8Array> {
+  let windowStart = 0;
+  let window = source.head;
+  return async (start, end) => {
+    const wanted = Math.min(end, source.size);
+    if (start >= windowStart && wanted <= windowStart + window.length) return window.subarray(start - windowStart, wanted - windowStart);
+    if (end - start > SCAN_CHUNK) return source.read(start, end);
+    windowStart = start;
+    window = await source.read(start, start + SCAN_CHUNK);
+    return window.subarray(0, Math.max(0, wanted - start));
+  };
+}
+
+/**
  * Whether `needle` occurs anywhere at or after `from`, read in bounded chunks from the end backwards: a whole file
  * ends with its end marker, so the first chunk read usually answers.
  */

@@ -2,7 +2,7 @@
 import { fileTypeFromBuffer } from 'file-type';
 import { imageSize } from 'image-size';
 import { photoLimits } from './photo-limits.ts';
-import { asSource, occursAfter, type PhotoSource } from './photo-source.ts';
+import { asSource, occursAfter, windowed, type PhotoSource } from './photo-source.ts';
 import { heifHeaderBoxes } from './heif-exif.ts';
 
 export const acceptedPhotoTypes = ['image/jpeg', 'image/png', 'image/webp', 'image/heic', 'image/heif'] as const;
@@ -32,11 +32,12 @@ interface JpegWalk {
 }
 
 async function walkJpeg(source: PhotoSource): Promise<JpegWalk> {
+  const read = windowed(source);
   let offset = 2;
   let frame: Uint8Array | null = null;
   // Walk the marker segments to the start of scan, then look for the end-of-image marker after it.
   while (offset + 4 <= source.size) {
-    const header = await source.read(offset, offset + 4);
+    const header = await read(offset, offset + 4);
     if (header[0] !== 0xff) break;
     const marker = header[1];
     if (marker === 0xff) {
@@ -44,7 +45,7 @@ async function walkJpeg(source: PhotoSource): Promise<JpegWalk> {
       continue;
     }
     const length = (header[2] << 8) | header[3];
-    if (!frame && sizedFrames.has(marker) && offset + 2 + length > source.head.length) frame = await source.read(offset, offset + 2 + length);
+    if (!frame && sizedFrames.has(marker) && offset + 2 + length > source.head.length) frame = await read(offset, offset + 2 + length);
     if (marker === 0xda) {
       const complete = await occursAfter(source, endOfImage, offset + 2 + length);
       // A comment segment of length 2 stands in for the segments before the frame, so image-size reaches it.
