@@ -28,7 +28,7 @@ import { storedPath } from '../../server/services/storage.ts';
 import { photoFilePart } from '../../shared/schemas/sightings.ts';
 import { testApp } from '../helpers/http.ts';
 import { TEST_PASSWORD } from '../helpers/org.ts';
-import { insideField, rowCounts, scoutingSetUp, uploadPhotos, withExif } from '../helpers/photos.ts';
+import { insideField, makeJpeg, rowCounts, scoutingSetUp, uploadPhotos, withExif } from '../helpers/photos.ts';
 
 const spoolFiles = () => fs.readdirSync(spoolDir);
 const sha256 = (bytes: Uint8Array) => crypto.createHash('sha256').update(bytes).digest('hex');
@@ -119,13 +119,21 @@ describe('photo uploads spooled to temp files', () => {
     expect(spoolFiles()).toEqual([]);
   });
 
-  it('refuses a photo over the size limit with the usual sentence and empties the spool', async () => {
+  it('refuses a photo over the size limit with the usual sentence and removes it and the photo before it from the spool', async () => {
     const { org, scout, pest } = await scoutingSetUp();
     const photo = await largeJpeg(11);
     const before = await rowCounts(org.id);
     process.env.PHOTO_MAX_FILE_MB = '0.5';
     try {
-      const res = await uploadPhotos(scout, [{ bytes: photo, name: 'big.jpg' }], { pestId: pest.id });
+      const small = await makeJpeg({ gps: insideField(0.2, 0.2) });
+      const res = await uploadPhotos(
+        scout,
+        [
+          { bytes: small, name: 'small.jpg' },
+          { bytes: photo, name: 'big.jpg' },
+        ],
+        { pestId: pest.id },
+      );
       expect(res.status).toBe(413);
       expect(res.body.error.message).toBe('“big.jpg” is larger than 0.5 MB; nothing from this upload was kept. Send it at a smaller size.');
     } finally {
