@@ -74,6 +74,8 @@ try {
     ...process.env,
     NODE_ENV: 'test',
     UPLOAD_DIR: path.join(workDir, 'uploads'),
+    // Servers the fault suites kill mid-upload leave spool files; here they go with the run's folder.
+    PHOTO_SPOOL_DIR: path.join(workDir, 'spool'),
     // Each run builds its own client, so two runs at once never serve each other's half-written build.
     CLIENT_DIR: path.join(workDir, 'dist'),
     SESSION_SECRET: 'patchwise-test-secret-not-for-production',

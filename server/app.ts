@@ -31,6 +31,7 @@ import { logger, requestLogging } from './logger.ts';
 import { queryPool } from './queries/pool.ts';
 import { readYourWrites } from './db-freshness.ts';
 import type { Logger } from 'pino';
+import { prepareSpool } from './services/photo-spool.ts';
 
 function tileOrigin(tileUrl: string) {
   try {
@@ -53,6 +54,7 @@ export function createApp(options: AppOptions = {}): Express {
   app.set('trust proxy', config.trustProxy);
   app.disable('x-powered-by');
   app.use(requestLogging(options.logger ?? logger));
+  prepareSpool().catch((error: unknown) => logger.error({ err: error, dir: config.photoSpoolDir }, 'The photo spool folder could not be made'));
   // Before sessions: a probe creates no session and needs no database beyond its own check.
   app.use(healthRouter);
 

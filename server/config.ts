@@ -1,4 +1,5 @@
 // Configuration from environment variables, with safe defaults for local use only.
+import os from 'node:os';
 import path from 'node:path';
 import { replicaUrlsFrom } from './db-replication.ts';
 import { parseStorageUrl } from './services/storage/storage-url.ts';
@@ -51,6 +52,9 @@ function readConfig(env: NodeJS.ProcessEnv = process.env) {
     uploadDir: path.resolve(env.UPLOAD_DIR ?? 'uploads'),
     // Where photos live: the upload folder unless STORAGE_URL names another folder or a bucket.
     storage: parseStorageUrl(env.STORAGE_URL, path.resolve(env.UPLOAD_DIR ?? 'uploads')),
+    // Uploads are written here while they arrive (one temp file per photo, removed when its request is done), so
+    // no request holds a whole photo in memory; a folder on disk, not a RAM-backed tmpfs, keeps that true.
+    photoSpoolDir: path.resolve(env.PHOTO_SPOOL_DIR ?? path.join(os.tmpdir(), 'patchwise-photo-spool')),
     clientDir: path.resolve(env.CLIENT_DIR ?? 'dist'),
     signInLimitPerWindow: Number(env.SIGN_IN_LIMIT ?? 10),
     // Failed sign-ins per client address over every e-mail address, per 15 minutes (against guessing across accounts).

@@ -1,5 +1,5 @@
 import { pipeline } from 'node:stream/promises';
-import { Router, type RequestHandler } from 'express';
+import { Router, type Request, type RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import { requireSignedIn, actor } from '../middleware/access.ts';
@@ -8,6 +8,7 @@ import { AppError, badRequest, forbidden } from '../errors.ts';
 import { photoFilePart, photoUploadFieldsSchema } from '../../shared/schemas/sightings.ts';
 import { photoLimits } from '../services/photo-limits.ts';
 import { ingestPhotos } from '../services/ingest.ts';
+import { photoSpoolStorage, releaseSpool, type SpooledFile } from '../services/photo-spool.ts';
 import { photoFileFor, type PhotoVariant } from '../services/photo-files.ts';
 import { openStored } from '../services/storage.ts';
 
@@ -29,11 +30,16 @@ const requestSizeLimit: RequestHandler = (req, _res, next) => {
   next();
 };
 
-// Photos stay in memory until checked; nothing touches the disk under a name the phone chose.
+// Photos are spooled to temp files as they arrive (hashed on the way, only their first bytes in memory); nothing
+// touches the disk under a name the phone chose, and the temp files go when the request is done.
 const receivePhotos: RequestHandler = (req, res, next) => {
   const limits = photoLimits();
+  // A request cut off before its handler ran leaves nothing behind; a running ingest removes its files itself.
+  res.once('close', () => {
+    if (!res.locals.ingesting) void releaseSpool(req);
+  });
   const upload = multer({
-    storage: multer.memoryStorage(),
+    storage: photoSpoolStorage(),
     limits: { fileSize: limits.maxFileBytes, files: limits.maxFiles, fields: 20, fieldSize: 64 * 1024, parts: limits.maxFiles + 20 },
   }).array(photoFilePart, limits.maxFiles);
   upload(req, res, (error: unknown) => {
@@ -63,27 +69,39 @@ photosRouter.post(
   requestSizeLimit,
   receivePhotos,
   async (req, res) => {
-    const fields = parse(photoUploadFieldsSchema, req.body ?? {});
-    const files = (req.files as Express.Multer.File[] | undefined) ?? [];
-    if (files.length === 0) throw badRequest(`Choose at least one photo to send (form part “${photoFilePart}”).`);
-    if (fields.counts && fields.counts.length !== files.length)
-      throw badRequest(`Give one count per photo: ${files.length} photos but ${fields.counts.length} counts.`, { counts: 'One count per photo.' });
-    if (fields.clientIds && fields.clientIds.length !== files.length)
-      throw badRequest(`Give one clientId per photo: ${files.length} photos but ${fields.clientIds.length} ids.`, { clientIds: 'One id per photo.' });
-    const results = await ingestPhotos(
-      actor(req),
-      { pestId: fields.pestId, walkId: fields.walkId, fieldId: fields.fieldId },
-      files.map((file, i) => ({
-        // multer hands the name over as latin1; phones send UTF-8.
-        fileName: Buffer.from(file.originalname, 'latin1').toString('utf8'),
-        bytes: file.buffer,
-        clientId: fields.clientIds?.[i],
-        count: fields.counts?.[i] ?? fields.count ?? null,
-      })),
-    );
+    res.locals.ingesting = true;
+    let results;
+    try {
+      results = await ingestUpload(req);
+    } finally {
+      // Before the answer goes out (success or not), so the next batch finds the disk already freed.
+      await releaseSpool(req);
+    }
     res.json({ results });
   },
 );
+
+/** The spooled photos of an upload, validated and ingested. */
+async function ingestUpload(req: Request) {
+  const fields = parse(photoUploadFieldsSchema, req.body ?? {});
+  const files = (req.files as (Express.Multer.File & SpooledFile)[] | undefined) ?? [];
+  if (files.length === 0) throw badRequest(`Choose at least one photo to send (form part “${photoFilePart}”).`);
+  if (fields.counts && fields.counts.length !== files.length)
+    throw badRequest(`Give one count per photo: ${files.length} photos but ${fields.counts.length} counts.`, { counts: 'One count per photo.' });
+  if (fields.clientIds && fields.clientIds.length !== files.length)
+    throw badRequest(`Give one clientId per photo: ${files.length} photos but ${fields.clientIds.length} ids.`, { clientIds: 'One id per photo.' });
+  return ingestPhotos(
+    actor(req),
+    { pestId: fields.pestId, walkId: fields.walkId, fieldId: fields.fieldId },
+    files.map((file, i) => ({
+      // multer hands the name over as latin1; phones send UTF-8.
+      fileName: Buffer.from(file.originalname, 'latin1').toString('utf8'),
+      spooled: file,
+      clientId: fields.clientIds?.[i],
+      count: fields.counts?.[i] ?? fields.count ?? null,
+    })),
+  );
+}
 
 function sendPhoto(variant: PhotoVariant): RequestHandler {
   return async (req, res, next) => {

@@ -2,6 +2,7 @@
 // GPS tags per EXIF 2.32 / CIPA DC-008: latitude/longitude as DMS rationals, the sign in the N/S/E/W refs.
 import exifr from 'exifr';
 import { heifExifTiff } from './heif-exif.ts';
+import { asSource, type PhotoSource } from './photo-source.ts';
 import type { Position, TimeFlag } from '../../shared/schemas/sightings.ts';
 
 export type PositionProblem = 'missing' | 'null-island' | 'out-of-range' | 'no-reference';
@@ -139,13 +140,29 @@ const exifrOptions = {
   mergeOutput: true,
 };
 
-export async function readPhotoExif(bytes: Uint8Array, now = new Date()): Promise<PhotoReading> {
+/** The same options for a spooled file, read in bounded chunks by exifr's own file reader (one object, as above). */
+const exifrFileOptions = { ...exifrOptions, chunked: true };
+
+const asBuffer = (bytes: Uint8Array) => Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+
+/** The tags of a photo, read from its head or its file in chunks: the whole file is never in memory for this. */
+async function readTags(source: PhotoSource): Promise<Record<string, unknown>> {
+  // A HEIF photo's Exif block is found by a full box parser first; exifr then reads it as the TIFF it is.
+  const heifTiff = await heifExifTiff(source);
+  if (heifTiff) return (await exifr.parse(asBuffer(heifTiff), exifrOptions)) ?? {};
+  // Bytes already in memory (the seed) are read whole, as they are.
+  if (!source.file) return (await exifr.parse(asBuffer(source.body as Uint8Array), exifrOptions)) ?? {};
+  // A JPEG's APP1 Exif segment follows the start of image, well within the head.
+  const fromHead = (await exifr.parse(asBuffer(source.head), exifrOptions).catch(() => undefined)) ?? {};
+  if (Object.keys(fromHead).length > 0 || source.head.length >= source.size) return fromHead;
+  // Metadata further in (a PNG's eXIf chunk, unusual JPEG layouts): exifr reads the file in chunks until it finds it.
+  return (await exifr.parse(source.file, exifrFileOptions)) ?? {};
+}
+
+export async function readPhotoExif(input: Uint8Array | PhotoSource, now = new Date()): Promise<PhotoReading> {
   let tags: Record<string, unknown>;
   try {
-    // A HEIF photo's Exif block is found by a full box parser first; exifr then reads it as the TIFF it is.
-    const heifTiff = heifExifTiff(bytes);
-    const source = heifTiff ?? bytes;
-    tags = (await exifr.parse(Buffer.from(source.buffer, source.byteOffset, source.byteLength), exifrOptions)) ?? {};
+    tags = await readTags(asSource(input));
   } catch {
     tags = {};
   }

@@ -10,6 +10,8 @@ import { visibleFieldIds } from './scope.ts';
 import { assertMayRecord, writableField, writableWalk, type FieldRef, type WalkRef } from './ingest-access.ts';
 import { findOrCreateWalk } from './walks.ts';
 import { sniffPhotoType, extensionFor } from './photo-type.ts';
+import { bytesSource, fileSource, type PhotoSource } from './photo-source.ts';
+import type { SpooledFile } from './photo-spool.ts';
 import { readPhotoExif, positionProblemSentence, type PhotoReading } from './exif-reading.ts';
 import { fieldContains, fieldsContaining, nearestField } from './ingest-fields.ts';
 import { newStorageKey, removeStored, writeStored } from './storage.ts';
@@ -19,12 +21,18 @@ import { findPestInOrganisation } from '../queries/pests.ts';
 import { insertPhoto, photosAwaitingThumbnail } from '../queries/photos.ts';
 import { findSightingOfPhotoHash, insertPhotoSighting } from '../queries/sightings.ts';
 
-export interface IncomingPhoto {
+/** A photo as bytes in memory (the seed) or as the temp file an upload was spooled to, hashed on arrival. */
+export type IncomingPhoto = {
   /** The name the phone sent: a label only, never a path. */
   fileName: string;
-  bytes: Uint8Array;
   clientId?: string;
   count?: number | null;
+} & ({ bytes: Uint8Array } | { spooled: Pick<SpooledFile, 'path' | 'size' | 'sha256' | 'head'> });
+
+function readable(photo: IncomingPhoto): { source: PhotoSource; sha256: string } {
+  if ('bytes' in photo) return { source: bytesSource(photo.bytes), sha256: crypto.createHash('sha256').update(photo.bytes).digest('hex') };
+  const { path, size, sha256, head } = photo.spooled;
+  return { source: fileSource(path, size, head), sha256 };
 }
 
 export interface IngestRequest {
@@ -142,6 +150,7 @@ const isUniqueViolation = (error: unknown) => (error as { parent?: { code?: stri
 async function store(
   context: Context,
   photo: IncomingPhoto,
+  source: PhotoSource,
   mimeType: PhotoMimeType,
   sha256: string,
   reading: PhotoReading,
@@ -151,7 +160,7 @@ async function store(
   const { actor } = context;
   const walkedOn = reading.localDate ?? localToday(context.now, position);
   const storageKey = newStorageKey(actor.organisationId, extensionFor[mimeType], context.now);
-  await writeStored(storageKey, photo.bytes);
+  await writeStored(storageKey, source.body);
   try {
     return await sequelize.transaction(async (transaction) => {
       const walkId = context.walk?.id ?? (await findOrCreateWalk(actor, field.id, walkedOn, transaction)).id;
@@ -162,7 +171,7 @@ async function store(
           sha256,
           storageKey,
           mimeType,
-          byteSize: photo.bytes.length,
+          byteSize: source.size,
           originalName: labelFromFileName(photo.fileName),
           exif: JSON.stringify(reading.kept),
         },
@@ -210,10 +219,10 @@ async function store(
 }
 
 async function ingestOne(context: Context, photo: IncomingPhoto): Promise<Omit<PhotoOutcome, 'fileName' | 'clientId'>> {
-  const type = await sniffPhotoType(photo.bytes);
+  const { source, sha256 } = readable(photo);
+  const type = await sniffPhotoType(source);
   if (!type.ok) return { outcome: 'rejected', message: type.message };
-  const sha256 = crypto.createHash('sha256').update(photo.bytes).digest('hex');
-  const reading = await readPhotoExif(photo.bytes, context.now);
+  const reading = await readPhotoExif(source, context.now);
   const placement = await place(context, reading);
   if (placement.kind === 'outcome') return placement.outcome;
   const { field, position } = placement;
@@ -221,7 +230,7 @@ async function ingestOne(context: Context, photo: IncomingPhoto): Promise<Omit<P
   if (existing) return duplicateOutcome(field, existing);
   let stored;
   try {
-    stored = await store(context, photo, type.mimeType, sha256, reading, field, position);
+    stored = await store(context, photo, source, type.mimeType, sha256, reading, field, position);
   } catch (error) {
     if (!isUniqueViolation(error)) throw error;
     const winner = await existingSighting(field.id, sha256);

@@ -23,6 +23,9 @@ export function s3Store(location: S3Location, isKey: (key: string) => boolean): 
     region: location.region,
     ...(location.endpoint ? { endpoint: location.endpoint } : {}),
     forcePathStyle: location.forcePathStyle,
+    // A photo streamed from its spool file would otherwise go up aws-chunked with a CRC trailer, which not every
+    // S3-compatible store decodes (the local fake stored the framing as the object); S3 itself needs no checksum here.
+    requestChecksumCalculation: 'WHEN_REQUIRED',
   });
   const Bucket = location.bucket;
   const objectKey = (key: string) => {
