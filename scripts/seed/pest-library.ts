@@ -1,6 +1,7 @@
 // Starting pest library. Thresholds differ by region, crop stage, price and product; admins edit them.
 // Each source is the publication the figure is taken from; figures recalled from memory say so, and a re-scout
-// interval not checked against a publication stays unconfirmed for the admin to confirm.
+// interval not checked against a publication stays unconfirmed for the admin to confirm. Crops are the ones each pest
+// is scouted in, so the pest lists can put a field's crop first.
 import type { PestInput } from '../../shared/schemas/pests.ts';
 
 export const pestLibrarySeed: PestInput[] = [
@@ -15,6 +16,7 @@ export const pestLibrarySeed: PestInput[] = [
     active: true,
     rescoutDays: 7,
     rescoutSource: 'Iowa State University Extension: scout weekly once aphids arrive (reported in Agri News, Minnesota, 3 July 2007)',
+    crops: ['soybean'],
     rescoutConfirmed: true,
   },
   {
@@ -28,6 +30,7 @@ export const pestLibrarySeed: PestInput[] = [
     active: true,
     rescoutDays: 7,
     rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    crops: ['corn'],
     rescoutConfirmed: false,
   },
   {
@@ -41,6 +44,7 @@ export const pestLibrarySeed: PestInput[] = [
     active: true,
     rescoutDays: 7,
     rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    crops: ['corn', 'wheat'],
     rescoutConfirmed: false,
   },
   {
@@ -54,6 +58,7 @@ export const pestLibrarySeed: PestInput[] = [
     active: true,
     rescoutDays: 7,
     rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    crops: ['soybean', 'corn', 'wheat', 'alfalfa'],
     rescoutConfirmed: false,
   },
   {
@@ -68,6 +73,7 @@ export const pestLibrarySeed: PestInput[] = [
     active: true,
     rescoutDays: 7,
     rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    crops: ['soybean', 'corn'],
     rescoutConfirmed: false,
   },
   {
@@ -82,6 +88,7 @@ export const pestLibrarySeed: PestInput[] = [
     active: true,
     rescoutDays: 7,
     rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    crops: ['corn'],
     rescoutConfirmed: false,
   },
 ];

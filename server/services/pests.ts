@@ -18,6 +18,7 @@ const present = (p: pests.PestRow): PestView => ({
   rescoutDays: p.rescoutDays,
   rescoutSource: p.rescoutSource,
   rescoutConfirmed: p.rescoutConfirmed,
+  crops: p.crops,
 });
 
 export async function listPests(actor: Actor, options: { includeInactive?: boolean } = {}) {

@@ -28,6 +28,11 @@ export function PestsPage() {
       ),
     }),
     column.accessor('kind', { header: 'Kind', cell: (info) => <span className="capitalize">{info.getValue()}</span> }),
+    column.accessor('crops', {
+      header: 'Crops',
+      enableSorting: false,
+      cell: (info) => (info.getValue().length ? info.getValue().join(', ') : <span className="text-soil-600">No crop named</span>),
+    }),
     column.accessor('actionThreshold', {
       header: 'Action threshold and source',
       enableSorting: false,
