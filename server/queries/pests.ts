@@ -16,11 +16,13 @@ export interface PestRow {
   rescoutSource: string;
   rescoutConfirmed: boolean;
   crops: string[];
+  thresholdConfirmed: boolean;
 }
 
 const PEST_COLUMNS = `id, organisation_id AS "organisationId", name, kind, count_unit AS "countUnit", action_threshold AS "actionThreshold",
   threshold_basis AS "thresholdBasis", threshold_note AS "thresholdNote", threshold_source AS "thresholdSource", active,
-  rescout_days AS "rescoutDays", rescout_source AS "rescoutSource", rescout_confirmed AS "rescoutConfirmed", crops`;
+  rescout_days AS "rescoutDays", rescout_source AS "rescoutSource", rescout_confirmed AS "rescoutConfirmed", crops,
+  threshold_confirmed AS "thresholdConfirmed"`;
 
 // Replacements splice an array in as a list of values, so a crop list travels as JSON and becomes text[] in SQL.
 const CROPS_FROM_JSON = 'ARRAY(SELECT c FROM jsonb_array_elements_text(CAST(:crops AS jsonb)) WITH ORDINALITY AS t(c, n) ORDER BY n)';
@@ -54,15 +56,16 @@ export interface NewPest {
   rescoutSource?: string;
   rescoutConfirmed?: boolean;
   crops?: string[];
+  thresholdConfirmed?: boolean;
 }
 
 export const insertPest = async (pest: NewPest, options: InTransaction = {}) =>
   (await selectRow<PestRow>(
     `INSERT INTO pests (organisation_id, name, kind, count_unit, action_threshold, threshold_basis, threshold_note, threshold_source, active,
-                        rescout_days, rescout_source, rescout_confirmed, crops)
+                        rescout_days, rescout_source, rescout_confirmed, crops, threshold_confirmed)
      VALUES (:organisationId, :name, :kind, :countUnit, :actionThreshold, COALESCE(:thresholdBasis, 'mean'), COALESCE(:thresholdNote, ''), :thresholdSource,
              COALESCE(:active, true), COALESCE(:rescoutDays, 7), COALESCE(:rescoutSource, 'Weekly scouting, common practice; confirm for your region'),
-             COALESCE(:rescoutConfirmed, false), COALESCE(${CROPS_FROM_JSON}, '{}'))
+             COALESCE(:rescoutConfirmed, false), COALESCE(${CROPS_FROM_JSON}, '{}'), COALESCE(:thresholdConfirmed, false))
      RETURNING ${PEST_COLUMNS}`,
     {
       thresholdBasis: null,
@@ -71,6 +74,7 @@ export const insertPest = async (pest: NewPest, options: InTransaction = {}) =>
       rescoutDays: null,
       rescoutSource: null,
       rescoutConfirmed: null,
+      thresholdConfirmed: null,
       ...pest,
       crops: cropsJson(pest.crops),
     },
@@ -92,6 +96,7 @@ const pestColumn: Record<keyof PestChanges, string> = {
   rescoutSource: 'rescout_source',
   rescoutConfirmed: 'rescout_confirmed',
   crops: 'crops',
+  thresholdConfirmed: 'threshold_confirmed',
 };
 const pestValue: Partial<Record<keyof PestChanges, string>> = { crops: CROPS_FROM_JSON };
 

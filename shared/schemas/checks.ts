@@ -162,6 +162,8 @@ export interface WalkThresholdStatus extends ThresholdStatus {
   pestId: string;
   pestName: string;
   countUnit: string;
+  /** False while the admin has not checked the threshold against its published source. */
+  thresholdConfirmed: boolean;
 }
 export interface ThresholdStatusResponse {
   statuses: WalkThresholdStatus[];

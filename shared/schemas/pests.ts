@@ -39,6 +39,8 @@ const pestFields = {
     })
     .max(40, { error: 'List at most 40 crops for one pest.' })
     .transform(distinctCrops),
+  /** True once the admin has checked the threshold against its published source; editing the value or source clears it. */
+  thresholdConfirmed: z.boolean({ error: 'Say whether the threshold is confirmed (true or false).' }),
 };
 
 /** The crops once each, the first spelling kept when two differ only in case. */
@@ -63,6 +65,7 @@ export const pestSchema = z.object({
   rescoutSource: pestFields.rescoutSource.default(commonPracticeRescout),
   rescoutConfirmed: pestFields.rescoutConfirmed.default(false),
   crops: pestFields.crops.default([]),
+  thresholdConfirmed: pestFields.thresholdConfirmed.default(false),
 });
 export type PestInput = z.infer<typeof pestSchema>;
 // No defaults here: a partial update must not reset what it does not mention.
