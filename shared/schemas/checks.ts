@@ -190,7 +190,7 @@ export interface FieldHistoryResponse {
 }
 
 /** Why a line is on the adviser's attention list. */
-export type AttentionReason = 'field-above-threshold' | 'patch-above-threshold' | 'not-yet-checked' | 'rescout-due';
+export type AttentionReason = 'field-above-threshold' | 'patch-above-threshold' | 'not-yet-checked' | 'rescout-due' | 'too-few-stops';
 export interface AttentionField {
   fieldId: string;
   fieldName: string;
@@ -228,6 +228,8 @@ export interface AttentionRescout {
 export interface AttentionResponse {
   /** Fields above their pest's threshold whatever the spread, and patches or zones above it where the field mean is not. */
   aboveThreshold: AttentionField[];
+  /** Fields whose latest walk has too few stops to call against the threshold: scout again before deciding. */
+  tooFewStops: AttentionField[];
   notYetChecked: AttentionField[];
   /** Fields whose latest walk is older than the pest's re-scout interval, most overdue first. */
   rescoutDue: AttentionRescout[];

@@ -84,6 +84,7 @@ export function AdviserHome() {
       ) : attention.isError ? (
         <ErrorState error={attention.error} onRetry={() => attention.refetch()} />
       ) : attention.data.aboveThreshold.length +
+          attention.data.tooFewStops.length +
           attention.data.notYetChecked.length +
           attention.data.rescoutDue.length +
           attention.data.unacknowledgedNotices.length +
@@ -129,6 +130,18 @@ export function AdviserHome() {
               <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action={attentionAction(item)} />
             ))}
           </Section>
+          {attention.data.tooFewStops.length > 0 && (
+            <Section
+              title="Too few stops to call — scout again"
+              count={attention.data.tooFewStops.length}
+              tone="bg-straw-300 text-soil-900"
+              empty="Every field's latest walk has enough stops to call."
+            >
+              {attention.data.tooFewStops.map((item) => (
+                <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action={attentionAction(item)} />
+              ))}
+            </Section>
+          )}
           <Section
             title="Due a walk"
             count={attention.data.rescoutDue.length}
