@@ -16,6 +16,7 @@ export interface LatestCheckRow {
   actionThreshold: number;
   thresholdBasis: ThresholdBasis;
   thresholdSource: string;
+  thresholdConfirmed: boolean;
   verdict: string | null;
   counts: Array<number | null> | null;
   /** Mean count per stop of each zone the check proposed, and of each hot patch (Gi*) it found. */
@@ -34,7 +35,7 @@ export async function selectLatestDoneChecks(organisationId: string): Promise<La
      )
      SELECT l.id AS "checkId", f.id AS "fieldId", f.name AS "fieldName", fa.name AS "farmName",
             p.id AS "pestId", p.name AS "pestName", p.count_unit AS "countUnit", p.action_threshold AS "actionThreshold",
-            p.threshold_basis AS "thresholdBasis", p.threshold_source AS "thresholdSource",
+            p.threshold_basis AS "thresholdBasis", p.threshold_source AS "thresholdSource", p.threshold_confirmed AS "thresholdConfirmed",
             l.result->'spread'->>'verdict' AS verdict,
             (SELECT array_agg(s.count ORDER BY s.id) FROM sightings s WHERE s.id = ANY(l.sighting_ids) AND s.deleted_at IS NULL) AS counts,
             ARRAY(SELECT (z->'properties'->>'meanCount')::float8 FROM jsonb_array_elements(coalesce(l.result->'zones'->'features', '[]')) z
@@ -78,6 +79,7 @@ export interface UncheckedRow {
   pestName: string;
   actionThreshold: number;
   thresholdSource: string;
+  thresholdConfirmed: boolean;
   checkId: string | null;
   newSightings: number;
 }
@@ -92,7 +94,7 @@ export async function selectUncheckedSightings(organisationId: string): Promise<
         ORDER BY c.field_id, c.pest_id, c.created_at DESC
      )
      SELECT f.id AS "fieldId", f.name AS "fieldName", fa.name AS "farmName", p.id AS "pestId", p.name AS "pestName",
-            p.action_threshold AS "actionThreshold", p.threshold_source AS "thresholdSource", l.id AS "checkId",
+            p.action_threshold AS "actionThreshold", p.threshold_source AS "thresholdSource", p.threshold_confirmed AS "thresholdConfirmed", l.id AS "checkId",
             count(*)::int AS "newSightings"
        FROM sightings s
        JOIN fields f ON f.id = s.field_id
@@ -155,6 +157,7 @@ export interface LatestWalkStopsRow {
   actionThreshold: number;
   thresholdBasis: ThresholdBasis;
   thresholdSource: string;
+  thresholdConfirmed: boolean;
   walkId: string;
   walkedOn: string;
   /** Every live stop of that walk for the pest: empty stops are 0, a sighting without a count is null. */
@@ -174,7 +177,7 @@ export async function selectLatestWalkStops(organisationId: string): Promise<Lat
      )
      SELECT f.id AS "fieldId", f.name AS "fieldName", fa.name AS "farmName", p.id AS "pestId", p.name AS "pestName",
             p.count_unit AS "countUnit", p.action_threshold AS "actionThreshold", p.threshold_basis AS "thresholdBasis",
-            p.threshold_source AS "thresholdSource", l.walk_id AS "walkId", to_char(l.walked_on, 'YYYY-MM-DD') AS "walkedOn",
+            p.threshold_source AS "thresholdSource", p.threshold_confirmed AS "thresholdConfirmed", l.walk_id AS "walkId", to_char(l.walked_on, 'YYYY-MM-DD') AS "walkedOn",
             (SELECT array_agg(s.count ORDER BY s.id) FROM sightings s
               WHERE s.walk_id = l.walk_id AND s.pest_id = l.pest_id AND ${liveSighting('s')}) AS counts,
             (SELECT c.id FROM pattern_checks c WHERE c.field_id = f.id AND c.pest_id = p.id AND c.status = 'done'

@@ -41,6 +41,7 @@ function aboveThresholdLine(row: LatestCheckRow, acceptedZones: AcceptedZoneMean
     meanPerStop: status.meanPerStop,
     actionThreshold: row.actionThreshold,
     thresholdSource: row.thresholdSource,
+    thresholdConfirmed: row.thresholdConfirmed,
     newSightings: 0,
   };
   // The point estimate decides here; the review page shows the interval and whether it is too close to call.
@@ -107,6 +108,7 @@ function tooFewStopsLine(row: LatestWalkStopsRow): AttentionField | null {
     meanPerStop: status.meanPerStop,
     actionThreshold: row.actionThreshold,
     thresholdSource: row.thresholdSource,
+    thresholdConfirmed: row.thresholdConfirmed,
     newSightings: 0,
   };
 }
@@ -142,6 +144,7 @@ export async function fieldsNeedingAttention(actor: Actor): Promise<AttentionRes
     meanPerStop: null,
     actionThreshold: row.actionThreshold,
     thresholdSource: row.thresholdSource,
+    thresholdConfirmed: row.thresholdConfirmed,
     newSightings: row.newSightings,
   }));
   const rescoutDue: AttentionRescout[] = overdue.map((row) => ({

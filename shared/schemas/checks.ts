@@ -122,6 +122,8 @@ export interface CheckSummaryThreshold {
   actionThreshold: number;
   thresholdBasis: 'mean' | 'incidence';
   thresholdSource: string;
+  /** False while the admin has not checked the threshold against its published source. */
+  thresholdConfirmed: boolean;
   countUnit: string;
   status: ThresholdStatus['status'];
 }
@@ -207,6 +209,8 @@ export interface AttentionField {
   meanPerStop: number | null;
   actionThreshold: number;
   thresholdSource: string;
+  /** False while the admin has not checked the threshold against its published source. */
+  thresholdConfirmed: boolean;
   newSightings: number;
 }
 export interface AttentionRescout {

@@ -82,7 +82,7 @@ describe("confirming a pest's threshold", () => {
     expect(stored.thresholdConfirmed).toBe(false);
   });
 
-  it("carries the mark in the adviser's threshold status until the admin confirms", async () => {
+  it("carries the mark in the adviser's threshold status and attention list until the admin confirms", async () => {
     const { org, admin } = await organisationWithAdmin();
     const pest = await createPest(admin);
     const field = await makeField(org);
@@ -96,8 +96,14 @@ describe("confirming a pest's threshold", () => {
     const adviser = await signedIn(org.users.adviser.email);
     const before = await adviser.get(`/api/fields/${field.id}/threshold-status?pestId=${pest.id}`).expect(200);
     expect(before.body.statuses.map((s: { thresholdConfirmed: boolean }) => s.thresholdConfirmed)).toEqual([false]);
+    const attentionMarks = async () =>
+      ((await adviser.get('/api/advisers/attention').expect(200)).body.notYetChecked as Array<{ fieldId: string; thresholdConfirmed: boolean }>)
+        .filter((line) => line.fieldId === field.id)
+        .map((line) => line.thresholdConfirmed);
+    expect(await attentionMarks()).toEqual([false]);
     await admin.patch(`/api/pests/${pest.id}`, { thresholdConfirmed: true }).expect(200);
     const after = await adviser.get(`/api/fields/${field.id}/threshold-status?pestId=${pest.id}`).expect(200);
     expect(after.body.statuses.map((s: { thresholdConfirmed: boolean }) => s.thresholdConfirmed)).toEqual([true]);
+    expect(await attentionMarks()).toEqual([true]);
   });
 });

@@ -7,6 +7,7 @@ import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { useAttention } from '../../../lib/api/get-attention.ts';
 import { attentionAction } from '../attention-action.ts';
+import { NeedsConfirmingMark } from '../../../components/needs-confirming-mark.tsx';
 
 const primaryLink =
   'shrink-0 rounded-md bg-field-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-field-600';
@@ -58,6 +59,7 @@ function FieldRow({ item, action }: { item: AttentionField; action: string }) {
         <p className="text-xs text-soil-500">
           Threshold {item.actionThreshold} — {item.thresholdSource}
         </p>
+        {!item.thresholdConfirmed && <NeedsConfirmingMark />}
       </div>
       <Link to={item.link} className={primaryLink}>
         {action}
