@@ -1,6 +1,9 @@
 // Starting pest library. Thresholds differ by region, crop stage, price and product; admins edit them.
-// Each source is the publication the figure is taken from; figures recalled from memory say so, and a re-scout
-// interval not checked against a publication stays unconfirmed for the admin to confirm.
+// Each source is the publication the figure is taken from; figures recalled from memory say so. A threshold counts
+// as confirmed only where its source names one publication and its year; the others (a service without a title,
+// a figure recalled from memory) and any re-scout interval not checked against a publication stay unconfirmed for
+// the admin to confirm. Crops are the ones each pest
+// is scouted in, so the pest lists can put a field's crop first.
 import type { PestInput } from '../../shared/schemas/pests.ts';
 
 export const pestLibrarySeed: PestInput[] = [
@@ -12,9 +15,11 @@ export const pestLibrarySeed: PestInput[] = [
     thresholdBasis: 'mean',
     thresholdNote: 'Treat at 250 aphids per plant with at least 80 % of plants infested and numbers rising, R1–R5.',
     thresholdSource: 'University of Nebraska–Lincoln CropWatch, 2023',
+    thresholdConfirmed: true,
     active: true,
     rescoutDays: 7,
     rescoutSource: 'Iowa State University Extension: scout weekly once aphids arrive (reported in Agri News, Minnesota, 3 July 2007)',
+    crops: ['soybean'],
     rescoutConfirmed: true,
   },
   {
@@ -25,9 +30,11 @@ export const pestLibrarySeed: PestInput[] = [
     thresholdBasis: 'mean',
     thresholdNote: 'More than 0.75 beetles per plant in continuous corn signals root protection next year.',
     thresholdSource: 'University of Wisconsin IPM',
+    thresholdConfirmed: false,
     active: true,
     rescoutDays: 7,
     rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    crops: ['corn'],
     rescoutConfirmed: false,
   },
   {
@@ -38,9 +45,11 @@ export const pestLibrarySeed: PestInput[] = [
     thresholdBasis: 'mean',
     thresholdNote: '2 or more larvae per seedling with spreading defoliation.',
     thresholdSource: 'Ohio State University agronomy newsletter, 2020',
+    thresholdConfirmed: true,
     active: true,
     rescoutDays: 7,
     rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    crops: ['corn', 'wheat'],
     rescoutConfirmed: false,
   },
   {
@@ -51,9 +60,11 @@ export const pestLibrarySeed: PestInput[] = [
     thresholdBasis: 'mean',
     thresholdNote: '8 per square yard inside the field; 21–40 per square yard in margins.',
     thresholdSource: 'South Dakota State University Extension',
+    thresholdConfirmed: false,
     active: true,
     rescoutDays: 7,
     rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    crops: ['soybean', 'corn', 'wheat', 'alfalfa'],
     rescoutConfirmed: false,
   },
   {
@@ -65,9 +76,11 @@ export const pestLibrarySeed: PestInput[] = [
     thresholdNote:
       'Treat before plants reach 6–10 inches tall. The per-area figure of 1 is our starting point (recalled from memory, not from the source); adjust it to local guidance.',
     thresholdSource: 'University of Wisconsin pest bulletin (height rule); count figure recalled from memory',
+    thresholdConfirmed: false,
     active: true,
     rescoutDays: 7,
     rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    crops: ['soybean', 'corn'],
     rescoutConfirmed: false,
   },
   {
@@ -79,9 +92,11 @@ export const pestLibrarySeed: PestInput[] = [
     thresholdNote:
       'Lesions on the third leaf below the ear at VT–R1 on susceptible hybrids. The 50 % incidence figure is recalled from memory; check local guidance.',
     thresholdSource: 'Kansas State University Research and Extension (stage rule); incidence figure recalled from memory',
+    thresholdConfirmed: false,
     active: true,
     rescoutDays: 7,
     rescoutSource: 'Weekly scouting, common practice; not checked against a publication, confirm for your region',
+    crops: ['corn'],
     rescoutConfirmed: false,
   },
 ];

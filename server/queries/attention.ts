@@ -16,6 +16,7 @@ export interface LatestCheckRow {
   actionThreshold: number;
   thresholdBasis: ThresholdBasis;
   thresholdSource: string;
+  thresholdConfirmed: boolean;
   verdict: string | null;
   counts: Array<number | null> | null;
   /** Mean count per stop of each zone the check proposed, and of each hot patch (Gi*) it found. */
@@ -34,14 +35,14 @@ export async function selectLatestDoneChecks(organisationId: string): Promise<La
      )
      SELECT l.id AS "checkId", f.id AS "fieldId", f.name AS "fieldName", fa.name AS "farmName",
             p.id AS "pestId", p.name AS "pestName", p.count_unit AS "countUnit", p.action_threshold AS "actionThreshold",
-            p.threshold_basis AS "thresholdBasis", p.threshold_source AS "thresholdSource",
+            p.threshold_basis AS "thresholdBasis", p.threshold_source AS "thresholdSource", p.threshold_confirmed AS "thresholdConfirmed",
             l.result->'spread'->>'verdict' AS verdict,
             (SELECT array_agg(s.count ORDER BY s.id) FROM sightings s WHERE s.id = ANY(l.sighting_ids) AND s.deleted_at IS NULL) AS counts,
             ARRAY(SELECT (z->'properties'->>'meanCount')::float8 FROM jsonb_array_elements(coalesce(l.result->'zones'->'features', '[]')) z
                    WHERE z->'properties' ? 'meanCount') AS "zoneMeans",
             ARRAY(SELECT (h->>'meanCount')::float8 FROM jsonb_array_elements(coalesce(l.result->'counts'->'hotPatches', '[]')) h
                    WHERE h ? 'meanCount') AS "patchMeans"
-       FROM latest l JOIN fields f ON f.id = l.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = l.pest_id
+       FROM latest l JOIN fields f ON f.id = l.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = l.pest_id AND p.active
       ORDER BY fa.name, f.name, p.name`,
     { replacements: { org: organisationId }, type: QueryTypes.SELECT, useMaster: readsFromPrimary() },
   );
@@ -78,6 +79,7 @@ export interface UncheckedRow {
   pestName: string;
   actionThreshold: number;
   thresholdSource: string;
+  thresholdConfirmed: boolean;
   checkId: string | null;
   newSightings: number;
 }
@@ -92,7 +94,7 @@ export async function selectUncheckedSightings(organisationId: string): Promise<
         ORDER BY c.field_id, c.pest_id, c.created_at DESC
      )
      SELECT f.id AS "fieldId", f.name AS "fieldName", fa.name AS "farmName", p.id AS "pestId", p.name AS "pestName",
-            p.action_threshold AS "actionThreshold", p.threshold_source AS "thresholdSource", l.id AS "checkId",
+            p.action_threshold AS "actionThreshold", p.threshold_source AS "thresholdSource", p.threshold_confirmed AS "thresholdConfirmed", l.id AS "checkId",
             count(*)::int AS "newSightings"
        FROM sightings s
        JOIN fields f ON f.id = s.field_id
@@ -141,6 +143,47 @@ export async function selectOverdueRescouts(organisationId: string): Promise<Ove
        JOIN pests p ON p.id = sc.pest_id AND p.active
       WHERE current_date - lw.walked_on > p.rescout_days
       ORDER BY current_date - lw.walked_on - p.rescout_days DESC, fa.name, f.name, p.name`,
+    { replacements: { org: organisationId }, type: QueryTypes.SELECT, useMaster: readsFromPrimary() },
+  );
+}
+
+export interface LatestWalkStopsRow {
+  fieldId: string;
+  fieldName: string;
+  farmName: string;
+  pestId: string;
+  pestName: string;
+  countUnit: string;
+  actionThreshold: number;
+  thresholdBasis: ThresholdBasis;
+  thresholdSource: string;
+  thresholdConfirmed: boolean;
+  walkId: string;
+  walkedOn: string;
+  /** Every live stop of that walk for the pest: empty stops are 0, a sighting without a count is null. */
+  counts: Array<number | null>;
+  /** The field and pest's latest finished check, if any. */
+  checkId: string | null;
+}
+
+/** For each field and pest, the stops of the latest walk that recorded the pest (found or empty stops). */
+export async function selectLatestWalkStops(organisationId: string): Promise<LatestWalkStopsRow[]> {
+  return sequelize.query<LatestWalkStopsRow>(
+    `WITH latest AS (
+       SELECT DISTINCT ON (s.field_id, s.pest_id) s.field_id, s.pest_id, w.id AS walk_id, w.walked_on
+         FROM sightings s JOIN walks w ON w.id = s.walk_id
+        WHERE s.organisation_id = :org AND ${liveSighting('s')}
+        ORDER BY s.field_id, s.pest_id, w.walked_on DESC, w.created_at DESC
+     )
+     SELECT f.id AS "fieldId", f.name AS "fieldName", fa.name AS "farmName", p.id AS "pestId", p.name AS "pestName",
+            p.count_unit AS "countUnit", p.action_threshold AS "actionThreshold", p.threshold_basis AS "thresholdBasis",
+            p.threshold_source AS "thresholdSource", p.threshold_confirmed AS "thresholdConfirmed", l.walk_id AS "walkId", to_char(l.walked_on, 'YYYY-MM-DD') AS "walkedOn",
+            (SELECT array_agg(s.count ORDER BY s.id) FROM sightings s
+              WHERE s.walk_id = l.walk_id AND s.pest_id = l.pest_id AND ${liveSighting('s')}) AS counts,
+            (SELECT c.id FROM pattern_checks c WHERE c.field_id = f.id AND c.pest_id = p.id AND c.status = 'done'
+              ORDER BY c.created_at DESC LIMIT 1) AS "checkId"
+       FROM latest l JOIN fields f ON f.id = l.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = l.pest_id
+      ORDER BY fa.name, f.name, p.name`,
     { replacements: { org: organisationId }, type: QueryTypes.SELECT, useMaster: readsFromPrimary() },
   );
 }

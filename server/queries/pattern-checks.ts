@@ -185,6 +185,7 @@ export interface CheckSummaryRow {
   actionThreshold: number;
   thresholdBasis: 'mean' | 'incidence';
   thresholdSource: string;
+  thresholdConfirmed: boolean;
 }
 
 const resultNumber = (path: string) => `CAST(c.result #>> '{${path}}' AS float8)`;
@@ -208,7 +209,7 @@ export const listCheckSummariesOfField = (organisationId: string, fieldId: strin
             c.not_scouted_m2 AS "notScoutedM2",
             (SELECT array_agg(s.count ORDER BY s.id) FROM sightings s WHERE s.id = ANY(c.sighting_ids) AND s.deleted_at IS NULL) AS counts,
             p.count_unit AS "countUnit", p.action_threshold AS "actionThreshold", p.threshold_basis AS "thresholdBasis",
-            p.threshold_source AS "thresholdSource"
+            p.threshold_source AS "thresholdSource", p.threshold_confirmed AS "thresholdConfirmed"
        FROM pattern_checks c JOIN pests p ON p.id = c.pest_id
       WHERE c.organisation_id = :org AND c.field_id = :fieldId${pestId ? ' AND c.pest_id = :pestId' : ''}
       ORDER BY c.created_at DESC, c.id`,

@@ -238,6 +238,7 @@ export interface StopRow {
   actionThreshold: number;
   thresholdBasis: ThresholdBasis;
   thresholdSource: string;
+  thresholdConfirmed: boolean;
   counts: Array<number | null>;
 }
 
@@ -246,7 +247,7 @@ export const liveStopsByWalkAndPest = (fieldId: string, filter: { pestId?: strin
   selectRows<StopRow>(
     `SELECT w.id AS "walkId", to_char(w.walked_on, 'YYYY-MM-DD') AS "walkedOn", p.id AS "pestId", p.name AS "pestName",
             p.count_unit AS "countUnit", p.action_threshold AS "actionThreshold", p.threshold_basis AS "thresholdBasis",
-            p.threshold_source AS "thresholdSource", array_agg(s.count ORDER BY s.id) AS counts
+            p.threshold_source AS "thresholdSource", p.threshold_confirmed AS "thresholdConfirmed", array_agg(s.count ORDER BY s.id) AS counts
        FROM sightings s JOIN walks w ON w.id = s.walk_id JOIN pests p ON p.id = s.pest_id
       WHERE s.field_id = :fieldId AND ${liveSighting('s')}
         AND (CAST(:pestId AS uuid) IS NULL OR s.pest_id = CAST(:pestId AS uuid))

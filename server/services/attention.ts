@@ -1,6 +1,6 @@
 // The adviser's home list: every field and pest that needs action, for the adviser's own organisation only.
 import type { Actor } from '../auth/passport.ts';
-import { thresholdStatus } from '../../shared/thresholds/threshold-status.ts';
+import { MIN_STOPS_TO_CALL, thresholdStatus } from '../../shared/thresholds/threshold-status.ts';
 import type { SpreadVerdict } from '../../shared/analysis/spread.ts';
 import type { AttentionField, AttentionResponse, AttentionRescout } from '../../shared/schemas/checks.ts';
 import { noticePath, reviewPath, zoneEditorPath } from '../../shared/attention-links.ts';
@@ -10,9 +10,11 @@ import {
   selectAcceptedZoneMeans,
   selectLatestDoneChecks,
   selectOverdueRescouts,
+  selectLatestWalkStops,
   selectUncheckedSightings,
   type AcceptedZoneMeanRow,
   type LatestCheckRow,
+  type LatestWalkStopsRow,
 } from '../queries/attention.ts';
 
 const figure = (v: number) => (Math.abs(v) >= 10 ? v.toFixed(1) : v.toFixed(2));
@@ -39,6 +41,7 @@ function aboveThresholdLine(row: LatestCheckRow, acceptedZones: AcceptedZoneMean
     meanPerStop: status.meanPerStop,
     actionThreshold: row.actionThreshold,
     thresholdSource: row.thresholdSource,
+    thresholdConfirmed: row.thresholdConfirmed,
     newSightings: 0,
   };
   // The point estimate decides here; the review page shows the interval and whether it is too close to call.
@@ -84,14 +87,47 @@ function aboveThresholdLine(row: LatestCheckRow, acceptedZones: AcceptedZoneMean
   };
 }
 
+/** A field and pest whose latest walk has too few stops to compare with the threshold; or nothing when it has enough. */
+function tooFewStopsLine(row: LatestWalkStopsRow): AttentionField | null {
+  const status = thresholdStatus(row.counts ?? [], row);
+  if (status.status !== 'too-few') return null;
+  // An incidence rule counts every stop, a mean-count rule only the stops with a number.
+  const have = row.thresholdBasis === 'incidence' ? status.stops : status.countedStops;
+  const stops = `${have} stop${have === 1 ? '' : 's'}${row.thresholdBasis === 'incidence' ? '' : ' with a count'}`;
+  return {
+    fieldId: row.fieldId,
+    fieldName: row.fieldName,
+    farmName: row.farmName,
+    pestId: row.pestId,
+    pestName: row.pestName,
+    reason: 'too-few-stops',
+    message: `${row.pestName} in ${row.fieldName}: too few stops to call — scout again. The latest walk (${row.walkedOn}) has ${stops}; at least ${MIN_STOPS_TO_CALL} are needed to compare it with the action threshold.`,
+    link: reviewPath(row.fieldId, row.pestId, row.checkId),
+    checkId: row.checkId,
+    zoneSetId: null,
+    meanPerStop: status.meanPerStop,
+    actionThreshold: row.actionThreshold,
+    thresholdSource: row.thresholdSource,
+    thresholdConfirmed: row.thresholdConfirmed,
+    newSightings: 0,
+  };
+}
+
 export async function fieldsNeedingAttention(actor: Actor): Promise<AttentionResponse> {
-  const [latest, acceptedZones, unchecked, overdue] = await Promise.all([
+  const [latest, acceptedZones, unchecked, overdue, latestWalks] = await Promise.all([
     selectLatestDoneChecks(actor.organisationId),
     selectAcceptedZoneMeans(actor.organisationId),
     selectUncheckedSightings(actor.organisationId),
     selectOverdueRescouts(actor.organisationId),
+    selectLatestWalkStops(actor.organisationId),
   ]);
-  const aboveThreshold = latest.map((row) => aboveThresholdLine(row, acceptedZones)).filter((line): line is AttentionField => line !== null);
+  const tooFewStops = latestWalks.map(tooFewStopsLine).filter((line): line is AttentionField => line !== null);
+  const tooFew = new Set(tooFewStops.map((line) => `${line.fieldId}|${line.pestId}`));
+  // Where the latest walk is too thin to call, the field is not called above its threshold either; a patch or an
+  // accepted zone above it still shows, since those stand on the stops inside them.
+  const aboveThreshold = latest
+    .map((row) => aboveThresholdLine(row, acceptedZones))
+    .filter((line): line is AttentionField => line !== null && !(line.reason === 'field-above-threshold' && tooFew.has(`${line.fieldId}|${line.pestId}`)));
   const notYetChecked: AttentionField[] = unchecked.map((row) => ({
     fieldId: row.fieldId,
     fieldName: row.fieldName,
@@ -108,6 +144,7 @@ export async function fieldsNeedingAttention(actor: Actor): Promise<AttentionRes
     meanPerStop: null,
     actionThreshold: row.actionThreshold,
     thresholdSource: row.thresholdSource,
+    thresholdConfirmed: row.thresholdConfirmed,
     newSightings: row.newSightings,
   }));
   const rescoutDue: AttentionRescout[] = overdue.map((row) => ({
@@ -128,5 +165,5 @@ export async function fieldsNeedingAttention(actor: Actor): Promise<AttentionRes
   // Sent notices that no grower has acknowledged yet, and grower questions no adviser has answered.
   const unacknowledgedNotices = (await listUnacknowledgedNotices(actor)).map((n) => ({ ...n, link: noticePath(n.noticeId) }));
   const growerQuestions = (await listWaitingGrowerQuestions(actor)).map((q) => ({ ...q, link: noticePath(q.noticeId) }));
-  return { aboveThreshold, notYetChecked, rescoutDue, unacknowledgedNotices, growerQuestions };
+  return { aboveThreshold, tooFewStops, notYetChecked, rescoutDue, unacknowledgedNotices, growerQuestions };
 }

@@ -207,6 +207,7 @@ export async function summarise(rows: checks.CheckSummaryRow[]): Promise<CheckSu
         actionThreshold: check.actionThreshold,
         thresholdBasis: check.thresholdBasis,
         thresholdSource: check.thresholdSource,
+        thresholdConfirmed: check.thresholdConfirmed,
         countUnit: check.countUnit,
         status: threshold.status,
       },

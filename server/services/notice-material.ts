@@ -43,7 +43,7 @@ export async function liveNoticeMaterial(notice: NoticeRow): Promise<NoticeMater
     pestName: facts.pest_name,
     walkDates,
     verdict: verdictInWords(check?.result ?? null),
-    threshold: { value: facts.threshold, unit: facts.count_unit, source: facts.threshold_source },
+    threshold: { value: facts.threshold, unit: facts.count_unit, source: facts.threshold_source, confirmed: facts.threshold_confirmed },
     zones: zoneSet.zones.map((z) => ({
       label: z.label,
       areaM2: z.areaM2,

@@ -2,7 +2,7 @@ import { sequelize } from '../db.ts';
 import * as pests from '../queries/pests.ts';
 import type { Actor } from '../auth/passport.ts';
 import type { PestInput, PestView } from '../../shared/schemas/pests.ts';
-import { notFound } from '../errors.ts';
+import { badRequest, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 
 const present = (p: pests.PestRow): PestView => ({
@@ -18,7 +18,14 @@ const present = (p: pests.PestRow): PestView => ({
   rescoutDays: p.rescoutDays,
   rescoutSource: p.rescoutSource,
   rescoutConfirmed: p.rescoutConfirmed,
+  crops: p.crops,
+  thresholdConfirmed: p.thresholdConfirmed,
 });
+
+/** The details a threshold's confirmation vouches for: changing any of them leaves it to be confirmed again. */
+const confirmedDetails = ['actionThreshold', 'thresholdBasis', 'countUnit', 'thresholdSource'] as const;
+const changesThreshold = (pest: pests.PestRow, input: Partial<PestInput>) =>
+  confirmedDetails.some((key) => input[key] !== undefined && input[key] !== pest[key]);
 
 export async function listPests(actor: Actor, options: { includeInactive?: boolean } = {}) {
   return (await pests.listPestsOfOrganisation(actor.organisationId, options.includeInactive ?? false)).map(present);
@@ -40,9 +47,16 @@ export async function createPest(actor: Actor, input: PestInput) {
 
 export async function updatePest(actor: Actor, id: string, input: Partial<PestInput>) {
   const pest = await findPest(actor, id);
+  const thresholdChanged = changesThreshold(pest, input);
+  // A confirmation is of the stored value and source: a new value is saved first and confirmed after.
+  if (thresholdChanged && input.thresholdConfirmed === true)
+    throw badRequest('Save the new threshold first, then confirm it against its source.', {
+      thresholdConfirmed: 'Save the new threshold first, then confirm it against its source.',
+    });
+  const changes = thresholdChanged ? { ...input, thresholdConfirmed: false } : input;
   return sequelize.transaction(async (transaction) => {
     const before = present(pest);
-    const updated = await pests.updatePest(id, input, { transaction });
+    const updated = await pests.updatePest(id, changes, { transaction });
     await recordAudit(actor, 'update', 'pest', id, { before, after: input }, transaction);
     return present(updated);
   });

@@ -19,6 +19,7 @@ export async function fieldThresholdStatus(actor: Actor, fieldId: string, filter
     pestId: row.pestId,
     pestName: row.pestName,
     countUnit: row.countUnit,
+    thresholdConfirmed: row.thresholdConfirmed,
     ...thresholdStatus(row.counts, {
       actionThreshold: row.actionThreshold,
       thresholdBasis: row.thresholdBasis,

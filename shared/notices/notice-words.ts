@@ -1,5 +1,6 @@
 // The notice's decision and its "how we know" in plain sentences, the same in the e-mail, the page and the print.
 import type { NoticeContent, NoticeThreshold, NoticeZoneRow } from '../schemas/notices.ts';
+import { NEEDS_CONFIRMING, unconfirmedThresholdNoticeSentence } from '../thresholds/threshold-confirmation.ts';
 
 const ha = (m2: number) => (m2 / 10_000).toFixed(2);
 const ac = (m2: number) => (m2 / 4046.8564224).toFixed(2);
@@ -29,5 +30,9 @@ export function zoneEvidenceText(z: NoticeZoneRow, threshold: NoticeThreshold | 
   return `${z.label}: ${mean}, ${side} the action threshold of ${countText(threshold.value)}.`;
 }
 
-/** Where the threshold comes from, for the line under the zone counts. */
-export const thresholdSourceText = (t: NoticeThreshold) => `Action threshold: ${countText(t.value)} ${t.unit} (${t.source}).`;
+/** The threshold and where it comes from, for the line under the zone counts. */
+export const thresholdLineText = (t: NoticeThreshold) => `Action threshold: ${countText(t.value)} ${t.unit} (${t.source}).`;
+
+/** The same line for mail and plain text, where an unchecked threshold says so in the line itself. */
+export const thresholdSourceText = (t: NoticeThreshold) =>
+  `${thresholdLineText(t)}${t.confirmed === false ? ` ${NEEDS_CONFIRMING}: ${unconfirmedThresholdNoticeSentence}` : ''}`;

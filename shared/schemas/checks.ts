@@ -122,6 +122,8 @@ export interface CheckSummaryThreshold {
   actionThreshold: number;
   thresholdBasis: 'mean' | 'incidence';
   thresholdSource: string;
+  /** False while the admin has not checked the threshold against its published source. */
+  thresholdConfirmed: boolean;
   countUnit: string;
   status: ThresholdStatus['status'];
 }
@@ -162,6 +164,8 @@ export interface WalkThresholdStatus extends ThresholdStatus {
   pestId: string;
   pestName: string;
   countUnit: string;
+  /** False while the admin has not checked the threshold against its published source. */
+  thresholdConfirmed: boolean;
 }
 export interface ThresholdStatusResponse {
   statuses: WalkThresholdStatus[];
@@ -188,7 +192,7 @@ export interface FieldHistoryResponse {
 }
 
 /** Why a line is on the adviser's attention list. */
-export type AttentionReason = 'field-above-threshold' | 'patch-above-threshold' | 'not-yet-checked' | 'rescout-due';
+export type AttentionReason = 'field-above-threshold' | 'patch-above-threshold' | 'not-yet-checked' | 'rescout-due' | 'too-few-stops';
 export interface AttentionField {
   fieldId: string;
   fieldName: string;
@@ -205,6 +209,8 @@ export interface AttentionField {
   meanPerStop: number | null;
   actionThreshold: number;
   thresholdSource: string;
+  /** False while the admin has not checked the threshold against its published source. */
+  thresholdConfirmed: boolean;
   newSightings: number;
 }
 export interface AttentionRescout {
@@ -226,6 +232,8 @@ export interface AttentionRescout {
 export interface AttentionResponse {
   /** Fields above their pest's threshold whatever the spread, and patches or zones above it where the field mean is not. */
   aboveThreshold: AttentionField[];
+  /** Fields whose latest walk has too few stops to call against the threshold: scout again before deciding. */
+  tooFewStops: AttentionField[];
   notYetChecked: AttentionField[];
   /** Fields whose latest walk is older than the pest's re-scout interval, most overdue first. */
   rescoutDue: AttentionRescout[];

@@ -108,6 +108,8 @@ export interface NoticeThreshold {
   value: number;
   unit: string;
   source: string;
+  /** False while the admin has not checked the threshold against its source; absent in notices sent before it was kept. */
+  confirmed?: boolean;
 }
 
 /** Everything the notice page (/n/:token) and the e-mail show, built once on the server. */

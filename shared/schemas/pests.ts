@@ -32,7 +32,27 @@ const pestFields = {
   rescoutSource: z.string().trim().min(3, { error: 'Say where the re-scout interval comes from.' }).max(500),
   /** True once someone has checked the interval against its published source. */
   rescoutConfirmed: z.boolean(),
+  /** The crops the pest belongs to, as a field names its crop; matched without regard to case. */
+  crops: z
+    .array(oneLineNameSchema('A crop name cannot be empty.', 80, 'Keep each crop name to 80 characters or fewer.'), {
+      error: 'List the crops as names, for example ["soybean", "corn"].',
+    })
+    .max(40, { error: 'List at most 40 crops for one pest.' })
+    .transform(distinctCrops),
+  /** True once the admin has checked the threshold against its published source; editing the value or source clears it. */
+  thresholdConfirmed: z.boolean({ error: 'Say whether the threshold is confirmed (true or false).' }),
 };
+
+/** The crops once each, the first spelling kept when two differ only in case. */
+function distinctCrops(crops: string[]) {
+  const seen = new Set<string>();
+  return crops.filter((crop) => {
+    const key = crop.toLocaleLowerCase('en');
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  });
+}
 
 const commonPracticeRescout = 'Weekly scouting, common practice; confirm for your region';
 
@@ -44,6 +64,8 @@ export const pestSchema = z.object({
   rescoutDays: pestFields.rescoutDays.default(7),
   rescoutSource: pestFields.rescoutSource.default(commonPracticeRescout),
   rescoutConfirmed: pestFields.rescoutConfirmed.default(false),
+  crops: pestFields.crops.default([]),
+  thresholdConfirmed: pestFields.thresholdConfirmed.default(false),
 });
 export type PestInput = z.infer<typeof pestSchema>;
 // No defaults here: a partial update must not reset what it does not mention.

@@ -7,7 +7,7 @@ import { sequelize } from '../../server/db.ts';
 import { closeSimulationPool } from '../../server/services/check-runner.ts';
 import { signedIn, type Client } from '../helpers/http.ts';
 import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
-import { makeScoutedField, TEST_FIELD_CORNER, TEST_FIELD_SIZE, type StopPoint } from '../helpers/sightings.ts';
+import { addSightings, makeScoutedField, makeWalk, TEST_FIELD_CORNER, TEST_FIELD_SIZE, type StopPoint } from '../helpers/sightings.ts';
 import { acceptProposedZones, makeCheckedField } from '../helpers/zones.ts';
 import { createRandom } from '../../shared/analysis/random.ts';
 
@@ -60,7 +60,7 @@ function evenStops(seed: number, n: number): StopPoint[] {
 
 async function expectOutsiderSeesNothingOf(fieldId: string) {
   const theirs = await attention(outsider);
-  for (const list of ['aboveThreshold', 'notYetChecked', 'rescoutDue', 'unacknowledgedNotices'] as const)
+  for (const list of ['aboveThreshold', 'tooFewStops', 'notYetChecked', 'rescoutDue', 'unacknowledgedNotices'] as const)
     expect(
       theirs[list].map((l: { fieldId: string }) => l.fieldId),
       list,
@@ -84,6 +84,38 @@ describe('the adviser’s attention list', () => {
     });
     // The field mean is the plain mean of the stop counts (every stop here has a count).
     expect(lines[0].meanPerStop).toBeCloseTo(mean(points.map((p) => p.count as number)), 10);
+    await expectOutsiderSeesNothingOf(scouted.field.id);
+  });
+
+  it('lists a field whose latest walk has too few stops as too few to call — scout again, not as above its threshold', async () => {
+    const scouted = await makeScoutedField(org, evenStops(311, 30), { pest: { actionThreshold: 1 }, walkedOn: daysAgo(5) });
+    const check = (await adviser.post('/api/checks', { fieldId: scouted.field.id, pestId: scouted.pest.id, options: { simulations: 99 } }).expect(201)).body
+      .check;
+    const before = await attention(adviser);
+    expect(linesFor(before.aboveThreshold, scouted.field.id).map((l) => l.reason)).toEqual(['field-above-threshold']);
+    expect(linesFor(before.tooFewStops, scouted.field.id)).toEqual([]);
+
+    // A newer walk of three stops, all well above the threshold: too few to call (at least 5 stops, common
+    // scouting practice of about five areas per walk), whatever the counts say.
+    const walkId = await makeWalk(org, scouted.field.id, daysAgo(1));
+    const { lon, lat } = TEST_FIELD_CORNER;
+    await addSightings(
+      org,
+      { fieldId: scouted.field.id, walkId, pestId: scouted.pest.id },
+      [1, 2, 3].map((i) => ({ lon: lon + 0.001 * i, lat: lat + 0.001, count: 9 })),
+    );
+
+    const after = await attention(adviser);
+    expect(linesFor(after.aboveThreshold, scouted.field.id)).toEqual([]);
+    const lines = linesFor(after.tooFewStops, scouted.field.id) as Array<Line & { message: string }>;
+    expect(lines).toHaveLength(1);
+    expect(lines[0]).toMatchObject({
+      reason: 'too-few-stops',
+      checkId: check.id,
+      link: `/fields/${scouted.field.id}/review?pest=${scouted.pest.id}&check=${check.id}`,
+    });
+    expect(lines[0].message).toContain('too few stops to call — scout again');
+    expect(lines[0].message).toContain(`The latest walk (${daysAgo(1)}) has 3 stops with a count; at least 5 are needed`);
     await expectOutsiderSeesNothingOf(scouted.field.id);
   });
 

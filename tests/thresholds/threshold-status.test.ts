@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { dispersionTest, garwoodInterval, meanConfidenceInterval, thresholdStatus, wilsonInterval } from '../../shared/thresholds/threshold-status.ts';
 
@@ -15,6 +16,28 @@ const garwoodTable: Array<[number, number, number]> = [
   [10, 4.7954, 18.39],
   [20, 12.217, 30.888],
 ];
+
+// R's poisson.test(x)$conf.int for totals 0–50 and some larger ones, at 95 % and 90 %, frozen by
+// tests/fixtures/analysis/reference-r/make-poisson-limits.R (the R version is in the file).
+const rLimits: { source: string; rows: Array<{ total: number; level: number; low: number; high: number }> } = JSON.parse(
+  readFileSync(new URL('../fixtures/analysis/reference-r/poisson-limits.expected.json', import.meta.url), 'utf8'),
+);
+const relativeGap = (a: number, b: number) => (b === 0 ? Math.abs(a) : Math.abs(a - b) / Math.abs(b));
+
+describe("mean count interval against R's poisson.test", () => {
+  it('has every total from 0 to 50 at both levels in the fixture', () => {
+    for (const level of [0.95, 0.9]) {
+      const totals = rLimits.rows.filter((r) => r.level === level).map((r) => r.total);
+      expect(totals).toEqual(expect.arrayContaining(Array.from({ length: 51 }, (_, x) => x)));
+    }
+  });
+
+  it.each(rLimits.rows.map((r) => [r.total, r.level, r]))('gives R’s limits for a total of %i at level %s', (_total, _level, row) => {
+    const interval = garwoodInterval(row.total, row.level);
+    expect(relativeGap(interval.low, row.low)).toBeLessThan(1e-6);
+    expect(relativeGap(interval.high, row.high)).toBeLessThan(1e-6);
+  });
+});
 
 describe('mean count interval', () => {
   it.each(garwoodTable)('gives Garwood’s exact Poisson limits for a total of %i', (x, low, high) => {

@@ -3,7 +3,9 @@
 import { useEffect, useMemo, type ReactNode } from 'react';
 import { MACHINE_FILE_CAUTION, NOTICE_CAUTIONS } from '@shared/notices/cautions.ts';
 import type { NoticeLinkResponse } from '@shared/schemas/notices.ts';
-import { decisionText, thresholdSourceText, zoneEvidenceText } from '@shared/notices/notice-words.ts';
+import { decisionText, thresholdLineText, zoneEvidenceText } from '@shared/notices/notice-words.ts';
+import { unconfirmedThresholdNoticeSentence } from '@shared/thresholds/threshold-confirmation.ts';
+import { NeedsConfirmingMark } from '../needs-confirming-mark.tsx';
 import { AreaText } from '../area-text.tsx';
 import { Button } from '../button.tsx';
 import { AcknowledgeBox, type AcknowledgeControl } from './acknowledge-box.tsx';
@@ -120,7 +122,8 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
             <li key={z.label}>{zoneEvidenceText(z, n.threshold)}</li>
           ))}
         </ul>
-        {n.threshold && <p className="mt-1 text-sm text-soil-700">{thresholdSourceText(n.threshold)}</p>}
+        {n.threshold && <p className="mt-1 text-sm text-soil-700">{thresholdLineText(n.threshold)}</p>}
+        {n.threshold?.confirmed === false && <NeedsConfirmingMark sentence={unconfirmedThresholdNoticeSentence} className="mt-1" />}
         <p className="mt-3 text-soil-900" data-testid="verdict">
           The check’s verdict: {n.verdict.plain ?? n.verdict.headline}
         </p>

@@ -12,5 +12,6 @@ describe('attention line actions', () => {
   it('asks for a check on unchecked sightings and opens the field when a walk is due', () => {
     expect(attentionAction({ reason: 'not-yet-checked', link: '/fields/f/review?pest=p' })).toBe('Run a check');
     expect(attentionAction({ reason: 'rescout-due', link: '/fields/f/review?pest=p' })).toBe('Open the field');
+    expect(attentionAction({ reason: 'too-few-stops', link: '/fields/f/review?pest=p&check=c' })).toBe('Open the field');
   });
 });

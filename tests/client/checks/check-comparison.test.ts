@@ -31,6 +31,7 @@ function summary(change: Partial<Omit<CheckSummary, 'figures'>> & { figures?: Pa
       actionThreshold: 2,
       thresholdBasis: 'mean',
       thresholdSource: 'test',
+      thresholdConfirmed: true,
       countUnit: 'aphids per plant',
       status: 'below',
     },

@@ -9,6 +9,12 @@ import { useUpdatePest } from '../api/update-pest.ts';
 import { thresholdBasisLabel } from './threshold-text.tsx';
 
 const kindLabels = { insect: 'Insect', disease: 'Disease', weed: 'Weed' } as const;
+/** The crops box holds names separated by commas; blanks between commas are not crops. */
+const cropList = (text: string) =>
+  text
+    .split(',')
+    .map((c) => c.trim())
+    .filter(Boolean);
 
 export function PestForm({ pest, onDone }: { pest?: Pest; onDone: () => void }) {
   const create = useCreatePest();
@@ -21,6 +27,7 @@ export function PestForm({ pest, onDone }: { pest?: Pest; onDone: () => void }) 
     thresholdBasis: pest?.thresholdBasis ?? 'mean',
     thresholdNote: pest?.thresholdNote ?? '',
     thresholdSource: pest?.thresholdSource ?? '',
+    crops: pest?.crops.join(', ') ?? '',
   });
   const [errors, setErrors] = useState<FieldErrors>({});
   const set = (key: keyof typeof values) => (e: { target: { value: string } }) => setValues({ ...values, [key]: e.target.value });
@@ -29,7 +36,7 @@ export function PestForm({ pest, onDone }: { pest?: Pest; onDone: () => void }) 
   const submit = (event: FormEvent) => {
     event.preventDefault();
     // An empty number box must read as missing, not as zero.
-    const body = { ...values, actionThreshold: values.actionThreshold.trim() === '' ? undefined : values.actionThreshold };
+    const body = { ...values, actionThreshold: values.actionThreshold.trim() === '' ? undefined : values.actionThreshold, crops: cropList(values.crops) };
     const checked = pest ? checkForm(pestUpdateSchema, body) : checkForm(pestSchema, body);
     if (!checked.ok) return setErrors(checked.errors);
     setErrors({});
@@ -49,6 +56,13 @@ export function PestForm({ pest, onDone }: { pest?: Pest; onDone: () => void }) 
         ))}
       </SelectField>
       <TextField label="Count unit" hint='For example "aphids per plant"' value={values.countUnit} error={errors.countUnit} onChange={set('countUnit')} />
+      <TextField
+        label="Crops"
+        hint="The crops this pest is scouted in, separated by commas, written as the fields name their crop"
+        value={values.crops}
+        error={errors.crops ?? Object.entries(errors).find(([key]) => key.startsWith('crops.'))?.[1]}
+        onChange={set('crops')}
+      />
       <div className="grid grid-cols-2 gap-3">
         <TextField
           label="Action threshold"

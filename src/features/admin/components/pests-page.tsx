@@ -28,6 +28,11 @@ export function PestsPage() {
       ),
     }),
     column.accessor('kind', { header: 'Kind', cell: (info) => <span className="capitalize">{info.getValue()}</span> }),
+    column.accessor('crops', {
+      header: 'Crops',
+      enableSorting: false,
+      cell: (info) => (info.getValue().length ? info.getValue().join(', ') : <span className="text-soil-600">No crop named</span>),
+    }),
     column.accessor('actionThreshold', {
       header: 'Action threshold and source',
       enableSorting: false,
@@ -44,6 +49,16 @@ export function PestsPage() {
         const pest = info.row.original;
         return (
           <div className="flex justify-end gap-1">
+            {!pest.thresholdConfirmed && (
+              <Button
+                variant="quiet"
+                size="sm"
+                onClick={() => update.mutate({ id: pest.id, thresholdConfirmed: true })}
+                aria-label={`Confirm the threshold of ${pest.name}`}
+              >
+                Confirm
+              </Button>
+            )}
             <Button variant="quiet" size="sm" onClick={() => setEditing(pest)} aria-label={`Edit ${pest.name}`}>
               Edit
             </Button>
@@ -66,7 +81,8 @@ export function PestsPage() {
     <PageFrame title="Pest library" eyebrow="Admin" wide actions={editing === null && <Button onClick={() => setEditing('new')}>Add a pest</Button>}>
       <p className="-mt-3 max-w-3xl text-sm text-soil-700">
         Thresholds differ by region, crop stage, price and product. Edit them to match the guidance your advisers follow, and always say where a figure comes
-        from.
+        from. Confirm a threshold once you have checked its value against the publication it names; until then every screen marks it as needing confirmation,
+        and editing its value or source asks for confirmation again.
       </p>
       {editing !== null && (
         <Panel title={editing === 'new' ? 'New pest' : `Edit ${editing.name}`}>

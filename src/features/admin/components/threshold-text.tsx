@@ -1,5 +1,6 @@
 import type { PestView as Pest } from '@shared/schemas/pests.ts';
 import { unitFor } from '@shared/units/count-unit.ts';
+import { NeedsConfirmingMark } from '../../../components/needs-confirming-mark.tsx';
 
 const basisLabels: Record<Pest['thresholdBasis'], string> = { mean: 'mean count per stop', incidence: 'share of stops infested' };
 export const thresholdBasisLabel = (basis: Pest['thresholdBasis']) => basisLabels[basis];
@@ -17,6 +18,7 @@ export function ThresholdText({ pest }: { pest: Pest }) {
       <p className="text-xs text-soil-600">
         <span className="font-medium">Source:</span> {pest.thresholdSource}
       </p>
+      {!pest.thresholdConfirmed && <NeedsConfirmingMark />}
     </div>
   );
 }

@@ -7,6 +7,7 @@ import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { useAttention } from '../../../lib/api/get-attention.ts';
 import { attentionAction } from '../attention-action.ts';
+import { NeedsConfirmingMark } from '../../../components/needs-confirming-mark.tsx';
 
 const primaryLink =
   'shrink-0 rounded-md bg-field-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-field-600';
@@ -58,6 +59,7 @@ function FieldRow({ item, action }: { item: AttentionField; action: string }) {
         <p className="text-xs text-soil-500">
           Threshold {item.actionThreshold} — {item.thresholdSource}
         </p>
+        {!item.thresholdConfirmed && <NeedsConfirmingMark />}
       </div>
       <Link to={item.link} className={primaryLink}>
         {action}
@@ -84,6 +86,7 @@ export function AdviserHome() {
       ) : attention.isError ? (
         <ErrorState error={attention.error} onRetry={() => attention.refetch()} />
       ) : attention.data.aboveThreshold.length +
+          attention.data.tooFewStops.length +
           attention.data.notYetChecked.length +
           attention.data.rescoutDue.length +
           attention.data.unacknowledgedNotices.length +
@@ -129,6 +132,18 @@ export function AdviserHome() {
               <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action={attentionAction(item)} />
             ))}
           </Section>
+          {attention.data.tooFewStops.length > 0 && (
+            <Section
+              title="Too few stops to call — scout again"
+              count={attention.data.tooFewStops.length}
+              tone="bg-straw-300 text-soil-900"
+              empty="Every field's latest walk has enough stops to call."
+            >
+              {attention.data.tooFewStops.map((item) => (
+                <FieldRow key={`${item.fieldId}-${item.pestId}`} item={item} action={attentionAction(item)} />
+              ))}
+            </Section>
+          )}
           <Section
             title="Due a walk"
             count={attention.data.rescoutDue.length}

@@ -168,7 +168,7 @@ export function FieldReviewPage() {
       }
       wide
     >
-      <ReviewToolbar pests={pests.data} window={{ pestId, from, to }} onChange={changeWindow} summary={summary} />
+      <ReviewToolbar pests={pests.data} crop={f.crop} window={{ pestId, from, to }} onChange={changeWindow} summary={summary} />
       <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_27rem]">
         <div ref={mapRef} data-review-map-frame>
           <Panel>

@@ -1,5 +1,6 @@
 // The pest and date window under review: everything on the page follows these three choices.
 import type { PestView as Pest } from '@shared/schemas/pests.ts';
+import { PestOptions } from '../../../components/pest-options.tsx';
 
 const controlClass = 'block rounded-md border-0 bg-white px-2.5 py-1.5 text-sm text-soil-900 ring-1 ring-inset ring-soil-300 focus:ring-2 focus:ring-field-600';
 
@@ -11,11 +12,14 @@ export interface ReviewWindow {
 
 export function ReviewToolbar({
   pests,
+  crop,
   window,
   onChange,
   summary,
 }: {
   pests: Pest[];
+  /** The field's crop: its pests come first in the choice. */
+  crop: string;
   window: ReviewWindow;
   onChange: (window: ReviewWindow) => void;
   summary: string;
@@ -27,11 +31,7 @@ export function ReviewToolbar({
         Pest under review
         <select className={`${controlClass} mt-0.5 min-w-[14rem]`} value={window.pestId ?? ''} onChange={(e) => set('pestId', e.target.value)}>
           {!window.pestId && <option value="">Choose a pest…</option>}
-          {pests.map((p) => (
-            <option key={p.id} value={p.id}>
-              {p.name}
-            </option>
-          ))}
+          <PestOptions pests={pests} crop={crop} />
         </select>
       </label>
       <label className="text-xs font-medium text-soil-700">

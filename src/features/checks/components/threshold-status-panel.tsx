@@ -6,6 +6,8 @@ import { EmptyState, ErrorState, LoadingState } from '../../../components/query-
 import { useThresholdStatus } from '../api/get-threshold-status.ts';
 import { fixed, percent } from '../utils/figures.ts';
 import { countWithUnit } from '@shared/units/count-unit.ts';
+import { NeedsConfirmingMark } from '../../../components/needs-confirming-mark.tsx';
+import { NEEDS_CONFIRMING, unconfirmedThresholdSentence } from '@shared/thresholds/threshold-confirmation.ts';
 
 const statusText = {
   above: 'Above threshold',
@@ -43,10 +45,16 @@ function Figures({ s }: { s: WalkThresholdStatus }) {
       <td className="px-2 py-1.5 tabular-nums">{s.meanInterval ? `${fixed(s.meanInterval.low)}–${fixed(s.meanInterval.high)}` : '—'}</td>
       <td className="px-2 py-1.5 text-right tabular-nums">
         {countWithUnit(s.actionThreshold, s.countUnit, (v) => v.toLocaleString('en-GB', { maximumFractionDigits: 4 }))}
+        {!s.thresholdConfirmed && (
+          <span className="ml-1 whitespace-nowrap rounded bg-straw-200 px-1 text-xs font-semibold text-soil-900">{NEEDS_CONFIRMING}</span>
+        )}
       </td>
     </>
   );
 }
+
+/** The pests whose threshold waits for the admin, each named once. */
+const unconfirmedPestNames = (statuses: WalkThresholdStatus[]) => [...new Set(statuses.filter((s) => !s.thresholdConfirmed).map((s) => s.pestName))].join(', ');
 
 export function ThresholdStatusPanel({ fieldId, pestId }: { fieldId: string; pestId?: string }) {
   const statuses = useThresholdStatus(fieldId, pestId);
@@ -103,6 +111,9 @@ export function ThresholdStatusPanel({ fieldId, pestId }: { fieldId: string; pes
             The 95 % interval of a mean count per stop is Garwood’s exact Poisson interval (Garwood 1936), widened by the dispersion when counts vary more
             between stops than chance would (quasi-Poisson, McCullagh &amp; Nelder 1989); the share of stops infested uses Wilson’s interval (Wilson 1927).
           </p>
+          {statuses.data.some((s) => !s.thresholdConfirmed) && (
+            <NeedsConfirmingMark className="mt-2" sentence={`${unconfirmedPestNames(statuses.data)}: ${unconfirmedThresholdSentence}`} />
+          )}
           <ul className="mt-2 space-y-1 text-xs text-soil-700">
             {statuses.data.map((s) => (
               <li key={`${s.walkId}-${s.pestId}`}>

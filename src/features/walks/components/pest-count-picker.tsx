@@ -1,15 +1,20 @@
-// What the batch is about: the pest (from the pest library, with its count unit) and a count for every photo.
+// What the batch is about: the pest (from the pest library, with its count unit, the field's crop's pests first) and
+// a count for every photo.
 import type { PestView as Pest } from '@shared/schemas/pests.ts';
 import { SelectField, TextField } from '../../../components/form-field.tsx';
+import { PestOptions } from '../../../components/pest-options.tsx';
 
 export function PestCountPicker({
   pests,
+  crop,
   pestId,
   count,
   onPest,
   onCount,
 }: {
   pests: Pest[];
+  /** The field's crop, when the photos belong to a known field. */
+  crop?: string;
   pestId: string;
   count: string;
   onPest: (pestId: string) => void;
@@ -26,11 +31,7 @@ export function PestCountPicker({
         hint={pest ? `Counted as ${pest.countUnit}` : 'What are these photos of?'}
       >
         <option value="">Choose the pest…</option>
-        {pests.map((p) => (
-          <option key={p.id} value={p.id}>
-            {p.name} ({p.countUnit})
-          </option>
-        ))}
+        <PestOptions pests={pests} crop={crop} label={(p) => `${p.name} (${p.countUnit})`} />
       </SelectField>
       <TextField
         label="Count for each photo"

@@ -89,7 +89,14 @@ export function WalkPage() {
           {pests.isError ? (
             <ErrorState error={pests.error} title="The pest library could not be loaded" onRetry={() => pests.refetch()} />
           ) : (
-            <PestCountPicker pests={pestList} pestId={pest ? tags.pestId : ''} count={tags.count} onPest={tags.setPestId} onCount={tags.setCount} />
+            <PestCountPicker
+              pests={pestList}
+              crop={field.data?.crop}
+              pestId={pest ? tags.pestId : ''}
+              count={tags.count}
+              onPest={tags.setPestId}
+              onCount={tags.setCount}
+            />
           )}
           <PhotoUploadPanel target={{ walkId: info.id, fieldId: info.fieldId }} pestId={pest ? tags.pestId : ''} count={tags.count} pinnedIds={placedIds} />
           <EmptyStopButton walkId={info.id} pestId={pest ? tags.pestId : ''} pestName={pest?.name} />

@@ -16,6 +16,7 @@ export function FieldAttentionPanel({ fieldId, noticeIds }: { fieldId: string; n
   const a = attention.data;
   const lines = [
     ...a.aboveThreshold.filter((l) => l.fieldId === fieldId).map((l) => ({ key: `above-${l.pestId}-${l.reason}`, message: l.message, link: l.link })),
+    ...a.tooFewStops.filter((l) => l.fieldId === fieldId).map((l) => ({ key: `too-few-${l.pestId}`, message: l.message, link: l.link })),
     ...a.notYetChecked.filter((l) => l.fieldId === fieldId).map((l) => ({ key: `unchecked-${l.pestId}`, message: l.message, link: l.link })),
     ...a.rescoutDue.filter((l) => l.fieldId === fieldId).map((l) => ({ key: `rescout-${l.pestId}`, message: l.message, link: l.link })),
     ...a.unacknowledgedNotices.filter((l) => l.fieldId === fieldId).map((l) => ({ key: `notice-${l.noticeId}`, message: l.message, link: l.link })),

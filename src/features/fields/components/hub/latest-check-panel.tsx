@@ -6,6 +6,7 @@ import { EmptyState, ErrorState, LoadingState } from '../../../../components/que
 import { ButtonLink } from '../../../../components/button.tsx';
 import { useFieldChecks } from '../../../../lib/api/get-field-checks.ts';
 import { spreadLabels } from '../../../../lib/spread-labels.ts';
+import { NeedsConfirmingMark } from '../../../../components/needs-confirming-mark.tsx';
 
 const standing = { above: 'above the threshold', below: 'below the threshold', 'too-close': 'too close to call', 'too-few': 'too few stops to call' } as const;
 
@@ -59,6 +60,7 @@ export function LatestCheckPanel({ fieldId }: { fieldId: string }) {
           {latest.sightings} sightings and empty stops from {latest.walkDates.length} walk{latest.walkDates.length === 1 ? '' : 's'}. Threshold source:{' '}
           {t.thresholdSource}.
         </p>
+        {!t.thresholdConfirmed && <NeedsConfirmingMark />}
         {checks.data.length > 1 && (
           <p className="text-xs text-soil-600">
             {checks.data.length === 2 ? 'One earlier check is' : `${checks.data.length - 1} earlier checks are`} listed in the review, where any two can be
