@@ -5,13 +5,14 @@ import type { Browser, Locator, Page } from 'playwright-core';
 import { signedIn } from '../helpers/http.ts';
 import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
 import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
-import { rectangleBoundary } from '../helpers/sightings.ts';
+import { addSightings, makeWalk, rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
 
 let server: TestServer;
 let browser: Browser;
 let org: TestOrganisation;
 let field: { id: string; name: string };
+let weevilId: string;
 
 beforeAll(async () => {
   [server, browser] = await Promise.all([startTestServer(), launchBrowser()]);
@@ -23,8 +24,12 @@ beforeAll(async () => {
   await createPest(admin, { name: 'Aphid of beans', crops: ['soybean'] });
   await createPest(admin, { name: 'Beetle of corn', crops: ['corn'] });
   await createPest(admin, { name: 'Armyworm', crops: ['CORN', 'wheat'] });
-  await createPest(admin, { name: 'Weevil', crops: [] });
+  weevilId = (await createPest(admin, { name: 'Weevil', crops: [] })).id;
   await admin.post(`/api/fields/${field.id}/scouts`, { userId: org.users.scout.id }).expect(204);
+  const walkId = await makeWalk(org, field.id, '2026-07-01');
+  await addSightings(org, { fieldId: field.id, walkId, pestId: weevilId }, [
+    { lon: TEST_FIELD_CORNER.lon + 0.001, lat: TEST_FIELD_CORNER.lat + 0.001, count: 2 },
+  ]);
 });
 
 afterAll(async () => {
@@ -77,6 +82,22 @@ describe("pest lists that follow the field's crop", () => {
       const choice = page.getByLabel('Pest under review');
       await expect.poll(() => groupsOf(choice)).toHaveLength(2);
       expect(await groupsOf(choice)).toEqual([
+        { heading: 'Pests of Corn', pests: ['Armyworm', 'Beetle of corn'] },
+        { heading: 'Other pests', pests: ['Aphid of beans', 'Weevil'] },
+      ]);
+    } finally {
+      await page.close();
+    }
+  });
+
+  it("puts the field's crop's pests first where the adviser corrects a sighting's pest in the review table", async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 900 } });
+    try {
+      await signIn(page, org.users.adviser.email);
+      await page.goto(`${server.url}/fields/${field.id}/review?pest=${weevilId}&from=2026-06-01&to=2026-07-31`);
+      const editor = page.getByLabel('Pest of sighting from 2026-07-01').first();
+      await expect.poll(() => groupsOf(editor), { timeout: 15_000 }).toHaveLength(2);
+      expect(await groupsOf(editor)).toEqual([
         { heading: 'Pests of Corn', pests: ['Armyworm', 'Beetle of corn'] },
         { heading: 'Other pests', pests: ['Aphid of beans', 'Weevil'] },
       ]);

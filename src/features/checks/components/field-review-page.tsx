@@ -225,6 +225,7 @@ export function FieldReviewPage() {
           <SightingsTable
             fieldId={fieldId}
             fieldName={f.name}
+            crop={f.crop}
             sightings={sightings.data}
             pests={pests.data}
             filters={tableFilters}

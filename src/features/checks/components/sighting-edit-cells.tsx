@@ -4,12 +4,13 @@ import { useEffect, useState } from 'react';
 import type { SightingView } from '@shared/schemas/sightings.ts';
 import type { PestView as Pest } from '@shared/schemas/pests.ts';
 import type { useUpdateSighting } from '../../../lib/api/update-sighting.ts';
+import { PestOptions } from '../../../components/pest-options.tsx';
 
 type Update = ReturnType<typeof useUpdateSighting>;
 const editorClass =
   'rounded border-0 bg-transparent px-1 py-0.5 text-sm ring-1 ring-inset ring-transparent hover:ring-soil-300 focus:bg-white focus:ring-2 focus:ring-field-600 disabled:opacity-60';
 
-export function PestEditor({ sighting, pests, update }: { sighting: SightingView; pests: Pest[]; update: Update }) {
+export function PestEditor({ sighting, pests, crop, update }: { sighting: SightingView; pests: Pest[]; crop?: string; update: Update }) {
   const busy = update.isPending && update.variables?.sightingId === sighting.id;
   const known = pests.some((p) => p.id === sighting.pestId);
   return (
@@ -21,11 +22,7 @@ export function PestEditor({ sighting, pests, update }: { sighting: SightingView
       onChange={(e) => update.mutate({ sightingId: sighting.id, change: { pestId: e.target.value } })}
     >
       {!known && <option value={sighting.pestId}>{sighting.pestName}</option>}
-      {pests.map((p) => (
-        <option key={p.id} value={p.id}>
-          {p.name}
-        </option>
-      ))}
+      <PestOptions pests={pests} crop={crop} />
     </select>
   );
 }

@@ -55,6 +55,7 @@ function Thumbnail({ sighting }: { sighting: SightingView }) {
 export function SightingsTable({
   fieldId,
   fieldName,
+  crop,
   sightings,
   pests,
   filters,
@@ -64,6 +65,8 @@ export function SightingsTable({
 }: {
   fieldId: string;
   fieldName: string;
+  /** The field's crop: its pests lead the pest editor's list. */
+  crop?: string;
   sightings: SightingView[];
   pests: Pest[];
   filters: TableFilters;
@@ -112,7 +115,7 @@ export function SightingsTable({
       column.accessor('pestName', {
         header: 'Pest',
         filterFn: (row, _id, pestId: string) => row.original.pestId === pestId,
-        cell: ({ row }) => <PestEditor sighting={row.original} pests={pests} update={update} />,
+        cell: ({ row }) => <PestEditor sighting={row.original} pests={pests} crop={crop} update={update} />,
       }),
       column.accessor((s) => (s.isEmptyStop ? 0 : (s.count ?? -1)), {
         id: 'count',
@@ -151,7 +154,7 @@ export function SightingsTable({
           ) : null,
       }),
     ],
-    [pests, update, onShowOnMap],
+    [pests, crop, update, onShowOnMap],
   );
 
   const columnFilters = useMemo<ColumnFiltersState>(() => {

@@ -8,6 +8,7 @@ import { Button } from '../../../components/button.tsx';
 import { FormMessage, SelectField, TextField } from '../../../components/form-field.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
 import { useUpdateSighting } from '../../../lib/api/update-sighting.ts';
+import { PestOptions } from '../../../components/pest-options.tsx';
 
 /** What the scout changed, or a sentence saying what to fix in the count. */
 function changeFrom(sighting: SightingView, pestId: string, countText: string): SightingUpdateInput | string {
@@ -24,11 +25,14 @@ function changeFrom(sighting: SightingView, pestId: string, countText: string): 
 export function SightingCorrectionForm({
   sighting,
   pests,
+  crop,
   shownUnder,
   onDone,
 }: {
   sighting: SightingView;
   pests: Pest[];
+  /** The field's crop: its pests lead the list. */
+  crop?: string;
   shownUnder: QueryKey;
   onDone: () => void;
 }) {
@@ -55,11 +59,7 @@ export function SightingCorrectionForm({
     >
       <SelectField label="Pest" value={pestId} onChange={(e) => setPestId(e.target.value)} className="[&_select]:min-h-12 [&_select]:text-base">
         {!pests.some((p) => p.id === sighting.pestId) && <option value={sighting.pestId}>{sighting.pestName}</option>}
-        {pests.map((p) => (
-          <option key={p.id} value={p.id}>
-            {p.name} ({p.countUnit})
-          </option>
-        ))}
+        <PestOptions pests={pests} crop={crop} label={(p) => `${p.name} (${p.countUnit})`} />
       </SelectField>
       {!sighting.isEmptyStop && (
         <TextField

@@ -20,7 +20,7 @@ export function SightingList({
   sightings: SightingView[];
   pinHref: (sighting: SightingView) => string;
   /** The pests to choose from and the query that lists these sightings (refetched after a correction). */
-  correction?: { pests: Pest[]; shownUnder: QueryKey };
+  correction?: { pests: Pest[]; shownUnder: QueryKey; crop?: string };
 }) {
   const [correcting, setCorrecting] = useState<string | null>(null);
   return (
@@ -60,7 +60,13 @@ export function SightingList({
             )}
           </div>
           {correction && correcting === s.id && (
-            <SightingCorrectionForm sighting={s} pests={correction.pests} shownUnder={correction.shownUnder} onDone={() => setCorrecting(null)} />
+            <SightingCorrectionForm
+              sighting={s}
+              pests={correction.pests}
+              crop={correction.crop}
+              shownUnder={correction.shownUnder}
+              onDone={() => setCorrecting(null)}
+            />
           )}
         </li>
       ))}

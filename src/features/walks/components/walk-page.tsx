@@ -126,7 +126,7 @@ export function WalkPage() {
           <SightingList
             sightings={sightings}
             pinHref={(s) => scoutPaths.pin(info.id, s.id)}
-            correction={{ pests: pestList, shownUnder: walkQueryKey(info.id) }}
+            correction={{ pests: pestList, crop: field.data?.crop, shownUnder: walkQueryKey(info.id) }}
           />
         ) : (
           <p className="text-soil-700">Nothing yet: send photos or record a stop where you found nothing.</p>
