@@ -15,8 +15,10 @@ import { PhotoUploadPanel } from './photo-upload-panel.tsx';
 import { WalkHeader, walkDate } from './walk-header.tsx';
 import { WalkMap } from './walk-map.tsx';
 import { QueuedStops } from './queued-stops.tsx';
+import { WalkSummaryPanel } from './walk-summary-panel.tsx';
 import type { QueuedPlace } from './queued-markers.tsx';
 import { useOutbox } from '../outbox/use-outbox.ts';
+import { unsentCount } from '../upload-queue.ts';
 import type { QueuedItem, QueuedStop } from '../outbox/outbox-store.ts';
 
 /** Items of this walk still on the phone (sent ones are sightings on the map already), where their position is known. */
@@ -104,6 +106,10 @@ export function WalkPage() {
         ) : (
           <p className="text-soil-700">Nothing yet: send photos or record a stop where you found nothing.</p>
         )}
+      </Panel>
+
+      <Panel title="Finish">
+        <WalkSummaryPanel walkId={info.id} waitingOnPhone={unsentCount(outbox.filter((item) => item.walkId === info.id))} />
       </Panel>
     </PageFrame>
   );
