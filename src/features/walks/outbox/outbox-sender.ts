@@ -3,7 +3,7 @@
 import { api, ApiError, setCsrfToken } from '../../../lib/api-client.ts';
 import type { SightingView } from '@shared/schemas/sightings.ts';
 import { csrfTokenForUpload, PhotoUploadError, uploadPhoto } from '../api/upload-photo.ts';
-import { afterAttempt, drainQueue, outboxToSend, type SendResult } from '../upload-queue.ts';
+import { afterAttempt, drainQueue, outboxToSend, sendResultOf, type SendResult } from '../upload-queue.ts';
 import { allQueued, patchQueued, putQueued, type QueuedItem, type QueuedPhoto, type QueuedStop } from './outbox-store.ts';
 
 const PARALLEL_SENDS = 2;
@@ -32,7 +32,7 @@ async function sendPhoto(item: QueuedPhoto, onProgress: (share: number) => void)
     await csrfTokenForUpload(),
     onProgress,
   );
-  return { kind: 'sent', outcome };
+  return sendResultOf(outcome);
 }
 
 async function sendStop(item: QueuedStop): Promise<SendResult> {
