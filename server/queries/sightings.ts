@@ -49,6 +49,16 @@ export function listSightingsOfOrganisation(organisationId: string, ids: string[
   return querySightings(where, { org: organisationId, ids, ...query });
 }
 
+/** A walk's sightings deleted since the cutoff (still restorable), most recently deleted first. */
+export const listDeletedSightingsOfWalk = async (organisationId: string, walkId: string, since: Date) =>
+  (
+    await querySightings(['s.organisation_id = :org', 's.walk_id = :walkId', 's.deleted_at IS NOT NULL', 's.deleted_at >= :since'], {
+      org: organisationId,
+      walkId,
+      since,
+    })
+  ).sort((a, b) => new Date(b.deletedAt!).getTime() - new Date(a.deletedAt!).getTime());
+
 /** One of the organisation's sightings, deleted or not as asked. */
 export const findSightingInOrganisation = async (organisationId: string, id: string, options: { deleted?: boolean; transaction?: Transaction } = {}) =>
   (
@@ -217,6 +227,15 @@ export const liveSightingsInWindow = (window: SightingWindow) =>
         AND (CAST(:to AS date) IS NULL OR w.walked_on <= CAST(:to AS date))
       ORDER BY s.id`,
     { fieldId: window.fieldId, pestId: window.pestId, from: window.from ?? null, to: window.to ?? null },
+  );
+
+/** A walk's live sightings and empty stops in the order they were made (the phone's time, else the server's). */
+export const liveSightingsOfWalkInTimeOrder = (walkId: string) =>
+  selectRows<StoredSighting>(
+    `SELECT ${sightingColumns} FROM sightings s
+      WHERE s.walk_id = :walkId AND ${liveSighting('s')}
+      ORDER BY COALESCE(s.observed_at, s.created_at), s.created_at, s.id`,
+    { walkId },
   );
 
 /** The live ones of these sightings, by id. */

@@ -1,10 +1,11 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { requireSignedIn, actor } from '../middleware/access.ts';
+import { requireRole, requireSignedIn, actor } from '../middleware/access.ts';
 import { parse } from '../middleware/validate.ts';
 import { walkCreateSchema, walkListQuerySchema, walkStopSchema, walkUpdateSchema } from '../../shared/schemas/walks.ts';
 import { createWalk, getWalk, listWalks, updateWalk } from '../services/walks.ts';
 import { recordEmptyStop } from '../services/sightings.ts';
+import { walkSummary } from '../services/walk-summary.ts';
 
 export const walksRouter = Router();
 const idParam = z.object({ id: z.uuid({ error: 'That walk id is not valid.' }) });
@@ -20,6 +21,10 @@ walksRouter.post('/', requireSignedIn, async (req, res) => {
 
 walksRouter.get('/:id', requireSignedIn, async (req, res) => {
   res.json(await getWalk(actor(req), parse(idParam, req.params).id));
+});
+
+walksRouter.get('/:id/summary', requireRole('scout', 'adviser', 'admin'), async (req, res) => {
+  res.json({ summary: await walkSummary(actor(req), parse(idParam, req.params).id) });
 });
 
 walksRouter.patch('/:id', requireSignedIn, async (req, res) => {

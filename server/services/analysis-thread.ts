@@ -2,7 +2,8 @@
 // thread that answers requests. Answers are plain data; engine and boundary errors come back as values, since an
 // Error's class does not survive the trip between threads.
 import type { FeatureCollection, MultiPolygon, Point } from 'geojson';
-import { analyse, type PrecomputedSimulations } from '../../shared/analysis/analyse.ts';
+import { analyse, type PrecomputedSimulations, type StopsSummary } from '../../shared/analysis/analyse.ts';
+import type { CoverageResult } from '../../shared/analysis/coverage.ts';
 import { AnalysisInputError } from '../../shared/analysis/errors.ts';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
 import { DOMParser } from '@xmldom/xmldom';
@@ -16,12 +17,14 @@ import { sensitivityRows } from './sensitivity-strip.ts';
 export type AnalysisTask =
   | { kind: 'boundary'; input: BoundaryInput }
   | { kind: 'check'; boundary: MultiPolygon; sightings: FeatureCollection<Point>; options: AnalysisOptions; precomputed?: PrecomputedSimulations }
-  | { kind: 'sensitivity'; boundary: MultiPolygon; sightings: FeatureCollection<Point>; options: AnalysisOptions };
+  | { kind: 'sensitivity'; boundary: MultiPolygon; sightings: FeatureCollection<Point>; options: AnalysisOptions }
+  | { kind: 'walk-coverage'; boundary: MultiPolygon; sightings: FeatureCollection<Point> };
 
 export type AnalysisAnswer =
   | { kind: 'boundary'; boundary: MultiPolygon; areaM2: number }
   | ({ kind: 'check' } & SplitResult)
   | { kind: 'sensitivity'; rows: SensitivityRow[] }
+  | { kind: 'walk-coverage'; stops: StopsSummary; coverage: CoverageResult | null }
   | { kind: 'input-error'; message: string }
   | { kind: 'boundary-fault'; fault: BoundaryFault };
 
@@ -44,6 +47,11 @@ function readBoundary(input: BoundaryInput): { boundary: MultiPolygon; areaM2: n
 
 function runTask(task: AnalysisTask): AnalysisAnswer {
   if (task.kind === 'boundary') return { kind: 'boundary', ...readBoundary(task.input) };
+  if (task.kind === 'walk-coverage') {
+    // The engine's own stop merging and coverage rules; no simulations, since only the walk's figures are wanted.
+    const result = analyse(task.boundary, task.sightings, { simulations: 0 });
+    return { kind: 'walk-coverage', stops: result.stops, coverage: result.coverage };
+  }
   if (task.kind === 'sensitivity') return { kind: 'sensitivity', rows: sensitivityRows(task.boundary, task.sightings, task.options) };
   const result = analyse(task.boundary, task.sightings, task.options, task.precomputed);
   const split = splitResult(result);

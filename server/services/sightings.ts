@@ -6,7 +6,7 @@ import { markPhotoDeleted, markPhotoRestored } from '../queries/photos.ts';
 import { findPestInOrganisation } from '../queries/pests.ts';
 import { findFieldName } from '../queries/fields.ts';
 import type { Actor } from '../auth/passport.ts';
-import type { SightingListQuery, SightingUpdateInput, SightingView } from '../../shared/schemas/sightings.ts';
+import { SIGHTING_RECOVERABLE_DAYS, type SightingListQuery, type SightingUpdateInput, type SightingView } from '../../shared/schemas/sightings.ts';
 import type { WalkStopInput } from '../../shared/schemas/walks.ts';
 import { AppError, badRequest, conflict, forbidden, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
@@ -15,7 +15,7 @@ import { writableWalk } from './ingest-access.ts';
 import { fieldContains } from './ingest-fields.ts';
 
 /** A deleted sighting's photo stays recoverable this long; the purge job removes older ones. */
-export const RECOVERABLE_DAYS = 30;
+export const RECOVERABLE_DAYS = SIGHTING_RECOVERABLE_DAYS;
 
 // Spelled out key by key, in the answer's order (the row's columns, then position): rest/spread copies of
 // thousands of rows cost more than the query that read them.
@@ -52,6 +52,17 @@ export async function listSightings(actor: Actor, query: SightingListQuery): Pro
   const ids = await visibleFieldIds(actor);
   const rows = await sightings.listSightingsOfOrganisation(actor.organisationId, ids, query);
   return rows.map(present);
+}
+
+/**
+ * A walk's removed sightings the actor could restore: every one for the desk roles, a scout's own, none for a
+ * grower. The caller has already checked the actor may see the walk.
+ */
+export async function listRestorableSightingsOfWalk(actor: Actor, walkId: string): Promise<SightingView[]> {
+  if (actor.role === 'grower') return [];
+  const since = new Date(Date.now() - RECOVERABLE_DAYS * 86_400_000);
+  const rows = await sightings.listDeletedSightingsOfWalk(actor.organisationId, walkId, since);
+  return rows.filter((row) => actor.role !== 'scout' || row.scoutId === actor.id).map(present);
 }
 
 async function findVisibleRow(actor: Actor, id: string, options: { deleted?: boolean; transaction?: Transaction } = {}) {

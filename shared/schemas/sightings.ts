@@ -144,4 +144,9 @@ export interface SightingListResponse {
 export interface WalkDetailResponse {
   walk: WalkView;
   sightings: SightingView[];
+  /** Sightings of the walk removed in the last SIGHTING_RECOVERABLE_DAYS that the caller may restore, latest first. */
+  removed: SightingView[];
 }
+
+/** A removed sighting (and its photo) can be restored this many days; the purge job removes older ones. */
+export const SIGHTING_RECOVERABLE_DAYS = 30;

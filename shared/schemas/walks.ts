@@ -68,3 +68,30 @@ export interface WalkView {
 export interface WalkListResponse {
   walks: WalkView[];
 }
+
+/** A finished walk at a glance: its stops after same-stop merging, the route walked and how evenly the field was searched. */
+export interface WalkSummary {
+  walkId: string;
+  /** Live placed sightings and empty stops of the walk, before merging. */
+  sightings: number;
+  stops: number;
+  found: number;
+  empty: number;
+  /** Stop to stop in the order they were made (turf `length`). */
+  routeLengthM: number;
+  /** Null under four stops: too few to judge. */
+  coverage: {
+    cellSizeM: number;
+    visitedShare: number;
+    expectedVisitedShare: number;
+    stopsR: number | null;
+    uneven: boolean;
+    warnings: string[];
+  } | null;
+  /** One plain sentence on how evenly the field was covered. */
+  evenness: string;
+}
+
+export interface WalkSummaryResponse {
+  summary: WalkSummary;
+}

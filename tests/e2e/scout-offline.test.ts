@@ -276,6 +276,52 @@ describe('scout without signal', () => {
     }
   });
 
+  it('shows a queued file the server refuses with its sentence, and places the other queued items exactly once', async () => {
+    const field = await assignedField('Wet Corner');
+    const context = await phone();
+    try {
+      const { page, walkId } = await startWalk(context, field.id);
+      // The walk page and its pest list are on the phone before the signal goes.
+      await page.getByLabel('Pest').waitFor();
+      await context.setOffline(true);
+      await context.setGeolocation(standing);
+      await page.getByLabel('Pest').selectOption(pest.id);
+      await page.getByLabel('Count for each photo').fill('2');
+      // The third file is text under a photo's name; the server reads its bytes, not its name (server/services/photo-type.ts).
+      await page.getByTestId('gallery-input').setInputFiles([
+        { name: 'queued-a.jpg', mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: insideA, markSeed: 91 }) },
+        { name: 'queued-b.jpg', mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: insideB, markSeed: 92 }) },
+        { name: 'field-notes.jpg', mimeType: 'image/jpeg', buffer: Buffer.from('Row 12: curled leaves, check again Friday.\n') },
+      ]);
+      await page.getByRole('button', { name: 'Send 3 photos' }).tap();
+      await page.getByRole('button', { name: 'Nothing found here' }).tap();
+      await expect.poll(() => rowStates(page), settle).toEqual(['waiting', 'waiting', 'waiting']);
+      await expect.poll(() => stopStates(page), settle).toEqual(['waiting']);
+
+      await context.setOffline(false);
+      const byName = () =>
+        uploadRows(page).evaluateAll((items) =>
+          Object.fromEntries(items.map((i) => [i.querySelector('p')?.textContent ?? '', i.getAttribute('data-upload-state')])),
+        );
+      await expect.poll(byName, settle).toEqual({ 'queued-a.jpg': 'sent', 'queued-b.jpg': 'sent', 'field-notes.jpg': 'refused' });
+      await expect.poll(() => stopStates(page), settle).toEqual([]);
+      const refused = uploadRows(page).filter({ hasText: 'field-notes.jpg' });
+      expect(await refused.textContent()).toMatch(/Not accepted.*This file is not a recognisable image, whatever its name says/);
+      expect(await refused.getByRole('button', { name: 'Remove field-notes.jpg' }).isVisible()).toBe(true);
+      // Nothing waits any more; the banner points to the refused file instead.
+      await expect.poll(() => page.getByTestId('outbox-banner').textContent(), settle).toBe('1 item was not accepted: see the walk for the reason.');
+
+      // Another pass of the outbox (a reload sends what waits) leaves the refused file alone and doubles nothing.
+      await page.reload();
+      await expect.poll(byName, settle).toEqual({ 'queued-a.jpg': 'sent', 'queued-b.jpg': 'sent', 'field-notes.jpg': 'refused' });
+      const stored = await walkOnServer(walkId);
+      expect(stored.walk).toMatchObject({ sightingCount: 2, stopCount: 1 });
+      expect(stored.sightings).toHaveLength(3);
+    } finally {
+      await context.close();
+    }
+  });
+
   it('shows the server’s reason on a stop it refused, and keeps it on the phone until the scout removes it', async () => {
     const field = await assignedField('Stony Rise');
     const context = await phone();

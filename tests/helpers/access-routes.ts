@@ -120,6 +120,7 @@ export const scoutingRoutes: AccessRow[] = [
     'a scout may not walk a field they are not assigned to',
   ),
   row('GET', '/api/walks/{walk}', anySignedIn(200, { otherAdmin: 404 }), undefined, "the walk's field is on the grower's linked farm"),
+  row('GET', '/api/walks/{walk}/summary', recorders(200), undefined, "the scout's own walk; a grower has no walk summaries"),
   row('PATCH', '/api/walks/{walk}', recorders(200), { notes: 'W pattern from the gate' }),
   row('POST', '/api/walks/{walk}/stops', recorders(201), (w) => ({ pestId: '{pest}', ...scouting(w).insideAssigned, accuracyM: 5 })),
 

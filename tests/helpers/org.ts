@@ -31,3 +31,17 @@ export async function makeOrganisation(label = 'Test'): Promise<TestOrganisation
   }
   return { id: organisation.id, name: organisation.name, users };
 }
+
+/** One more user of the role in the organisation (a second scout, say), signed in with the test password. */
+export async function addUser(org: TestOrganisation, role: Role) {
+  passwordHash ??= hashPassword(TEST_PASSWORD);
+  const tag = crypto.randomBytes(4).toString('hex');
+  const user = await insertUser({
+    organisationId: org.id,
+    name: `${role} ${tag}`,
+    email: `${role}-${tag}@test.example`,
+    role,
+    passwordHash: await passwordHash,
+  });
+  return { id: user.id, email: user.email, name: user.name };
+}

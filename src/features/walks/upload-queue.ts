@@ -50,7 +50,7 @@ export const withChange = (entries: UploadEntry[], clientId: string, change: Par
 /** What one attempt to send an outbox item came to. */
 export type SendResult =
   | { kind: 'sent'; outcome?: PhotoOutcome }
-  | { kind: 'refused'; message: string }
+  | { kind: 'refused'; message: string; outcome?: PhotoOutcome }
   /** No connection, a dropped one or a server fault: the item waits for the next try. */
   | { kind: 'unreachable'; message: string };
 
@@ -63,6 +63,15 @@ export interface OutboxItemState {
   outcome?: PhotoOutcome;
 }
 
+/**
+ * What the server's answer for one photo means for the phone: an outcome that kept nothing (outside the field, not a
+ * photo) is a refusal that stays on the phone with its sentence; the others are sightings now.
+ */
+export function sendResultOf(outcome: PhotoOutcome): SendResult {
+  if (outcome.outcome === 'outside' || outcome.outcome === 'rejected') return { kind: 'refused', message: outcome.message, outcome };
+  return { kind: 'sent', outcome };
+}
+
 /** The item after an attempt: sent and refused are final; an unreachable server leaves it waiting, one attempt more. */
 export function afterAttempt<T extends OutboxItemState>(item: T, result: SendResult): T {
   const attempts = item.attempts + 1;
@@ -70,7 +79,7 @@ export function afterAttempt<T extends OutboxItemState>(item: T, result: SendRes
     case 'sent':
       return { ...item, state: 'sent', attempts, outcome: result.outcome, lastError: undefined };
     case 'refused':
-      return { ...item, state: 'refused', attempts, refusal: result.message };
+      return { ...item, state: 'refused', attempts, refusal: result.message, ...(result.outcome ? { outcome: result.outcome } : {}) };
     case 'unreachable':
       return { ...item, state: 'waiting', attempts, lastError: result.message };
   }

@@ -9,6 +9,7 @@ import {
   outboxExpired,
   outboxToSend,
   readyEntry,
+  sendResultOf,
   SENT_KEPT_MS,
   unsentCount,
   type OutboxItemState,
@@ -114,6 +115,20 @@ describe('one attempt to send an outbox item', () => {
     const after = afterAttempt(item('a', { state: 'sending' }), { kind: 'refused', message: 'Your position lies outside North.' });
     expect(after).toMatchObject({ state: 'refused', refusal: 'Your position lies outside North.' });
     expect(outboxToSend([after])).toEqual([]);
+  });
+
+  it('keeps a photo the server kept nothing of on the phone as refused, with the server’s sentence', () => {
+    const rejected = { fileName: 'notes.jpg', outcome: 'rejected' as const, message: 'This file is not a recognisable image, whatever its name says.' };
+    const after = afterAttempt(item('a', { state: 'sending' }), sendResultOf(rejected));
+    expect(after).toMatchObject({ state: 'refused', refusal: rejected.message, outcome: rejected });
+    expect(outboxToSend([after])).toEqual([]);
+    expect(afterAttempt(item('b', { state: 'sending' }), sendResultOf({ fileName: 'b.jpg', outcome: 'outside', message: 'Outside.' })).state).toBe('refused');
+  });
+
+  it('counts placed, needs-a-pin and already-sent photos as sent', () => {
+    for (const outcome of ['placed', 'needs-pin', 'duplicate'] as const) {
+      expect(afterAttempt(item('a', { state: 'sending' }), sendResultOf({ fileName: 'a.jpg', outcome, message: '' })).state).toBe('sent');
+    }
   });
 
   it('marks it sent with its outcome and forgets an earlier network error', () => {

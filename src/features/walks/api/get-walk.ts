@@ -21,6 +21,7 @@ function walkKeptOnPhone(walk: WalkStartedOffline, scoutName: string): WalkShown
       createdAt: new Date(walk.createdAt).toISOString(),
     },
     sightings: [],
+    removed: [],
     keptOnPhone: true,
   };
 }

@@ -7,6 +7,8 @@ import { useQuery } from '@tanstack/react-query';
 import { fieldQueryOptions } from '../../../lib/api/get-field.ts';
 import { usePests } from '../../../lib/api/get-pests.ts';
 import { SightingList } from '../../sightings/components/sighting-list.tsx';
+import { RemovedSightings } from '../../sightings/components/removed-sightings.tsx';
+import { useSignedInUser } from '../../../lib/auth.ts';
 import { useWalk, walkQueryKey } from '../api/get-walk.ts';
 import { useBatchTags } from '../hooks/use-batch-tags.ts';
 import { scoutPaths } from '../paths.ts';
@@ -16,9 +18,10 @@ import { PhotoUploadPanel } from './photo-upload-panel.tsx';
 import { WalkHeader, walkDate } from './walk-header.tsx';
 import { WalkMap } from './walk-map.tsx';
 import { QueuedStops } from './queued-stops.tsx';
+import { WalkSummaryPanel } from './walk-summary-panel.tsx';
 import type { QueuedPlace } from './queued-markers.tsx';
 import { useOutbox } from '../outbox/use-outbox.ts';
-import { useSignedInUser } from '../../../lib/auth.ts';
+import { unsentCount } from '../upload-queue.ts';
 import type { QueuedItem, QueuedStop } from '../outbox/outbox-store.ts';
 
 /** Items of this walk still on the phone (sent ones are sightings on the map already), where their position is known. */
@@ -66,6 +69,8 @@ export function WalkPage() {
     );
 
   const { walk: info, sightings } = walk.data;
+  // A walk kept by the phone before removals were listed has no `removed`.
+  const removed = walk.data.removed ?? [];
   const pestList = pests.data ?? [];
   const pest = pestList.find((p) => p.id === tags.pestId);
   const needsPin = sightings.filter((s) => s.status === 'needs-pin');
@@ -127,10 +132,21 @@ export function WalkPage() {
             sightings={sightings}
             pinHref={(s) => scoutPaths.pin(info.id, s.id)}
             correction={{ pests: pestList, crop: field.data?.crop, shownUnder: walkQueryKey(info.id) }}
+            removal={{ mayRemove: (s) => s.scoutId === me.id || me.role === 'adviser' || me.role === 'admin', shownUnder: walkQueryKey(info.id) }}
           />
         ) : (
           <p className="text-soil-700">Nothing yet: send photos or record a stop where you found nothing.</p>
         )}
+      </Panel>
+
+      {removed.length > 0 && (
+        <Panel title={`Removed (${removed.length})`}>
+          <RemovedSightings removed={removed} shownUnder={walkQueryKey(info.id)} />
+        </Panel>
+      )}
+
+      <Panel title="Finish">
+        <WalkSummaryPanel walkId={info.id} waitingOnPhone={unsentCount(outbox.filter((item) => item.walkId === info.id))} />
       </Panel>
     </PageFrame>
   );

@@ -26,7 +26,13 @@ export function entryFromQueued(item: QueuedPhoto, progress = 0): UploadEntry & 
     progress: item.state === 'sent' ? 1 : progress,
     count: item.count === undefined ? '' : String(item.count),
     outcome: item.outcome,
-    error: item.refusal ? { message: item.refusal, retryable: false } : item.lastError ? { message: item.lastError, retryable: true } : undefined,
+    // A refusal read from the photo's own outcome is shown once, with the outcome.
+    error:
+      item.refusal && item.refusal !== item.outcome?.message
+        ? { message: item.refusal, retryable: false }
+        : item.lastError && !item.refusal
+          ? { message: item.lastError, retryable: true }
+          : undefined,
     preview: item.preview,
   };
 }

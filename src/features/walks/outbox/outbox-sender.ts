@@ -3,7 +3,7 @@
 import { api, ApiError, setCsrfToken } from '../../../lib/api-client.ts';
 import type { SightingView } from '@shared/schemas/sightings.ts';
 import { csrfTokenForUpload, PhotoUploadError, uploadPhoto } from '../api/upload-photo.ts';
-import { afterAttempt, drainQueue, outboxToSend, type SendResult } from '../upload-queue.ts';
+import { afterAttempt, drainQueue, outboxToSend, sendResultOf, type SendResult } from '../upload-queue.ts';
 import { createWalk } from '../api/create-walk.ts';
 import {
   allQueued,
@@ -43,7 +43,7 @@ async function sendPhoto(item: QueuedPhoto, onProgress: (share: number) => void)
     await csrfTokenForUpload(),
     onProgress,
   );
-  return { kind: 'sent', outcome };
+  return sendResultOf(outcome);
 }
 
 async function sendStop(item: QueuedStop): Promise<SendResult> {

@@ -1,0 +1,98 @@
+// A scout on a phone finishes a walk and sees its summary: stops, found, empty and the route walked.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { length, lineString } from '@turf/turf';
+import { signedIn, type Client } from '../helpers/http.ts';
+import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
+import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
+import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
+import { makeJpeg, uploadPhotos } from '../helpers/photos.ts';
+import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
+
+const settle = { timeout: 30_000, interval: 200 };
+// Inside the 0.005° × 0.003° test rectangle, at least 60 m apart, in the order they were made.
+const at = (fx: number, fy: number) => ({ lon: TEST_FIELD_CORNER.lon + 0.005 * fx, lat: TEST_FIELD_CORNER.lat + 0.003 * fy });
+const route = [
+  { kind: 'photo', time: '07:30', ...at(0.15, 0.2) },
+  { kind: 'stop', time: '07:36', ...at(0.45, 0.25) },
+  { kind: 'stop', time: '07:41', ...at(0.8, 0.3) },
+  { kind: 'photo', time: '07:47', ...at(0.75, 0.75) },
+  { kind: 'stop', time: '07:52', ...at(0.3, 0.8) },
+] as const;
+
+let server: TestServer;
+let browser: Browser;
+let org: TestOrganisation;
+let pest: { id: string; name: string };
+let fieldId: string;
+
+beforeAll(async () => {
+  server = await startTestServer();
+  browser = await launchBrowser();
+  org = await makeOrganisation('Scout finish');
+  const admin = await signedIn(org.users.admin.email);
+  pest = await createPest(admin, { countUnit: 'aphids per plant' });
+  const farm = await createFarm(admin);
+  fieldId = (await createField(admin, farm.id, rectangleBoundary(), { name: 'Creek Bottom' })).id;
+  await admin.post(`/api/fields/${fieldId}/scouts`, { userId: org.users.scout.id }).expect(204);
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+/** A walk recorded through the API as the phone would send it: photos with their EXIF time, stops with theirs. */
+async function recordedWalk(scout: Client, walkedOn: string) {
+  const walk = (await scout.post('/api/walks', { fieldId, walkedOn }).expect(201)).body.walk as { id: string };
+  const photos = route.filter((r) => r.kind === 'photo');
+  const files = await Promise.all(
+    photos.map(async (p, i) => ({
+      bytes: await makeJpeg({ gps: p, dateTimeOriginal: `${walkedOn.replaceAll('-', ':')} ${p.time}:00`, offsetTimeOriginal: '+00:00', markSeed: 140 + i }),
+    })),
+  );
+  await uploadPhotos(scout, files, { pestId: pest.id, walkId: walk.id, count: 3 }).expect(200);
+  for (const stop of route.filter((r) => r.kind === 'stop')) {
+    await scout
+      .post(`/api/walks/${walk.id}/stops`, { pestId: pest.id, lon: stop.lon, lat: stop.lat, accuracyM: 4, observedAt: `${walkedOn}T${stop.time}:00Z` })
+      .expect(201);
+  }
+  return walk.id;
+}
+
+async function openWalk(context: BrowserContext, walkId: string): Promise<Page> {
+  const page = await context.newPage();
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail address').fill(org.users.scout.email);
+  await page.getByLabel('Password').fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).tap();
+  await page.getByRole('link', { name: 'Walk a field' }).waitFor();
+  await page.goto(`${server.url}/scout/walks/${walkId}`);
+  await page.getByLabel('Pest').waitFor();
+  return page;
+}
+
+const phone = () =>
+  browser.newContext({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+
+describe('scout finishing a walk', () => {
+  it('sees stops, found, empty and the route length of the walk', async () => {
+    const walkId = await recordedWalk(await signedIn(org.users.scout.email), '2026-11-18');
+    const context = await phone();
+    try {
+      const page = await openWalk(context, walkId);
+      await page.getByRole('button', { name: 'Finish walk' }).tap();
+      const figure = (testId: string) => page.getByTestId(testId).textContent();
+      await expect.poll(() => figure('summary-stops'), settle).toBe('5');
+      expect(await figure('summary-found')).toBe('2');
+      expect(await figure('summary-empty')).toBe('3');
+      // turf `length` over the same stops in time order, rounded to the metre as shown under a kilometre.
+      const metres = length(lineString(route.map((r) => [r.lon, r.lat])), { units: 'meters' });
+      expect(metres).toBeLessThan(1000);
+      expect(await figure('summary-route')).toBe(`${Math.round(metres)} m`);
+      expect(await figure('summary-evenness')).toMatch(/^The stops reached \d+ % of the field's \d+ m squares/);
+    } finally {
+      await context.close();
+    }
+  });
+});
