@@ -141,6 +141,38 @@ export const storeCheckResult = (checkId: string, figuresJson: string, design: C
 export const findCheckFiguresText = async (id: string) =>
   (await selectRow<{ figures: string | null }>('SELECT result::text AS figures FROM pattern_checks WHERE id = :id', { id }))?.figures ?? null;
 
+// The answer's figures leave out what grows with the sightings (per-stop figures, quadrat cells, the scouted-area
+// polygons); each has a route of its own (checkPartSql) and only its size stays behind, so the page knows it exists.
+const withoutCells = (key: string) =>
+  `CASE WHEN jsonb_typeof(result->'${key}') = 'object'
+     THEN (result->'${key}') - 'cells' || jsonb_build_object('cellCount', jsonb_array_length(result#>'{${key},cells}')) ELSE result->'${key}' END`;
+const LEAN_FIGURES = `CASE WHEN jsonb_typeof(result) = 'object' THEN result || jsonb_build_object(
+    'stops', (result->'stops') - 'merges',
+    'scouted', CASE WHEN jsonb_typeof(result->'scouted') = 'object'
+      THEN (result->'scouted') - 'scouted' - 'notScouted'
+        || jsonb_build_object('notScoutedParts', coalesce(jsonb_array_length(result#>'{scouted,notScouted,coordinates}'), 0))
+      ELSE result->'scouted' END,
+    'quadrat', ${withoutCells('quadrat')},
+    'stopsQuadrat', ${withoutCells('stopsQuadrat')},
+    'counts', CASE WHEN jsonb_typeof(result->'counts') = 'object' THEN (result->'counts') - 'giStar' ELSE result->'counts' END
+  ) ELSE result END`;
+
+/** The stored figures as the check's answer carries them (LEAN_FIGURES), as text. */
+export const findCheckLeanFiguresText = async (id: string) =>
+  (await selectRow<{ figures: string | null }>(`SELECT (${LEAN_FIGURES})::text AS figures FROM pattern_checks WHERE id = :id`, { id }))?.figures ?? null;
+
+/** The parts left out of the answer's figures, each read out of the stored result (or the check's row) as JSON text. */
+const checkPartSql = {
+  stops: `jsonb_build_object('merges', coalesce(result#>'{stops,merges}', '[]'), 'giStar', coalesce(result#>'{counts,giStar}', '[]'))`,
+  quadrats: `jsonb_build_object('quadratCells', result#>'{quadrat,cells}', 'stopsQuadratCells', result#>'{stopsQuadrat,cells}')`,
+  'scouted-area': `jsonb_build_object('scouted', result#>'{scouted,scouted}', 'notScouted', result#>'{scouted,notScouted}')`,
+  'sighting-ids': `jsonb_build_object('sightingIds', to_jsonb(sighting_ids))`,
+} as const;
+export type CheckPart = keyof typeof checkPartSql;
+
+export const findCheckPartText = async (id: string, part: CheckPart) =>
+  (await selectRow<{ part: string }>(`SELECT (${checkPartSql[part]})::text AS part FROM pattern_checks WHERE id = :id`, { id }))?.part ?? null;
+
 /** Status and what the answer's bytes depend on (row times and the author's name). */
 export const findCheckAnswerVersion = (organisationId: string, id: string) =>
   selectRow<{ status: string; version: string }>(

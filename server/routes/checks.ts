@@ -8,6 +8,7 @@ import { getCheckAnswer, requestCheck } from '../services/checks.ts';
 import { sensitivityStrip } from '../services/sensitivity.ts';
 import { checkDensityGrid } from '../services/check-density.ts';
 import type { SerialisedAnswer } from '../services/check-answer-cache.ts';
+import { getCheckPart, type CheckPart } from '../services/check-parts.ts';
 
 // Scouts never see checks; growers see only what a zone notice shows them, so both are refused here.
 export const checksRouter = Router();
@@ -68,3 +69,11 @@ checksRouter.get('/:id/density', requireRole('adviser', 'admin'), async (req, re
   res.type('application/octet-stream').setHeader('Cache-Control', 'private, no-cache');
   res.send(bytes);
 });
+
+// The parts that grow with the sightings, each fetched when the layer or table that shows it opens (check-parts.ts).
+const parts: CheckPart[] = ['stops', 'quadrats', 'scouted-area', 'sighting-ids'];
+for (const part of parts) {
+  checksRouter.get(`/:id/${part}`, requireRole('adviser', 'admin'), async (req, res) => {
+    sendSerialised(req, res, await getCheckPart(actor(req), parse(idParam, req.params).id, part));
+  });
+}

@@ -12,8 +12,7 @@ import { checkWork, INLINE_WORK_LIMIT, optionsHash, runStoredCheck, sightingsHas
 import { enqueueCheck } from '../jobs/check-worker.ts';
 import { ENGINE_VERSION } from '../../shared/analysis/version.ts';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
-import type { CheckRequest, CheckSummary, CheckView } from '../../shared/schemas/checks.ts';
-import type { AnalysisResult } from '../../shared/analysis/analyse.ts';
+import type { CheckFigures, CheckRequest, CheckSummary, CheckView } from '../../shared/schemas/checks.ts';
 import type { SpreadVerdict } from '../../shared/analysis/spread.ts';
 import { cachedAnswer, serialise, type SerialisedAnswer } from './check-answer-cache.ts';
 import { assertCheckWithinBudget, fieldExtent, INLINE_WORK_UNITS } from './check-budget.ts';
@@ -33,13 +32,13 @@ function presentCheck(check: checks.PatternCheckRow, people: Map<string, { id: s
     from: check.windowFrom,
     to: check.windowTo,
     options: check.options as AnalysisOptions,
-    sightingIds: check.sightingIds,
+    sightingCount: check.sightingIds.length,
     sightingsHash: check.sightingsHash,
     engineVersion: check.engineVersion,
     status: check.status,
     progress: check.progress,
-    // The stored JSONB is analyse()'s answer, exactly as it returned it.
-    result: (check.result as AnalysisResult | null) ?? null,
+    // The stored JSONB is analyse()'s answer; the view carries it less the parts with routes of their own.
+    result: (check.result as CheckFigures | null) ?? null,
     design: check.design ?? null,
     notScoutedM2: check.notScoutedM2 ?? null,
     stopMerges: check.stopMerges ? check.stopMerges.length : null,
@@ -136,16 +135,9 @@ export async function requestCheck(actor: Actor, asked: CheckRequest): Promise<C
   return { json: await checkAnswerJson(actor, check.id, false), happened: 'queued' };
 }
 
-/** One check of the actor's organisation (another organisation's id simply is not found). */
-export async function getCheck(actor: Actor, id: string): Promise<CheckView> {
-  const check = await checks.findCheckInOrganisation(actor.organisationId, id);
-  if (!check) throw notFound('That pattern check');
-  return present(check);
-}
-
-/** The stored figures as text: spliced into the answer as they are, never parsed and re-serialised on this thread. */
+/** The stored figures as text (less the parts with routes of their own): spliced into the answer, never parsed on this thread. */
 async function storedFiguresText(id: string): Promise<string | null> {
-  return checks.findCheckFiguresText(id);
+  return checks.findCheckLeanFiguresText(id);
 }
 
 /** `{ check }` as JSON, its result the stored text itself. */

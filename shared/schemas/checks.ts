@@ -2,7 +2,11 @@
 // adviser's screens. Check options are the engine's own schema, so the API accepts exactly what the engine does.
 import { z } from 'zod';
 import { analysisOptionsSchema } from '../analysis/options.ts';
-import type { AnalysisResult } from '../analysis/analyse.ts';
+import type { MultiPolygon } from 'geojson';
+import type { AnalysisResult, CountsResult, ScoutedSummary, StopsSummary } from '../analysis/analyse.ts';
+import type { QuadratCell, QuadratResult } from '../analysis/quadrat.ts';
+import type { StopsQuadratResult } from '../analysis/stops-quadrat.ts';
+import type { StopMerge } from '../analysis/stops.ts';
 import type { SpreadVerdict } from '../analysis/spread.ts';
 import { calendarDateSchema } from './calendar-date.ts';
 import type { ThresholdStatus } from '../thresholds/threshold-status.ts';
@@ -54,13 +58,14 @@ export interface CheckView {
   from: string | null;
   to: string | null;
   options: z.output<typeof analysisOptionsSchema>;
-  sightingIds: string[];
+  /** How many sightings the check took in; their ids come from GET /api/checks/:id/sighting-ids. */
+  sightingCount: number;
   sightingsHash: string;
   engineVersion: string;
   status: CheckStatus;
   progress: number;
-  /** The engine's result, exactly as analyse() returned it. */
-  result: AnalysisResult | null;
+  /** The engine's result as analyse() returned it, less the parts that grow with the sightings (CheckFigures). */
+  result: CheckFigures | null;
   /** Stored beside the result: stops (empty stops recorded) or whole-field (photos only). */
   design?: 'stops' | 'whole-field' | null;
   /** Part of the field no stop speaks for, m². */
@@ -73,6 +78,42 @@ export interface CheckView {
   finishedAt: string | null;
   /** True when an identical stored check answered instead of a new computation. */
   reused?: boolean;
+}
+
+/**
+ * The engine's result as a check's answer carries it: the figures the review page shows first. Per-stop figures,
+ * quadrat cells and the scouted-area polygons grow with the sightings, so each has a route of its own and only
+ * its size stays here; the density grid likewise (GET /api/checks/:id/density).
+ */
+export type CheckFigures = Omit<AnalysisResult, 'stops' | 'scouted' | 'quadrat' | 'stopsQuadrat' | 'counts'> & {
+  stops: Omit<StopsSummary, 'merges'>;
+  scouted: (Omit<ScoutedSummary, 'scouted' | 'notScouted'> & { notScoutedParts: number }) | null;
+  quadrat: (Omit<QuadratResult, 'cells'> & { cellCount: number }) | null;
+  stopsQuadrat: (Omit<StopsQuadratResult, 'cells'> & { cellCount: number }) | null;
+  counts: Omit<CountsResult, 'giStar'> | null;
+};
+
+/** GET /api/checks/:id/stops: the per-stop figures (same-stop merges, Gi* per stop). */
+export interface CheckStopsResponse {
+  merges: StopMerge[];
+  giStar: CountsResult['giStar'];
+}
+
+/** GET /api/checks/:id/quadrats: the cells of the quadrat count test and of the stops' quadrat test, null where the check has none. */
+export interface CheckQuadratsResponse {
+  quadratCells: QuadratCell[] | null;
+  stopsQuadratCells: StopsQuadratResult['cells'] | null;
+}
+
+/** GET /api/checks/:id/scouted-area: where the stops speak for the crop and the rest (longitude/latitude), null without stops. */
+export interface CheckScoutedAreaResponse {
+  scouted: MultiPolygon | null;
+  notScouted: MultiPolygon | null;
+}
+
+/** GET /api/checks/:id/sighting-ids: the exact sightings the check took in. */
+export interface CheckSightingIdsResponse {
+  sightingIds: string[];
 }
 
 export interface CheckSummary {

@@ -38,7 +38,7 @@ export interface ScoutedCheck {
   field: { id: string; farmId: string; name: string };
   pest: { id: string; name: string };
   checkId: string;
-  check: { result: Record<string, unknown>; sightingIds: string[] };
+  check: { result: Record<string, unknown>; sightingCount: number };
   sightingIds: string[];
   points: StopPoint[];
 }

@@ -1,5 +1,5 @@
 // Every figure behind the verdict, grouped by test, each with its plain-words reading.
-import type { AnalysisResult } from '@shared/analysis/analyse.ts';
+import type { CheckFigures } from '@shared/schemas/checks.ts';
 import { Panel } from '../../../components/page-frame.tsx';
 import { NearestNeighbourFigures } from './nearest-neighbour-figures.tsx';
 import { QuadratFigures } from './quadrat-figures.tsx';
@@ -7,7 +7,7 @@ import { LFunctionChart } from './l-function-chart.tsx';
 import { CountsFigures, CoverageFigures } from './counts-figures.tsx';
 import { ZonesFigures } from './zones-figures.tsx';
 
-export function CheckEvidence({ result, zoneEditorPath }: { result: AnalysisResult; zoneEditorPath: string }) {
+export function CheckEvidence({ result, zoneEditorPath }: { result: CheckFigures; zoneEditorPath: string }) {
   const alpha = result.spread.alpha;
   return (
     <Panel title="The evidence">

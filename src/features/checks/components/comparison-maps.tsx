@@ -6,6 +6,7 @@ import type { SightingView } from '@shared/schemas/sightings.ts';
 import { MapFrame } from '../../../components/map-frame.tsx';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { useCheck } from '../../../lib/api/get-check.ts';
+import { useCheckSightingIds } from '../../../lib/api/get-check-sighting-ids.ts';
 import { useSightings } from '../../../lib/api/get-sightings.ts';
 import palette from '../../../../tailwind.config.ts';
 import { windowText } from '../check-comparison.ts';
@@ -29,7 +30,8 @@ export function ComparisonMaps({ field, earlier, later }: { field: Field; earlie
 
 function CheckMap({ field, summary, side, sightings }: { field: Field; summary: CheckSummary; side: string; sightings: SightingView[] }) {
   const check = useCheck(summary.id);
-  const taken = new Set(check.data?.sightingIds ?? []);
+  const sightingIds = useCheckSightingIds(summary.id);
+  const taken = new Set(sightingIds.data ?? []);
   const own = sightings.filter((s) => taken.has(s.id));
   const zones = check.data?.result?.zones;
   return (

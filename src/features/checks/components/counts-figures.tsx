@@ -1,11 +1,11 @@
 // Moran's I and Getis–Ord Gi* hot patches: whether heavy counts sit together, not just where sightings are.
-import type { CountsResult } from '@shared/analysis/analyse.ts';
+import type { CheckFigures } from '@shared/schemas/checks.ts';
 import type { CoverageResult } from '@shared/analysis/coverage.ts';
 import { fixed, metres, percent, pText } from '../utils/figures.ts';
 import { explainMoran } from '../utils/explanations.ts';
 import { Figure, FigureList, SectionTitle, Warning } from './figure-list.tsx';
 
-export function CountsFigures({ counts, alpha }: { counts: CountsResult | null; alpha: number }) {
+export function CountsFigures({ counts, alpha }: { counts: CheckFigures['counts']; alpha: number }) {
   return (
     <section aria-labelledby="counts-title">
       <SectionTitle source="Moran 1950; Getis & Ord 1992, Ord & Getis 1995; Benjamini–Hochberg">

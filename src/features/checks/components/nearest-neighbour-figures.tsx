@@ -1,10 +1,10 @@
 // Clark–Evans figures on the chosen area basis, with Donnelly's edge correction and the Monte Carlo p.
-import type { AnalysisResult } from '@shared/analysis/analyse.ts';
+import type { CheckFigures } from '@shared/schemas/checks.ts';
 import { areaBasisLabels, fixed, hectaresAndAcres, metres, pText } from '../utils/figures.ts';
 import { explainDonnelly, explainMeanDistance, explainMonteCarlo, explainP, explainR, explainZ } from '../utils/explanations.ts';
 import { Figure, FigureList, SectionTitle, Warning } from './figure-list.tsx';
 
-export function NearestNeighbourFigures({ result }: { result: AnalysisResult }) {
+export function NearestNeighbourFigures({ result }: { result: CheckFigures }) {
   const nearest = result.nearestNeighbour;
   const { area, spread } = result;
   const alpha = spread.alpha;

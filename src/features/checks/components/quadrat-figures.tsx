@@ -1,10 +1,10 @@
 // The quadrat count test over square cells clipped to the field.
-import type { QuadratResult } from '@shared/analysis/quadrat.ts';
+import type { CheckFigures } from '@shared/schemas/checks.ts';
 import { fixed, metres, pText } from '../utils/figures.ts';
 import { explainChiSquare, explainMorisita, explainVarianceToMean } from '../utils/explanations.ts';
 import { Figure, FigureList, SectionTitle, Warning } from './figure-list.tsx';
 
-export function QuadratFigures({ quadrat, alpha }: { quadrat: QuadratResult | null; alpha: number }) {
+export function QuadratFigures({ quadrat, alpha }: { quadrat: CheckFigures['quadrat']; alpha: number }) {
   return (
     <section aria-labelledby="quadrat-title">
       <SectionTitle source="Pearson χ²; index of dispersion; Morisita 1959">
@@ -16,8 +16,8 @@ export function QuadratFigures({ quadrat, alpha }: { quadrat: QuadratResult | nu
         <>
           <FigureList label="Quadrat figures">
             <Figure name="Cell size" value={metres(quadrat.grid.cellWidth, 0)} figure="cell-size">
-              {quadrat.cells.length} cells over the field ({quadrat.fullCells} whole, the rest clipped by the boundary), {fixed(quadrat.meanPerFullCell)}{' '}
-              sightings per whole cell on average.
+              {quadrat.cellCount} cells over the field ({quadrat.fullCells} whole, the rest clipped by the boundary), {fixed(quadrat.meanPerFullCell)} sightings
+              per whole cell on average.
             </Figure>
             <Figure name="χ²" value={fixed(quadrat.chiSquare, 1)} figure="chi-square">
               {explainChiSquare(quadrat, alpha)}

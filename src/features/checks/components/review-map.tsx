@@ -4,7 +4,7 @@ import { stopsSummary } from '@shared/units/stops-summary.ts';
 import { useMemo, useState } from 'react';
 import { GeoJSON, Popup } from 'react-leaflet';
 import type { SightingView } from '@shared/schemas/sightings.ts';
-import type { AnalysisResult } from '@shared/analysis/analyse.ts';
+import type { CheckFigures } from '@shared/schemas/checks.ts';
 import { MapFrame } from '../../../components/map-frame.tsx';
 import type { FieldAnswer as Field } from '@shared/schemas/fields.ts';
 import palette from '../../../../tailwind.config.ts';
@@ -13,9 +13,10 @@ import { fixed } from '../utils/figures.ts';
 import { SightingDots } from './map/sighting-dots.tsx';
 import { QuadratGridLayer } from './map/quadrat-grid-layer.tsx';
 import { DensityLayer, densityRamp } from './map/density-layer.tsx';
+import { NotScoutedLayer } from './map/not-scouted-layer.tsx';
 import { SightingDetails } from './sighting-details.tsx';
 
-const { patch, soil } = palette.theme.extend.colors;
+const { patch } = palette.theme.extend.colors;
 type LayerKey = 'sightings' | 'quadrat' | 'density' | 'zones' | 'notScouted';
 const layerLabels: Record<LayerKey, string> = {
   sightings: 'Sightings',
@@ -35,8 +36,8 @@ export function ReviewMap({
 }: {
   field: Field;
   sightings: SightingView[];
-  result: AnalysisResult | null;
-  /** The check the result belongs to: its density grid is fetched only when that layer is switched on. */
+  result: CheckFigures | null;
+  /** The check the result belongs to: its density grid, quadrat cells and not-scouted polygons are fetched only while their layer is on. */
   checkId: string | null;
   selectedId: string | null;
   onSelect: (id: string | null) => void;
@@ -49,7 +50,7 @@ export function ReviewMap({
     quadrat: Boolean(result?.quadrat && toLonLat),
     density: Boolean(result?.density && toLonLat),
     zones: Boolean(result?.zones.features.length),
-    notScouted: Boolean(result?.scouted?.notScouted.coordinates.length),
+    notScouted: Boolean(result?.scouted?.notScoutedParts),
   };
 
   return (
@@ -76,15 +77,10 @@ export function ReviewMap({
         className="h-[38rem]"
       >
         {shown.density && result?.density && checkId && toLonLat && <DensityLayer checkId={checkId} density={result.density} toLonLat={toLonLat} />}
-        {shown.quadrat && result?.quadrat && toLonLat && <QuadratGridLayer quadrat={result.quadrat} boundary={field.boundary} toLonLat={toLonLat} />}
-        {shown.notScouted && result?.scouted && result.scouted.notScouted.coordinates.length > 0 && (
-          <GeoJSON
-            key={`not-scouted-${result.scouted.notScoutedM2}`}
-            data={result.scouted.notScouted}
-            style={{ color: soil[500], weight: 0.5, fillColor: soil[400], fillOpacity: 0.35 }}
-            interactive={false}
-          />
+        {shown.quadrat && result?.quadrat && checkId && toLonLat && (
+          <QuadratGridLayer checkId={checkId} grid={result.quadrat.grid} boundary={field.boundary} toLonLat={toLonLat} />
         )}
+        {shown.notScouted && result?.scouted && result.scouted.notScoutedParts > 0 && checkId && <NotScoutedLayer checkId={checkId} />}
         {shown.zones && result && result.zones.features.length > 0 && (
           <GeoJSON
             key={JSON.stringify(result.zones.features.map((f) => f.properties.areaM2))}
@@ -104,7 +100,7 @@ export function ReviewMap({
   );
 }
 
-function MapLegend({ result, shownDensity }: { result: AnalysisResult | null; shownDensity: boolean }) {
+function MapLegend({ result, shownDensity }: { result: CheckFigures | null; shownDensity: boolean }) {
   return (
     <div className="flex flex-wrap items-center gap-x-5 gap-y-1 text-xs text-soil-700">
       <span className="inline-flex items-center gap-1.5">
@@ -124,7 +120,7 @@ function MapLegend({ result, shownDensity }: { result: AnalysisResult | null; sh
           {fixed(result.density.maxPerHa, 0)} sightings/ha ({result.density.kernel}, bandwidth {fixed(result.density.bandwidthM, 0)} m)
         </span>
       )}
-      {result?.scouted && result.scouted.notScouted.coordinates.length > 0 && (
+      {result?.scouted && result.scouted.notScoutedParts > 0 && (
         <span className="inline-flex items-center gap-1.5">
           <span className="inline-block h-3 w-5 bg-soil-400/40 ring-1 ring-soil-500" aria-hidden="true" /> Not scouted (
           {fixed(result.scouted.notScoutedM2 / 10_000, 1)} ha, {fixed(100 * (1 - result.scouted.scoutedShare), 0)} % of the field): no stop speaks for it, so it

@@ -1,10 +1,9 @@
 // The spread verdict in words, with the engine's own sentences behind it; never a bare label.
-import type { AnalysisResult } from '@shared/analysis/analyse.ts';
-import type { CheckView } from '@shared/schemas/checks.ts';
+import type { CheckFigures, CheckView } from '@shared/schemas/checks.ts';
 import { areaBasisLabels, dateTime } from '../utils/figures.ts';
 import { spreadLabels } from '../../../lib/spread-labels.ts';
 
-const tone: Record<AnalysisResult['spread']['verdict'], string> = {
+const tone: Record<CheckFigures['spread']['verdict'], string> = {
   clustered: 'bg-patch-600 text-white',
   random: 'bg-field-100 text-field-900 ring-1 ring-inset ring-field-300',
   regular: 'bg-straw-200 text-soil-900 ring-1 ring-inset ring-straw-400',
@@ -13,7 +12,7 @@ const tone: Record<AnalysisResult['spread']['verdict'], string> = {
   'cant-tell': 'bg-soil-300/40 text-soil-800 ring-1 ring-inset ring-soil-300',
 };
 
-const meaning: Record<AnalysisResult['spread']['verdict'], string> = {
+const meaning: Record<CheckFigures['spread']['verdict'], string> = {
   clustered: 'The pest is patchy: spot treatment of the patches is worth considering.',
   random: 'No pattern beyond chance: the pest is scattered across the field.',
   regular: 'More even than chance: the pest is spread everywhere, not in patches.',
@@ -27,7 +26,7 @@ const designWords = {
   'whole-field': 'Whole-field design: photos only, no empty stops, so the check assumes the whole field was searched evenly.',
 } as const;
 
-export function VerdictSummary({ check, result }: { check: CheckView; result: AnalysisResult }) {
+export function VerdictSummary({ check, result }: { check: CheckView; result: CheckFigures }) {
   const { spread } = result;
   // Results stored before the design was stated carry no evidence list: their reasons stand as they were.
   const primary = spread.evidence?.find((e) => e.role === 'primary');

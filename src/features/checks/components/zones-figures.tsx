@@ -1,10 +1,10 @@
 // The density surface's settings and the treatment zones proposed from it.
-import type { AnalysisResult } from '@shared/analysis/analyse.ts';
+import type { CheckFigures } from '@shared/schemas/checks.ts';
 import { fixed, metres, percent } from '../utils/figures.ts';
 import { Figure, FigureList, SectionTitle } from './figure-list.tsx';
 import { ButtonLink } from '../../../components/button.tsx';
 
-export function ZonesFigures({ result, zoneEditorPath }: { result: AnalysisResult; zoneEditorPath: string }) {
+export function ZonesFigures({ result, zoneEditorPath }: { result: CheckFigures; zoneEditorPath: string }) {
   const { density, zones } = result;
   return (
     <section aria-labelledby="zones-title">

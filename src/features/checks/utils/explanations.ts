@@ -42,7 +42,7 @@ export function explainMonteCarlo(nn: NearestNeighbourResult, alpha: number): st
   return `Your spacing compared with ${simulations} random scatters of as many sightings inside this very boundary: p ${pText(pValue)}${pValue < alpha ? ', so few random scatters come out this far from chance — the pattern is real' : ', so random scatters often look like this — not unusual'}. This p decides the verdict.`;
 }
 
-export function explainChiSquare(q: QuadratResult, alpha: number): string {
+export function explainChiSquare(q: Pick<QuadratResult, 'pValue'>, alpha: number): string {
   return q.pValue < alpha
     ? `Cell counts differ more from cell to cell than chance would make them (p ${pText(q.pValue)}).`
     : `Cell counts vary about as much as chance would make them (p ${pText(q.pValue)}).`;

@@ -14,6 +14,7 @@ import { EmptyState, ErrorState, LoadingState } from '../../../components/query-
 import { errorMessage } from '../../../lib/form-errors.ts';
 import { useField } from '../../../lib/api/get-field.ts';
 import { useCheck } from '../../../lib/api/get-check.ts';
+import { useCheckSightingIds } from '../../../lib/api/get-check-sighting-ids.ts';
 import { useZoneSet, zoneSetQueryOptions } from '../../../lib/api/get-zone-set.ts';
 import { usePests } from '../../../lib/api/get-pests.ts';
 import { useSightings } from '../../../lib/api/get-sightings.ts';
@@ -51,6 +52,7 @@ export function ZoneEditorPage() {
   const queryClient = useQueryClient();
   const field = useField(fieldId);
   const check = useCheck(checkId);
+  const checkSightingIds = useCheckSightingIds(checkId);
   const pests = usePests(false);
   const [chosenPestId, setChosenPestId] = useState('');
   const pestId = check.data?.pestId ?? openedSet.data?.pestId ?? (checkId ? null : chosenPestId || null);
@@ -133,8 +135,8 @@ export function ZoneEditorPage() {
     [replaceZones],
   );
 
-  const points = useMemo(() => foundSightingPoints(sightings.data ?? [], check.data?.sightingIds ?? null), [sightings.data, check.data]);
-  const stops = useMemo(() => countedStops(sightings.data ?? [], check.data?.sightingIds ?? null), [sightings.data, check.data]);
+  const points = useMemo(() => foundSightingPoints(sightings.data ?? [], checkSightingIds.data ?? null), [sightings.data, checkSightingIds.data]);
+  const stops = useMemo(() => countedStops(sightings.data ?? [], checkSightingIds.data ?? null), [sightings.data, checkSightingIds.data]);
 
   const accept = useCreateZoneSet();
   const fieldAreaM2 = field.data?.areaM2 ?? 0;

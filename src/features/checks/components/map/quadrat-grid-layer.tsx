@@ -1,13 +1,14 @@
-// The quadrat cells of a check, drawn from the engine's grid (origin, cell size, col/row) in its CRS,
-// clipped to the boundary for display, with each cell's count as a label.
+// The quadrat cells of a check (fetched apart from its figures when this layer opens), drawn from the engine's grid
+// (origin, cell size, col/row) in its CRS, clipped to the boundary for display, with each cell's count as a label.
 import { useEffect, useMemo } from 'react';
 import L from 'leaflet';
 import { useMap } from 'react-leaflet';
 import type { MultiPolygon, Polygon } from 'geojson';
 import { featureCollection, intersect, polygon as turfPolygon } from '@turf/turf';
-import type { QuadratResult } from '@shared/analysis/quadrat.ts';
+import type { QuadratCell, QuadratResult } from '@shared/analysis/quadrat.ts';
 import palette from '../../../../../tailwind.config.ts';
 import type { ToLonLat } from '../../utils/planar-to-lonlat.ts';
+import { useCheckQuadrats } from '../../api/get-check-quadrats.ts';
 
 const { field, straw } = palette.theme.extend.colors;
 /** Above this many cells the labels would overlap at any useful zoom; the cells are still drawn. */
@@ -21,18 +22,31 @@ function cellRing(grid: QuadratResult['grid'], col: number, row: number, toLonLa
   return [toLonLat(x0, y0), toLonLat(x1, y0), toLonLat(x1, y1), toLonLat(x0, y1), toLonLat(x0, y0)];
 }
 
-export function QuadratGridLayer({ quadrat, boundary, toLonLat }: { quadrat: QuadratResult; boundary: Polygon | MultiPolygon; toLonLat: ToLonLat }) {
+interface GridProps {
+  checkId: string;
+  grid: QuadratResult['grid'];
+  boundary: Polygon | MultiPolygon;
+  toLonLat: ToLonLat;
+}
+
+export function QuadratGridLayer({ checkId, ...props }: GridProps) {
+  const cells = useCheckQuadrats(checkId);
+  // Nothing to draw until the cells arrive; a failed fetch leaves the map as it was.
+  return cells.data?.quadratCells ? <QuadratCells cells={cells.data.quadratCells} {...props} /> : null;
+}
+
+function QuadratCells({ cells, grid, boundary, toLonLat }: Omit<GridProps, 'checkId'> & { cells: QuadratCell[] }) {
   const map = useMap();
   const renderer = useMemo(() => L.canvas({ padding: 0.3 }), []);
   const shapes = useMemo(() => {
     const outline = { type: 'Feature' as const, properties: {}, geometry: boundary };
-    const maxCount = Math.max(1, ...quadrat.cells.map((c) => c.count));
-    return quadrat.cells.map((cell) => {
-      const square = turfPolygon([cellRing(quadrat.grid, cell.col, cell.row, toLonLat)]);
+    const maxCount = Math.max(1, ...cells.map((c) => c.count));
+    return cells.map((cell) => {
+      const square = turfPolygon([cellRing(grid, cell.col, cell.row, toLonLat)]);
       const clipped = intersect(featureCollection([square, outline])) ?? square;
       return { cell, geometry: clipped.geometry, shade: cell.count / maxCount };
     });
-  }, [quadrat, boundary, toLonLat]);
+  }, [cells, grid, boundary, toLonLat]);
 
   useEffect(() => {
     const group = L.layerGroup();
