@@ -9,6 +9,7 @@ import { useCheck } from '../../../lib/api/get-check.ts';
 import { useSightings } from '../../../lib/api/get-sightings.ts';
 import palette from '../../../../tailwind.config.ts';
 import { windowText } from '../check-comparison.ts';
+import { useDates } from '../../../lib/dates.ts';
 import { SightingDots } from './map/sighting-dots.tsx';
 
 const { patch } = palette.theme.extend.colors;
@@ -28,6 +29,7 @@ export function ComparisonMaps({ field, earlier, later }: { field: Field; earlie
 }
 
 function CheckMap({ field, summary, side, sightings }: { field: Field; summary: CheckSummary; side: string; sightings: SightingView[] }) {
+  const dates = useDates();
   const check = useCheck(summary.id);
   const taken = new Set(check.data?.sightingIds ?? []);
   const own = sightings.filter((s) => taken.has(s.id));
@@ -35,7 +37,8 @@ function CheckMap({ field, summary, side, sightings }: { field: Field; summary: 
   return (
     <figure className="space-y-1" data-compare-map={summary.id}>
       <figcaption className="text-xs font-medium text-soil-700">
-        {side}: {summary.pestName} · {windowText(summary)} · {zones ? `${zones.features.length} proposed zone${zones.features.length === 1 ? '' : 's'}` : '…'}
+        {side}: {summary.pestName} · {windowText(summary, dates)} ·{' '}
+        {zones ? `${zones.features.length} proposed zone${zones.features.length === 1 ? '' : 's'}` : '…'}
       </figcaption>
       {check.isError ? (
         <ErrorState error={check.error} onRetry={() => check.refetch()} />
