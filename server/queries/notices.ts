@@ -166,6 +166,9 @@ export interface NoticeFacts {
   threshold_confirmed: boolean;
   author: string;
   organisation: string;
+  /** The organisation's locale and time zone, for the dates the notice writes. */
+  locale: string;
+  time_zone: string;
 }
 
 /** The live names and field a notice shows. */
@@ -173,7 +176,7 @@ export const findNoticeFacts = async (id: string) =>
   (await selectRow<NoticeFacts>(
     `SELECT fa.name AS farm_name, f.name AS field_name, f.area_m2 AS field_area_m2, ST_AsGeoJSON(ST_ForcePolygonCCW(f.boundary), 9) AS boundary,
             p.name AS pest_name, p.action_threshold AS threshold, p.count_unit, p.threshold_source, p.threshold_confirmed,
-            u.name AS author, o.name AS organisation
+            u.name AS author, o.name AS organisation, o.locale, o.time_zone
        FROM notices n JOIN fields f ON f.id = n.field_id JOIN farms fa ON fa.id = f.farm_id JOIN pests p ON p.id = n.pest_id
        JOIN users u ON u.id = n.created_by JOIN organisations o ON o.id = n.organisation_id WHERE n.id = :id`,
     { id },

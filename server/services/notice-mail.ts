@@ -21,6 +21,7 @@ import { fromCornerText, latLonText } from '../../shared/notices/zone-location-w
 import { decisionText, thresholdSourceText, zoneEvidenceText } from '../../shared/notices/notice-words.ts';
 import { noticeMachineFilePaths } from './zone-files/zone-machine-files.ts';
 import type { NoticeContent } from '../../shared/schemas/notices.ts';
+import { DEFAULT_DATE_FORMAT, formatCalendarDate } from '../../shared/dates/format-dates.ts';
 
 export const MAP_CID = 'notice-map@patchwise';
 export const PREVIEW_LINK = `${config.publicUrl}/n/(each grower's own link)`;
@@ -28,12 +29,13 @@ export const PREVIEW_LINK = `${config.publicUrl}/n/(each grower's own link)`;
 const ha = (m2: number) => (m2 / 10_000).toFixed(2);
 const ac = (m2: number) => (m2 / 4046.8564224).toFixed(2);
 const percent = (share: number) => `${(share * 100).toFixed(1)} %`;
-const longDate = (iso: string) => new Date(`${iso}T12:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+// Calendar dates in the organisation's locale, the same function the notice page uses.
+const longDate = (c: NoticeContent, isoDay: string) => formatCalendarDate(isoDay, c.dateFormat ?? DEFAULT_DATE_FORMAT);
 
 export const noticeSubject = (c: NoticeContent) => `Treatment zones for ${c.pestName} in ${c.fieldName}, ${c.farmName}`;
 
 function walkDatesText(c: NoticeContent) {
-  return c.walkDates.length ? c.walkDates.map(longDate).join(', ') : 'no walk recorded';
+  return c.walkDates.length ? c.walkDates.map((day) => longDate(c, day)).join(', ') : 'no walk recorded';
 }
 
 /** The statistics behind the verdict: the full headline (when it carries figures) and the check's figures. */
@@ -58,7 +60,7 @@ export function noticeText(c: NoticeContent, link: string): string {
     '',
     `Recommendation from ${c.adviserName}:`,
     c.recommendation,
-    ...(c.rescoutOn ? [`Re-scout on: ${longDate(c.rescoutOn)}`] : []),
+    ...(c.rescoutOn ? [`Re-scout on: ${longDate(c, c.rescoutOn)}`] : []),
     '',
     'TREATMENT ZONES',
     ...rows,
@@ -114,7 +116,7 @@ export function noticeHtml(c: NoticeContent, link: string, mapSrc = `cid:${MAP_C
 <p style="margin:0 0 8px;font-size:16px"><strong>${e(decisionText(c))}</strong></p>
 <p style="margin:0 0 4px"><strong>Recommendation from ${e(c.adviserName)}:</strong></p>
 ${paragraphs(c.recommendation)}
-${c.rescoutOn ? `<p style="margin:0"><strong>Re-scout on:</strong> ${e(longDate(c.rescoutOn))}</p>` : ''}
+${c.rescoutOn ? `<p style="margin:0"><strong>Re-scout on:</strong> ${e(longDate(c, c.rescoutOn))}</p>` : ''}
 </div>
 <img src="${e(mapSrc)}" alt="Map of ${e(c.fieldName)} with the treatment zones and sightings" width="640" style="max-width:100%;height:auto;border:1px solid #ebdcb4">
 <h2 style="font-size:17px;color:#2f5d3a">Treatment zones</h2>

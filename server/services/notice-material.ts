@@ -62,6 +62,7 @@ export async function liveNoticeMaterial(notice: NoticeRow): Promise<NoticeMater
     adviserName: facts.author,
     organisationName: facts.organisation,
     cautions: NOTICE_CAUTIONS,
+    dateFormat: { locale: facts.locale, timeZone: facts.time_zone },
   };
   return {
     content,

@@ -6,6 +6,7 @@ import { oneLineNameSchema } from './one-line-name.ts';
 import type { FeatureCollection, MultiPolygon, Position } from 'geojson';
 import type { NoticeQuestionView } from './notice-questions.ts';
 import type { VerdictWords } from '../notices/verdict-words.ts';
+import type { DateFormat } from '../dates/format-dates.ts';
 
 export const noticeStatuses = ['draft', 'sending', 'sent', 'partly-failed'] as const;
 export type NoticeStatus = (typeof noticeStatuses)[number];
@@ -131,6 +132,8 @@ export interface NoticeContent {
   adviserName: string;
   organisationName: string;
   cautions: readonly string[];
+  /** The organisation's locale and time zone when the notice was written; absent in notices sent before it was kept (the default then). */
+  dateFormat?: DateFormat;
 }
 
 /** What a notice shows, as stored with it when it is sent (the snapshot) or gathered live for a draft. */

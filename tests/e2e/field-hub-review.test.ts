@@ -84,11 +84,12 @@ describe('the field review in the browser', () => {
       const rows = page.locator('[data-check-row]');
       await rows.first().waitFor();
       expect(await rows.evaluateAll((els) => els.map((e) => e.getAttribute('data-check-row')))).toEqual([firstWalkCheckId, scouted.checkId]);
-      // Each row names its window and the days of the walks it took in (the walks the test made).
-      expect(await rows.nth(0).textContent()).toContain('season start – 2026-07-01');
-      expect(await rows.nth(0).textContent()).toContain('2026-07-01');
-      expect(await rows.nth(0).textContent()).not.toContain('2026-07-03');
-      expect(await rows.nth(1).textContent()).toContain('2026-07-01, 2026-07-03');
+      // Each row names its window and the days of the walks it took in (the walks the test made, 2026-07-01 and 2026-07-03),
+      // written in the organisation's default locale, en-GB (CLDR long date pattern "d MMMM y").
+      expect(await rows.nth(0).textContent()).toContain('season start – 1 July 2026');
+      expect(await rows.nth(0).textContent()).toContain('1 July 2026');
+      expect(await rows.nth(0).textContent()).not.toContain('3 July 2026');
+      expect(await rows.nth(1).textContent()).toContain('1 July 2026, 3 July 2026');
       expect(await rows.nth(1).textContent()).toContain('99 simulations');
 
       // Opening the older one puts its id in the address, so the link can be shared.
@@ -176,7 +177,7 @@ describe('the field page in the browser', () => {
       const empty = (list: number[]) => list.filter((c) => c === 0).length;
       const second = [...counts(half()), 2];
       expect(await walks.count()).toBe(2);
-      expect(await walks.nth(0).locator('td').first().textContent()).toBe('2026-07-03');
+      expect(await walks.nth(0).locator('td').first().textContent()).toBe('3 July 2026'); // en-GB, CLDR "d MMMM y"
       expect(Number(await walks.nth(0).locator('[data-walk-sightings]').textContent())).toBe(found(second));
       expect(Number(await walks.nth(0).locator('[data-walk-stops]').textContent())).toBe(empty(second));
       expect(Number(await walks.nth(1).locator('[data-walk-sightings]').textContent())).toBe(found(counts(0, half())));

@@ -115,7 +115,8 @@ describe('the numbers an adviser reads', () => {
     const caption = (await dialog.textContent()) ?? '';
     expect(caption).toContain(PEST);
     expect(caption).toMatch(/Count\s*\d+/);
-    expect(caption).toMatch(/Time\s*\d{1,2} \w{3} 2026/);
+    // The organisation's default locale, en-GB: CLDR long date "d MMMM y", then the time "HH:mm".
+    expect(caption).toMatch(/Time\s*\d{1,2} [A-Z][a-z]+ 2026,? (at )?\d{2}:\d{2}/);
     expect(caption).toMatch(/Position\s*-?\d+\.\d{6}, -?\d+\.\d{6}/);
     await dialog.getByRole('button', { name: 'Close' }).click();
     await expect.poll(() => dialog.count()).toBe(0);

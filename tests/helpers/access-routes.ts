@@ -12,6 +12,7 @@ const newPest = { name: '{newName}', kind: 'weed', countUnit: 'plants per m²', 
 export const foundationRoutes: AccessRow[] = [
   row('GET', '/api/auth/me', everyone(200)),
   row('GET', '/api/config', everyone(200)),
+  row('PUT', '/api/config/date-format', adminOnly(200, 200), { locale: 'en-GB', timeZone: 'Europe/London' }, 'each admin sets their own organisation'),
 
   row('GET', '/api/users', anySignedIn(200, staff)),
   row(

@@ -1,5 +1,6 @@
 // The grower's acknowledgement: one press records it; afterwards the page says when. The caller supplies the
 // request (the e-mailed link's, or the signed-in grower's).
+import type { Dates } from '@shared/dates/format-dates.ts';
 import { Button } from '../button.tsx';
 import { FormMessage } from '../form-field.tsx';
 
@@ -10,12 +11,11 @@ export interface AcknowledgeControl {
   error?: string;
 }
 
-export function AcknowledgeBox({ acknowledgedAt, control }: { acknowledgedAt: string | null; control: AcknowledgeControl }) {
+export function AcknowledgeBox({ acknowledgedAt, control, dates }: { acknowledgedAt: string | null; control: AcknowledgeControl; dates: Dates }) {
   if (acknowledgedAt) {
     return (
       <p role="status" className="rounded-lg bg-field-50 px-4 py-3 text-field-900 ring-1 ring-inset ring-field-200">
-        <span aria-hidden="true">✓ </span>Acknowledged on {new Date(acknowledgedAt).toLocaleString(undefined, { dateStyle: 'long', timeStyle: 'short' })}. Your
-        adviser can see that you have read this notice.
+        <span aria-hidden="true">✓ </span>Acknowledged on {dates.dateTime(acknowledgedAt)}. Your adviser can see that you have read this notice.
       </p>
     );
   }

@@ -2,6 +2,7 @@
 // supplies the request (the e-mailed link's, or the signed-in grower's). Separate from the one-tap acknowledgement.
 import { useState, type FormEvent } from 'react';
 import type { NoticeQuestionView } from '@shared/schemas/notice-questions.ts';
+import type { Dates } from '@shared/dates/format-dates.ts';
 import { Button } from '../button.tsx';
 import { TextAreaField } from '../form-field.tsx';
 
@@ -13,9 +14,17 @@ export interface QuestionControl {
   error?: string;
 }
 
-const when = (iso: string) => new Date(iso).toLocaleString(undefined, { dateStyle: 'long', timeStyle: 'short' });
-
-export function NoticeQuestions({ questions, adviserName, control }: { questions: NoticeQuestionView[]; adviserName: string; control: QuestionControl }) {
+export function NoticeQuestions({
+  questions,
+  adviserName,
+  control,
+  dates,
+}: {
+  questions: NoticeQuestionView[];
+  adviserName: string;
+  control: QuestionControl;
+  dates: Dates;
+}) {
   const [text, setText] = useState('');
   const submit = (event: FormEvent) => {
     event.preventDefault();
@@ -32,13 +41,13 @@ export function NoticeQuestions({ questions, adviserName, control }: { questions
             <li key={q.id} className="rounded-md bg-straw-50 p-3 ring-1 ring-inset ring-straw-300">
               <p className="whitespace-pre-wrap text-soil-900">{q.text}</p>
               <p className="mt-1 text-xs text-soil-600">
-                {q.askerName}, {when(q.askedAt)}
+                {q.askerName}, {dates.dateTime(q.askedAt)}
               </p>
               {q.answer ? (
                 <div className="mt-2 border-l-4 border-field-600 pl-3">
                   <p className="whitespace-pre-wrap text-soil-900">{q.answer.text}</p>
                   <p className="mt-1 text-xs text-soil-600">
-                    Answer from {q.answer.adviserName}, {when(q.answer.answeredAt)}
+                    Answer from {q.answer.adviserName}, {dates.dateTime(q.answer.answeredAt)}
                   </p>
                 </div>
               ) : (

@@ -6,6 +6,7 @@ import type { NoticeLinkResponse } from '@shared/schemas/notices.ts';
 import { decisionText, thresholdLineText, zoneEvidenceText } from '@shared/notices/notice-words.ts';
 import { unconfirmedThresholdNoticeSentence } from '@shared/thresholds/threshold-confirmation.ts';
 import { NeedsConfirmingMark } from '../needs-confirming-mark.tsx';
+import { useDates } from '../../lib/dates.ts';
 import { AreaText } from '../area-text.tsx';
 import { Button } from '../button.tsx';
 import { AcknowledgeBox, type AcknowledgeControl } from './acknowledge-box.tsx';
@@ -14,8 +15,6 @@ import { NoticeQuestions, type QuestionControl } from './notice-questions.tsx';
 import { NoticeZoneTable } from './notice-zone-table.tsx';
 
 export type NoticePageContent = NoticeLinkResponse['notice'];
-
-const longDate = (isoDay: string) => new Date(`${isoDay}T12:00:00`).toLocaleDateString(undefined, { dateStyle: 'long' });
 
 function Section({ title, children }: { title: string; children: ReactNode }) {
   return (
@@ -52,6 +51,8 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
   useEffect(() => {
     document.title = `${n.pestName} on ${n.fieldName} · Zone notice`;
   }, [n.pestName, n.fieldName]);
+  // The notice's own date format, kept with it when it was sent, so the page writes dates as its e-mail did.
+  const dates = useDates(n.dateFormat);
   const figures = [...(n.verdict.plain && n.verdict.plain !== n.verdict.headline ? [n.verdict.headline] : []), ...n.verdict.figures];
 
   return (
@@ -59,7 +60,7 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
       <header className="space-y-2">
         <p className="text-sm font-medium text-soil-600">
           Zone notice for {n.recipientName}
-          {n.sentAt ? `, sent ${new Date(n.sentAt).toLocaleDateString(undefined, { dateStyle: 'long' })}` : ''}
+          {n.sentAt ? `, sent ${dates.date(n.sentAt)}` : ''}
         </p>
         <h1 className="text-2xl font-semibold tracking-tight text-field-900 sm:text-3xl">
           {n.pestName} on {n.fieldName}
@@ -78,7 +79,7 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
         </p>
         <h3 className="mt-4 text-sm font-semibold uppercase tracking-wide text-soil-600">Recommendation from {n.adviserName}</h3>
         <p className="mt-1 whitespace-pre-wrap text-soil-900">{n.recommendation}</p>
-        {n.rescoutOn && <p className="mt-3 font-medium text-soil-900">Re-scout on {longDate(n.rescoutOn)}.</p>}
+        {n.rescoutOn && <p className="mt-3 font-medium text-soil-900">Re-scout on {dates.calendarDate(n.rescoutOn)}.</p>}
         <div className="mt-3 flex flex-wrap gap-2 print:hidden">
           <Button variant="secondary" onClick={() => window.print()}>
             Print
@@ -86,7 +87,7 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
         </div>
       </section>
 
-      <AcknowledgeBox acknowledgedAt={n.acknowledgedAt} control={acknowledge} />
+      <AcknowledgeBox acknowledgedAt={n.acknowledgedAt} control={acknowledge} dates={dates} />
 
       <Section title="Where the zones are">
         <NoticeMap notice={n} />
@@ -115,7 +116,7 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
       <Section title="How we know">
         <p className="text-soil-800">
           {n.pestName} on {n.fieldName} (<AreaText m2={n.fieldAreaM2} />
-          ), {n.farmName}; walked on {n.walkDates.length ? n.walkDates.map(longDate).join(', ') : 'no recorded walk'}.
+          ), {n.farmName}; walked on {n.walkDates.length ? n.walkDates.map(dates.calendarDate).join(', ') : 'no recorded walk'}.
         </p>
         <ul aria-label="Counts in each zone" className="mt-2 list-disc space-y-1 pl-5 text-soil-900">
           {n.zones.map((z) => (
@@ -139,7 +140,7 @@ export function NoticeView({ notice: n, acknowledge, ask }: { notice: NoticePage
         )}
       </Section>
 
-      <NoticeQuestions questions={n.questions} adviserName={n.adviserName} control={ask} />
+      <NoticeQuestions questions={n.questions} adviserName={n.adviserName} control={ask} dates={dates} />
 
       <footer className="border-t border-straw-300 pt-4 text-sm text-soil-700">
         From {n.adviserName}, {n.organisationName}. Questions about this notice go to your adviser; apart from them, this page is read-only.

@@ -1,6 +1,7 @@
 // Two stored checks side by side: the figures each one's summary row holds, and what changed from the earlier
 // to the later. Nothing is computed here beyond the difference of two stored figures.
 import type { CheckSummary } from '@shared/schemas/checks.ts';
+import { datesIn, type Dates } from '@shared/dates/format-dates.ts';
 import { hectaresAndAcres } from './utils/figures.ts';
 import { spreadLabels } from '../../lib/spread-labels.ts';
 
@@ -22,8 +23,8 @@ export function inRunOrder(a: CheckSummary, b: CheckSummary): [CheckSummary, Che
   return a.createdAt <= b.createdAt ? [a, b] : [b, a];
 }
 
-export function windowText(check: Pick<CheckSummary, 'from' | 'to'>): string {
-  return `${check.from ?? 'season start'} – ${check.to ?? 'today'}`;
+export function windowText(check: Pick<CheckSummary, 'from' | 'to'>, dates: Dates = datesIn()): string {
+  return `${check.from ? dates.calendarDate(check.from) : 'season start'} – ${check.to ? dates.calendarDate(check.to) : 'today'}`;
 }
 
 export function optionsText(check: Pick<CheckSummary, 'options'>): string {
@@ -57,16 +58,17 @@ function numberRow(
   return { key, label, earlier: text(earlier), later: text(later), change, changed: delta !== 0 };
 }
 
+const walksText = (c: CheckSummary, dates: Dates) => c.walkDates.map(dates.calendarDate).join(', ') || blank;
 const verdictText = (c: CheckSummary) => (c.verdict ? spreadLabels[c.verdict] : c.status);
 const meanText = (c: CheckSummary) => c.threshold.meanPerStop;
 const shareText = (c: CheckSummary) => (c.threshold.shareInfested === null ? null : c.threshold.shareInfested * 100);
 
-export function compareChecks(earlier: CheckSummary, later: CheckSummary): ComparisonRow[] {
+export function compareChecks(earlier: CheckSummary, later: CheckSummary, dates: Dates = datesIn()): ComparisonRow[] {
   const f = (c: CheckSummary) => c.figures;
   const rows: ComparisonRow[] = [
     wordsRow('pest', 'Pest', earlier.pestName, later.pestName),
-    wordsRow('window', 'Date window', windowText(earlier), windowText(later)),
-    wordsRow('walks', 'Walks included', earlier.walkDates.join(', ') || blank, later.walkDates.join(', ') || blank),
+    wordsRow('window', 'Date window', windowText(earlier, dates), windowText(later, dates)),
+    wordsRow('walks', 'Walks included', walksText(earlier, dates), walksText(later, dates)),
     wordsRow('options', 'Options', optionsText(earlier), optionsText(later)),
     wordsRow('verdict', 'Spread', verdictText(earlier), verdictText(later)),
     numberRow('sightings', 'Sightings and empty stops taken in', earlier.sightings, later.sightings, 0),

@@ -69,7 +69,8 @@ describe('two checks compared', () => {
   it('names a changed verdict and window in words', () => {
     const rows = compareChecks(summary({ verdict: 'clustered' }), summary({ verdict: 'random', to: '2026-07-01' }));
     expect(row(rows, 'verdict')).toMatchObject({ earlier: 'Clustered', later: 'Random', change: 'changed', changed: true });
-    expect(row(rows, 'window')).toMatchObject({ earlier: 'season start – today', later: 'season start – 2026-07-01', changed: true });
+    // The default locale en-GB writes 2026-07-01 as "1 July 2026" (CLDR long date pattern "d MMMM y").
+    expect(row(rows, 'window')).toMatchObject({ earlier: 'season start – today', later: 'season start – 1 July 2026', changed: true });
     expect(row(rows, 'threshold')).toMatchObject({ changed: false });
   });
 });

@@ -1,11 +1,13 @@
 import { useId } from 'react';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { attachmentUrl, useMailMessage } from '../api/get-mail-message.ts';
+import { useDates } from '../../../lib/dates.ts';
 
 const size = (bytes: number) =>
   bytes < 1024 ? `${bytes} B` : bytes < 1024 * 1024 ? `${(bytes / 1024).toFixed(1)} kB` : `${(bytes / 1024 / 1024).toFixed(1)} MB`;
 
 export function MailMessageView({ id }: { id: number }) {
+  const dates = useDates();
   const message = useMailMessage(id);
   const plainTextId = useId();
   if (message.isPending) return <LoadingState label="Opening the message…" />;
@@ -23,7 +25,7 @@ export function MailMessageView({ id }: { id: number }) {
           <dt className="text-soil-600">To</dt>
           <dd>{m.to.join(', ')}</dd>
           <dt className="text-soil-600">Received</dt>
-          <dd>{new Date(m.receivedAt).toLocaleString()}</dd>
+          <dd>{dates.dateTime(m.receivedAt)}</dd>
         </dl>
       </header>
       {m.html && (

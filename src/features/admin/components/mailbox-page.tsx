@@ -5,8 +5,10 @@ import { Button } from '../../../components/button.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { useMailMessages } from '../api/get-mail-messages.ts';
 import { MailMessageView } from './mail-message-view.tsx';
+import { useDates } from '../../../lib/dates.ts';
 
 export function MailboxPage() {
+  const dates = useDates();
   const { messageId } = useParams();
   const openId = messageId ? Number(messageId) : null;
   const messages = useMailMessages();
@@ -40,7 +42,7 @@ export function MailboxPage() {
                   >
                     <span className="block truncate font-medium text-soil-900">{m.subject || '(no subject)'}</span>
                     <span className="block truncate text-xs text-soil-600">
-                      To {m.to.join(', ')} · {new Date(m.receivedAt).toLocaleString()}
+                      To {m.to.join(', ')} · {dates.dateTime(m.receivedAt)}
                     </span>
                   </Link>
                 </li>

@@ -8,6 +8,7 @@ import { EmptyState, ErrorState, LoadingState } from '../../../components/query-
 import { useAttention } from '../../../lib/api/get-attention.ts';
 import { attentionAction } from '../attention-action.ts';
 import { NeedsConfirmingMark } from '../../../components/needs-confirming-mark.tsx';
+import { useDates } from '../../../lib/dates.ts';
 
 const primaryLink =
   'shrink-0 rounded-md bg-field-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-field-800 focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-field-600';
@@ -69,6 +70,7 @@ function FieldRow({ item, action }: { item: AttentionField; action: string }) {
 }
 
 export function AdviserHome() {
+  const dates = useDates();
   const attention = useAttention();
   return (
     <PageFrame
@@ -112,7 +114,7 @@ export function AdviserHome() {
                     </p>
                     <p className="whitespace-pre-line text-sm text-soil-700">“{q.message}”</p>
                     <p className="text-xs text-soil-600">
-                      {q.askerName}, {new Date(q.askedAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}
+                      {q.askerName}, {dates.dateTime(q.askedAt)}
                     </p>
                   </div>
                   <Link to={q.link} className={primaryLink}>

@@ -6,13 +6,14 @@ import type { FieldAnswer as Field } from '@shared/schemas/fields.ts';
 import { Panel } from '../../../components/page-frame.tsx';
 import { LoadingState } from '../../../components/query-states.tsx';
 import { compareChecks } from '../check-comparison.ts';
-import { dateTime } from '../utils/figures.ts';
+import { useDates } from '../../../lib/dates.ts';
 
 // The two maps bring Leaflet in; the table does not wait for them.
 const ComparisonMaps = lazy(async () => ({ default: (await import('./comparison-maps.tsx')).ComparisonMaps }));
 
 export function CheckComparison({ field, earlier, later, closeHref }: { field: Field; earlier: CheckSummary; later: CheckSummary; closeHref: string }) {
-  const rows = compareChecks(earlier, later);
+  const dates = useDates();
+  const rows = compareChecks(earlier, later, dates);
   return (
     <Panel title="Two checks compared" className="space-y-3">
       <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-soil-300/60">
@@ -23,10 +24,10 @@ export function CheckComparison({ field, earlier, later, closeHref }: { field: F
                 Figure
               </th>
               <th scope="col" className="px-2 py-1.5" data-compare-check={earlier.id}>
-                Earlier · {dateTime(earlier.createdAt)}
+                Earlier · {dates.dateTime(earlier.createdAt)}
               </th>
               <th scope="col" className="px-2 py-1.5" data-compare-check={later.id}>
-                Later · {dateTime(later.createdAt)}
+                Later · {dates.dateTime(later.createdAt)}
               </th>
               <th scope="col" className="px-2 py-1.5">
                 Change

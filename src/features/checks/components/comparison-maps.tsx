@@ -10,6 +10,7 @@ import { useCheckSightingIds } from '../../../lib/api/get-check-sighting-ids.ts'
 import { useSightings } from '../../../lib/api/get-sightings.ts';
 import palette from '../../../../tailwind.config.ts';
 import { windowText } from '../check-comparison.ts';
+import { useDates } from '../../../lib/dates.ts';
 import { SightingDots } from './map/sighting-dots.tsx';
 
 const { patch } = palette.theme.extend.colors;
@@ -29,6 +30,7 @@ export function ComparisonMaps({ field, earlier, later }: { field: Field; earlie
 }
 
 function CheckMap({ field, summary, side, sightings }: { field: Field; summary: CheckSummary; side: string; sightings: SightingView[] }) {
+  const dates = useDates();
   const check = useCheck(summary.id);
   const sightingIds = useCheckSightingIds(summary.id);
   const taken = new Set(sightingIds.data ?? []);
@@ -37,7 +39,8 @@ function CheckMap({ field, summary, side, sightings }: { field: Field; summary: 
   return (
     <figure className="space-y-1" data-compare-map={summary.id}>
       <figcaption className="text-xs font-medium text-soil-700">
-        {side}: {summary.pestName} · {windowText(summary)} · {zones ? `${zones.features.length} proposed zone${zones.features.length === 1 ? '' : 's'}` : '…'}
+        {side}: {summary.pestName} · {windowText(summary, dates)} ·{' '}
+        {zones ? `${zones.features.length} proposed zone${zones.features.length === 1 ? '' : 's'}` : '…'}
       </figcaption>
       {check.isError ? (
         <ErrorState error={check.error} onRetry={() => check.refetch()} />

@@ -7,7 +7,7 @@ import { Panel } from '../../../components/page-frame.tsx';
 import { Button } from '../../../components/button.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import type { useFieldChecks } from '../../../lib/api/get-field-checks.ts';
-import { dateTime } from '../utils/figures.ts';
+import { useDates } from '../../../lib/dates.ts';
 import { spreadLabels } from '../../../lib/spread-labels.ts';
 import { optionsText, windowText, zonesAreaText } from '../check-comparison.ts';
 
@@ -24,6 +24,7 @@ export function PastChecksPanel({
   openHref: (check: CheckSummary) => string;
   onCompare: (first: CheckSummary, second: CheckSummary) => void;
 }) {
+  const dates = useDates();
   const [chosen, setChosen] = useState<string[]>([]);
   if (checks.isPending)
     return (
@@ -88,7 +89,7 @@ export function PastChecksPanel({
                     <input
                       type="checkbox"
                       className="h-4 w-4 rounded border-soil-300 text-field-700 focus:ring-field-600"
-                      aria-label={`Compare the check of ${dateTime(c.createdAt)}`}
+                      aria-label={`Compare the check of ${dates.dateTime(c.createdAt)}`}
                       checked={chosen.includes(c.id)}
                       disabled={c.status !== 'done'}
                       onChange={() => toggle(c.id)}
@@ -96,10 +97,10 @@ export function PastChecksPanel({
                   </td>
                   <td className="px-2 py-1.5">
                     <Link to={openHref(c)} className="font-medium text-field-700 underline-offset-2 hover:underline">
-                      {c.pestName} · {windowText(c)}
+                      {c.pestName} · {windowText(c, dates)}
                     </Link>
                   </td>
-                  <td className="px-2 py-1.5 tabular-nums">{c.walkDates.length === 0 ? '—' : c.walkDates.join(', ')}</td>
+                  <td className="px-2 py-1.5 tabular-nums">{c.walkDates.length === 0 ? '—' : c.walkDates.map(dates.calendarDate).join(', ')}</td>
                   <td className="px-2 py-1.5 text-right tabular-nums">{c.sightings}</td>
                   <td className="px-2 py-1.5 text-xs text-soil-700">{optionsText(c)}</td>
                   <td className="px-2 py-1.5" data-summary-verdict={c.verdict ?? c.status}>
@@ -107,7 +108,7 @@ export function PastChecksPanel({
                   </td>
                   <td className="px-2 py-1.5 text-xs">{c.status === 'done' ? zonesAreaText(c) : '—'}</td>
                   <td className="px-2 py-1.5 text-xs text-soil-700">
-                    {dateTime(c.createdAt)}
+                    {dates.dateTime(c.createdAt)}
                     {c.createdBy.name ? ` · ${c.createdBy.name}` : ''}
                   </td>
                 </tr>

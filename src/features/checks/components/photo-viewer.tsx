@@ -1,7 +1,8 @@
 // A sighting's photo at full size in a dialog, with what it shows: pest, count, time and position.
 import { useEffect, useRef } from 'react';
 import type { SightingView } from '@shared/schemas/sightings.ts';
-import { dateTime } from '../utils/figures.ts';
+import type { Dates } from '@shared/dates/format-dates.ts';
+import { useDates } from '../../../lib/dates.ts';
 import { positionSourceText } from '../utils/position-source-text.ts';
 
 export function countText(sighting: SightingView): string {
@@ -9,8 +10,10 @@ export function countText(sighting: SightingView): string {
   return sighting.count === null ? 'present, not counted' : String(sighting.count);
 }
 
-export function timeText(sighting: SightingView): string {
-  return sighting.observedAt ? dateTime(sighting.observedAt) : `recorded ${dateTime(sighting.createdAt)} (walk of ${sighting.walkedOn})`;
+export function timeText(sighting: SightingView, dates: Dates): string {
+  return sighting.observedAt
+    ? dates.dateTime(sighting.observedAt)
+    : `recorded ${dates.dateTime(sighting.createdAt)} (walk of ${dates.calendarDate(sighting.walkedOn)})`;
 }
 
 export function positionText(sighting: SightingView): string {
@@ -20,6 +23,7 @@ export function positionText(sighting: SightingView): string {
 }
 
 export function PhotoViewer({ sighting, onClose }: { sighting: SightingView; onClose: () => void }) {
+  const dates = useDates();
   const dialog = useRef<HTMLDialogElement>(null);
   useEffect(() => {
     const d = dialog.current;
@@ -45,7 +49,7 @@ export function PhotoViewer({ sighting, onClose }: { sighting: SightingView; onC
             <dt className="text-soil-600">Count</dt>
             <dd>{countText(sighting)}</dd>
             <dt className="text-soil-600">Time</dt>
-            <dd>{timeText(sighting)}</dd>
+            <dd>{timeText(sighting, dates)}</dd>
             <dt className="text-soil-600">Position</dt>
             <dd>{positionText(sighting)}</dd>
           </dl>

@@ -2,9 +2,11 @@
 import type { SightingView } from '@shared/schemas/sightings.ts';
 import { useState } from 'react';
 import { positionSourceText } from '../utils/position-source-text.ts';
+import { useDates } from '../../../lib/dates.ts';
 import { countText, PhotoViewer, timeText } from './photo-viewer.tsx';
 
 export function SightingDetails({ sighting }: { sighting: SightingView }) {
+  const dates = useDates();
   const [viewing, setViewing] = useState(false);
   return (
     <div className="w-56 space-y-2 font-sans text-sm text-soil-800" data-sighting-details={sighting.id}>
@@ -27,7 +29,7 @@ export function SightingDetails({ sighting }: { sighting: SightingView }) {
         <dt className="text-soil-600">Scout</dt>
         <dd>{sighting.scoutName}</dd>
         <dt className="text-soil-600">Time</dt>
-        <dd>{timeText(sighting)}</dd>
+        <dd>{timeText(sighting, dates)}</dd>
         <dt className="text-soil-600">Position</dt>
         <dd>
           {positionSourceText(sighting.positionSource)}

@@ -21,7 +21,7 @@ import { errorMessage } from '../../../lib/form-errors.ts';
 import type { PestView as Pest } from '@shared/schemas/pests.ts';
 import { useUpdateSighting } from '../../../lib/api/update-sighting.ts';
 import { fieldSightingsQueryKey } from '../../../lib/api/get-sightings.ts';
-import { dateTime } from '../utils/figures.ts';
+import { useDates } from '../../../lib/dates.ts';
 import { positionSourceText } from '../utils/position-source-text.ts';
 import { downloadText, sightingsCsv, sightingsGeoJson } from '../utils/sightings-export.ts';
 import { CountEditor, PestEditor } from './sighting-edit-cells.tsx';
@@ -78,6 +78,7 @@ export function SightingsTable({
   const [sorting, setSorting] = useState<SortingState>([{ id: 'walkedOn', desc: true }]);
   const [rowSelection, setRowSelection] = useState<RowSelectionState>({});
 
+  const dates = useDates();
   const columns = useMemo(
     () => [
       column.display({
@@ -106,11 +107,12 @@ export function SightingsTable({
         header: 'Walk',
         filterFn: (row, _id, range: { from?: string; to?: string }) =>
           (!range.from || row.original.walkedOn >= range.from) && (!range.to || row.original.walkedOn <= range.to),
+        cell: (info) => <span className="whitespace-nowrap">{dates.calendarDate(info.getValue())}</span>,
       }),
       column.accessor((s) => s.observedAt ?? '', {
         id: 'observedAt',
         header: 'Time',
-        cell: (info) => <span className="whitespace-nowrap">{info.getValue() ? dateTime(info.getValue()) : '—'}</span>,
+        cell: (info) => <span className="whitespace-nowrap">{info.getValue() ? dates.dateTime(info.getValue()) : '—'}</span>,
       }),
       column.accessor('pestName', {
         header: 'Pest',
@@ -154,7 +156,7 @@ export function SightingsTable({
           ) : null,
       }),
     ],
-    [pests, crop, update, onShowOnMap],
+    [pests, crop, update, onShowOnMap, dates],
   );
 
   const columnFilters = useMemo<ColumnFiltersState>(() => {

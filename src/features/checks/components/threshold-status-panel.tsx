@@ -8,6 +8,7 @@ import { fixed, percent } from '../utils/figures.ts';
 import { countWithUnit } from '@shared/units/count-unit.ts';
 import { NeedsConfirmingMark } from '../../../components/needs-confirming-mark.tsx';
 import { NEEDS_CONFIRMING, unconfirmedThresholdSentence } from '@shared/thresholds/threshold-confirmation.ts';
+import { useDates } from '../../../lib/dates.ts';
 
 const statusText = {
   above: 'Above threshold',
@@ -57,6 +58,7 @@ function Figures({ s }: { s: WalkThresholdStatus }) {
 const unconfirmedPestNames = (statuses: WalkThresholdStatus[]) => [...new Set(statuses.filter((s) => !s.thresholdConfirmed).map((s) => s.pestName))].join(', ');
 
 export function ThresholdStatusPanel({ fieldId, pestId }: { fieldId: string; pestId?: string }) {
+  const dates = useDates();
   const statuses = useThresholdStatus(fieldId, pestId);
   return (
     <Panel title="Against the action threshold">
@@ -95,7 +97,7 @@ export function ThresholdStatusPanel({ fieldId, pestId }: { fieldId: string; pes
             <tbody className="divide-y divide-straw-200">
               {statuses.data.map((s) => (
                 <tr key={`${s.walkId}-${s.pestId}`} data-threshold-status={s.status}>
-                  <td className="whitespace-nowrap px-2 py-1.5">{s.walkedOn}</td>
+                  <td className="whitespace-nowrap px-2 py-1.5">{dates.calendarDate(s.walkedOn)}</td>
                   <td className="px-2 py-1.5">{s.pestName}</td>
                   <td className="px-2 py-1.5">
                     <span className={`inline-block whitespace-nowrap rounded px-1.5 py-0.5 text-xs font-semibold ${statusTone[s.status]}`}>
@@ -117,7 +119,7 @@ export function ThresholdStatusPanel({ fieldId, pestId }: { fieldId: string; pes
           <ul className="mt-2 space-y-1 text-xs text-soil-700">
             {statuses.data.map((s) => (
               <li key={`${s.walkId}-${s.pestId}`}>
-                <span className="font-medium">{s.walkedOn}:</span> {s.sentence}
+                <span className="font-medium">{dates.calendarDate(s.walkedOn)}:</span> {s.sentence}
               </li>
             ))}
           </ul>

@@ -1,6 +1,7 @@
 // The spread verdict in words, with the engine's own sentences behind it; never a bare label.
 import type { CheckFigures, CheckView } from '@shared/schemas/checks.ts';
-import { areaBasisLabels, dateTime } from '../utils/figures.ts';
+import { areaBasisLabels } from '../utils/figures.ts';
+import { useDates } from '../../../lib/dates.ts';
 import { spreadLabels } from '../../../lib/spread-labels.ts';
 
 const tone: Record<CheckFigures['spread']['verdict'], string> = {
@@ -27,6 +28,7 @@ const designWords = {
 } as const;
 
 export function VerdictSummary({ check, result }: { check: CheckView; result: CheckFigures }) {
+  const dates = useDates();
   const { spread } = result;
   // Results stored before the design was stated carry no evidence list: their reasons stand as they were.
   const primary = spread.evidence?.find((e) => e.role === 'primary');
@@ -58,7 +60,7 @@ export function VerdictSummary({ check, result }: { check: CheckView; result: Ch
             : spread.decidedBy === 'donnelly'
               ? 'decided by the edge-corrected normal p'
               : `the check needs at least ${spread.minSightings} sightings`}
-        . Check run by {check.createdBy.name}, {dateTime(check.createdAt)}
+        . Check run by {check.createdBy.name}, {dates.dateTime(check.createdAt)}
         {check.reused ? ' · stored result (same sightings and options)' : ''}.
       </p>
       <details className="text-xs text-soil-600" data-technical-details>

@@ -35,9 +35,3 @@ export const areaBasisLabels = {
   hull: 'Convex hull of the sightings',
   custom: 'Custom area',
 } as const;
-
-export function dateTime(iso: string | null): string {
-  if (!iso) return blank;
-  const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? blank : d.toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
-}

@@ -8,6 +8,7 @@ import type { FieldAnswer as Field } from '@shared/schemas/fields.ts';
 import { useFarms } from '../../../lib/api/get-farms.ts';
 import { useFields } from '../../../lib/api/get-fields.ts';
 import { useGrowerNotices } from '../api/get-grower-notices.ts';
+import { useDates } from '../../../lib/dates.ts';
 
 const copyWords: Record<RecipientState, string> = {
   queued: 'On its way to you',
@@ -19,6 +20,7 @@ const copyWords: Record<RecipientState, string> = {
 };
 
 function NoticeRow({ notice }: { notice: GrowerNoticeSummary }) {
+  const dates = useDates();
   const copy = notice.myCopy;
   return (
     <li className="flex flex-wrap items-baseline justify-between gap-2 py-3">
@@ -31,7 +33,7 @@ function NoticeRow({ notice }: { notice: GrowerNoticeSummary }) {
         </Link>
         <p className="text-sm text-soil-700">
           {notice.farmName} · {notice.zoneCount} zone{notice.zoneCount === 1 ? '' : 's'}, <AreaText m2={notice.totalTreatedM2} /> · sent{' '}
-          {notice.sentAt ? new Date(notice.sentAt).toLocaleDateString(undefined, { dateStyle: 'long' }) : '—'}
+          {notice.sentAt ? dates.date(notice.sentAt) : '—'}
         </p>
       </div>
       <p
@@ -39,7 +41,7 @@ function NoticeRow({ notice }: { notice: GrowerNoticeSummary }) {
         data-testid="grower-notice-state"
       >
         {copy ? copyWords[copy.state] : 'Sent to another contact of the farm'}
-        {copy?.acknowledgedAt && ` on ${new Date(copy.acknowledgedAt).toLocaleDateString(undefined, { dateStyle: 'medium' })}`}
+        {copy?.acknowledgedAt && ` on ${dates.date(copy.acknowledgedAt)}`}
       </p>
     </li>
   );

@@ -3,10 +3,12 @@ import { Link } from 'react-router';
 import { Panel } from '../../../components/page-frame.tsx';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { useNotices } from '../../../lib/api/get-notices.ts';
+import { useDates } from '../../../lib/dates.ts';
 
 const statusWords = { draft: 'draft', sending: 'sending', sent: 'sent', 'partly-failed': 'some copies failed' } as const;
 
 export function FieldNoticesPanel({ fieldId }: { fieldId: string }) {
+  const dates = useDates();
   const notices = useNotices(fieldId);
   if (notices.isPending)
     return (
@@ -29,7 +31,7 @@ export function FieldNoticesPanel({ fieldId }: { fieldId: string }) {
           return (
             <li key={n.id} className="flex flex-wrap justify-between gap-2 py-2">
               <Link to={`/notices/${n.id}`} className="font-medium text-field-700 hover:underline">
-                {n.pestName}, zones version {n.zoneSetVersion} · {new Date(n.sentAt ?? n.createdAt).toLocaleDateString()}
+                {n.pestName}, zones version {n.zoneSetVersion} · {dates.date(n.sentAt ?? n.createdAt)}
               </Link>
               <span className="text-soil-700">
                 {statusWords[n.status]}

@@ -13,10 +13,12 @@ import { NoticePreview } from './notice-preview.tsx';
 import { RecipientsTable } from './recipients-table.tsx';
 import { NoticeQuestionsPanel } from './notice-questions-panel.tsx';
 import { SendNoticeDialog } from './send-notice-dialog.tsx';
+import { useDates } from '../../../lib/dates.ts';
 
 const statusWords = { draft: 'Draft, not sent', sending: 'Sending', sent: 'Sent to every contact', 'partly-failed': 'Some copies failed' } as const;
 
 export function NoticePage() {
+  const dates = useDates();
   const { noticeId = '' } = useParams();
   const notice = useNotice(noticeId);
   const send = useSendNotice();
@@ -83,7 +85,7 @@ export function NoticePage() {
         ) : (
           <div className="space-y-3">
             <p className="text-sm text-soil-700">
-              Sent {n.sentAt ? new Date(n.sentAt).toLocaleString() : ''} by {n.createdBy.name}.
+              Sent {n.sentAt ? dates.dateTime(n.sentAt) : ''} by {n.createdBy.name}.
               {isStillSending(n) && <span role="status"> Copies are still going out; this page updates by itself.</span>}
             </p>
             <RecipientsTable notice={n} />
@@ -103,9 +105,7 @@ export function NoticePage() {
 
       <Panel title="Recommendation">
         <p className="whitespace-pre-wrap text-soil-900">{n.recommendation}</p>
-        {n.rescoutOn && (
-          <p className="mt-2 text-sm text-soil-700">Re-scout on {new Date(`${n.rescoutOn}T12:00:00`).toLocaleDateString(undefined, { dateStyle: 'long' })}.</p>
-        )}
+        {n.rescoutOn && <p className="mt-2 text-sm text-soil-700">Re-scout on {dates.calendarDate(n.rescoutOn)}.</p>}
       </Panel>
 
       {n.status !== 'draft' && <NoticeQuestionsPanel noticeId={n.id} />}

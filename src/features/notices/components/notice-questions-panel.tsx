@@ -9,8 +9,7 @@ import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
 import { useNoticeQuestions } from '../api/get-notice-questions.ts';
 import { useAnswerNoticeQuestion } from '../api/answer-notice-question.ts';
-
-const when = (iso: string) => new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+import { useDates } from '../../../lib/dates.ts';
 
 function AnswerForm({ noticeId, question }: { noticeId: string; question: AdviserNoticeQuestionView }) {
   const [text, setText] = useState('');
@@ -36,6 +35,7 @@ function AnswerForm({ noticeId, question }: { noticeId: string; question: Advise
 }
 
 export function NoticeQuestionsPanel({ noticeId }: { noticeId: string }) {
+  const dates = useDates();
   const questions = useNoticeQuestions(noticeId);
   return (
     <Panel title="Grower questions">
@@ -50,14 +50,14 @@ export function NoticeQuestionsPanel({ noticeId }: { noticeId: string }) {
           {questions.data.map((q) => (
             <li key={q.id} className="rounded-md bg-straw-50 p-3 ring-1 ring-inset ring-straw-300">
               <p className="text-xs text-soil-600">
-                {q.askerName} &lt;{q.askerEmail}&gt;, {when(q.askedAt)}
+                {q.askerName} &lt;{q.askerEmail}&gt;, {dates.dateTime(q.askedAt)}
               </p>
               <p className="mt-1 whitespace-pre-wrap text-soil-900">{q.text}</p>
               {q.answer ? (
                 <div className="mt-2 border-l-4 border-field-600 pl-3">
                   <p className="whitespace-pre-wrap text-soil-900">{q.answer.text}</p>
                   <p className="mt-1 text-xs text-soil-600">
-                    Answered by {q.answer.adviserName}, {when(q.answer.answeredAt)}
+                    Answered by {q.answer.adviserName}, {dates.dateTime(q.answer.answeredAt)}
                   </p>
                 </div>
               ) : (

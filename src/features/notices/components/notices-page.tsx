@@ -10,6 +10,7 @@ import { useFarms } from '../../../lib/api/get-farms.ts';
 import { useFields } from '../../../lib/api/get-fields.ts';
 import { useNoticeOverview, type NoticeOverviewFilter } from '../api/get-notice-overview.ts';
 import { RecipientStateBadge } from './recipient-state.tsx';
+import { useDates } from '../../../lib/dates.ts';
 
 const stateWords: Record<NoticeListState, string> = {
   'not-acknowledged': 'Someone has not acknowledged yet',
@@ -31,6 +32,7 @@ function dayStart(day: string, next = false) {
 const isDay = (text: string | null): text is string => !!text && /^\d{4}-\d{2}-\d{2}$/.test(text);
 
 function NoticeRow({ notice }: { notice: NoticeListEntry }) {
+  const dates = useDates();
   const dated = notice.sentAt ?? notice.createdAt;
   return (
     <tr data-notice={notice.id} className="align-top">
@@ -43,7 +45,7 @@ function NoticeRow({ notice }: { notice: NoticeListEntry }) {
         </p>
       </td>
       <td className="whitespace-nowrap px-3 py-2 text-soil-700">
-        {notice.sentAt ? 'Sent' : 'Written'} {new Date(dated).toLocaleDateString()}
+        {notice.sentAt ? 'Sent' : 'Written'} {dates.date(dated)}
       </td>
       <td className="px-3 py-2 text-soil-800">{statusWords[notice.status]}</td>
       <td className="px-3 py-2">

@@ -1,4 +1,5 @@
 // Each grower contact's copy: delivery (queued, sent, failed with its reason), then opened and acknowledged.
+import type { Dates } from '@shared/dates/format-dates.ts';
 import { useState } from 'react';
 import type { NoticeView, RecipientView } from '@shared/schemas/notices.ts';
 import { Button } from '../../../components/button.tsx';
@@ -7,17 +8,16 @@ import { FormMessage } from '../../../components/form-field.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
 import { useRevokeRecipient } from '../api/revoke-recipient.ts';
 import { RecipientStateBadge } from './recipient-state.tsx';
+import { useDates } from '../../../lib/dates.ts';
 
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : null);
-
-function Details({ r }: { r: RecipientView }) {
+function Details({ r, dates }: { r: RecipientView; dates: Dates }) {
   const lines: string[] = [];
   if (r.delivery === 'failed') lines.push(`Not delivered${r.lastError ? `: ${r.lastError}` : ''} (${r.attempts} attempt${r.attempts === 1 ? '' : 's'})`);
-  if (r.smtpAcceptedAt) lines.push(`Accepted by the mail server ${when(r.smtpAcceptedAt)}`);
-  if (r.openedAt) lines.push(`Opened ${when(r.openedAt)}`);
-  if (r.acknowledgedAt) lines.push(`Acknowledged ${when(r.acknowledgedAt)}`);
-  if (r.revokedAt) lines.push(`Link withdrawn ${when(r.revokedAt)}`);
-  else if (r.linkExpiresAt) lines.push(`Link valid until ${new Date(r.linkExpiresAt).toLocaleDateString()}`);
+  if (r.smtpAcceptedAt) lines.push(`Accepted by the mail server ${dates.dateTime(r.smtpAcceptedAt)}`);
+  if (r.openedAt) lines.push(`Opened ${dates.dateTime(r.openedAt)}`);
+  if (r.acknowledgedAt) lines.push(`Acknowledged ${dates.dateTime(r.acknowledgedAt)}`);
+  if (r.revokedAt) lines.push(`Link withdrawn ${dates.dateTime(r.revokedAt)}`);
+  else if (r.linkExpiresAt) lines.push(`Link valid until ${dates.date(r.linkExpiresAt)}`);
   return (
     <ul className="space-y-0.5 text-soil-700">
       {lines.map((line) => (
@@ -30,6 +30,7 @@ function Details({ r }: { r: RecipientView }) {
 }
 
 export function RecipientsTable({ notice }: { notice: NoticeView }) {
+  const dates = useDates();
   const revoke = useRevokeRecipient();
   const [confirming, setConfirming] = useState<RecipientView | null>(null);
   return (
@@ -65,7 +66,7 @@ export function RecipientsTable({ notice }: { notice: NoticeView }) {
                   <RecipientStateBadge state={r.state} />
                 </td>
                 <td className="px-3 py-2 align-top">
-                  <Details r={r} />
+                  <Details r={r} dates={dates} />
                 </td>
                 <td className="px-3 py-2 text-right align-top">
                   {!r.revokedAt && (

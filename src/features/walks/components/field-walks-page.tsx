@@ -15,7 +15,7 @@ import { useStartWalk } from '../api/start-walk.ts';
 import { useKeepForNoSignal } from '../hooks/use-keep-for-no-signal.ts';
 import { useWalksStartedOffline } from '../outbox/use-outbox.ts';
 import { scoutPaths } from '../paths.ts';
-import { walkDate } from './walk-header.tsx';
+import { useDates } from '../../../lib/dates.ts';
 
 /** Today's date on the phone's own calendar, as YYYY-MM-DD. */
 export function localToday() {
@@ -24,6 +24,7 @@ export function localToday() {
 }
 
 export function FieldWalksPage() {
+  const dates = useDates();
   const { fieldId = '' } = useParams();
   const me = useSignedInUser();
   const navigate = useNavigate();
@@ -85,7 +86,7 @@ export function FieldWalksPage() {
               <li key={w.id}>
                 <Link to={scoutPaths.walk(w.id)} className="flex min-h-14 items-center justify-between gap-3 py-3 hover:bg-field-50">
                   <span>
-                    <span className="block font-semibold text-soil-900">{walkDate(w.walkedOn)}</span>
+                    <span className="block font-semibold text-soil-900">{dates.calendarDate(w.walkedOn)}</span>
                     <span className="block text-sm text-soil-700">{w.scoutName}</span>
                   </span>
                   <span className="text-right text-sm text-soil-700">

@@ -4,8 +4,7 @@ import { useSignedInUser } from '../../../lib/auth.ts';
 import type { QueuedStop } from '../outbox/outbox-store.ts';
 import { removeQueued } from '../outbox/outbox-store.ts';
 import { drainOutbox } from '../outbox/outbox-sender.ts';
-
-const time = new Intl.DateTimeFormat('en', { hour: '2-digit', minute: '2-digit' });
+import { useDates } from '../../../lib/dates.ts';
 
 const stateText: Record<QueuedStop['state'], string> = {
   waiting: 'Waiting on this phone for a connection',
@@ -15,6 +14,7 @@ const stateText: Record<QueuedStop['state'], string> = {
 };
 
 export function QueuedStops({ stops }: { stops: QueuedStop[] }) {
+  const dates = useDates();
   const ownerId = useSignedInUser().id;
   const shown = stops.filter((s) => s.state !== 'sent');
   if (!shown.length) return null;
@@ -26,7 +26,7 @@ export function QueuedStops({ stops }: { stops: QueuedStop[] }) {
           data-stop-state={stop.state}
           className={`rounded-lg border-l-8 p-3 ring-1 ring-soil-300/60 ${stop.state === 'refused' ? 'border-patch-600 bg-patch-50 text-patch-700' : 'border-straw-500 bg-straw-100 text-soil-900'}`}
         >
-          <p className="text-sm text-soil-700">Nothing found, {time.format(Date.parse(stop.observedAt))}</p>
+          <p className="text-sm text-soil-700">Nothing found, {dates.time(stop.observedAt)}</p>
           <p className="text-base font-semibold">{stateText[stop.state]}</p>
           {stop.state === 'refused' && <p className="mt-1 text-sm font-medium">{stop.refusal}</p>}
           {stop.state === 'waiting' && stop.lastError && <p className="mt-1 text-sm">{stop.lastError}</p>}

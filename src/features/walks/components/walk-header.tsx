@@ -7,13 +7,10 @@ import { FormMessage, TextAreaField } from '../../../components/form-field.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
 import { useUpdateWalk } from '../api/update-walk.ts';
 import { scoutPaths } from '../paths.ts';
-
-export const walkDate = (isoDate: string) =>
-  new Intl.DateTimeFormat('en', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(
-    new Date(`${isoDate}T00:00:00Z`),
-  );
+import { useDates } from '../../../lib/dates.ts';
 
 export function WalkHeader({ walk, farmName }: { walk: WalkView; farmName?: string }) {
+  const dates = useDates();
   const [notes, setNotes] = useState(walk.notes);
   const update = useUpdateWalk(walk.id);
   useEffect(() => setNotes(walk.notes), [walk.notes]);
@@ -30,7 +27,7 @@ export function WalkHeader({ walk, farmName }: { walk: WalkView; farmName?: stri
           {farmName && <span className="block text-sm font-normal text-soil-700">{farmName}</span>}
         </dd>
         <dt className="text-sm text-soil-600">Date</dt>
-        <dd className="font-semibold text-soil-900">{walkDate(walk.walkedOn)}</dd>
+        <dd className="font-semibold text-soil-900">{dates.calendarDate(walk.walkedOn)}</dd>
         <dt className="text-sm text-soil-600">Scout</dt>
         <dd className="font-semibold text-soil-900">{walk.scoutName}</dd>
         <dt className="text-sm text-soil-600">So far</dt>

@@ -15,7 +15,7 @@ import { scoutPaths } from '../paths.ts';
 import { EmptyStopButton } from './empty-stop-button.tsx';
 import { PestCountPicker } from './pest-count-picker.tsx';
 import { PhotoUploadPanel } from './photo-upload-panel.tsx';
-import { WalkHeader, walkDate } from './walk-header.tsx';
+import { WalkHeader } from './walk-header.tsx';
 import { WalkMap } from './walk-map.tsx';
 import { QueuedStops } from './queued-stops.tsx';
 import { WalkSummaryPanel } from './walk-summary-panel.tsx';
@@ -23,6 +23,7 @@ import type { QueuedPlace } from './queued-markers.tsx';
 import { useOutbox } from '../outbox/use-outbox.ts';
 import { unsentCount } from '../upload-queue.ts';
 import type { QueuedItem, QueuedStop } from '../outbox/outbox-store.ts';
+import { useDates } from '../../../lib/dates.ts';
 
 /** Items of this walk still on the phone (sent ones are sightings on the map already), where their position is known. */
 function queuedPlacesOf(items: QueuedItem[]): QueuedPlace[] {
@@ -34,6 +35,7 @@ function queuedPlacesOf(items: QueuedItem[]): QueuedPlace[] {
 }
 
 export function WalkPage() {
+  const dates = useDates();
   const { walkId = '' } = useParams();
   const me = useSignedInUser();
   const navigate = useNavigate();
@@ -79,7 +81,7 @@ export function WalkPage() {
   const queuedPlaces = queuedPlacesOf(outbox.filter((item) => item.walkId === info.id));
 
   return (
-    <PageFrame title={info.fieldName} eyebrow={`Walk · ${walkDate(info.walkedOn)}`}>
+    <PageFrame title={info.fieldName} eyebrow={`Walk · ${dates.calendarDate(info.walkedOn)}`}>
       <Panel>
         <WalkHeader walk={info} farmName={field.data?.farmName} />
         {keptOnPhone && (

@@ -6,10 +6,12 @@ import { AreaText } from '../../../components/area-text.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { MACHINE_FILE_CAUTION } from '@shared/notices/cautions.ts';
 import { useZoneSets, zoneSetExportUrl } from '../../../lib/api/get-zone-sets.ts';
+import { useDates } from '../../../lib/dates.ts';
 
 const statusWords = { draft: 'Draft', accepted: 'Current', superseded: 'Replaced' } as const;
 
 export function ZoneVersionsPanel({ fieldId, pestId }: { fieldId: string; pestId: string | null }) {
+  const dates = useDates();
   const sets = useZoneSets(fieldId);
   const shown = (sets.data ?? []).filter((s) => !pestId || s.pestId === pestId);
   return (
@@ -35,7 +37,7 @@ export function ZoneVersionsPanel({ fieldId, pestId }: { fieldId: string; pestId
                 </p>
                 <p className="text-soil-600">
                   {s.zoneCount} zone{s.zoneCount === 1 ? '' : 's'}, <AreaText m2={s.totalTreatedM2} /> treated · accepted{' '}
-                  {s.acceptedAt ? new Date(s.acceptedAt).toLocaleString() : '—'} by {s.createdBy.name}
+                  {s.acceptedAt ? dates.dateTime(s.acceptedAt) : '—'} by {s.createdBy.name}
                 </p>
               </div>
               <div className="flex flex-wrap gap-3">

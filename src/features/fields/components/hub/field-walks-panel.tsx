@@ -5,6 +5,7 @@ import type { WalkView } from '@shared/schemas/walks.ts';
 import { Panel } from '../../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../../components/query-states.tsx';
 import { useWalks } from '../../../../lib/api/get-walks.ts';
+import { useDates } from '../../../../lib/dates.ts';
 import { reviewWindowPath } from '@shared/attention-links.ts';
 
 const RECENT = 6;
@@ -17,6 +18,7 @@ function walkHref(role: Role, walk: WalkView): string | null {
 }
 
 export function FieldWalksPanel({ fieldId, role }: { fieldId: string; role: Role }) {
+  const dates = useDates();
   const walks = useWalks(fieldId);
   if (walks.isPending)
     return (
@@ -61,10 +63,10 @@ export function FieldWalksPanel({ fieldId, role }: { fieldId: string; role: Role
                   <td className="py-1.5 pr-2">
                     {href ? (
                       <Link to={href} className="font-medium text-field-700 underline-offset-2 hover:underline">
-                        {walk.walkedOn}
+                        {dates.calendarDate(walk.walkedOn)}
                       </Link>
                     ) : (
-                      walk.walkedOn
+                      dates.calendarDate(walk.walkedOn)
                     )}
                   </td>
                   <td className="py-1.5 pr-2">{walk.scoutName}</td>

@@ -1,0 +1,17 @@
+// How the actor's organisation writes dates (its locale and time zone): read for every page, changed by an admin.
+import type { Actor } from '../auth/passport.ts';
+import { findOrganisationDateFormat, updateOrganisationDateFormat } from '../queries/organisations.ts';
+import { DEFAULT_DATE_FORMAT, type DateFormat } from '../../shared/dates/format-dates.ts';
+import { notFound } from '../errors.ts';
+
+/** The organisation's date format; a visitor (no organisation) gets the default one. */
+export async function dateFormatOf(organisationId: string | undefined): Promise<DateFormat> {
+  if (!organisationId) return DEFAULT_DATE_FORMAT;
+  return (await findOrganisationDateFormat(organisationId)) ?? DEFAULT_DATE_FORMAT;
+}
+
+export async function changeDateFormat(actor: Actor, format: DateFormat): Promise<DateFormat> {
+  const stored = await updateOrganisationDateFormat(actor.organisationId, format);
+  if (!stored) throw notFound('Your organisation');
+  return stored;
+}
