@@ -7,15 +7,15 @@ import { walkListsQueryKey } from '../../../lib/api/get-walks.ts';
 import { allQueued, onOutboxChange, tidyOutbox, walksStartedOffline, type QueuedItem, type WalkStartedOffline } from './outbox-store.ts';
 import { drainOutbox, onItemSent, onSendProgress, resetRetryDelay } from './outbox-sender.ts';
 
-/** The signed-in scout's items in the outbox, kept current with changes from this tab and others. */
-export function useOutbox(): QueuedItem[] {
+/** What `read` answers for the signed-in scout, read again after every outbox change in this tab or another. */
+function useOutboxRead<T>(read: (ownerId: string) => Promise<T[]>): T[] {
   const ownerId = useSignedInUser().id;
-  const [items, setItems] = useState<QueuedItem[]>([]);
+  const [rows, setRows] = useState<T[]>([]);
   useEffect(() => {
     let live = true;
     const load = () =>
-      void allQueued(ownerId).then(
-        (all) => live && setItems(all),
+      void read(ownerId).then(
+        (all) => live && setRows(all),
         () => {},
       );
     load();
@@ -24,30 +24,15 @@ export function useOutbox(): QueuedItem[] {
       live = false;
       stop();
     };
-  }, [ownerId]);
-  return items;
+  }, [ownerId, read]);
+  return rows;
 }
 
+/** The signed-in scout's items in the outbox. */
+export const useOutbox = (): QueuedItem[] => useOutboxRead(allQueued);
+
 /** The signed-in scout's walks started on this phone without signal, settled or not. */
-export function useWalksStartedOffline(): WalkStartedOffline[] {
-  const ownerId = useSignedInUser().id;
-  const [walks, setWalks] = useState<WalkStartedOffline[]>([]);
-  useEffect(() => {
-    let live = true;
-    const load = () =>
-      void walksStartedOffline(ownerId).then(
-        (all) => live && setWalks(all),
-        () => {},
-      );
-    load();
-    const stop = onOutboxChange(load);
-    return () => {
-      live = false;
-      stop();
-    };
-  }, [ownerId]);
-  return walks;
-}
+export const useWalksStartedOffline = (): WalkStartedOffline[] => useOutboxRead(walksStartedOffline);
 
 /** Share of each photo's bytes on their way, by client id. */
 export function useSendProgress(): ReadonlyMap<string, number> {
