@@ -100,9 +100,19 @@ describe('the numbers an adviser reads', () => {
         return box.top < window.innerHeight && box.bottom > 0;
       });
     let viewButton = page.getByRole('button', { name: 'View photo' });
+    // The table may render again while its later parts arrive (the check, the date format); wait for quiet,
+    // and retry a step whose row was replaced under it.
+    await page.waitForLoadState('networkidle');
     for (let i = 0; i < 15 && (await viewButton.count()) === 0; i++) {
-      await buttons.nth(i).scrollIntoViewIfNeeded();
-      expect(await inView()).toBe(false);
+      const scrolledToRow = async () => {
+        try {
+          await buttons.nth(i).scrollIntoViewIfNeeded({ timeout: 2000 });
+          return (await inView()) ? 'map still in view' : 'row in view, map out of view';
+        } catch {
+          return 'row replaced while scrolling';
+        }
+      };
+      await expect.poll(scrolledToRow, { timeout: 10_000 }).toBe('row in view, map out of view');
       await buttons.nth(i).click();
       await expect.poll(inView, { timeout: 5000 }).toBe(true);
       viewButton = page.getByRole('button', { name: 'View photo' });
