@@ -11,7 +11,7 @@ import { sequelize } from '../../server/db.ts';
 import { seedDemo, type DemoIds } from '../../scripts/seed/seed-demo.ts';
 import { DEMO_PASSWORD, demoFields, demoUsers } from '../../scripts/seed/demo-scenario.ts';
 import { createRandom } from '../../shared/analysis/random.ts';
-import type { CheckView } from '../../shared/schemas/checks.ts';
+import type { CheckStopsResponse, CheckView } from '../../shared/schemas/checks.ts';
 import type { AnalysisResult } from '../../shared/analysis/analyse.ts';
 
 const PEST = 'Soybean aphid';
@@ -185,6 +185,65 @@ describe('field review in the browser', () => {
     const rows = records.slice(1);
     expect(rows).toHaveLength(matching);
     expect(rows.every((r) => r.length === records[0].length)).toBe(true);
+    await page.close();
+  });
+
+  it("fetches each stop's Gi* figures only when their table is opened, hot stops first, and points at a stop on the map", async () => {
+    const adviser = demoUsers.find((u) => u.role === 'adviser')!;
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    const stopRequests: string[] = [];
+    page.on('request', (request) => {
+      if (/\/api\/checks\/[^/]+\/stops$/.test(new URL(request.url()).pathname)) stopRequests.push(request.url());
+    });
+    await page.goto(`${server.url}/sign-in`);
+    await page.getByLabel('E-mail address').fill(adviser.email);
+    await page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('heading', { name: 'Needs your attention' }).waitFor();
+    // The field's latest check (the one the journey above ran) opens by itself.
+    await page.goto(`${server.url}/fields/${demo.fields.patchy}/review?pest=${demo.pests[PEST]}`);
+    await page.locator('[data-verdict]').waitFor({ timeout: 60_000 });
+    await expect.poll(() => new URL(page.url()).searchParams.get('check')).toBeTruthy();
+    const checkId = new URL(page.url()).searchParams.get('check')!;
+
+    const disclosure = page.locator('details', { has: page.getByText('Each stop’s figures (Gi*)') });
+    await disclosure.waitFor();
+    expect(stopRequests).toHaveLength(0);
+    await disclosure.locator('summary').click();
+    const table = page.getByRole('table', { name: "Each stop's Gi* figures" });
+    await table.waitFor();
+    expect(stopRequests).toHaveLength(1);
+
+    const stored = (await (await page.request.get(`${server.url}/api/checks/${checkId}/stops`)).json()) as CheckStopsResponse;
+    const hot = stored.giStar.filter((s) => s.hot);
+    const cold = stored.giStar.filter((s) => s.cold);
+    expect(await page.locator('[data-stop-tally]').textContent()).toContain(
+      `${stored.giStar.length} stops with a count: ${hot.length} hot, ${cold.length} cold`,
+    );
+    // Three tight, heavy patches: some stops stand out as hot (Getis & Ord 1992: a high z where high counts sit together).
+    expect(hot.length).toBeGreaterThan(0);
+    const readings = await table.locator('[data-stop-reading]').evaluateAll((cells) => cells.map((c) => c.getAttribute('data-stop-reading')));
+    expect(readings).toHaveLength(Math.min(25, stored.giStar.length));
+    expect(readings.slice(0, Math.min(25, hot.length)).every((r) => r === 'hot')).toBe(true);
+    // The first row is the hot stop with the largest z, written as the engine stored it.
+    const largest = Math.max(...hot.map((s) => s.z));
+    expect(await table.locator('tbody tr').first().locator('td').nth(2).textContent()).toBe(largest.toFixed(2));
+
+    if (stored.giStar.length > 25) {
+      await page.getByRole('button', { name: /^Show \d+ more of/ }).click();
+      await expect.poll(() => table.locator('[data-stop-reading]').count()).toBe(Math.min(50, stored.giStar.length));
+    }
+
+    const inView = () =>
+      page.locator('[data-review-map-frame]').evaluate((el) => {
+        const box = el.getBoundingClientRect();
+        return box.top < window.innerHeight && box.bottom > 0;
+      });
+    const showOnMap = table.getByRole('button', { name: 'Show on map' }).first();
+    await showOnMap.scrollIntoViewIfNeeded();
+    expect(await inView()).toBe(false);
+    await showOnMap.click();
+    await expect.poll(inView, { timeout: 5000 }).toBe(true);
     await page.close();
   });
 });

@@ -1,5 +1,6 @@
 // Every figure behind the verdict, grouped by test, each with its plain-words reading.
 import type { CheckFigures } from '@shared/schemas/checks.ts';
+import type { SightingView } from '@shared/schemas/sightings.ts';
 import { Panel } from '../../../components/page-frame.tsx';
 import { NearestNeighbourFigures } from './nearest-neighbour-figures.tsx';
 import { QuadratFigures } from './quadrat-figures.tsx';
@@ -7,7 +8,19 @@ import { LFunctionChart } from './l-function-chart.tsx';
 import { CountsFigures, CoverageFigures } from './counts-figures.tsx';
 import { ZonesFigures } from './zones-figures.tsx';
 
-export function CheckEvidence({ result, zoneEditorPath }: { result: CheckFigures; zoneEditorPath: string }) {
+export function CheckEvidence({
+  result,
+  checkId,
+  sightings,
+  zoneEditorPath,
+  onShowOnMap,
+}: {
+  result: CheckFigures;
+  checkId: string;
+  sightings: SightingView[];
+  zoneEditorPath: string;
+  onShowOnMap: (sightingId: string) => void;
+}) {
   const alpha = result.spread.alpha;
   return (
     <Panel title="The evidence">
@@ -17,7 +30,7 @@ export function CheckEvidence({ result, zoneEditorPath }: { result: CheckFigures
           <LFunctionChart ripley={result.ripley} />
           <QuadratFigures quadrat={result.quadrat} alpha={alpha} />
         </div>
-        <CountsFigures counts={result.counts} alpha={alpha} />
+        <CountsFigures counts={result.counts} alpha={alpha} stopFigures={{ checkId, sightings, onShowOnMap }} />
         <CoverageFigures coverage={result.coverage} />
         <ZonesFigures result={result} zoneEditorPath={zoneEditorPath} />
       </div>

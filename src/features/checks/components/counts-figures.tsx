@@ -4,8 +4,19 @@ import type { CoverageResult } from '@shared/analysis/coverage.ts';
 import { fixed, metres, percent, pText } from '../utils/figures.ts';
 import { explainMoran } from '../utils/explanations.ts';
 import { Figure, FigureList, SectionTitle, Warning } from './figure-list.tsx';
+import { StopFigures } from './stop-figures.tsx';
+import type { ComponentProps } from 'react';
 
-export function CountsFigures({ counts, alpha }: { counts: CheckFigures['counts']; alpha: number }) {
+export function CountsFigures({
+  counts,
+  alpha,
+  stopFigures,
+}: {
+  counts: CheckFigures['counts'];
+  alpha: number;
+  /** Where the per-stop table fetches its figures and how it points at a stop on the map. */
+  stopFigures: ComponentProps<typeof StopFigures>;
+}) {
   return (
     <section aria-labelledby="counts-title">
       <SectionTitle source="Moran 1950; Getis & Ord 1992, Ord & Getis 1995; Benjamini–Hochberg">
@@ -37,6 +48,7 @@ export function CountsFigures({ counts, alpha }: { counts: CheckFigures['counts'
           </Figure>
         </FigureList>
       )}
+      {counts && <StopFigures {...stopFigures} />}
     </section>
   );
 }

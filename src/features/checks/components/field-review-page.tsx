@@ -211,7 +211,15 @@ export function FieldReviewPage() {
         openHref={(c) => reviewPath(fieldId, { pest: c.pestId, from: c.from, to: c.to, check: c.id })}
         onCompare={compareTwo}
       />
-      {result && check.data && <CheckEvidence result={result} zoneEditorPath={`/fields/${f.id}/zones?checkId=${check.data.id}`} />}
+      {result && check.data && (
+        <CheckEvidence
+          result={result}
+          checkId={check.data.id}
+          sightings={sightings.data ?? []}
+          zoneEditorPath={`/fields/${f.id}/zones?checkId=${check.data.id}`}
+          onShowOnMap={showOnMap}
+        />
+      )}
       <SensitivityStrip key={`${pestId}-${from}-${to}`} request={request} />
       <ThresholdStatusPanel fieldId={fieldId} pestId={pestId} />
       <Panel title="Sightings">
