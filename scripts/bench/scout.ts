@@ -5,8 +5,6 @@
 // - the outbox draining BENCH_SCOUT_PHOTOS (50 by default) photos queued offline once the signal returns, beside
 //   the same photos (fresh bytes, so none is a duplicate) posted straight from Node two at a time, as the phone sends.
 // Measures; never asserts a time. Needs the built client (`npx vite build`), which it makes when missing.
-import fs from 'node:fs';
-import path from 'node:path';
 import { spawnSync } from 'node:child_process';
 import type { AddressInfo } from 'node:net';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
@@ -26,8 +24,8 @@ const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-background-ne
 
 const fixed = (v: number, digits = 0) => Number(v.toFixed(digits));
 
-function ensureBuiltClient() {
-  if (fs.existsSync(path.join(projectRoot, 'dist', 'index.html'))) return;
+/** Builds the client every run: a dist/ left from an older checkout would measure code that is no longer there. */
+function buildClient() {
   const build = spawnSync('npx', ['vite', 'build'], { cwd: projectRoot, encoding: 'utf8' });
   if (build.status !== 0) throw new Error(`vite build failed: ${build.stderr || build.stdout}`);
 }
@@ -93,6 +91,32 @@ async function postStraight(baseUrl: string, session: BenchSession, photos: Buff
   return { ms: performance.now() - started, placed };
 }
 
+/** The drain split into: waiting for the first send, the requests themselves, the phone's own time between them, and the screen catching up. */
+function drainTimeline(sends: Array<{ started: number; ended?: number }>, drainStarted: number, drainEnded: number) {
+  const done = sends.filter((s): s is { started: number; ended: number } => s.ended !== undefined).sort((a, b) => a.started - b.started);
+  if (done.length === 0) return [{ part: 'no photo request seen', ms: '', 'share of drain %': '' }];
+  const total = drainEnded - drainStarted;
+  const requestMs = done.map((s) => s.ended - s.started);
+  // Two sends go at once: the wall time covered by at least one request in flight.
+  let covered = 0;
+  let reach = -Infinity;
+  for (const s of done) {
+    const from = Math.max(s.started, reach);
+    if (s.ended > from) covered += s.ended - from;
+    reach = Math.max(reach, s.ended);
+  }
+  const firstWait = done[0].started - drainStarted;
+  const lastToScreen = drainEnded - Math.max(...done.map((s) => s.ended));
+  const row = (part: string, ms: number) => ({ part, ms: fixed(ms), 'share of drain %': fixed((100 * ms) / total) });
+  return [
+    row('online to the first photo request', firstWait),
+    row('a photo request in flight (wall time)', covered),
+    row('no request in flight between the first and the last', Math.max(...done.map((s) => s.ended)) - done[0].started - covered),
+    row('last answer to every row reading sent', lastToScreen),
+    { part: `median photo request (${done.length} requests)`, ms: fixed(median(requestMs)), 'share of drain %': '' },
+  ];
+}
+
 async function walkCounts(baseUrl: string, session: BenchSession, walkId: string) {
   const res = await fetch(`${baseUrl}/api/walks/${walkId}`, { headers: { cookie: session.cookie } });
   if (!res.ok) throw new Error(`GET /api/walks/${walkId}: ${res.status}`);
@@ -102,7 +126,7 @@ async function walkCounts(baseUrl: string, session: BenchSession, walkId: string
 export async function run(): Promise<BenchTable[]> {
   const photoCount = Number(process.env.BENCH_SCOUT_PHOTOS ?? 50);
   if (!Number.isInteger(photoCount) || photoCount <= 0) throw new Error('BENCH_SCOUT_PHOTOS must be a positive whole number.');
-  ensureBuiltClient();
+  buildClient();
   const database = await startThrowawayDatabase('scout');
   process.env.WORKERS = 'off'; // thumbnails only queue: the figures are the phone's and the upload's, not the thumbnail threads'
   process.env.LOG_LEVEL ??= 'warn'; // the server runs in this process; its request lines would bury the tables
@@ -176,6 +200,16 @@ export async function run(): Promise<BenchTable[]> {
       const states = await rowStates(page);
       return states.length === photoCount && states.every((s) => s === 'waiting');
     });
+    // Where the drain's time goes: each photo request's start and end as the browser saw them.
+    const sends: Array<{ started: number; ended?: number }> = [];
+    const startedAt = new Map<object, number>();
+    page.on('request', (request) => {
+      if (request.method() === 'POST' && new URL(request.url()).pathname === '/api/photos') startedAt.set(request, performance.now());
+    });
+    page.on('requestfinished', (request) => {
+      const started = startedAt.get(request);
+      if (started !== undefined) sends.push({ started, ended: performance.now() });
+    });
     const drainStarted = performance.now();
     await phone.setOffline(false);
     await until(`${photoCount} photos sent`, DRAIN_TIMEOUT_MS, async () => (await rowStates(page)).filter((s) => s === 'sent').length === photoCount);
@@ -199,6 +233,7 @@ export async function run(): Promise<BenchTable[]> {
       seconds: fixed(ms / 1000, 1),
       'photos/s': fixed(photoCount / (ms / 1000), 1),
     });
+    const timeline = drainTimeline(sends, drainStarted, drainStarted + drainMs);
     return [
       {
         title: 'Scout app shell, phone profile (Chromium)',
@@ -211,6 +246,7 @@ export async function run(): Promise<BenchTable[]> {
           drainRow('reference: posted straight from Node', straight.ms, straight.placed),
         ],
       },
+      { title: 'Where the drain’s time went (as the browser saw each photo request)', rows: timeline },
     ];
   } finally {
     await browser?.close();

@@ -1,5 +1,5 @@
 // One photo on its way: name, progress bar, and what became of it, in words a scout reads at a glance.
-import { useEffect, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Link } from 'react-router';
 import type { PhotoOutcome } from '@shared/schemas/sightings.ts';
 import { Button, buttonClass } from '../../../components/button.tsx';
@@ -44,18 +44,25 @@ function stateHeadline(state: UploadEntry['state']) {
   }
 }
 
-/** An object URL for the preview, revoked when the row goes or the preview changes. */
+/**
+ * An object URL for the preview, revoked when the row goes. Each read of the outbox hands back a new Blob of the same
+ * bytes (a preview is made once, when the photo is queued), so the URL follows the preview's size and type, not its
+ * identity: otherwise every item sent would decode every row's image again.
+ */
 function usePreviewUrl(preview: Blob | undefined) {
   const [url, setUrl] = useState<string>();
+  const latest = useRef(preview);
+  latest.current = preview;
+  const sameBytes = preview ? `${preview.size}:${preview.type}` : '';
   useEffect(() => {
-    if (!preview) return;
-    const made = URL.createObjectURL(preview);
+    if (!sameBytes || !latest.current) return;
+    const made = URL.createObjectURL(latest.current);
     setUrl(made);
     return () => {
       URL.revokeObjectURL(made);
       setUrl(undefined);
     };
-  }, [preview]);
+  }, [sameBytes]);
   return url;
 }
 

@@ -13,11 +13,27 @@ function useOutboxRead<T>(read: (ownerId: string) => Promise<T[]>): T[] {
   const [rows, setRows] = useState<T[]>([]);
   useEffect(() => {
     let live = true;
-    const load = () =>
-      void read(ownerId).then(
-        (all) => live && setRows(all),
-        () => {},
-      );
+    // A draining queue changes the outbox twice per item: one read at a time, and one more after it if anything
+    // changed meanwhile, so fifty changes in a burst cost a few reads, not fifty reads of every item.
+    let reading = false;
+    let changedSince = false;
+    const load = () => {
+      if (reading) {
+        changedSince = true;
+        return;
+      }
+      reading = true;
+      changedSince = false;
+      void read(ownerId)
+        .then(
+          (all) => live && setRows(all),
+          () => {},
+        )
+        .finally(() => {
+          reading = false;
+          if (live && changedSince) load();
+        });
+    };
     load();
     const stop = onOutboxChange(load);
     return () => {
@@ -37,7 +53,25 @@ export const useWalksStartedOffline = (): WalkStartedOffline[] => useOutboxRead(
 /** Share of each photo's bytes on their way, by client id. */
 export function useSendProgress(): ReadonlyMap<string, number> {
   const [progress, setProgress] = useState<ReadonlyMap<string, number>>(new Map());
-  useEffect(() => onSendProgress((clientId, share) => setProgress((map) => new Map(map).set(clientId, share))), []);
+  useEffect(() => {
+    // Progress events come many times a frame while bytes go out; the screen takes them once a frame.
+    const pending = new Map<string, number>();
+    let frame: number | undefined;
+    const flush = () => {
+      frame = undefined;
+      const batch = new Map(pending);
+      pending.clear();
+      setProgress((map) => new Map([...map, ...batch]));
+    };
+    const stop = onSendProgress((clientId, share) => {
+      pending.set(clientId, share);
+      frame ??= requestAnimationFrame(flush);
+    });
+    return () => {
+      stop();
+      if (frame !== undefined) cancelAnimationFrame(frame);
+    };
+  }, []);
   return progress;
 }
 
