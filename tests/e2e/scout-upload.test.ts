@@ -189,15 +189,25 @@ describe('scout on a phone', () => {
       await expect.poll(() => rowStates(page), settle).toEqual(['sent', 'waiting']);
       const shakyRow = uploadRows(page).nth(1);
       expect(await shakyRow.textContent()).toContain('The connection dropped');
+      // The waiting photo shows a small preview the phone made (160 px wide, photo-preview.ts), decoded and drawn.
+      const decodedWidth = (row: ReturnType<typeof uploadRows>) =>
+        row.getByRole('img', { name: /^Preview of / }).evaluate((img: HTMLImageElement) => (img.complete ? img.naturalWidth : 0));
+      await expect.poll(() => decodedWidth(shakyRow), settle).toBe(160);
+      const steadyPreview = uploadRows(page).nth(0).getByRole('img', { name: 'Preview of steady.jpg' });
+      const steadyPreviewUrl = await steadyPreview.getAttribute('src');
       await shot(page, '6-dropped');
 
       signal = true;
       await shakyRow.getByRole('button', { name: 'Send now' }).tap();
       await expect.poll(() => rowStates(page), settle).toEqual(['sent', 'sent']);
+      // The other row kept its preview while the outbox changed around it: no new image made and decoded for it.
+      expect(await steadyPreview.getAttribute('src')).toBe(steadyPreviewUrl);
       expect(await uploadRows(page).evaluateAll((items) => items.map((i) => i.getAttribute('data-outcome')))).toEqual(['placed', 'placed']);
 
       await page.reload();
       await expect.poll(() => rowStates(page), settle).toEqual(['sent', 'sent']);
+      // The previews were kept on the phone with the photos: they are back after the reload.
+      await expect.poll(() => decodedWidth(uploadRows(page).nth(1)), settle).toBe(160);
 
       // Sending the same photo again is harmless: the server recognises it.
       await page.getByLabel('Pest').selectOption(pest.id);
