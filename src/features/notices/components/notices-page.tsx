@@ -11,6 +11,7 @@ import { useFields } from '../../../lib/api/get-fields.ts';
 import { useNoticeOverview, type NoticeOverviewFilter } from '../api/get-notice-overview.ts';
 import { RecipientStateBadge } from './recipient-state.tsx';
 import { useDates } from '../../../lib/dates.ts';
+import { useAppConfig } from '../../../lib/app-config.ts';
 import { isCalendarDate } from '@shared/schemas/calendar-date.ts';
 import { dayAfter, startOfDayIn } from '@shared/dates/start-of-day.ts';
 
@@ -77,8 +78,10 @@ export function NoticesPage() {
   const toDay = search.get('to');
   const farms = useFarms();
   const fields = useFields(farmId || undefined);
-  // The days are the organisation's, whatever zone the reader's computer keeps.
+  // The days are the organisation's, whatever zone the reader's computer keeps: a filter by day waits for its zone.
   const { timeZone } = useDates().format;
+  const config = useAppConfig();
+  const zoneKnown = !config.isPending || !(isDay(fromDay) || isDay(toDay));
 
   const filter: NoticeOverviewFilter = {
     ...(farmId ? { farmId } : {}),
@@ -87,7 +90,7 @@ export function NoticesPage() {
     ...(isDay(fromDay) ? { from: startOfDayIn(timeZone, fromDay) } : {}),
     ...(isDay(toDay) ? { before: startOfDayIn(timeZone, dayAfter(toDay)) } : {}),
   };
-  const list = useNoticeOverview(filter);
+  const list = useNoticeOverview(filter, zoneKnown);
 
   const setParam = (key: string, value: string, alsoClear: string[] = []) =>
     setSearch(
