@@ -33,6 +33,12 @@ export const appRoutes: AppRoute[] = [
   { path: 'admin/farms/:farmId/fields/new', roles: ['admin'], Page: lazyPage(() => import('./routes/new-field-page.tsx'), 'NewFieldPage') },
   { path: 'admin/fields/:fieldId/edit', roles: ['admin'], Page: lazyPage(() => import('./routes/edit-field-page.tsx'), 'EditFieldPage') },
   { path: 'admin/pests', roles: ['admin'], nav: 'Pest library', Page: lazyPage(() => import('../features/admin/components/pests-page.tsx'), 'PestsPage') },
+  {
+    path: 'admin/dates',
+    roles: ['admin'],
+    nav: 'Dates and times',
+    Page: lazyPage(() => import('../features/admin/components/date-settings-page.tsx'), 'DateSettingsPage'),
+  },
   { path: 'admin/mailbox', roles: ['admin'], nav: 'Mailbox', Page: lazyPage(() => import('../features/admin/components/mailbox-page.tsx'), 'MailboxPage') },
   { path: 'admin/mailbox/:messageId', roles: ['admin'], Page: lazyPage(() => import('../features/admin/components/mailbox-page.tsx'), 'MailboxPage') },
 

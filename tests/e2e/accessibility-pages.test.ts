@@ -212,6 +212,35 @@ const rows: PageRow[] = [
     },
   },
   {
+    page: '/admin/dates',
+    role: 'admin',
+    device: 'desk',
+    url: () => '/admin/dates',
+    ready: (page) => page.getByTestId('preview-date').waitFor(),
+    keyboard: {
+      does: 'the locale changed with the arrow keys, previewed and saved (then put back for the other rows)',
+      run: async (page, w) => {
+        // A new organisation writes en-GB; the next locale in the list is en-US.
+        await pressOn(page, page.getByLabel('Language and region'), 'ArrowDown');
+        expect(await page.getByLabel('Language and region').inputValue()).toBe('en-US');
+        await page
+          .getByTestId('preview-date')
+          .getByText(/^July /)
+          .waitFor();
+        await tabTo(page, page.getByRole('button', { name: 'Save dates and times' }));
+        await page.keyboard.press('Enter');
+        await page
+          .getByRole('status')
+          .getByText(/Saved\./)
+          .waitFor();
+        await expectAccessible(page);
+        const stored = await w.admin.get('/api/config').expect(200);
+        expect(stored.body.dateFormat.locale).toBe('en-US');
+        await w.admin.put('/api/config/date-format', { locale: 'en-GB', timeZone: stored.body.dateFormat.timeZone }).expect(200);
+      },
+    },
+  },
+  {
     page: '/admin/mailbox',
     role: 'admin',
     device: 'desk',

@@ -51,7 +51,11 @@ export function AdminHome() {
         <Link to="/admin/mailbox" className="font-medium text-field-700 underline">
           mailbox
         </Link>{' '}
-        while no real mail server is configured.
+        while no real mail server is configured. Dates in the app and in e-mails follow your organisation’s{' '}
+        <Link to="/admin/dates" className="font-medium text-field-700 underline">
+          dates and times
+        </Link>
+        .
       </p>
     </PageFrame>
   );

@@ -24,4 +24,5 @@ export const noticeOverviewQueryOptions = (filter: NoticeOverviewFilter) =>
     initialPageParam: undefined as string | undefined,
     getNextPageParam: (page) => page.nextCursor ?? undefined,
   });
-export const useNoticeOverview = (filter: NoticeOverviewFilter) => useInfiniteQuery(noticeOverviewQueryOptions(filter));
+/** `enabled` false holds the request back (the page waits for the organisation's time zone before asking by day). */
+export const useNoticeOverview = (filter: NoticeOverviewFilter, enabled = true) => useInfiniteQuery({ ...noticeOverviewQueryOptions(filter), enabled });

@@ -11,6 +11,9 @@ import { useFields } from '../../../lib/api/get-fields.ts';
 import { useNoticeOverview, type NoticeOverviewFilter } from '../api/get-notice-overview.ts';
 import { RecipientStateBadge } from './recipient-state.tsx';
 import { useDates } from '../../../lib/dates.ts';
+import { useAppConfig } from '../../../lib/app-config.ts';
+import { isCalendarDate } from '@shared/schemas/calendar-date.ts';
+import { dayAfter, startOfDayIn } from '@shared/dates/start-of-day.ts';
 
 const stateWords: Record<NoticeListState, string> = {
   'not-acknowledged': 'Someone has not acknowledged yet',
@@ -23,13 +26,7 @@ const stateWords: Record<NoticeListState, string> = {
 };
 const statusWords = { draft: 'Draft', sending: 'Sending', sent: 'Sent', 'partly-failed': 'Some copies failed' } as const;
 
-/** Local midnight of a YYYY-MM-DD day (the adviser's own day), as an instant; the next day's when `next`. */
-function dayStart(day: string, next = false) {
-  const [y, m, d] = day.split('-').map(Number);
-  return new Date(y, m - 1, d + (next ? 1 : 0)).toISOString();
-}
-
-const isDay = (text: string | null): text is string => !!text && /^\d{4}-\d{2}-\d{2}$/.test(text);
+const isDay = (text: string | null): text is string => !!text && isCalendarDate(text);
 
 function NoticeRow({ notice }: { notice: NoticeListEntry }) {
   const dates = useDates();
@@ -81,15 +78,19 @@ export function NoticesPage() {
   const toDay = search.get('to');
   const farms = useFarms();
   const fields = useFields(farmId || undefined);
+  // The days are the organisation's, whatever zone the reader's computer keeps: a filter by day waits for its zone.
+  const { timeZone } = useDates().format;
+  const config = useAppConfig();
+  const zoneKnown = !config.isPending || !(isDay(fromDay) || isDay(toDay));
 
   const filter: NoticeOverviewFilter = {
     ...(farmId ? { farmId } : {}),
     ...(fieldId ? { fieldId } : {}),
     ...(state ? { state } : {}),
-    ...(isDay(fromDay) ? { from: dayStart(fromDay) } : {}),
-    ...(isDay(toDay) ? { before: dayStart(toDay, true) } : {}),
+    ...(isDay(fromDay) ? { from: startOfDayIn(timeZone, fromDay) } : {}),
+    ...(isDay(toDay) ? { before: startOfDayIn(timeZone, dayAfter(toDay)) } : {}),
   };
-  const list = useNoticeOverview(filter);
+  const list = useNoticeOverview(filter, zoneKnown);
 
   const setParam = (key: string, value: string, alsoClear: string[] = []) =>
     setSearch(
@@ -139,7 +140,7 @@ export function NoticesPage() {
             type="date"
             value={toDay ?? ''}
             onChange={(e) => setParam('to', e.target.value)}
-            hint="Sent on (a draft: written on), both days included."
+            hint={`Sent on (a draft: written on), both days included, as days in the ${timeZone} time zone.`}
           />
         </form>
       </Panel>
