@@ -78,10 +78,13 @@ export interface UncheckedRow {
   pestId: string;
   pestName: string;
   actionThreshold: number;
+  thresholdBasis: ThresholdBasis;
+  countUnit: string;
   thresholdSource: string;
   thresholdConfirmed: boolean;
   checkId: string | null;
   newSightings: number;
+  emptyStops: number;
 }
 
 /** Field and pest pairs with sightings added or edited after their latest check (or never checked). */
@@ -94,8 +97,9 @@ export async function selectUncheckedSightings(organisationId: string): Promise<
         ORDER BY c.field_id, c.pest_id, c.created_at DESC
      )
      SELECT f.id AS "fieldId", f.name AS "fieldName", fa.name AS "farmName", p.id AS "pestId", p.name AS "pestName",
-            p.action_threshold AS "actionThreshold", p.threshold_source AS "thresholdSource", p.threshold_confirmed AS "thresholdConfirmed", l.id AS "checkId",
-            count(*)::int AS "newSightings"
+            p.action_threshold AS "actionThreshold", p.threshold_basis AS "thresholdBasis", p.count_unit AS "countUnit",
+            p.threshold_source AS "thresholdSource", p.threshold_confirmed AS "thresholdConfirmed", l.id AS "checkId",
+            count(*)::int AS "newSightings", count(*) FILTER (WHERE s.photo_id IS NULL AND s.count = 0)::int AS "emptyStops"
        FROM sightings s
        JOIN fields f ON f.id = s.field_id
        JOIN farms fa ON fa.id = f.farm_id

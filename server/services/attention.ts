@@ -1,6 +1,9 @@
 // The adviser's home list: every field and pest that needs action, for the adviser's own organisation only.
 import type { Actor } from '../auth/passport.ts';
-import { MIN_STOPS_TO_CALL, thresholdStatus } from '../../shared/thresholds/threshold-status.ts';
+import { MIN_STOPS_TO_CALL, actionThresholdWords, thresholdStatus } from '../../shared/thresholds/threshold-status.ts';
+import { stopsWord } from '../../shared/units/stops-summary.ts';
+import { datesIn, type Dates } from '../../shared/dates/format-dates.ts';
+import { dateFormatOf } from './organisation-date-format.ts';
 import type { SpreadVerdict } from '../../shared/analysis/spread.ts';
 import type { AttentionField, AttentionResponse, AttentionRescout } from '../../shared/schemas/checks.ts';
 import { noticePath, reviewPath, zoneEditorPath } from '../../shared/attention-links.ts';
@@ -40,9 +43,11 @@ function aboveThresholdLine(row: LatestCheckRow, acceptedZones: AcceptedZoneMean
     checkId: row.checkId,
     meanPerStop: status.meanPerStop,
     actionThreshold: row.actionThreshold,
+    thresholdWords: actionThresholdWords(row, row.countUnit),
     thresholdSource: row.thresholdSource,
     thresholdConfirmed: row.thresholdConfirmed,
     newSightings: 0,
+    emptyStops: 0,
   };
   // The point estimate decides here; the review page shows the interval and whether it is too close to call.
   const estimate = row.thresholdBasis === 'incidence' ? status.shareInfested : status.meanPerStop;
@@ -51,7 +56,7 @@ function aboveThresholdLine(row: LatestCheckRow, acceptedZones: AcceptedZoneMean
     return {
       ...base,
       reason: 'field-above-threshold',
-      message: `${row.pestName} in ${row.fieldName} is above its action threshold over the whole field (${measured}; threshold ${row.actionThreshold}), ${spreadWords(row.verdict)}.`,
+      message: `${row.pestName} in ${row.fieldName} is above its action threshold over the whole field (${measured}; threshold ${base.thresholdWords}), ${spreadWords(row.verdict)}.`,
       link: reviewPath(row.fieldId, row.pestId, row.checkId),
       zoneSetId: null,
     };
@@ -67,7 +72,7 @@ function aboveThresholdLine(row: LatestCheckRow, acceptedZones: AcceptedZoneMean
     return {
       ...base,
       reason: 'patch-above-threshold',
-      message: `${accepted.length} accepted zone${accepted.length === 1 ? '' : 's'} of ${row.pestName} in ${row.fieldName} above the action threshold (up to ${figure(highest)} ${row.countUnit} against ${row.actionThreshold})${fieldMean}.`,
+      message: `${accepted.length} accepted zone${accepted.length === 1 ? '' : 's'} of ${row.pestName} in ${row.fieldName} above the action threshold (up to ${figure(highest)} ${row.countUnit} against ${base.thresholdWords})${fieldMean}.`,
       link: zoneEditorPath(row.fieldId, accepted[0].checkId, accepted[0].zoneSetId),
       zoneSetId: accepted[0].zoneSetId,
     };
@@ -81,14 +86,14 @@ function aboveThresholdLine(row: LatestCheckRow, acceptedZones: AcceptedZoneMean
   return {
     ...base,
     reason: 'patch-above-threshold',
-    message: `${what} of ${row.pestName} in ${row.fieldName} above the action threshold (up to ${figure(highest)} ${row.countUnit} against ${row.actionThreshold})${fieldMean}.`,
+    message: `${what} of ${row.pestName} in ${row.fieldName} above the action threshold (up to ${figure(highest)} ${row.countUnit} against ${base.thresholdWords})${fieldMean}.`,
     link: zones.length > 0 ? zoneEditorPath(row.fieldId, row.checkId) : reviewPath(row.fieldId, row.pestId, row.checkId),
     zoneSetId: null,
   };
 }
 
 /** A field and pest whose latest walk has too few stops to compare with the threshold; or nothing when it has enough. */
-function tooFewStopsLine(row: LatestWalkStopsRow): AttentionField | null {
+function tooFewStopsLine(row: LatestWalkStopsRow, dates: Dates): AttentionField | null {
   const status = thresholdStatus(row.counts ?? [], row);
   if (status.status !== 'too-few') return null;
   // An incidence rule counts every stop, a mean-count rule only the stops with a number.
@@ -101,27 +106,31 @@ function tooFewStopsLine(row: LatestWalkStopsRow): AttentionField | null {
     pestId: row.pestId,
     pestName: row.pestName,
     reason: 'too-few-stops',
-    message: `${row.pestName} in ${row.fieldName}: too few stops to call — scout again. The latest walk (${row.walkedOn}) has ${stops}; at least ${MIN_STOPS_TO_CALL} are needed to compare it with the action threshold.`,
+    message: `${row.pestName} in ${row.fieldName}: too few stops to call — scout again. The latest walk (${dates.calendarDate(row.walkedOn)}) has ${stops}; at least ${MIN_STOPS_TO_CALL} are needed to compare it with the action threshold.`,
     link: reviewPath(row.fieldId, row.pestId, row.checkId),
     checkId: row.checkId,
     zoneSetId: null,
     meanPerStop: status.meanPerStop,
     actionThreshold: row.actionThreshold,
+    thresholdWords: actionThresholdWords(row, row.countUnit),
     thresholdSource: row.thresholdSource,
     thresholdConfirmed: row.thresholdConfirmed,
     newSightings: 0,
+    emptyStops: 0,
   };
 }
 
 export async function fieldsNeedingAttention(actor: Actor): Promise<AttentionResponse> {
-  const [latest, acceptedZones, unchecked, overdue, latestWalks] = await Promise.all([
+  const [latest, acceptedZones, unchecked, overdue, latestWalks, dateFormat] = await Promise.all([
     selectLatestDoneChecks(actor.organisationId),
     selectAcceptedZoneMeans(actor.organisationId),
     selectUncheckedSightings(actor.organisationId),
     selectOverdueRescouts(actor.organisationId),
     selectLatestWalkStops(actor.organisationId),
+    dateFormatOf(actor.organisationId),
   ]);
-  const tooFewStops = latestWalks.map(tooFewStopsLine).filter((line): line is AttentionField => line !== null);
+  const dates = datesIn(dateFormat);
+  const tooFewStops = latestWalks.map((row) => tooFewStopsLine(row, dates)).filter((line): line is AttentionField => line !== null);
   const tooFew = new Set(tooFewStops.map((line) => `${line.fieldId}|${line.pestId}`));
   // Where the latest walk is too thin to call, the field is not called above its threshold either; a patch or an
   // accepted zone above it still shows, since those stand on the stops inside them.
@@ -135,17 +144,18 @@ export async function fieldsNeedingAttention(actor: Actor): Promise<AttentionRes
     pestId: row.pestId,
     pestName: row.pestName,
     reason: 'not-yet-checked',
-    message: row.checkId
-      ? `${row.newSightings} ${row.pestName} sighting${row.newSightings === 1 ? '' : 's'} in ${row.fieldName} added or changed since the last pattern check.`
-      : `${row.newSightings} ${row.pestName} sighting${row.newSightings === 1 ? '' : 's'} in ${row.fieldName} not yet checked.`,
+    // Stops, not sightings: an empty stop is a place the scout looked and found nothing.
+    message: `${stopsWord(row.newSightings)} for ${row.pestName} in ${row.fieldName} ${row.checkId ? 'added or changed since the last pattern check' : 'not yet checked'}: ${row.newSightings - row.emptyStops} with ${row.pestName}, ${row.emptyStops} empty.`,
     link: reviewPath(row.fieldId, row.pestId),
     checkId: row.checkId,
     zoneSetId: null,
     meanPerStop: null,
     actionThreshold: row.actionThreshold,
+    thresholdWords: actionThresholdWords(row, row.countUnit),
     thresholdSource: row.thresholdSource,
     thresholdConfirmed: row.thresholdConfirmed,
     newSightings: row.newSightings,
+    emptyStops: row.emptyStops,
   }));
   const rescoutDue: AttentionRescout[] = overdue.map((row) => ({
     fieldId: row.fieldId,

@@ -249,10 +249,14 @@ export interface AttentionField {
   zoneSetId: string | null;
   meanPerStop: number | null;
   actionThreshold: number;
+  /** The threshold in words with its unit or basis ("250 aphids per plant", "50 % of stops infested"). */
+  thresholdWords: string;
   thresholdSource: string;
   /** False while the admin has not checked the threshold against its published source. */
   thresholdConfirmed: boolean;
+  /** Stops (found and empty) added or changed since the latest check; `emptyStops` of them found nothing. */
   newSightings: number;
+  emptyStops: number;
 }
 export interface AttentionRescout {
   fieldId: string;

@@ -47,6 +47,12 @@ const standardNormal = jstat.jStat.normal;
 /** Fewer counted stops than this and no verdict is given: a walk of about 5 areas is the usual minimum. */
 export const MIN_STOPS_TO_CALL = 5;
 
+/** The action threshold as a person reads it: "250 aphids per plant", "1 beetle per plant" or "50 % of stops infested". */
+export function actionThresholdWords(rule: Pick<ThresholdRule, 'actionThreshold' | 'thresholdBasis'>, countUnit: string): string {
+  if (rule.thresholdBasis === 'incidence') return `${(rule.actionThreshold * 100).toLocaleString('en-GB', { maximumFractionDigits: 1 })} % of stops infested`;
+  return countWithUnit(rule.actionThreshold, countUnit, (v) => v.toLocaleString('en-GB', { maximumFractionDigits: 4 }));
+}
+
 /**
  * Exact interval for a Poisson mean from an observed total x (Garwood 1936, Biometrika 28:437–442):
  * low = χ²(α/2; 2x)/2, high = χ²(1−α/2; 2x+2)/2, quantiles from jstat. Never below zero.

@@ -115,7 +115,10 @@ describe('the adviser’s attention list', () => {
       link: `/fields/${scouted.field.id}/review?pest=${scouted.pest.id}&check=${check.id}`,
     });
     expect(lines[0].message).toContain('too few stops to call — scout again');
-    expect(lines[0].message).toContain(`The latest walk (${daysAgo(1)}) has 3 stops with a count; at least 5 are needed`);
+    // The organisation's default format, en-GB: CLDR's long date "d MMMM y", a calendar day that no time zone shifts.
+    const walkDay = new Intl.DateTimeFormat('en-GB', { dateStyle: 'long', timeZone: 'UTC' }).format(new Date(`${daysAgo(1)}T12:00:00Z`));
+    expect(lines[0].message).toContain(`The latest walk (${walkDay}) has 3 stops with a count; at least 5 are needed`);
+    expect(lines[0].message).not.toMatch(/\d{4}-\d{2}-\d{2}/);
     await expectOutsiderSeesNothingOf(scouted.field.id);
   });
 

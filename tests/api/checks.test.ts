@@ -373,12 +373,24 @@ describe('the adviser’s attention list', () => {
     const patchy = await makeScoutedField(home, patchyStops(91), { pest: { actionThreshold: 2 } });
     await homeAdviser.post('/api/checks', { fieldId: patchy.field.id, pestId: patchy.pest.id, options: { simulations: 99 } }).expect(201);
     const unchecked = await makeScoutedField(home, scatteredStops(92, 8));
+    // Two places the scout looked and found nothing: empty stops, named apart from the sightings.
+    await addSightings(home, { fieldId: unchecked.field.id, walkId: unchecked.walkId, pestId: unchecked.pest.id }, [
+      { lon: TEST_FIELD_CORNER.lon + TEST_FIELD_SIZE.lon * 0.41, lat: TEST_FIELD_CORNER.lat + TEST_FIELD_SIZE.lat * 0.37, count: 0 },
+      { lon: TEST_FIELD_CORNER.lon + TEST_FIELD_SIZE.lon * 0.63, lat: TEST_FIELD_CORNER.lat + TEST_FIELD_SIZE.lat * 0.58, count: 0 },
+    ]);
 
     const res = await homeAdviser.get('/api/advisers/attention').expect(200);
     expect(res.body.aboveThreshold.map((a: { fieldId: string }) => a.fieldId)).toEqual([patchy.field.id]);
     expect(res.body.aboveThreshold[0].meanPerStop).toBeCloseTo(mean(patchyStops(91).map((p) => p.count as number)), 10);
     expect(res.body.notYetChecked.map((a: { fieldId: string }) => a.fieldId)).toEqual([unchecked.field.id]);
-    expect(res.body.notYetChecked[0].newSightings).toBe(8);
+    // Count 0 without a photo is how an empty stop is stored (server/queries/sightings.ts, isEmptyStop): the scattered stops' own zeros and the two added above.
+    const empty = scatteredStops(92, 8).filter((p) => p.count === 0).length + 2;
+    expect(res.body.notYetChecked[0]).toMatchObject({ newSightings: 10, emptyStops: empty });
+    expect(res.body.notYetChecked[0].message).toBe(
+      `10 stops for ${unchecked.pest.name} in ${unchecked.field.name} not yet checked: ${10 - empty} with ${unchecked.pest.name}, ${empty} empty.`,
+    );
+    // A threshold of 2 in the pest's unit (the helper's "aphids per plant"), plural for 2 (CLDR English: "one" only for 1).
+    expect(res.body.aboveThreshold[0].thresholdWords).toBe('2 aphids per plant');
     expect(res.body.aboveThreshold[0].link).toBe(`/fields/${patchy.field.id}/review?pest=${patchy.pest.id}&check=${res.body.aboveThreshold[0].checkId}`);
     expect(res.body.notYetChecked[0].link).toBe(`/fields/${unchecked.field.id}/review?pest=${unchecked.pest.id}`);
     expect(res.body.unacknowledgedNotices).toEqual([]);

@@ -58,7 +58,7 @@ function FieldRow({ item, action }: { item: AttentionField; action: string }) {
         </p>
         <p className="text-sm text-soil-700">{item.message}</p>
         <p className="text-xs text-soil-500">
-          Threshold {item.actionThreshold} — {item.thresholdSource}
+          Threshold {item.thresholdWords} — {item.thresholdSource}
         </p>
         {!item.thresholdConfirmed && <NeedsConfirmingMark />}
       </div>
