@@ -1,6 +1,13 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { dispersionTest, garwoodInterval, meanConfidenceInterval, thresholdStatus, wilsonInterval } from '../../shared/thresholds/threshold-status.ts';
+import {
+  actionThresholdWords,
+  dispersionTest,
+  garwoodInterval,
+  meanConfidenceInterval,
+  thresholdStatus,
+  wilsonInterval,
+} from '../../shared/thresholds/threshold-status.ts';
 
 const meanRule = { actionThreshold: 2, thresholdBasis: 'mean' as const, thresholdSource: 'test source', countUnit: 'larvae per seedling' };
 const incidenceRule = { actionThreshold: 0.5, thresholdBasis: 'incidence' as const, thresholdSource: 'test source' };
@@ -163,5 +170,18 @@ describe('threshold sentence wording', () => {
     expect(status.sentence).toContain('below 1 larva per seedling');
     const two = thresholdStatus([0, 0, 0, 0, 0, 0, 0, 0, 1, 2], meanRule);
     expect(two.sentence).toContain('below 2 larvae per seedling');
+  });
+});
+
+describe('actionThresholdWords', () => {
+  it('writes a mean-count threshold with its unit, singular only for exactly 1 (CLDR English plural rule "one": i = 1 and v = 0)', () => {
+    expect(actionThresholdWords({ actionThreshold: 250, thresholdBasis: 'mean' }, 'aphids per plant')).toBe('250 aphids per plant');
+    expect(actionThresholdWords({ actionThreshold: 1, thresholdBasis: 'mean' }, 'beetles per plant')).toBe('1 beetle per plant');
+    expect(actionThresholdWords({ actionThreshold: 0.5, thresholdBasis: 'mean' }, 'larvae per plant')).toBe('0.5 larvae per plant');
+  });
+
+  it('writes an incidence threshold as the share of stops infested, in per cent (SI brochure §5.4.7: a space before %)', () => {
+    expect(actionThresholdWords({ actionThreshold: 0.5, thresholdBasis: 'incidence' }, 'lesions per leaf')).toBe('50 % of stops infested');
+    expect(actionThresholdWords({ actionThreshold: 0.125, thresholdBasis: 'incidence' }, 'lesions per leaf')).toBe('12.5 % of stops infested');
   });
 });
