@@ -180,7 +180,7 @@ describe('actionThresholdWords', () => {
     expect(actionThresholdWords({ actionThreshold: 0.5, thresholdBasis: 'mean' }, 'larvae per plant')).toBe('0.5 larvae per plant');
   });
 
-  it('writes an incidence threshold as the share of stops infested, in per cent (SI brochure §5.4.7: a space before %)', () => {
+  it('writes an incidence threshold as the share of stops infested, in per cent with a space before % (SI brochure, 9th ed., 2019, section 5.4.7 — the section number from memory)', () => {
     expect(actionThresholdWords({ actionThreshold: 0.5, thresholdBasis: 'incidence' }, 'lesions per leaf')).toBe('50 % of stops infested');
     expect(actionThresholdWords({ actionThreshold: 0.125, thresholdBasis: 'incidence' }, 'lesions per leaf')).toBe('12.5 % of stops infested');
   });
