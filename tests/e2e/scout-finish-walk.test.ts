@@ -1,4 +1,5 @@
-// A scout on a phone finishes a walk and sees its summary: stops, found, empty and the route walked.
+// A scout on a phone finishes a walk and sees its summary (stops, found, empty and the route walked), and the field
+// list marks the field whose walk today is finished.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { length, lineString } from '@turf/turf';
@@ -60,13 +61,18 @@ async function recordedWalk(scout: Client, walkedOn: string) {
   return walk.id;
 }
 
-async function openWalk(context: BrowserContext, walkId: string): Promise<Page> {
+async function openFieldList(context: BrowserContext): Promise<Page> {
   const page = await context.newPage();
   await page.goto(`${server.url}/sign-in`);
   await page.getByLabel('E-mail address').fill(org.users.scout.email);
   await page.getByLabel('Password').fill(TEST_PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).tap();
   await page.getByRole('link', { name: 'Walk a field' }).waitFor();
+  return page;
+}
+
+async function openWalk(context: BrowserContext, walkId: string): Promise<Page> {
+  const page = await openFieldList(context);
   await page.goto(`${server.url}/scout/walks/${walkId}`);
   await page.getByLabel('Pest').waitFor();
   return page;
@@ -91,6 +97,38 @@ describe('scout finishing a walk', () => {
       expect(metres).toBeLessThan(1000);
       expect(await figure('summary-route')).toBe(`${Math.round(metres)} m`);
       expect(await figure('summary-evenness')).toMatch(/^The stops reached \d+ % of the field's \d+ m squares/);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it("needs a connection to finish, then marks the field of today's finished walk on the field list with the time", async () => {
+    const context = await phone();
+    try {
+      const page = await openFieldList(context);
+      await page.getByRole('link', { name: /Creek Bottom/ }).tap();
+      await page.getByRole('button', { name: 'Start a walk for today' }).tap();
+      await page.getByLabel('Pest').waitFor();
+      const walkId = new URL(page.url()).pathname.split('/').pop()!;
+
+      await context.setOffline(true);
+      const finish = page.getByRole('button', { name: 'Finish walk' });
+      await expect.poll(() => finish.isDisabled(), settle).toBe(true);
+      expect(await page.locator('[data-finish-needs-connection]').textContent()).toMatch(/needs a connection/);
+      await context.setOffline(false);
+      await expect.poll(() => finish.isDisabled(), settle).toBe(false);
+      await finish.tap();
+      await page.locator('[data-walk-finished]').waitFor();
+
+      const scout = await signedIn(org.users.scout.email);
+      const { finishedAt } = (await scout.get(`/api/walks/${walkId}`).expect(200)).body.walk as { finishedAt: string };
+      expect(finishedAt).not.toBeNull();
+      // The organisation's default way of writing times (en-GB, Europe/London), through the browser's own Intl (ECMA-402).
+      const time = new Intl.DateTimeFormat('en-GB', { timeStyle: 'short', timeZone: 'Europe/London' }).format(new Date(finishedAt));
+
+      await page.goto(`${server.url}/scout/fields`);
+      const field = page.getByRole('link', { name: /Creek Bottom/ });
+      await expect.poll(() => field.locator('[data-field-finished]').textContent(), settle).toBe(`Finished at ${time}`);
     } finally {
       await context.close();
     }
