@@ -4,11 +4,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { length, lineString } from '@turf/turf';
 import { signedIn, type Client } from '../helpers/http.ts';
-import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
+import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
 import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
 import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { makeJpeg, uploadPhotos } from '../helpers/photos.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
+import { scoutPhone, signInOnPhone, startTodaysWalk } from '../helpers/scout-phone.ts';
 
 const settle = { timeout: 30_000, interval: 200 };
 // Inside the 0.005° × 0.003° test rectangle, at least 60 m apart, in the order they were made.
@@ -61,25 +62,14 @@ async function recordedWalk(scout: Client, walkedOn: string) {
   return walk.id;
 }
 
-async function openFieldList(context: BrowserContext): Promise<Page> {
-  const page = await context.newPage();
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail address').fill(org.users.scout.email);
-  await page.getByLabel('Password').fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).tap();
-  await page.getByRole('link', { name: 'Walk a field' }).waitFor();
-  return page;
-}
-
 async function openWalk(context: BrowserContext, walkId: string): Promise<Page> {
-  const page = await openFieldList(context);
+  const page = await signInOnPhone(context, server.url, org.users.scout.email);
   await page.goto(`${server.url}/scout/walks/${walkId}`);
   await page.getByLabel('Pest').waitFor();
   return page;
 }
 
-const phone = () =>
-  browser.newContext({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+const phone = () => scoutPhone(browser);
 
 describe('scout finishing a walk', () => {
   it('sees stops, found, empty and the route length of the walk', async () => {
@@ -105,11 +95,9 @@ describe('scout finishing a walk', () => {
   it("needs a connection to finish, then marks the field of today's finished walk on the field list with the time", async () => {
     const context = await phone();
     try {
-      const page = await openFieldList(context);
-      await page.getByRole('link', { name: /Creek Bottom/ }).tap();
-      await page.getByRole('button', { name: 'Start a walk for today' }).tap();
+      const page = await signInOnPhone(context, server.url, org.users.scout.email);
+      const walkId = await startTodaysWalk(page, server.url, fieldId);
       await page.getByLabel('Pest').waitFor();
-      const walkId = new URL(page.url()).pathname.split('/').pop()!;
 
       await context.setOffline(true);
       const finish = page.getByRole('button', { name: 'Finish walk' });

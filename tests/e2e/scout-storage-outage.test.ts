@@ -11,13 +11,14 @@ const outage = await vi.hoisted(async () => {
   return made;
 });
 
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { signedIn } from '../helpers/http.ts';
-import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
+import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
 import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
 import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { makeJpeg } from '../helpers/photos.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
+import { scoutPhone, signInOnPhone, startTodaysWalk, uploadRows, uploadStates as rowStates } from '../helpers/scout-phone.ts';
 
 const settle = { timeout: 45_000, interval: 200 };
 const inside = { lon: TEST_FIELD_CORNER.lon + 0.002, lat: TEST_FIELD_CORNER.lat + 0.001 };
@@ -45,23 +46,13 @@ afterAll(async () => {
   await outage.close();
 });
 
-const uploadRows = (page: Page) => page.getByRole('list', { name: 'Photos in this batch' }).getByRole('listitem');
-const rowStates = (page: Page) => uploadRows(page).evaluateAll((items) => items.map((i) => i.getAttribute('data-upload-state')));
-
 describe('scout sending a photo while storage is down', () => {
   it('keeps the photo waiting, sends it again by itself, and places it once after storage is back', async () => {
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    // No service worker, so every upload the page makes is seen and counted here.
+    const context = await scoutPhone(browser);
     try {
-      const page = await context.newPage();
-      await page.goto(`${server.url}/sign-in`);
-      await page.getByLabel('E-mail address').fill(org.users.scout.email);
-      await page.getByLabel('Password').fill(TEST_PASSWORD);
-      await page.getByRole('button', { name: 'Sign in' }).tap();
-      await page.getByRole('link', { name: 'Walk a field' }).waitFor();
-      await page.goto(`${server.url}/scout/fields/${fieldId}`);
-      await page.getByRole('button', { name: 'Start a walk for today' }).tap();
-      await page.waitForURL(/\/scout\/walks\/[0-9a-f-]{36}$/);
-      const walkId = page.url().split('/').at(-1)!;
+      const page = await signInOnPhone(context, server.url, org.users.scout.email);
+      const walkId = await startTodaysWalk(page, server.url, fieldId);
       let uploads = 0;
       page.on('request', (request) => {
         if (request.method() === 'POST' && new URL(request.url()).pathname === '/api/photos') uploads++;
