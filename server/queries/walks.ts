@@ -7,19 +7,19 @@ const walkSelect = `
          to_char(w.walked_on, 'YYYY-MM-DD') AS "walkedOn", w.notes,
          count(s.id) FILTER (WHERE NOT (s.photo_id IS NULL AND s.count = 0))::int AS "sightingCount",
          count(s.id) FILTER (WHERE s.photo_id IS NULL AND s.count = 0)::int AS "stopCount",
-         w.created_at AS "createdAt"
+         w.created_at AS "createdAt", w.finished_at AS "finishedAt"
     FROM walks w
     JOIN fields f ON f.id = w.field_id
     JOIN users u ON u.id = w.scout_id
     LEFT JOIN sightings s ON s.walk_id = w.id AND s.deleted_at IS NULL`;
 
 async function queryWalks(where: string, replacements: Record<string, unknown>, options: InTransaction = {}): Promise<WalkView[]> {
-  const rows = await selectRows<WalkView & { createdAt: Date }>(
+  const rows = await selectRows<WalkView & { createdAt: Date; finishedAt: Date | null }>(
     `${walkSelect} WHERE ${where} GROUP BY w.id, f.name, u.name ORDER BY w.walked_on DESC, w.created_at DESC`,
     replacements,
     options,
   );
-  return rows.map((r) => ({ ...r, createdAt: new Date(r.createdAt).toISOString() }));
+  return rows.map((r) => ({ ...r, createdAt: new Date(r.createdAt).toISOString(), finishedAt: r.finishedAt && new Date(r.finishedAt).toISOString() }));
 }
 
 /** The organisation's walks, newest first: only on the fields in `ids` when given, only on one field when `fieldId` is. */
@@ -87,6 +87,14 @@ export const updateWalk = (id: string, notes: string | null, walkedOn: string | 
     { id, notes, walkedOn },
     options,
   );
+
+/** Marks the walk finished now unless it was already: the first finish stands. True when this call marked it. */
+export const markWalkFinished = async (id: string, options: InTransaction = {}) =>
+  !!(await selectRow<{ id: string }>(
+    'UPDATE walks SET finished_at = now(), updated_at = now() WHERE id = :id AND finished_at IS NULL RETURNING id',
+    { id },
+    options,
+  ));
 
 export interface WalkPestRow {
   walkId: string;

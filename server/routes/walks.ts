@@ -2,8 +2,8 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { requireRole, requireSignedIn, actor } from '../middleware/access.ts';
 import { parse } from '../middleware/validate.ts';
-import { walkCreateSchema, walkListQuerySchema, walkStopSchema, walkUpdateSchema } from '../../shared/schemas/walks.ts';
-import { createWalk, getWalk, listWalks, updateWalk } from '../services/walks.ts';
+import { walkCreateSchema, walkFinishSchema, walkListQuerySchema, walkStopSchema, walkUpdateSchema } from '../../shared/schemas/walks.ts';
+import { createWalk, finishWalk, getWalk, listWalks, updateWalk } from '../services/walks.ts';
 import { recordEmptyStop } from '../services/sightings.ts';
 import { walkSummary } from '../services/walk-summary.ts';
 
@@ -25,6 +25,12 @@ walksRouter.get('/:id', requireSignedIn, async (req, res) => {
 
 walksRouter.get('/:id/summary', requireRole('scout', 'adviser', 'admin'), async (req, res) => {
   res.json({ summary: await walkSummary(actor(req), parse(idParam, req.params).id) });
+});
+
+walksRouter.post('/:id/finish', requireRole('scout', 'adviser', 'admin'), async (req, res) => {
+  const { id } = parse(idParam, req.params);
+  parse(walkFinishSchema, req.body ?? {});
+  res.json({ walk: await finishWalk(actor(req), id) });
 });
 
 walksRouter.patch('/:id', requireSignedIn, async (req, res) => {

@@ -265,7 +265,12 @@ export async function ingestPhotos(actor: Actor, request: IngestRequest, photos:
       results.push({ ...head, ...(await ingestOne(context, photo)) });
     } catch (error) {
       console.error('photo ingest failed:', error);
-      results.push({ ...head, outcome: 'rejected', message: 'Patchwise could not save this photo just now; nothing was kept. Send it again.' });
+      // Not the photo's fault (storage or database not answering): the phone keeps it and sends it again later.
+      results.push({
+        ...head,
+        outcome: 'retry',
+        message: 'Patchwise could not save this photo just now; nothing was kept. It is sent again by itself in a little while.',
+      });
     }
   }
   const stored = results.filter((r) => r.photoId && (r.outcome === 'placed' || r.outcome === 'needs-pin')).map((r) => r.photoId!);

@@ -75,3 +75,15 @@ export async function updateWalk(actor: Actor, id: string, input: WalkUpdateInpu
   });
   return findVisibleWalk(actor, id);
 }
+
+/**
+ * Marks the walk finished for its scout or a desk user; finishing again keeps the first time. Nothing is closed by it:
+ * photos and stops still waiting on a phone for this walk are taken as usual when they arrive late.
+ */
+export async function finishWalk(actor: Actor, id: string) {
+  await writableWalk(actor, id);
+  await sequelize.transaction(async (transaction) => {
+    if (await walks.markWalkFinished(id, { transaction })) await recordAudit(actor, 'finish', 'walk', id, {}, transaction);
+  });
+  return findVisibleWalk(actor, id);
+}

@@ -11,7 +11,9 @@ export const timeFlags = ['missing', 'future', 'old'] as const;
 export type TimeFlag = (typeof timeFlags)[number];
 export const thumbnailStatuses = ['pending', 'ready', 'failed'] as const;
 export type ThumbnailStatus = (typeof thumbnailStatuses)[number];
-export const photoOutcomes = ['placed', 'needs-pin', 'outside', 'duplicate', 'rejected'] as const;
+/** `rejected` and `outside` are final (nothing about the photo will change that); `retry` kept nothing because of a fault on
+ * the server's side (storage or database not answering), so the same photo sent again later may well be placed. */
+export const photoOutcomes = ['placed', 'needs-pin', 'outside', 'duplicate', 'rejected', 'retry'] as const;
 export type PhotoOutcomeKind = (typeof photoOutcomes)[number];
 
 /** Name of the multipart file part for POST /api/photos. */

@@ -23,6 +23,9 @@ export const walkUpdateSchema = z
   .refine((v) => v.notes !== undefined || v.walkedOn !== undefined, { error: 'Change the notes or the walk date.' });
 export type WalkUpdateInput = z.infer<typeof walkUpdateSchema>;
 
+/** Finishing takes no choices: the server's clock records when. */
+export const walkFinishSchema = z.strictObject({}, { error: 'Finishing a walk takes no fields; send an empty body.' });
+
 export const walkListQuerySchema = z.object({
   fieldId: z.uuid({ error: 'That field id is not valid.' }).optional(),
 });
@@ -63,6 +66,8 @@ export interface WalkView {
   sightingCount: number;
   stopCount: number;
   createdAt: string;
+  /** When the walk was finished (ISO 8601), null while it is open. A finished walk still takes late photos and stops from a phone. */
+  finishedAt: string | null;
 }
 
 export interface WalkListResponse {

@@ -7,6 +7,7 @@ import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpe
 import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
 import { addSightings, makeWalk, rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
+import { scoutPhone, signInOnPhone } from '../helpers/scout-phone.ts';
 
 let server: TestServer;
 let browser: Browser;
@@ -55,10 +56,9 @@ async function signIn(page: Page, email: string) {
 
 describe("pest lists that follow the field's crop", () => {
   it("puts the field's crop's pests first in the scout's pest picker", async () => {
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    const context = await scoutPhone(browser);
     try {
-      const page = await context.newPage();
-      await signIn(page, org.users.scout.email);
+      const page = await signInOnPhone(context, server.url, org.users.scout.email);
       await page.getByRole('link', { name: 'Walk a field' }).tap();
       await page.getByRole('link', { name: /Creek Bottom/ }).tap();
       await page.getByRole('button', { name: 'Start a walk for today' }).tap();

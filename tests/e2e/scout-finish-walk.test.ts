@@ -1,13 +1,15 @@
-// A scout on a phone finishes a walk and sees its summary: stops, found, empty and the route walked.
+// A scout on a phone finishes a walk and sees its summary (stops, found, empty and the route walked), and the field
+// list marks the field whose walk today is finished.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { length, lineString } from '@turf/turf';
 import { signedIn, type Client } from '../helpers/http.ts';
-import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
+import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
 import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
 import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { makeJpeg, uploadPhotos } from '../helpers/photos.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
+import { scoutPhone, signInOnPhone, startTodaysWalk } from '../helpers/scout-phone.ts';
 
 const settle = { timeout: 30_000, interval: 200 };
 // Inside the 0.005° × 0.003° test rectangle, at least 60 m apart, in the order they were made.
@@ -61,19 +63,13 @@ async function recordedWalk(scout: Client, walkedOn: string) {
 }
 
 async function openWalk(context: BrowserContext, walkId: string): Promise<Page> {
-  const page = await context.newPage();
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail address').fill(org.users.scout.email);
-  await page.getByLabel('Password').fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).tap();
-  await page.getByRole('link', { name: 'Walk a field' }).waitFor();
+  const page = await signInOnPhone(context, server.url, org.users.scout.email);
   await page.goto(`${server.url}/scout/walks/${walkId}`);
   await page.getByLabel('Pest').waitFor();
   return page;
 }
 
-const phone = () =>
-  browser.newContext({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+const phone = () => scoutPhone(browser);
 
 describe('scout finishing a walk', () => {
   it('sees stops, found, empty and the route length of the walk', async () => {
@@ -91,6 +87,36 @@ describe('scout finishing a walk', () => {
       expect(metres).toBeLessThan(1000);
       expect(await figure('summary-route')).toBe(`${Math.round(metres)} m`);
       expect(await figure('summary-evenness')).toMatch(/^The stops reached \d+ % of the field's \d+ m squares/);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it("needs a connection to finish, then marks the field of today's finished walk on the field list with the time", async () => {
+    const context = await phone();
+    try {
+      const page = await signInOnPhone(context, server.url, org.users.scout.email);
+      const walkId = await startTodaysWalk(page, server.url, fieldId);
+      await page.getByLabel('Pest').waitFor();
+
+      await context.setOffline(true);
+      const finish = page.getByRole('button', { name: 'Finish walk' });
+      await expect.poll(() => finish.isDisabled(), settle).toBe(true);
+      expect(await page.locator('[data-finish-needs-connection]').textContent()).toMatch(/needs a connection/);
+      await context.setOffline(false);
+      await expect.poll(() => finish.isDisabled(), settle).toBe(false);
+      await finish.tap();
+      await page.locator('[data-walk-finished]').waitFor();
+
+      const scout = await signedIn(org.users.scout.email);
+      const { finishedAt } = (await scout.get(`/api/walks/${walkId}`).expect(200)).body.walk as { finishedAt: string };
+      expect(finishedAt).not.toBeNull();
+      // The organisation's default way of writing times (en-GB, Europe/London), through the browser's own Intl (ECMA-402).
+      const time = new Intl.DateTimeFormat('en-GB', { timeStyle: 'short', timeZone: 'Europe/London' }).format(new Date(finishedAt));
+
+      await page.goto(`${server.url}/scout/fields`);
+      const field = page.getByRole('link', { name: /Creek Bottom/ });
+      await expect.poll(() => field.locator('[data-field-finished]').textContent(), settle).toBe(`Finished at ${time}`);
     } finally {
       await context.close();
     }

@@ -3,11 +3,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { signedIn } from '../helpers/http.ts';
-import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
+import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
 import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
 import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { makeJpeg } from '../helpers/photos.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
+import { scoutPhone, signInOnPhone, startTodaysWalk, uploadRows, uploadStates as rowStates } from '../helpers/scout-phone.ts';
 
 const boundary = rectangleBoundary();
 const insideA = { lon: TEST_FIELD_CORNER.lon + 0.001, lat: TEST_FIELD_CORNER.lat + 0.0008 };
@@ -41,28 +42,13 @@ async function assignedField(name: string) {
   return field;
 }
 
-async function phone(): Promise<BrowserContext> {
-  const context = await browser.newContext({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true });
-  await context.grantPermissions(['geolocation'], { origin: server.url });
-  await context.setGeolocation(standing);
-  return context;
-}
+// The service worker runs here: these journeys open the scout's pages from its cache.
+const phone = () => scoutPhone(browser, { serviceWorkers: 'allow', position: standing, origin: server.url });
 
 async function startWalk(context: BrowserContext, fieldId: string): Promise<{ page: Page; walkId: string }> {
-  const page = await context.newPage();
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail address').fill(org.users.scout.email);
-  await page.getByLabel('Password').fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).tap();
-  await page.getByRole('link', { name: 'Walk a field' }).waitFor();
-  await page.goto(`${server.url}/scout/fields/${fieldId}`);
-  await page.getByRole('button', { name: 'Start a walk for today' }).tap();
-  await page.waitForURL(/\/scout\/walks\/[0-9a-f-]{36}$/);
-  return { page, walkId: page.url().split('/').at(-1)! };
+  const page = await signInOnPhone(context, server.url, org.users.scout.email);
+  return { page, walkId: await startTodaysWalk(page, server.url, fieldId) };
 }
-
-const uploadRows = (page: Page) => page.getByRole('list', { name: 'Photos in this batch' }).getByRole('listitem');
-const rowStates = (page: Page) => uploadRows(page).evaluateAll((items) => items.map((i) => i.getAttribute('data-upload-state')));
 const stopStates = (page: Page) =>
   page
     .getByRole('list', { name: 'Stops kept on this phone' })
@@ -83,12 +69,7 @@ async function walkOnServer(walkId: string) {
 
 /** Opens the field's page online until the service worker runs it, so the page and the field's reads are kept. */
 async function openFieldForOffline(context: BrowserContext, fieldId: string): Promise<Page> {
-  const page = await context.newPage();
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail address').fill(org.users.scout.email);
-  await page.getByLabel('Password').fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).tap();
-  await page.getByRole('link', { name: 'Walk a field' }).waitFor();
+  const page = await signInOnPhone(context, server.url, org.users.scout.email);
   await page.goto(`${server.url}/scout/fields/${fieldId}`);
   await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
   await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller), settle).toBe(true);
@@ -248,7 +229,7 @@ describe('scout without signal', () => {
   it('sends again a photo whose connection dropped mid-send, by itself, and records it once', async () => {
     const field = await assignedField('Long Acre');
     // Route interception sees only what no service worker answers.
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    const context = await scoutPhone(browser);
     try {
       const { page, walkId } = await startWalk(context, field.id);
       let dropped = 0;

@@ -2,11 +2,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { signedIn } from '../helpers/http.ts';
-import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
+import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
 import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
 import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { makeJpeg, uploadPhotos } from '../helpers/photos.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
+import { scoutPhone, signInOnPhone } from '../helpers/scout-phone.ts';
 
 const settle = { timeout: 30_000, interval: 200 };
 const insideA = { lon: TEST_FIELD_CORNER.lon + 0.001, lat: TEST_FIELD_CORNER.lat + 0.0008 };
@@ -48,14 +49,9 @@ describe('scout removing a wrong photo', () => {
     const sent = await uploadPhotos(scout, photos, { pestId: pest.id, counts: JSON.stringify([2, 9]) }).expect(200);
     const walkId = sent.body.results[0].walkId as string;
 
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    const context = await scoutPhone(browser);
     try {
-      const page = await context.newPage();
-      await page.goto(`${server.url}/sign-in`);
-      await page.getByLabel('E-mail address').fill(org.users.scout.email);
-      await page.getByLabel('Password').fill(TEST_PASSWORD);
-      await page.getByRole('button', { name: 'Sign in' }).tap();
-      await page.getByRole('link', { name: 'Walk a field' }).waitFor();
+      const page = await signInOnPhone(context, server.url, org.users.scout.email);
       await page.goto(`${server.url}/scout/walks/${walkId}`);
       await expect.poll(() => counts(page), settle).toEqual(['Count 2', 'Count 9']);
 

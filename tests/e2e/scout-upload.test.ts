@@ -6,12 +6,13 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { booleanPointInPolygon } from '@turf/turf';
 import { signedIn } from '../helpers/http.ts';
-import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
+import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
 import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
 import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { makeJpeg } from '../helpers/photos.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
 import { findingsTable, seriousViolations } from '../helpers/accessibility.ts';
+import { scoutPhone, signInOnPhone, uploadRows, uploadStates as rowStates } from '../helpers/scout-phone.ts';
 
 const boundary = rectangleBoundary();
 // Two points well inside the rectangle, away from its middle where the scout will tap.
@@ -56,21 +57,9 @@ afterAll(async () => {
 });
 
 // The service worker is left out here (route interception cannot see what it answers); tests/e2e/scout-offline.test.ts has it.
-const phone = () =>
-  browser.newContext({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+const phone = () => scoutPhone(browser);
 
-async function signInAsScout(context: BrowserContext) {
-  const page = await context.newPage();
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel('E-mail address').fill(org.users.scout.email);
-  await page.getByLabel('Password').fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).tap();
-  await page.getByRole('link', { name: 'Walk a field' }).waitFor();
-  return page;
-}
-
-const uploadRows = (page: Page) => page.getByRole('list', { name: 'Photos in this batch' }).getByRole('listitem');
-const rowStates = (page: Page) => uploadRows(page).evaluateAll((items) => items.map((i) => i.getAttribute('data-upload-state')));
+const signInAsScout = (context: BrowserContext) => signInOnPhone(context, baseUrl, org.users.scout.email);
 
 describe('scout on a phone', () => {
   it('uploads three photos, pins the one without GPS, sees all three on the walk, and corrects one count', async () => {

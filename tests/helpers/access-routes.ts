@@ -123,6 +123,7 @@ export const scoutingRoutes: AccessRow[] = [
   row('GET', '/api/walks/{walk}', anySignedIn(200, { otherAdmin: 404 }), undefined, "the walk's field is on the grower's linked farm"),
   row('GET', '/api/walks/{walk}/summary', recorders(200), undefined, "the scout's own walk; a grower has no walk summaries"),
   row('PATCH', '/api/walks/{walk}', recorders(200), { notes: 'W pattern from the gate' }),
+  row('POST', '/api/walks/{walk}/finish', recorders(200), {}, "the scout's own walk; finishing again keeps the first time, so every caller gets 200"),
   row('POST', '/api/walks/{walk}/stops', recorders(201), (w) => ({ pestId: '{pest}', ...scouting(w).insideAssigned, accuracyM: 5 })),
 
   row(

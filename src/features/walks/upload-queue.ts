@@ -65,9 +65,11 @@ export interface OutboxItemState {
 
 /**
  * What the server's answer for one photo means for the phone: an outcome that kept nothing (outside the field, not a
- * photo) is a refusal that stays on the phone with its sentence; the others are sightings now.
+ * photo) is a refusal that stays on the phone with its sentence; a fault on the server's side (`retry`) leaves the photo
+ * waiting for the next try like a dropped connection; the others are sightings now.
  */
 export function sendResultOf(outcome: PhotoOutcome): SendResult {
+  if (outcome.outcome === 'retry') return { kind: 'unreachable', message: outcome.message };
   if (outcome.outcome === 'outside' || outcome.outcome === 'rejected') return { kind: 'refused', message: outcome.message, outcome };
   return { kind: 'sent', outcome };
 }

@@ -125,6 +125,15 @@ describe('one attempt to send an outbox item', () => {
     expect(afterAttempt(item('b', { state: 'sending' }), sendResultOf({ fileName: 'b.jpg', outcome: 'outside', message: 'Outside.' })).state).toBe('refused');
   });
 
+  it('keeps a photo the server could not save just now waiting to be sent again, with the server’s sentence', () => {
+    const notNow = { fileName: 'leaf.jpg', outcome: 'retry' as const, message: 'Patchwise could not save this photo just now; nothing was kept.' };
+    const after = afterAttempt(item('a', { state: 'sending' }), sendResultOf(notNow));
+    expect(after).toMatchObject({ state: 'waiting', attempts: 1, lastError: notNow.message });
+    expect(after.refusal).toBeUndefined();
+    expect(outboxToSend([after]).map((i) => i.clientId)).toEqual(['a']);
+    expect(unsentCount([after])).toBe(1);
+  });
+
   it('counts placed, needs-a-pin and already-sent photos as sent', () => {
     for (const outcome of ['placed', 'needs-pin', 'duplicate'] as const) {
       expect(afterAttempt(item('a', { state: 'sending' }), sendResultOf({ fileName: 'a.jpg', outcome, message: '' })).state).toBe('sent');

@@ -19,6 +19,7 @@ function walkKeptOnPhone(walk: WalkStartedOffline, scoutName: string): WalkShown
       sightingCount: 0,
       stopCount: 0,
       createdAt: new Date(walk.createdAt).toISOString(),
+      finishedAt: null,
     },
     sightings: [],
     removed: [],

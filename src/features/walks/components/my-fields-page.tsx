@@ -11,10 +11,27 @@ import { useWatchedPosition } from '../../../lib/use-watched-position.ts';
 import { orderFieldsForScout, type PlacedField } from '../field-order.ts';
 import { scoutPaths } from '../paths.ts';
 import { useKeepForNoSignal } from '../hooks/use-keep-for-no-signal.ts';
+import { useAllWalks } from '../../../lib/api/get-walks.ts';
+import { useSignedInUser } from '../../../lib/auth.ts';
+import { useDates } from '../../../lib/dates.ts';
+import { localToday } from './field-walks-page.tsx';
 
 const distance = (m: number) => (m < 1000 ? `${Math.round(m)} m away` : `${(m / 1000).toFixed(1)} km away`);
 
-function FieldLink({ placed }: { placed: PlacedField }) {
+/** When the scout finished today's walk on each field, by field id. */
+function useFinishedToday(): ReadonlyMap<string, string> {
+  const me = useSignedInUser();
+  const walks = useAllWalks();
+  const today = localToday();
+  const finished = new Map<string, string>();
+  for (const walk of walks.data?.walks ?? []) {
+    if (walk.scoutId === me.id && walk.walkedOn === today && walk.finishedAt) finished.set(walk.fieldId, walk.finishedAt);
+  }
+  return finished;
+}
+
+function FieldLink({ placed, finishedAt }: { placed: PlacedField; finishedAt?: string }) {
+  const dates = useDates();
   const { field, inside, distanceM } = placed;
   return (
     <Link
@@ -26,16 +43,22 @@ function FieldLink({ placed }: { placed: PlacedField }) {
         {field.farmName} · {field.crop} {field.season} · <AreaText m2={field.areaM2} />
         {distanceM !== null && ` · ${inside ? 'you are in it' : distance(distanceM)}`}
       </span>
+      {finishedAt && (
+        <span className="mt-1 block text-sm font-semibold text-field-800" data-field-finished>
+          Finished at {dates.time(finishedAt)}
+        </span>
+      )}
     </Link>
   );
 }
 
 function FieldList({ fields, label }: { fields: PlacedField[]; label: string }) {
+  const finishedToday = useFinishedToday();
   return (
     <ul className="space-y-3" aria-label={label}>
       {fields.map((placed) => (
         <li key={placed.field.id}>
-          <FieldLink placed={placed} />
+          <FieldLink placed={placed} finishedAt={finishedToday.get(placed.field.id)} />
         </li>
       ))}
     </ul>

@@ -7,7 +7,7 @@ import { drainOutbox } from '../outbox/outbox-sender.ts';
 import { useDates } from '../../../lib/dates.ts';
 
 const stateText: Record<QueuedStop['state'], string> = {
-  waiting: 'Waiting on this phone for a connection',
+  waiting: 'Waiting on this phone to be sent',
   sending: 'Sending…',
   sent: 'Sent',
   refused: 'Not accepted',

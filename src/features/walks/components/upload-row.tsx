@@ -34,7 +34,7 @@ function headline(outcome: PhotoOutcome, pinned: boolean) {
 function stateHeadline(state: UploadEntry['state']) {
   switch (state) {
     case 'waiting':
-      return { text: 'Waiting on this phone for a connection', look: tone.attention };
+      return { text: 'Waiting on this phone to be sent', look: tone.attention };
     case 'sending':
       return { text: 'Sending…', look: tone.neutral };
     case 'refused':

@@ -148,7 +148,7 @@ export function WalkPage() {
       )}
 
       <Panel title="Finish">
-        <WalkSummaryPanel walkId={info.id} waitingOnPhone={unsentCount(outbox.filter((item) => item.walkId === info.id))} />
+        <WalkSummaryPanel walk={info} keptOnPhone={keptOnPhone} waitingOnPhone={unsentCount(outbox.filter((item) => item.walkId === info.id))} />
       </Panel>
     </PageFrame>
   );

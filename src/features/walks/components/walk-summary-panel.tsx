@@ -1,10 +1,14 @@
-// "Finish walk": the walk at a glance before the scout leaves the field.
-import { useState } from 'react';
+// "Finish walk": marks the walk finished (online only) and shows it at a glance before the scout leaves the field.
 import { formatRouteLength } from '@shared/units/route-length.ts';
-import type { WalkSummary } from '@shared/schemas/walks.ts';
+import type { WalkSummary, WalkView } from '@shared/schemas/walks.ts';
 import { Button } from '../../../components/button.tsx';
+import { FormMessage } from '../../../components/form-field.tsx';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
+import { errorMessage } from '../../../lib/form-errors.ts';
+import { useDates } from '../../../lib/dates.ts';
 import { useWalkSummary } from '../api/get-walk-summary.ts';
+import { useFinishWalk } from '../api/finish-walk.ts';
+import { useOnline } from '../outbox/use-outbox.ts';
 
 function SummaryFigures({ summary }: { summary: WalkSummary }) {
   const figures: Array<[string, string, string]> = [
@@ -38,20 +42,43 @@ function SummaryFigures({ summary }: { summary: WalkSummary }) {
   );
 }
 
-export function WalkSummaryPanel({ walkId, waitingOnPhone }: { walkId: string; waitingOnPhone: number }) {
-  const [finished, setFinished] = useState(false);
-  const summary = useWalkSummary(walkId, finished);
-  if (!finished)
+/** Why the walk cannot be finished from here just now, or null when it can. */
+function whyNotNow(online: boolean, keptOnPhone: boolean) {
+  if (keptOnPhone) return 'This walk is still only on this phone: it can be finished once it has been sent.';
+  if (!online) return 'Finishing the walk needs a connection. Your photos and stops stay on this phone meanwhile.';
+  return null;
+}
+
+export function WalkSummaryPanel({ walk, keptOnPhone, waitingOnPhone }: { walk: WalkView; keptOnPhone: boolean; waitingOnPhone: number }) {
+  const dates = useDates();
+  const online = useOnline();
+  const finish = useFinishWalk(walk.id);
+  const finishedAt = walk.finishedAt ?? finish.data?.walk.finishedAt ?? null;
+  const summary = useWalkSummary(walk.id, !!finishedAt);
+  if (!finishedAt) {
+    const notNow = whyNotNow(online, keptOnPhone);
     return (
-      <Button size="lg" variant="secondary" onClick={() => setFinished(true)}>
-        Finish walk
-      </Button>
+      <div className="space-y-2">
+        <Button size="lg" variant="secondary" disabled={!!notNow} busy={finish.isPending} onClick={() => finish.mutate()}>
+          Finish walk
+        </Button>
+        {notNow && (
+          <p className="text-sm text-soil-700" data-finish-needs-connection>
+            {notNow}
+          </p>
+        )}
+        {finish.isError && <FormMessage>{errorMessage(finish.error)}</FormMessage>}
+      </div>
     );
+  }
   return (
     <section aria-labelledby="walk-summary-title" className="space-y-3">
       <h3 id="walk-summary-title" className="text-lg font-semibold text-soil-900">
         Walk summary
       </h3>
+      <p className="text-base font-semibold text-field-800" data-walk-finished>
+        Finished {dates.dateTime(finishedAt)}
+      </p>
       {waitingOnPhone > 0 && (
         <p role="status" className="text-sm text-soil-700">
           {waitingOnPhone === 1 ? '1 item still waits' : `${waitingOnPhone} items still wait`} on this phone and will count once sent.

@@ -1,0 +1,83 @@
+// A scout sends a photo while the server's photo storage does not answer: the phone keeps it waiting (not refused),
+// tries again by itself, and once storage is back the photo is placed exactly once.
+import { vi, afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+const outage = await vi.hoisted(async () => {
+  const { objectStoreOutage } = await import('../helpers/object-store-outage.ts');
+  const made = await objectStoreOutage();
+  // Before the test server reads its configuration: the S3 driver, pointed at a port nothing listens on yet.
+  process.env.STORAGE_URL = made.storageUrl;
+  Object.assign(process.env, made.credentials);
+  return made;
+});
+
+import type { Browser } from 'playwright-core';
+import { signedIn } from '../helpers/http.ts';
+import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
+import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
+import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
+import { makeJpeg } from '../helpers/photos.ts';
+import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
+import { scoutPhone, signInOnPhone, startTodaysWalk, uploadRows, uploadStates as rowStates } from '../helpers/scout-phone.ts';
+
+const settle = { timeout: 45_000, interval: 200 };
+const inside = { lon: TEST_FIELD_CORNER.lon + 0.002, lat: TEST_FIELD_CORNER.lat + 0.001 };
+
+let server: TestServer;
+let browser: Browser;
+let org: TestOrganisation;
+let pest: { id: string; name: string };
+let fieldId: string;
+
+beforeAll(async () => {
+  server = await startTestServer();
+  browser = await launchBrowser();
+  org = await makeOrganisation('Scout storage outage');
+  const admin = await signedIn(org.users.admin.email);
+  pest = await createPest(admin, { countUnit: 'aphids per plant' });
+  const farm = await createFarm(admin);
+  fieldId = (await createField(admin, farm.id, rectangleBoundary(), { name: 'Sluice Meadow' })).id;
+  await admin.post(`/api/fields/${fieldId}/scouts`, { userId: org.users.scout.id }).expect(204);
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+  await outage.close();
+});
+
+describe('scout sending a photo while storage is down', () => {
+  it('keeps the photo waiting, sends it again by itself, and places it once after storage is back', async () => {
+    // No service worker, so every upload the page makes is seen and counted here.
+    const context = await scoutPhone(browser);
+    try {
+      const page = await signInOnPhone(context, server.url, org.users.scout.email);
+      const walkId = await startTodaysWalk(page, server.url, fieldId);
+      let uploads = 0;
+      page.on('request', (request) => {
+        if (request.method() === 'POST' && new URL(request.url()).pathname === '/api/photos') uploads++;
+      });
+
+      await page.getByLabel('Pest').selectOption(pest.id);
+      await page
+        .getByTestId('gallery-input')
+        .setInputFiles([{ name: 'sluice.jpg', mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: inside, markSeed: 151 }) }]);
+      await page.getByRole('button', { name: 'Send 1 photo' }).tap();
+      await expect.poll(() => uploadRows(page).textContent(), settle).toMatch(/could not save this photo just now/);
+      expect(await rowStates(page)).toEqual(['waiting']);
+      // The phone tries again by itself; the photo still waits, never marked refused.
+      await expect.poll(() => uploads, settle).toBeGreaterThanOrEqual(2);
+      expect(await rowStates(page)).toEqual(['waiting']);
+      const scout = await signedIn(org.users.scout.email);
+      expect((await scout.get(`/api/walks/${walkId}`).expect(200)).body.sightings).toHaveLength(0);
+
+      await outage.restore();
+      await expect.poll(() => rowStates(page), settle).toEqual(['sent']);
+      const stored = (await scout.get(`/api/walks/${walkId}`).expect(200)).body;
+      expect(stored.sightings).toHaveLength(1);
+      expect(stored.walk.sightingCount).toBe(1);
+    } finally {
+      await context.close();
+    }
+  });
+});
