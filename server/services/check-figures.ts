@@ -1,29 +1,39 @@
-// A check's stored answer in two parts: the figures (JSON) and the density grid (binary), so reading a check
-// never drags the grid along and the figures stay within a stated size.
+// A check's stored answer in parts: the figures (JSON), the density grid (binary) and the scouted-area polygons
+// (geometry columns), so reading a check never drags the grid or the polygons along and the figures stay within a
+// stated size. Over 5,000 evenly spread stops the scouted area alone has some 180,000 corners in each of its two
+// polygons, about 14 MB as JSON; in the figures it would break the bound, so it is stored apart (migration 0018).
 import type { AnalysisResult } from '../../shared/analysis/analyse.ts';
 import type { DensityResult } from '../../shared/analysis/density.ts';
+import type { MultiPolygon } from 'geojson';
 
-/** The most bytes a check's stored figures may take (JSON, density grid excluded); 5,000 sightings take about 1 MB. */
+/** The most bytes a check's stored figures may take (JSON, density grid and scouted-area polygons excluded); 5,000 sightings take about 1 MB. */
 export const MAX_FIGURES_BYTES = 4 * 1024 * 1024;
 
 /** The density figures as stored and served: everything but the grid, which has a route of its own. */
 export type StoredDensity = Omit<DensityResult, 'perHa'>;
 
-/** What a finished check rests on, stored in columns beside its figures (migration 0009). */
+/** The figures as stored: the scouted area's scalars, its polygons in columns of their own. */
+export type StoredScouted = Omit<NonNullable<AnalysisResult['scouted']>, 'scouted' | 'notScouted'>;
+
+/** What a finished check rests on, stored in columns beside its figures (migrations 0009 and 0018). */
 export interface DesignColumns {
   design: AnalysisResult['design'];
   stopMerges: AnalysisResult['stops']['merges'];
+  /** RFC 7946 MultiPolygon in longitude/latitude, or null without stops. */
+  scouted: string | null;
   /** RFC 7946 MultiPolygon in longitude/latitude, or null when every part of the field was scouted. */
   notScouted: string | null;
   notScoutedM2: number | null;
 }
 
+const polygonsText = (polygons: MultiPolygon | undefined) => (polygons && polygons.coordinates.length ? JSON.stringify(polygons) : null);
+
 export function designColumns(result: AnalysisResult): DesignColumns {
-  const notScouted = result.scouted?.notScouted;
   return {
     design: result.design,
     stopMerges: result.stops.merges,
-    notScouted: notScouted && notScouted.coordinates.length ? JSON.stringify(notScouted) : null,
+    scouted: polygonsText(result.scouted?.scouted),
+    notScouted: polygonsText(result.scouted?.notScouted),
     notScoutedM2: result.scouted ? result.scouted.notScoutedM2 : null,
   };
 }
@@ -36,7 +46,7 @@ export interface SplitResult {
   figuresBytes: number;
 }
 
-/** Splits the engine's result into its figures and its density grid, without changing any figure. */
+/** Splits the engine's result into its figures, its density grid and its scouted-area polygons, without changing any figure. */
 export function splitResult(result: AnalysisResult): SplitResult {
   const density = result.density;
   let densityGrid: Float64Array | null = null;
@@ -46,7 +56,12 @@ export function splitResult(result: AnalysisResult): SplitResult {
     densityGrid = Float64Array.from(perHa, (value) => (value === null ? Number.NaN : value));
     storedDensity = rest;
   }
-  const figuresJson = JSON.stringify({ ...result, density: storedDensity });
+  let storedScouted: StoredScouted | null = null;
+  if (result.scouted) {
+    const { scouted: _scouted, notScouted: _notScouted, ...scalars } = result.scouted;
+    storedScouted = scalars;
+  }
+  const figuresJson = JSON.stringify({ ...result, density: storedDensity, scouted: storedScouted });
   return { figuresJson, design: designColumns(result), densityGrid, figuresBytes: Buffer.byteLength(figuresJson, 'utf8') };
 }
 
