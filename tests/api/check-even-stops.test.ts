@@ -106,19 +106,22 @@ describe('a check over 5,000 evenly spread stops', () => {
     expect(area.scouted.type).toBe('MultiPolygon');
     // Outside reference: PostGIS buffers each stop by the engine's radius on the spheroid (ST_Buffer on geography works
     // in a suitable UTM zone), unions the discs (GEOS), clips them to the field and measures the union on the spheroid.
-    const measured = await selectOne<{ servedM2: number; unionM2: number; fieldM2: number }>(
+    const measured = await selectOne<{ servedM2: number; unionM2: number; fieldM2: number; notScoutedM2: number }>(
       `WITH discs AS (
          SELECT ST_Union(CAST(ST_Buffer(CAST(s.position AS geography), :radius, 'quad_segs=16') AS geometry)) AS g
            FROM sightings s WHERE s.id = ANY(SELECT unnest(sighting_ids) FROM pattern_checks WHERE id = :id)
        ), field AS (SELECT boundary AS g FROM fields WHERE id = :fieldId)
        SELECT ST_Area(CAST(ST_SetSRID(ST_GeomFromGeoJSON(:served), 4326) AS geography)) AS "servedM2",
               ST_Area(CAST(ST_Intersection(discs.g, field.g) AS geography)) AS "unionM2",
-              ST_Area(CAST(field.g AS geography)) AS "fieldM2"
+              ST_Area(CAST(field.g AS geography)) AS "fieldM2",
+              ST_Area(CAST(ST_SetSRID(ST_GeomFromGeoJSON(:notScouted), 4326) AS geography)) AS "notScoutedM2"
          FROM discs, field`,
-      { id: checkId, fieldId: field.id, radius: radiusM, served: JSON.stringify(area.scouted) },
+      { id: checkId, fieldId: field.id, radius: radiusM, served: JSON.stringify(area.scouted), notScouted: JSON.stringify(area.notScouted) },
     );
     expect(measured.unionM2).toBeGreaterThan(0.5 * measured.fieldM2);
     expect(Math.abs(measured.servedM2 / measured.unionM2 - 1)).toBeLessThan(AREA_TOLERANCE);
+    // The rest of the field, not scouted: the field less PostGIS's union, within the same share of the field.
+    expect(Math.abs(measured.notScoutedM2 - (measured.fieldM2 - measured.unionM2)) / measured.fieldM2).toBeLessThan(AREA_TOLERANCE);
     // The figures' own scouted area is measured on the engine's unsnapped polygons: the same within the same tolerance.
     expect(Math.abs(check.result.scouted.scoutedM2 / measured.unionM2 - 1)).toBeLessThan(AREA_TOLERANCE);
   });
