@@ -24,17 +24,16 @@ export interface PatternCheckRow {
   createdAt: Date;
   updatedAt: Date;
   finishedAt: Date | null;
-  /** From the finished result: the design, the same-stop merges and the not-scouted part of the field. */
+  /** From the finished result: the design, the same-stop merges and how much of the field is not scouted (its polygons are read by checkPartSql). */
   design: 'stops' | 'whole-field' | null;
   stopMerges: unknown[] | null;
-  notScouted: { type: 'MultiPolygon'; coordinates: number[][][][] } | null;
   notScoutedM2: number | null;
 }
 
 const COLUMNS_BUT_RESULT = `id, organisation_id AS "organisationId", field_id AS "fieldId", pest_id AS "pestId", window_from AS "windowFrom",
   window_to AS "windowTo", options, options_hash AS "optionsHash", sighting_ids AS "sightingIds", sightings_hash AS "sightingsHash",
   engine_version AS "engineVersion", status, progress, error, created_by AS "createdBy", created_at AS "createdAt", updated_at AS "updatedAt",
-  finished_at AS "finishedAt", design, stop_merges AS "stopMerges", not_scouted AS "notScouted", not_scouted_m2 AS "notScoutedM2"`;
+  finished_at AS "finishedAt", design, stop_merges AS "stopMerges", not_scouted_m2 AS "notScoutedM2"`;
 const ALL_COLUMNS = `${COLUMNS_BUT_RESULT}, result`;
 
 export const findCheck = (id: string, options: InTransaction = {}) =>
@@ -116,15 +115,25 @@ export interface CheckDesign {
   design: string | null;
   stopMerges: unknown[] | null | undefined;
   notScoutedM2: number | null;
+  /** RFC 7946 MultiPolygon text, or null. */
+  scouted: string | null;
   notScouted: string | null;
 }
 
-/** Stores the figures as the thread serialised them (JSON text) with the design facts read from them. */
+// Polygons are stored on a grid of 1e-6 degrees (about 0.11 m north–south, 0.08 m east–west at 45°): well inside a
+// phone's GPS error (metres under open sky), so no figure a scout could stand behind is lost. ST_ReducePrecision
+// snaps and keeps the polygons valid, where rounding each corner alone can fold the thin necks between stop discs.
+const POLYGON_GRID_DEGREES = 1e-6;
+const storedPolygons = (param: string) =>
+  `CASE WHEN CAST(:${param} AS text) IS NULL THEN NULL
+        ELSE ST_Multi(ST_CollectionExtract(ST_ReducePrecision(ST_SetSRID(ST_GeomFromGeoJSON(CAST(:${param} AS text)), 4326), :grid), 3)) END`;
+
+/** Stores the figures as the thread serialised them (JSON text) with the design facts and scouted-area polygons read from them. */
 export const storeCheckResult = (checkId: string, figuresJson: string, design: CheckDesign, options: InTransaction = {}) =>
   execute(
     `UPDATE pattern_checks SET status = 'done', progress = 1, result = CAST(:figures AS jsonb), error = NULL, finished_at = now(), updated_at = now(),
               design = :design, stop_merges = CAST(:stopMerges AS jsonb), not_scouted_m2 = :notScoutedM2,
-              not_scouted = CASE WHEN CAST(:notScouted AS text) IS NULL THEN NULL ELSE ST_Multi(ST_SetSRID(ST_GeomFromGeoJSON(CAST(:notScouted AS text)), 4326)) END
+              scouted = ${storedPolygons('scouted')}, not_scouted = ${storedPolygons('notScouted')}
         WHERE id = :checkId`,
     {
       checkId,
@@ -132,7 +141,9 @@ export const storeCheckResult = (checkId: string, figuresJson: string, design: C
       design: design.design,
       stopMerges: JSON.stringify(design.stopMerges ?? []),
       notScoutedM2: design.notScoutedM2,
+      scouted: design.scouted,
       notScouted: design.notScouted,
+      grid: POLYGON_GRID_DEGREES,
     },
     options,
   );
@@ -141,8 +152,9 @@ export const storeCheckResult = (checkId: string, figuresJson: string, design: C
 export const findCheckFiguresText = async (id: string) =>
   (await selectRow<{ figures: string | null }>('SELECT result::text AS figures FROM pattern_checks WHERE id = :id', { id }))?.figures ?? null;
 
-// The answer's figures leave out what grows with the sightings (per-stop figures, quadrat cells, the scouted-area
-// polygons); each has a route of its own (checkPartSql) and only its size stays behind, so the page knows it exists.
+// The answer's figures leave out what grows with the sightings (per-stop figures, quadrat cells; the scouted-area
+// polygons are stored in columns of their own); each has a route of its own (checkPartSql) and only its size stays
+// behind, so the page knows it exists.
 const withoutCells = (key: string) =>
   `CASE WHEN jsonb_typeof(result->'${key}') = 'object'
      THEN (result->'${key}') - 'cells' || jsonb_build_object('cellCount', jsonb_array_length(result#>'{${key},cells}')) ELSE result->'${key}' END`;
@@ -150,7 +162,7 @@ const LEAN_FIGURES = `CASE WHEN jsonb_typeof(result) = 'object' THEN result || j
     'stops', (result->'stops') - 'merges',
     'scouted', CASE WHEN jsonb_typeof(result->'scouted') = 'object'
       THEN (result->'scouted') - 'scouted' - 'notScouted'
-        || jsonb_build_object('notScoutedParts', coalesce(jsonb_array_length(result#>'{scouted,notScouted,coordinates}'), 0))
+        || jsonb_build_object('notScoutedParts', coalesce(ST_NumGeometries(not_scouted), 0))
       ELSE result->'scouted' END,
     'quadrat', ${withoutCells('quadrat')},
     'stopsQuadrat', ${withoutCells('stopsQuadrat')},
@@ -165,7 +177,10 @@ export const findCheckLeanFiguresText = async (id: string) =>
 const checkPartSql = {
   stops: `jsonb_build_object('merges', coalesce(result#>'{stops,merges}', '[]'), 'giStar', coalesce(result#>'{counts,giStar}', '[]'))`,
   quadrats: `jsonb_build_object('quadratCells', result#>'{quadrat,cells}', 'stopsQuadratCells', result#>'{stopsQuadrat,cells}')`,
-  'scouted-area': `jsonb_build_object('scouted', result#>'{scouted,scouted}', 'notScouted', result#>'{scouted,notScouted}')`,
+  // From the geometry columns (migration 0018), at the 6 decimals they are stored to; a scouted check with every
+  // part of the field scouted answers an empty not-scouted MultiPolygon, as the engine does.
+  'scouted-area': `json_build_object('scouted', CAST(ST_AsGeoJSON(scouted, 6) AS json), 'notScouted', CASE WHEN scouted IS NULL THEN NULL
+     ELSE coalesce(CAST(ST_AsGeoJSON(not_scouted, 6) AS json), CAST('{"type":"MultiPolygon","coordinates":[]}' AS json)) END)`,
   'sighting-ids': `jsonb_build_object('sightingIds', to_jsonb(sighting_ids))`,
 } as const;
 export type CheckPart = keyof typeof checkPartSql;

@@ -105,7 +105,10 @@ export interface CheckQuadratsResponse {
   stopsQuadratCells: StopsQuadratResult['cells'] | null;
 }
 
-/** GET /api/checks/:id/scouted-area: where the stops speak for the crop and the rest (longitude/latitude), null without stops. */
+/**
+ * GET /api/checks/:id/scouted-area: where the stops speak for the crop and the rest (longitude/latitude, on a grid of
+ * 1e-6°, about 0.1 m), null without stops. The figures' scoutedM2 and notScoutedM2 are measured before that rounding.
+ */
 export interface CheckScoutedAreaResponse {
   scouted: MultiPolygon | null;
   notScouted: MultiPolygon | null;
