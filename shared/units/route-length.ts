@@ -1,6 +1,7 @@
 // The length of a walk's route: the stops joined in the order they were made, measured on the sphere by turf's
 // `length` (great-circle distance, turf's mean Earth radius of 6 371 008.8 m).
 import { length, lineString } from '@turf/turf';
+import { withUnit } from './unit-symbols.ts';
 
 export interface RoutePoint {
   lon: number;
@@ -15,5 +16,5 @@ export function routeLengthM(stops: RoutePoint[]): number {
 
 /** "640 m" under a kilometre, "1.25 km" from there on. */
 export function formatRouteLength(metres: number): string {
-  return metres < 1000 ? `${Math.round(metres)} m` : `${(metres / 1000).toFixed(2)} km`;
+  return metres < 1000 ? withUnit(String(Math.round(metres)), 'metre') : withUnit((metres / 1000).toFixed(2), 'kilometre');
 }

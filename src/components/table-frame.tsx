@@ -39,7 +39,7 @@ export function TableGrid<Row>({ caption, table, rowClassName }: { caption: stri
     <div className="relative overflow-x-auto rounded-lg bg-white ring-1 ring-soil-300/60">
       <table className="min-w-full text-left text-sm">
         <caption className="sr-only">{caption}</caption>
-        <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
+        <thead className="bg-straw-100 text-xs text-soil-700">
           {table.getHeaderGroups().map((group) => (
             <tr key={group.id}>
               {group.headers.map((header) => {

@@ -13,7 +13,7 @@ export function NoticeZoneTable({ zones, totalTreatedM2, untreatedShare }: { zon
     <SidewaysScroll label="Treatment zones" className="rounded-lg ring-1 ring-soil-300/60 print:ring-soil-400">
       <table className="min-w-full text-left text-sm">
         <caption className="sr-only">Treatment zones</caption>
-        <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
+        <thead className="bg-straw-100 text-xs text-soil-700">
           <tr>
             <th scope="col" className="sticky left-0 bg-straw-100 px-3 py-2">
               Zone

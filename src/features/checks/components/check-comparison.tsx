@@ -18,7 +18,7 @@ export function CheckComparison({ field, earlier, later, closeHref }: { field: F
     <Panel title="Two checks compared" className="space-y-3">
       <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-soil-300/60">
         <table className="min-w-full text-left text-sm" aria-label="Two checks compared" data-comparison>
-          <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
+          <thead className="bg-straw-100 text-xs text-soil-700">
             <tr>
               <th scope="col" className="px-2 py-1.5">
                 Figure

@@ -52,7 +52,7 @@ export function PastChecksPanel({
     <Panel title="Past checks">
       <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-soil-300/60">
         <table className="min-w-full text-left text-sm" aria-label="Past checks of this field">
-          <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
+          <thead className="bg-straw-100 text-xs text-soil-700">
             <tr>
               <th scope="col" className="px-2 py-1.5">
                 Compare

@@ -65,7 +65,7 @@ export function SensitivityStrip({ request }: { request: CheckRequestInput | nul
           <div className="overflow-x-auto">
             <table className="w-full text-left text-sm">
               <caption className="sr-only">Verdict by area basis and cell size</caption>
-              <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
+              <thead className="bg-straw-100 text-xs text-soil-700">
                 <tr>
                   <th scope="col" className="px-2 py-1.5">
                     Area basis

@@ -72,7 +72,7 @@ export function ThresholdStatusPanel({ fieldId, pestId }: { fieldId: string; pes
         <div className="overflow-x-auto">
           <table className="w-full text-left text-sm">
             <caption className="sr-only">Threshold status per walk and pest</caption>
-            <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
+            <thead className="bg-straw-100 text-xs text-soil-700">
               <tr>
                 <th scope="col" className="px-2 py-1.5">
                   Walk

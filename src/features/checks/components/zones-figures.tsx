@@ -25,16 +25,16 @@ export function ZonesFigures({ result, zoneEditorPath }: { result: CheckFigures;
       {zones.features.length > 0 && (
         <table className="mt-2 w-full text-left text-xs">
           <caption className="sr-only">Proposed treatment zones</caption>
-          <thead className="bg-straw-100 uppercase tracking-wide text-soil-700">
+          <thead className="bg-straw-100 text-soil-700">
             <tr>
               <th scope="col" className="px-2 py-1">
                 Zone
               </th>
               <th scope="col" className="px-2 py-1 text-right">
-                ha
+                Area (ha)
               </th>
               <th scope="col" className="px-2 py-1 text-right">
-                ac
+                Area (ac)
               </th>
               <th scope="col" className="px-2 py-1 text-right">
                 Share of field

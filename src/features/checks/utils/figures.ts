@@ -1,4 +1,6 @@
 // Formatting of the engine's figures for screen: digits and units only, never a new computation.
+import { withUnit } from '@shared/units/unit-symbols.ts';
+import { toAcres, toHectares } from '@shared/units/area.ts';
 
 const blank = '—';
 
@@ -15,14 +17,11 @@ export function pText(value: number | null | undefined): string {
 }
 
 export function metres(value: number | null | undefined, digits = 1): string {
-  return isFigure(value) ? `${value.toFixed(digits)} m` : blank;
+  return isFigure(value) ? withUnit(value.toFixed(digits), 'metre') : blank;
 }
 
-const M2_PER_HA = 10_000;
-const M2_PER_AC = 4046.8564224;
-
 export function hectaresAndAcres(m2: number | null | undefined): string {
-  return isFigure(m2) ? `${(m2 / M2_PER_HA).toFixed(2)} ha · ${(m2 / M2_PER_AC).toFixed(2)} ac` : blank;
+  return isFigure(m2) ? `${withUnit(toHectares(m2).toFixed(2), 'hectare')} · ${withUnit(toAcres(m2).toFixed(2), 'acre')}` : blank;
 }
 
 export function percent(share: number | null | undefined, digits = 0): string {

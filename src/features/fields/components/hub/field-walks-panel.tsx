@@ -39,7 +39,7 @@ export function FieldWalksPanel({ fieldId, role }: { fieldId: string; role: Role
         <EmptyState title="No walks yet">A scout’s visit shows here with its sightings and stops.</EmptyState>
       ) : (
         <table className="w-full text-left text-sm" aria-label="Recent walks">
-          <thead className="text-xs uppercase tracking-wide text-soil-600">
+          <thead className="text-xs text-soil-600">
             <tr>
               <th scope="col" className="py-1 pr-2">
                 Day

@@ -1,0 +1,91 @@
+// What a person reads in the zone tables, as the browser renders it: unit symbols keep their case through any styling.
+// `innerText` is the text after CSS (text-transform applied, WHATWG HTML "innerText getter"), so an upper-casing style
+// would show here as "HA" or "25 M". Unit symbols: SI Brochure (BIPM, 9th ed. 2019) §5.2, symbols never change case;
+// "ha" Table 8; "ac" is common practice in agriculture.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Locator, Page } from 'playwright-core';
+import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
+import { signedIn, type Client } from '../helpers/http.ts';
+import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
+import { noticeLinkToken, waitForMessage } from '../helpers/mailbox.ts';
+import { acceptProposedZones, addContacts, makeCheckedField, type ScoutedCheck } from '../helpers/zones.ts';
+
+let server: TestServer;
+let browser: Browser;
+let org: TestOrganisation;
+let adviser: Client;
+let scouted: ScoutedCheck;
+let noticeToken: string;
+const contact = { name: 'Units contact', email: `units-${Date.now()}@farm.example` };
+
+beforeAll(async () => {
+  [server, browser, org] = await Promise.all([startTestServer({ workers: true }), launchBrowser(), makeOrganisation('Units and dates')]);
+  adviser = await signedIn(org.users.adviser.email);
+  scouted = await makeCheckedField(org, adviser, { fieldName: 'Units meadow' });
+  await addContacts(scouted.field.farmId, [contact]);
+  const zoneSet = await acceptProposedZones(adviser, scouted);
+  const drafted = await adviser
+    .post('/api/notices', { fieldId: scouted.field.id, zoneSetId: zoneSet.id, recommendation: 'Spot-spray the zones this week.', rescoutOn: '2026-07-14' })
+    .expect(201);
+  await adviser.post(`/api/notices/${drafted.body.notice.id}/send`).expect(202);
+  const [mail] = await waitForMessage(contact.email, 1, 30_000);
+  noticeToken = noticeLinkToken(mail);
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+async function signInAsAdviser(page: Page) {
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail address').fill(org.users.adviser.email);
+  await page.getByLabel('Password').fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('button', { name: 'Sign out' }).waitFor();
+}
+
+const shown = (locator: Locator) => locator.evaluate((el) => (el as HTMLElement).innerText);
+
+/** The area headers read "Area (ha)" and "Area (ac)" as rendered, with no symbol upper-cased. */
+async function expectAreaHeaders(table: Locator) {
+  const headers = await shown(table.locator('thead'));
+  expect(headers).toContain('Area (ha)');
+  expect(headers).toContain('Area (ac)');
+  expect(headers).not.toMatch(/\bHA\b|\bAC\b/);
+}
+
+describe('unit symbols as the browser renders them', () => {
+  it('keeps "ha", "ac" and "m" in lower case in the review page’s zone and robustness tables and in the zone editor', async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    await signInAsAdviser(page);
+    await page.goto(`${server.url}/fields/${scouted.field.id}/review?pest=${scouted.pest.id}`);
+    await page.locator('[data-verdict]').waitFor({ timeout: 60_000 });
+    await expectAreaHeaders(page.getByRole('table', { name: 'Proposed treatment zones' }));
+    // The bandwidth figure, as written beside its name.
+    expect(await shown(page.locator('[data-figure="bandwidth"]'))).toMatch(/\d m$/);
+
+    await page.getByRole('button', { name: 'Test robustness' }).click();
+    const robustness = page.getByRole('table', { name: 'Verdict by area basis and cell size' });
+    await robustness.waitFor({ timeout: 120_000 });
+    const robustnessHeaders = await shown(robustness.locator('thead'));
+    // "Cells × 2 (25 m)": the cell side in metres beside each factor.
+    expect(robustnessHeaders).toMatch(/× \d+(\.\d+)? \(\d+ m\)/);
+    expect(robustnessHeaders).not.toMatch(/\d M\b/);
+
+    await page.goto(`${server.url}/fields/${scouted.field.id}/zones?checkId=${scouted.checkId}`);
+    const editing = page.getByRole('table', { name: 'Treatment zones being edited' });
+    await editing.locator('tbody tr').first().waitFor();
+    await expectAreaHeaders(editing);
+    await page.close();
+  });
+
+  it('keeps "ha" and "ac" in lower case in the zone table of the notice page the grower opens', async () => {
+    const page = await browser.newPage({ viewport: { width: 1200, height: 900 } });
+    await page.goto(`${server.url}/n/${noticeToken}`);
+    const table = page.getByRole('table', { name: 'Treatment zones' });
+    await table.locator('tbody tr').first().waitFor();
+    await expectAreaHeaders(table);
+    await page.close();
+  });
+});
