@@ -11,6 +11,7 @@ export type ZoneBasis = 'mean-count' | 'relative-risk';
 export interface StopSurface {
   basis: ZoneBasis;
   bandwidthM: number;
+  /** Why the kernel reaches as far as it does, in words ("three stop spacings of 12.3 m"). */
   bandwidthRule: string;
   /** Kernel-weighted mean count per stop (zeros included), or the found share of the stops nearby. */
   value: Float64Array;
@@ -71,7 +72,7 @@ export function stopSurface(
 ): StopSurface {
   const m = found.length;
   const bandwidthM = options.bandwidthM ?? Math.max(BANDWIDTH_STOP_SPACINGS * spacingM, 1);
-  const bandwidthRule = options.bandwidthM ? 'given' : `three stop spacings (${spacingM.toFixed(1)} m): quartic kernel radius`;
+  const bandwidthRule = options.bandwidthM ? 'the bandwidth set for this check' : `three stop spacings of ${spacingM.toFixed(1)} m`;
   const nb = kernelNeighbours(xy, bandwidthM);
   const value = new Float64Array(m);
   const high = new Uint8Array(m);

@@ -619,8 +619,8 @@ function stopZones(prepared: Prepared, scouted: ScoutedArea, spread: SpreadResul
   const unit = options.zones.unit ?? 'per stop';
   const rule =
     surface.basis === 'mean-count'
-      ? `Mean count per stop (kernel-weighted, empty stops included, ${surface.bandwidthRule} ${surface.bandwidthM.toFixed(0)} m) at or above the action threshold of ${threshold} ${unit}`
-      : `No action threshold given: stops where the found share of nearby stops (relative risk, ${surface.bandwidthRule} ${surface.bandwidthM.toFixed(0)} m) is beyond its ${Math.round((1 - options.alpha) * 100)} % tolerance over relabellings`;
+      ? `Mean count per stop over the stops within ${surface.bandwidthM.toFixed(0)} m (${surface.bandwidthRule}; nearer stops weigh more, empty stops included) at or above the action threshold of ${threshold} ${unit}`
+      : `No action threshold given: stops where the found share of the stops within ${surface.bandwidthM.toFixed(0)} m (${surface.bandwidthRule}; relative risk) is beyond its ${Math.round((1 - options.alpha) * 100)} % tolerance over relabellings`;
   return {
     type: 'FeatureCollection',
     thresholdPerHa: null,

@@ -12,11 +12,15 @@ export interface DensityOptions {
   edgeCorrection?: boolean;
 }
 
+/** How the bandwidth was chosen: given with the check, Silverman's rule, or that rule capped by the field's size. */
+export type BandwidthRule = 'given' | 'normal-reference' | 'field-cap';
+
 export interface DensityResult {
   kernel: Kernel;
   bandwidthM: number;
-  bandwidthRule: string;
-  bandwidthMeaning: string;
+  bandwidthRule: BandwidthRule;
+  /** The bandwidth in one plain sentence: how far each sighting counts, and the rule that chose that distance. */
+  bandwidthSentence: string;
   cellSizeM: number;
   /** South-west corner of cell (0, 0), in the result's planar coordinates. */
   originX: number;
@@ -41,7 +45,7 @@ export const MAX_DENSITY_CELLS = 4_000_000;
  * of the coordinates' robust spreads (Silverman 1986, eq. 4.14); for the quartic kernel the radius with
  * the same variance, √8 times that. Capped at a quarter of the field's shorter side.
  */
-export function defaultBandwidthM(field: PlanarField, xy: Float64Array, kernel: Kernel): number {
+export function defaultBandwidth(field: PlanarField, xy: Float64Array, kernel: Kernel): { bandwidthM: number; rule: 'normal-reference' | 'field-cap' } {
   const n = xy.length / 2;
   const spreadOf = (axis: number): number => {
     const values = new Float64Array(n);
@@ -53,7 +57,7 @@ export function defaultBandwidthM(field: PlanarField, xy: Float64Array, kernel: 
   const h = kernel === 'quartic' ? Math.sqrt(8) * gaussian : gaussian;
   const cap = Math.min(field.maxX - field.minX, field.maxY - field.minY) / 4;
   // One sighting (or all at one spot) has no spread: fall back to the cap.
-  return h > 0 ? Math.min(h, cap) : cap;
+  return h > 0 && h <= cap ? { bandwidthM: h, rule: 'normal-reference' } : { bandwidthM: cap, rule: 'field-cap' };
 }
 
 /** min(standard deviation, interquartile range / 1.349): Silverman's (1986, eq. 3.30) guard against long tails. */
@@ -96,8 +100,8 @@ export function kernelValue(kernel: Kernel, d2: number, h: number): number {
 /** Kernel density estimate (Rosenblatt 1956; Silverman 1986) of sightings per hectare over the field. */
 export function densitySurface(field: PlanarField, xy: Float64Array, options: DensityOptions = {}): DensityResult {
   const kernel = options.kernel ?? 'quartic';
-  const given = options.bandwidthM !== undefined;
-  const h = options.bandwidthM ?? defaultBandwidthM(field, xy, kernel);
+  const chosen = options.bandwidthM !== undefined ? { bandwidthM: options.bandwidthM, rule: 'given' as const } : defaultBandwidth(field, xy, kernel);
+  const h = chosen.bandwidthM;
   const cell = options.cellSizeM ?? defaultDensityCellSizeM(field, h);
   const edgeCorrection = options.edgeCorrection ?? true;
   const originX = field.minX;
@@ -181,15 +185,8 @@ export function densitySurface(field: PlanarField, xy: Float64Array, options: De
   return {
     kernel,
     bandwidthM: h,
-    bandwidthRule: given
-      ? 'set by the adviser'
-      : kernel === 'quartic'
-        ? 'normal-reference rule (Silverman 1986) ×√8 for the quartic radius'
-        : 'normal-reference rule (Silverman 1986)',
-    bandwidthMeaning:
-      kernel === 'quartic'
-        ? `search radius: each sighting counts within ${round(h)} m and not at all beyond it`
-        : `standard deviation: each sighting's weight halves at about ${round(1.1774 * h)} m and fades out by ${round(3 * h)} m`,
+    bandwidthRule: chosen.rule,
+    bandwidthSentence: bandwidthSentence(kernel, h, chosen.rule),
     cellSizeM: cell,
     originX,
     originY,
@@ -202,6 +199,25 @@ export function densitySurface(field: PlanarField, xy: Float64Array, options: De
   };
 }
 
-function round(value: number): number {
-  return Math.round(value * 10) / 10;
+const ruleWords: Record<BandwidthRule, (kernel: Kernel) => string> = {
+  given: () => 'the bandwidth set for this check',
+  'normal-reference': (kernel) =>
+    kernel === 'quartic'
+      ? "Silverman's normal-reference rule on the sightings' spread, times √8 for the quartic kernel"
+      : "Silverman's normal-reference rule on the sightings' spread",
+  'field-cap': () => "a quarter of the field's shorter side, the widest allowed: Silverman's normal-reference rule asked for more",
+};
+
+/** The quartic bandwidth is its radius; a Gaussian kernel's weight halves at h·√(2 ln 2) and is near nothing by 3h. */
+function bandwidthSentence(kernel: Kernel, h: number, rule: BandwidthRule): string {
+  const reach =
+    kernel === 'quartic'
+      ? `Each sighting counts within ${metresText(h)} of it, less with distance, and not at all beyond`
+      : `Each sighting's weight halves at about ${metresText(h * Math.sqrt(2 * Math.LN2))} from it and fades out by ${metresText(3 * h)}`;
+  return `${reach} (${ruleWords[rule](kernel)}).`;
+}
+
+/** Whole metres from 10 m, tenths below, as a person reads a distance on the ground. */
+function metresText(value: number): string {
+  return `${value >= 10 ? Math.round(value) : Math.round(value * 10) / 10} m`;
 }

@@ -71,4 +71,49 @@ describe('kernel density estimate', () => {
     const surface = densitySurface(square, new Float64Array([202, 202]), { bandwidthM: h, cellSizeM: 4, edgeCorrection: false });
     expect(surface.maxPerHa).toBeCloseTo((3 / (Math.PI * h * h)) * 10_000, 6);
   });
+
+  describe('the bandwidth in one sentence', () => {
+    const square = createPlanarField([
+      [
+        [
+          [0, 0],
+          [400, 0],
+          [400, 400],
+          [0, 400],
+          [0, 0],
+        ],
+      ],
+    ]);
+    /** One sentence: a capital first, one full stop at the very end and none before it. */
+    const oneSentence = /^[A-Z][^.]*(\d\.\d[^.]*)*\.$/;
+
+    it('gives the quartic bandwidth as the distance each sighting counts within (the kernel is 0 beyond h: Silverman 1986, Table 3.1)', () => {
+      const surface = densitySurface(square, new Float64Array([100, 100, 300, 300]), { bandwidthM: 50, cellSizeM: 10 });
+      expect(surface.bandwidthRule).toBe('given');
+      expect(surface.bandwidthSentence).toMatch(oneSentence);
+      expect(surface.bandwidthSentence).toMatch(/^Each sighting counts within 50 m of it, .*not at all beyond \(the bandwidth set for this check\)\.$/);
+    });
+
+    it('gives a Gaussian bandwidth h as the half-weight distance h·√(2 ln 2) and 3h (the normal density: exp(−r²/2h²) = ½ at r = 1.1774h)', () => {
+      const surface = densitySurface(square, new Float64Array([100, 100, 300, 300]), { kernel: 'gaussian', bandwidthM: 14, cellSizeM: 10 });
+      // 14 × 1.1774 = 16.48 m, written as whole metres; 3 × 14 = 42 m.
+      expect(surface.bandwidthSentence).toMatch(oneSentence);
+      expect(surface.bandwidthSentence).toMatch(/^Each sighting's weight halves at about 16 m from it and fades out by 42 m \(/);
+    });
+
+    it("names Silverman's normal-reference rule when it chose the bandwidth, and the field's cap when that rule asked for more", () => {
+      // 200 sightings in an 80 m patch: σ ≈ 23 m, so the quartic radius √8·σ·200^(−1/6) ≈ 27 m stays under the cap.
+      const random = createRandom('bandwidth-rule');
+      const xy = Float64Array.from({ length: 400 }, () => 160 + 80 * random());
+      const chosen = densitySurface(square, xy, { cellSizeM: 10 });
+      expect(chosen.bandwidthRule).toBe('normal-reference');
+      expect(chosen.bandwidthSentence).toMatch(oneSentence);
+      expect(chosen.bandwidthSentence).toContain("Silverman's normal-reference rule");
+      // Two sightings at opposite corners: the rule asks for more than a quarter of the 400 m side, the cap of 100 m.
+      const capped = densitySurface(square, new Float64Array([20, 20, 380, 380]), { cellSizeM: 10 });
+      expect(capped.bandwidthRule).toBe('field-cap');
+      expect(capped.bandwidthM).toBe(100);
+      expect(capped.bandwidthSentence).toMatch(/^Each sighting counts within 100 m of it, .*\(a quarter of the field's shorter side/);
+    });
+  });
 });

@@ -1,5 +1,5 @@
-// What a person reads in the zone tables, as the browser renders it: unit symbols keep their case through any styling.
-// `innerText` is the text after CSS (text-transform applied, WHATWG HTML "innerText getter"), so an upper-casing style
+// What a person reads, as the browser renders it: the bandwidth in one sentence, technical identifiers only behind their
+// disclosure, and unit symbols that keep their case through any styling. `innerText` is the text after CSS (text-transform applied, WHATWG HTML "innerText getter"), so an upper-casing style
 // would show here as "HA" or "25 M". Unit symbols: SI Brochure (BIPM, 9th ed. 2019) §5.2, symbols never change case;
 // "ha" Table 8; "ac" is common practice in agriculture.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -8,6 +8,7 @@ import { launchBrowser, startTestServer, type TestServer } from '../helpers/brow
 import { signedIn, type Client } from '../helpers/http.ts';
 import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
 import { noticeLinkToken, waitForMessage } from '../helpers/mailbox.ts';
+import type { CheckView } from '../../shared/schemas/checks.ts';
 import { acceptProposedZones, addContacts, makeCheckedField, type ScoutedCheck } from '../helpers/zones.ts';
 
 let server: TestServer;
@@ -55,12 +56,38 @@ async function expectAreaHeaders(table: Locator) {
   expect(headers).not.toMatch(/\bHA\b|\bAC\b/);
 }
 
+async function openLatestCheck(page: Page) {
+  await page.goto(`${server.url}/fields/${scouted.field.id}/review?pest=${scouted.pest.id}`);
+  await page.locator('[data-verdict]').waitFor({ timeout: 60_000 });
+}
+
+describe('the check explained in words', () => {
+  it('explains the bandwidth in one sentence and keeps the engine version and projection code in the closed disclosure', async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    await signInAsAdviser(page);
+    await openLatestCheck(page);
+    // The bandwidth's explanation is the engine's one sentence: how far each sighting counts and the rule's published name.
+    const stored = (await (await page.request.get(`${server.url}/api/checks/${scouted.checkId}`)).json()) as { check: CheckView };
+    const sentence = stored.check.result!.density!.bandwidthSentence;
+    expect(await shown(page.locator('[data-figure="bandwidth"] + dd'))).toBe(sentence);
+    expect(sentence).toMatch(
+      /^Each sighting counts within \d+ m of it, less with distance, and not at all beyond \([^()]*Silverman's normal-reference rule[^()]*\)\.$/,
+    );
+    // Engine version and projection code are read only from the closed disclosure (closed, its text is not rendered).
+    const pageText = await shown(page.locator('main'));
+    expect(pageText).not.toMatch(/EPSG|Engine version/);
+    const technical = page.locator('[data-technical-details]');
+    await technical.locator('summary').click();
+    expect(await shown(technical)).toMatch(/Engine version .*projection EPSG:\d+/);
+    await page.close();
+  });
+});
+
 describe('unit symbols as the browser renders them', () => {
   it('keeps "ha", "ac" and "m" in lower case in the review page’s zone and robustness tables and in the zone editor', async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
     await signInAsAdviser(page);
-    await page.goto(`${server.url}/fields/${scouted.field.id}/review?pest=${scouted.pest.id}`);
-    await page.locator('[data-verdict]').waitFor({ timeout: 60_000 });
+    await openLatestCheck(page);
     await expectAreaHeaders(page.getByRole('table', { name: 'Proposed treatment zones' }));
     // The bandwidth figure, as written beside its name.
     expect(await shown(page.locator('[data-figure="bandwidth"]'))).toMatch(/\d m$/);
@@ -86,6 +113,7 @@ describe('unit symbols as the browser renders them', () => {
     const table = page.getByRole('table', { name: 'Treatment zones' });
     await table.locator('tbody tr').first().waitFor();
     await expectAreaHeaders(table);
+    expect(await shown(page.locator('main'))).not.toMatch(/EPSG|Engine version/);
     await page.close();
   });
 });

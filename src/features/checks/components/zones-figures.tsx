@@ -4,6 +4,15 @@ import { fixed, metres, percent } from '../utils/figures.ts';
 import { Figure, FigureList, SectionTitle } from './figure-list.tsx';
 import { ButtonLink } from '../../../components/button.tsx';
 
+type Density = NonNullable<CheckFigures['density']>;
+
+/** The engine's bandwidth sentence; a check stored before it wrote one keeps its two phrases, joined into one. */
+function bandwidthText(density: Density & { bandwidthMeaning?: string }): string {
+  if (density.bandwidthSentence) return density.bandwidthSentence;
+  const meaning = density.bandwidthMeaning ?? '';
+  return `${meaning.charAt(0).toUpperCase()}${meaning.slice(1)} (${density.bandwidthRule}).`;
+}
+
 export function ZonesFigures({ result, zoneEditorPath }: { result: CheckFigures; zoneEditorPath: string }) {
   const { density, zones } = result;
   return (
@@ -14,7 +23,7 @@ export function ZonesFigures({ result, zoneEditorPath }: { result: CheckFigures;
       {density && (
         <FigureList label="Density figures">
           <Figure name="Kernel · bandwidth" value={`${density.kernel} · ${metres(density.bandwidthM, 0)}`} figure="bandwidth">
-            {density.bandwidthMeaning} {density.bandwidthRule}
+            {bandwidthText(density)}
           </Figure>
           <Figure name="Peak density" value={`${fixed(density.maxPerHa, 1)}/ha`} figure="max-density">
             The densest spot on the surface, in sightings per hectare ({metres(density.cellSizeM, 1)} cells).
