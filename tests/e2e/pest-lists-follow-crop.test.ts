@@ -95,7 +95,7 @@ describe("pest lists that follow the field's crop", () => {
     try {
       await signIn(page, org.users.adviser.email);
       await page.goto(`${server.url}/fields/${field.id}/review?pest=${weevilId}&from=2026-06-01&to=2026-07-31`);
-      const editor = page.getByLabel('Pest of sighting from 2026-07-01').first();
+      const editor = page.getByLabel('Pest of sighting from 1 July 2026').first();
       await expect.poll(() => groupsOf(editor), { timeout: 15_000 }).toHaveLength(2);
       expect(await groupsOf(editor)).toEqual([
         { heading: 'Pests of Corn', pests: ['Armyworm', 'Beetle of corn'] },

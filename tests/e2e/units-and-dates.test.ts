@@ -1,5 +1,5 @@
 // What a person reads, as the browser renders it: the bandwidth in one sentence, technical identifiers only behind their
-// disclosure, and unit symbols that keep their case through any styling. `innerText` is the text after CSS (text-transform applied, WHATWG HTML "innerText getter"), so an upper-casing style
+// disclosure, walk days in the organisation's date format, and unit symbols that keep their case through any styling. `innerText` is the text after CSS (text-transform applied, WHATWG HTML "innerText getter"), so an upper-casing style
 // would show here as "HA" or "25 M". Unit symbols: SI Brochure (BIPM, 9th ed. 2019) §5.2, symbols never change case;
 // "ha" Table 8; "ac" is common practice in agriculture.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -79,6 +79,37 @@ describe('the check explained in words', () => {
     const technical = page.locator('[data-technical-details]');
     await technical.locator('summary').click();
     expect(await shown(technical)).toMatch(/Engine version .*projection EPSG:\d+/);
+    await page.close();
+  });
+});
+
+describe('dates as the organisation writes them', () => {
+  // The organisation keeps the default format, en-GB: CLDR's long date "d MMMM y", e.g. "1 July 2026" (ECMA-402).
+  const longGb = /^\d{1,2} [A-Z][a-z]+ 2026/;
+  const iso = /\d{4}-\d{2}-\d{2}/;
+
+  it('writes the season chart’s walk days and the walk filter’s choices as "1 July 2026", never as 2026-07-01', async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    await signInAsAdviser(page);
+    await openLatestCheck(page);
+    const ticks = page.locator('figure[aria-label="Sightings and mean count per walk"] .recharts-xAxis-tick-labels .recharts-cartesian-axis-tick-value');
+    await ticks.first().waitFor();
+    const tickTexts = await ticks.allTextContents();
+    expect(tickTexts.length).toBeGreaterThan(0);
+    for (const text of tickTexts) {
+      expect(text).toMatch(longGb);
+      expect(text).not.toMatch(iso);
+    }
+    // makeCheckedField walks the field on 2026-07-01 and 2026-07-03, newest first in the filter.
+    const walkFilter = page.locator('select', { has: page.locator('option', { hasText: 'Every walk' }) });
+    await expect.poll(() => walkFilter.locator('option').count(), { timeout: 15_000 }).toBe(3);
+    const walkOptions = await walkFilter.locator('option').allTextContents();
+    for (const text of walkOptions.slice(1)) {
+      expect(text).toMatch(longGb);
+      expect(text).not.toMatch(iso);
+    }
+    expect(walkOptions[1]).toMatch(/^3 July 2026 · /);
+    expect(walkOptions[2]).toMatch(/^1 July 2026 · /);
     await page.close();
   });
 });

@@ -10,12 +10,25 @@ type Update = ReturnType<typeof useUpdateSighting>;
 const editorClass =
   'rounded border-0 bg-transparent px-1 py-0.5 text-sm ring-1 ring-inset ring-transparent hover:ring-soil-300 focus:bg-white focus:ring-2 focus:ring-field-600 disabled:opacity-60';
 
-export function PestEditor({ sighting, pests, crop, update }: { sighting: SightingView; pests: Pest[]; crop?: string; update: Update }) {
+/** `walkDay` is the sighting's walk day as the organisation writes dates, naming the editor for a screen reader. */
+export function PestEditor({
+  sighting,
+  walkDay,
+  pests,
+  crop,
+  update,
+}: {
+  sighting: SightingView;
+  walkDay: string;
+  pests: Pest[];
+  crop?: string;
+  update: Update;
+}) {
   const busy = update.isPending && update.variables?.sightingId === sighting.id;
   const known = pests.some((p) => p.id === sighting.pestId);
   return (
     <select
-      aria-label={`Pest of sighting from ${sighting.walkedOn}`}
+      aria-label={`Pest of sighting from ${walkDay}`}
       className={`${editorClass} max-w-[11rem]`}
       value={sighting.pestId}
       disabled={busy}
@@ -27,7 +40,7 @@ export function PestEditor({ sighting, pests, crop, update }: { sighting: Sighti
   );
 }
 
-export function CountEditor({ sighting, update }: { sighting: SightingView; update: Update }) {
+export function CountEditor({ sighting, walkDay, update }: { sighting: SightingView; walkDay: string; update: Update }) {
   const shown = sighting.count === null ? '' : String(sighting.count);
   const [text, setText] = useState(shown);
   useEffect(() => setText(shown), [shown]);
@@ -50,7 +63,7 @@ export function CountEditor({ sighting, update }: { sighting: SightingView; upda
     );
   return (
     <input
-      aria-label={`Count of sighting from ${sighting.walkedOn}`}
+      aria-label={`Count of sighting from ${walkDay}`}
       aria-invalid={failed || undefined}
       inputMode="decimal"
       className={`${editorClass} w-16 text-right tabular-nums aria-[invalid=true]:ring-patch-600`}

@@ -2,6 +2,8 @@
 import { useMemo } from 'react';
 import type { SightingView } from '@shared/schemas/sightings.ts';
 import type { PestView as Pest } from '@shared/schemas/pests.ts';
+import { useDates } from '../../../lib/dates.ts';
+import { walkChoices } from '../walk-choices.ts';
 
 export interface TableFilters {
   pestId?: string;
@@ -53,24 +55,23 @@ export function SightingsTableFilters({
   filters: TableFilters;
   onChange: (filters: TableFilters) => void;
 }) {
+  const dates = useDates();
   const choices = useMemo(() => {
     const scouts = new Map<string, string>();
-    const walks = new Map<string, string>();
     const pestNames = new Map<string, string>(pests.map((p) => [p.id, p.name]));
     const pestIds = new Set<string>();
     for (const s of sightings) {
       scouts.set(s.scoutId, s.scoutName);
-      walks.set(s.walkId, `${s.walkedOn} · ${s.scoutName}`);
       pestIds.add(s.pestId);
       if (!pestNames.has(s.pestId)) pestNames.set(s.pestId, s.pestName);
     }
     const sorted = (m: Map<string, string>) => [...m.entries()].sort((a, b) => a[1].localeCompare(b[1]));
     return {
       scouts: sorted(scouts),
-      walks: sorted(walks).reverse(),
+      walks: walkChoices(sightings, dates),
       pests: [...pestIds].map((id) => [id, pestNames.get(id)!] as const).sort((a, b) => a[1].localeCompare(b[1])),
     };
-  }, [sightings, pests]);
+  }, [sightings, pests, dates]);
   const set = (key: keyof TableFilters, value: string) => onChange({ ...filters, [key]: value || undefined });
   return (
     <fieldset className="grid grid-cols-2 gap-2 sm:grid-cols-5">

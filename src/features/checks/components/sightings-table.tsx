@@ -117,12 +117,12 @@ export function SightingsTable({
       column.accessor('pestName', {
         header: 'Pest',
         filterFn: (row, _id, pestId: string) => row.original.pestId === pestId,
-        cell: ({ row }) => <PestEditor sighting={row.original} pests={pests} crop={crop} update={update} />,
+        cell: ({ row }) => <PestEditor sighting={row.original} walkDay={dates.calendarDate(row.original.walkedOn)} pests={pests} crop={crop} update={update} />,
       }),
       column.accessor((s) => (s.isEmptyStop ? 0 : (s.count ?? -1)), {
         id: 'count',
         header: 'Count',
-        cell: ({ row }) => <CountEditor sighting={row.original} update={update} />,
+        cell: ({ row }) => <CountEditor sighting={row.original} walkDay={dates.calendarDate(row.original.walkedOn)} update={update} />,
       }),
       column.accessor('scoutName', { header: 'Scout', filterFn: (row, _id, scoutId: string) => row.original.scoutId === scoutId }),
       column.accessor('walkId', {

@@ -2,6 +2,7 @@
 // the history panel has walks to show.
 import { Bar, CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import palette from '../../../../tailwind.config.ts';
+import { useDates } from '../../../lib/dates.ts';
 
 const { patch, field } = palette.theme.extend.colors;
 
@@ -14,14 +15,17 @@ export interface WalkHistoryRow {
 }
 
 export function WalkHistoryChart({ rows }: { rows: WalkHistoryRow[] }) {
+  // Walk days are calendar days (YYYY-MM-DD): written as the organisation writes dates, never shifted by a zone.
+  const dates = useDates();
+  const day = (walkedOn: unknown) => dates.calendarDate(String(walkedOn));
   return (
     <ResponsiveContainer width="100%" height="100%">
       <ComposedChart data={rows} margin={{ top: 8, right: 8, bottom: 4, left: 0 }}>
         <CartesianGrid stroke="#ebdcb4" strokeDasharray="3 3" />
-        <XAxis dataKey="walkedOn" tick={{ fontSize: 11 }} />
+        <XAxis dataKey="walkedOn" tick={{ fontSize: 11 }} tickFormatter={day} />
         <YAxis yAxisId="sightings" tick={{ fontSize: 11 }} width={36} allowDecimals={false} />
         <YAxis yAxisId="mean" orientation="right" tick={{ fontSize: 11 }} width={36} />
-        <Tooltip />
+        <Tooltip labelFormatter={day} />
         <Legend verticalAlign="top" height={22} iconSize={10} wrapperStyle={{ fontSize: 11 }} />
         <Bar yAxisId="sightings" dataKey="sightings" name="Sightings" fill={field[400]} isAnimationActive={false} />
         <Line yAxisId="mean" dataKey="meanCount" name="Mean count per stop" stroke={patch[600]} strokeWidth={2} isAnimationActive={false} connectNulls />
