@@ -161,7 +161,7 @@ export function NoticesPage() {
             <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-soil-300/60">
               <table className="min-w-full text-left text-sm">
                 <caption className="sr-only">Zone notices</caption>
-                <thead className="bg-straw-100 text-xs uppercase tracking-wide text-soil-700">
+                <thead className="bg-straw-100 text-xs text-soil-700">
                   <tr>
                     <th scope="col" className="px-3 py-2">
                       Notice
