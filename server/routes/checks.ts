@@ -71,7 +71,7 @@ checksRouter.get('/:id/density', requireRole('adviser', 'admin'), async (req, re
 });
 
 // The parts that grow with the sightings, each fetched when the layer or table that shows it opens (check-parts.ts).
-const parts: CheckPart[] = ['stops', 'quadrats', 'scouted-area', 'sighting-ids'];
+const parts: CheckPart[] = ['stops', 'quadrats', 'scouted-area', 'not-scouted-area', 'sighting-ids'];
 for (const part of parts) {
   checksRouter.get(`/:id/${part}`, requireRole('adviser', 'admin'), async (req, res) => {
     sendSerialised(req, res, await getCheckPart(actor(req), parse(idParam, req.params).id, part));

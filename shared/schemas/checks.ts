@@ -114,6 +114,9 @@ export interface CheckScoutedAreaResponse {
   notScouted: MultiPolygon | null;
 }
 
+/** GET /api/checks/:id/not-scouted-area: only the part of the field no stop speaks for, as the map draws it. */
+export type CheckNotScoutedAreaResponse = Pick<CheckScoutedAreaResponse, 'notScouted'>;
+
 /** GET /api/checks/:id/sighting-ids: the exact sightings the check took in. */
 export interface CheckSightingIdsResponse {
   sightingIds: string[];

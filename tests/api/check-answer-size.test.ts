@@ -80,6 +80,12 @@ describe('a check over 5,000 sightings', () => {
     const { check } = JSON.parse(bytes.toString('utf8'));
     expect(check.sightingCount).toBe(SIGHTINGS);
     expect((await fetchCheckPart(adviser, checkId, 'sighting-ids')).sightingIds).toHaveLength(SIGHTINGS);
+    // The map's layer fetches only the not-scouted part: the same polygons as in the whole scouted area, in fewer bytes.
+    const area = await plainBytes(adviser, `/api/checks/${checkId}/scouted-area`).expect(200);
+    const notScouted = await plainBytes(adviser, `/api/checks/${checkId}/not-scouted-area`).expect(200);
+    const parse = (res: { body: Buffer }) => JSON.parse(res.body.toString('utf8'));
+    expect(parse(notScouted)).toEqual({ notScouted: parse(area).notScouted });
+    expect((notScouted.body as Buffer).length).toBeLessThan((area.body as Buffer).length);
 
     // Consistency check, not an outside reference: the answer with its parts put back must be exactly what the
     // engine returns for the same sightings and options, so moving the parts out lost or changed nothing.

@@ -161,6 +161,7 @@ export const scoutingRoutes: AccessRow[] = [
   row('GET', '/api/checks/{check}/stops', deskOnly(200)),
   row('GET', '/api/checks/{check}/quadrats', deskOnly(200)),
   row('GET', '/api/checks/{check}/scouted-area', deskOnly(200)),
+  row('GET', '/api/checks/{check}/not-scouted-area', deskOnly(200)),
   row('GET', '/api/checks/{check}/sighting-ids', deskOnly(200)),
   row('GET', '/api/fields/{checkedField}/checks', deskOnly(200)),
   row('GET', '/api/fields/{checkedField}/threshold-status', deskOnly(200)),

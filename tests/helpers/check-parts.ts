@@ -11,7 +11,7 @@ type Figures = Record<string, unknown>;
 const object = (value: unknown) => (value && typeof value === 'object' ? (value as Figures) : null);
 
 /** GET /api/checks/:id/<part>, expecting 200. */
-export async function fetchCheckPart(client: Client, checkId: string, part: 'stops' | 'quadrats' | 'scouted-area' | 'sighting-ids') {
+export async function fetchCheckPart(client: Client, checkId: string, part: 'stops' | 'quadrats' | 'scouted-area' | 'not-scouted-area' | 'sighting-ids') {
   return (await client.get(`/api/checks/${checkId}/${part}`).expect(200)).body;
 }
 

@@ -1,12 +1,12 @@
 // The part of the field no stop speaks for, fetched apart from the check's figures while this layer is on.
 import { GeoJSON } from 'react-leaflet';
 import palette from '../../../../../tailwind.config.ts';
-import { useCheckScoutedArea } from '../../api/get-check-scouted-area.ts';
+import { useCheckNotScoutedArea } from '../../api/get-check-not-scouted-area.ts';
 
 const { soil } = palette.theme.extend.colors;
 
 export function NotScoutedLayer({ checkId }: { checkId: string }) {
-  const area = useCheckScoutedArea(checkId);
+  const area = useCheckNotScoutedArea(checkId);
   const notScouted = area.data?.notScouted;
   if (!notScouted || notScouted.coordinates.length === 0) return null;
   return (
