@@ -5,6 +5,7 @@ import type { Request } from 'express';
 import { verifyPassword } from './passwords.ts';
 import { actorReadWithSession } from './session.ts';
 import type { Role } from '../../shared/schemas/roles.ts';
+import type { DateFormat } from '../../shared/dates/format-dates.ts';
 
 export interface Actor {
   id: string;
@@ -12,6 +13,8 @@ export interface Actor {
   role: Role;
   name: string;
   email: string;
+  /** The organisation's date format, when it was read with the session (absent after a sign-in or a fallback read). */
+  dateFormat?: DateFormat;
 }
 
 declare global {

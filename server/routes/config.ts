@@ -9,7 +9,8 @@ import { changeDateFormat, dateFormatOf } from '../services/organisation-date-fo
 export const configRouter = Router();
 
 configRouter.get('/', async (req, res) => {
-  const dateFormat = await dateFormatOf(req.user?.organisationId);
+  // On a signed-in request the format was read with the session: this answer needs no query of its own.
+  const dateFormat = await dateFormatOf(req.user);
   res.json({ tileUrl: config.tileUrl, mailCatcher: config.mailboxServed, dateFormat });
 });
 

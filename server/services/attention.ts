@@ -127,7 +127,7 @@ export async function fieldsNeedingAttention(actor: Actor): Promise<AttentionRes
     selectUncheckedSightings(actor.organisationId),
     selectOverdueRescouts(actor.organisationId),
     selectLatestWalkStops(actor.organisationId),
-    dateFormatOf(actor.organisationId),
+    dateFormatOf(actor),
   ]);
   const dates = datesIn(dateFormat);
   const tooFewStops = latestWalks.map((row) => tooFewStopsLine(row, dates)).filter((line): line is AttentionField => line !== null);

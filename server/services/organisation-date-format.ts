@@ -4,10 +4,11 @@ import { findOrganisationDateFormat, updateOrganisationDateFormat } from '../que
 import { DEFAULT_DATE_FORMAT, type DateFormat } from '../../shared/dates/format-dates.ts';
 import { notFound } from '../errors.ts';
 
-/** The organisation's date format; a visitor (no organisation) gets the default one. */
-export async function dateFormatOf(organisationId: string | undefined): Promise<DateFormat> {
-  if (!organisationId) return DEFAULT_DATE_FORMAT;
-  return (await findOrganisationDateFormat(organisationId)) ?? DEFAULT_DATE_FORMAT;
+/** The signed-in actor's organisation's date format (read with the session when it can be); a visitor gets the default one. */
+export async function dateFormatOf(actor: Pick<Actor, 'organisationId' | 'dateFormat'> | undefined): Promise<DateFormat> {
+  if (!actor) return DEFAULT_DATE_FORMAT;
+  if (actor.dateFormat) return actor.dateFormat;
+  return (await findOrganisationDateFormat(actor.organisationId)) ?? DEFAULT_DATE_FORMAT;
 }
 
 export async function changeDateFormat(actor: Actor, format: DateFormat): Promise<DateFormat> {
