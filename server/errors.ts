@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { BoundaryError } from '../shared/boundary/boundary-faults.ts';
+import { logger } from './logger.ts';
 
 /** The one error type the API throws: an HTTP status and a message written for the person using it. */
 export class AppError extends Error {
@@ -72,7 +73,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   else error = fromDatabase(err) ?? new AppError(500, 'internal', 'Something went wrong on our side; the team has been told.');
   if (error.status >= 500 && error.code === 'internal') {
     if (req.log) req.log.error({ err }, 'Unhandled error');
-    else console.error(err);
+    else logger.error({ err }, 'Unhandled error');
   }
   res.status(error.status).json({ error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) } });
 };

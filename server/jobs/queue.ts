@@ -1,6 +1,7 @@
 // The PostgreSQL-backed job queue (pg-boss): web and worker processes on any number of machines share it.
 import PgBoss from 'pg-boss';
 import { config } from '../config.ts';
+import { logger } from '../logger.ts';
 
 let boss: PgBoss | null = null;
 let starting: Promise<PgBoss> | null = null;
@@ -11,7 +12,7 @@ export function queue(): Promise<PgBoss> {
     // Maintenance (which retries jobs whose worker died) every 2 minutes, pg-boss's default; fault tests set it shorter.
     const maintenanceIntervalSeconds = Number(process.env.JOB_MAINTENANCE_SECONDS) || 120;
     const instance = new PgBoss({ connectionString: config.databaseUrl, schema: 'pgboss', max: 5, maintenanceIntervalSeconds });
-    instance.on('error', (error) => console.error('job queue error:', error.message));
+    instance.on('error', (error) => logger.error({ err: error }, 'job queue error'));
     await instance.start();
     boss = instance;
     return instance;

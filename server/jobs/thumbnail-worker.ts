@@ -7,6 +7,7 @@ import { makeThumbnail, stalePendingThumbnails } from '../services/thumbnails.ts
 import { thumbnailThreads } from '../services/thumbnail-pool.ts';
 import { removeOrphanFiles } from '../services/orphan-cleanup.ts';
 import { purgeDeletedSightings } from '../services/photo-purge.ts';
+import { logger } from '../logger.ts';
 
 export const HOUSEKEEPING_QUEUE = 'photo-housekeeping';
 
@@ -43,6 +44,6 @@ defineWorker({
       await photoHousekeeping();
     });
     // At start-up too: a crash before this start may have left files behind.
-    await photoHousekeeping().catch((error) => console.error('photo housekeeping failed:', (error as Error).message));
+    await photoHousekeeping().catch((error) => logger.error({ err: error }, 'photo housekeeping failed'));
   },
 });

@@ -3,6 +3,7 @@
 import { SMTPServer } from 'smtp-server';
 import pg from 'pg';
 import { organisationOfRawMessage } from './organisation-header.ts';
+import { logger } from '../logger.ts';
 
 export interface MailCatcher {
   port: number;
@@ -12,7 +13,7 @@ export interface MailCatcher {
 export async function startMailCatcher(options: { port: number; databaseUrl: string; host?: string }): Promise<MailCatcher> {
   const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 2 });
   // An idle connection dropped by a database restart must not bring the catcher (and `npm test`) down; the next message reconnects.
-  pool.on('error', (error) => console.error('mail catcher database connection lost:', error.message));
+  pool.on('error', (error) => logger.error({ err: error }, 'mail catcher database connection lost'));
   const server = new SMTPServer({
     authOptional: true,
     disabledCommands: ['STARTTLS'],

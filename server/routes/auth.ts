@@ -8,6 +8,7 @@ import { AppError } from '../errors.ts';
 import { currentUser, requestPasswordReset, setPasswordWithToken } from '../services/users.ts';
 import { config } from '../config.ts';
 import { PostgresRequestLimitStore } from '../auth/request-limit-store.ts';
+import { logger } from '../logger.ts';
 
 export const authRouter = Router();
 
@@ -97,7 +98,7 @@ authRouter.post('/sign-out', (req, res, next) => {
 authRouter.post('/forgot-password', forgotLimiter, (req, res) => {
   const { email } = parse(forgotPasswordSchema, req.body);
   // Answer before any lookup finishes: the reply and its timing say nothing about whether the address exists.
-  void requestPasswordReset(email).catch((error) => console.error('password reset failed', error));
+  void requestPasswordReset(email).catch((error) => logger.error({ err: error }, 'password reset failed'));
   res.status(202).json({ message: 'If that address has a Patchwise account, a reset link is on its way.' });
 });
 

@@ -20,6 +20,7 @@ import type { PhotoMimeType } from './photo-type.ts';
 import { findPestInOrganisation } from '../queries/pests.ts';
 import { insertPhoto, photosAwaitingThumbnail } from '../queries/photos.ts';
 import { findSightingOfPhotoHash, insertPhotoSighting } from '../queries/sightings.ts';
+import { logger } from '../logger.ts';
 
 /** A photo as bytes in memory (the seed) or as the temp file an upload was spooled to, hashed on arrival. */
 export type IncomingPhoto = {
@@ -264,7 +265,7 @@ export async function ingestPhotos(actor: Actor, request: IngestRequest, photos:
     try {
       results.push({ ...head, ...(await ingestOne(context, photo)) });
     } catch (error) {
-      console.error('photo ingest failed:', error);
+      logger.error({ err: error, fileName: head.fileName }, 'photo ingest failed');
       // Not the photo's fault (storage or database not answering): the phone keeps it and sends it again later.
       results.push({
         ...head,

@@ -1,5 +1,6 @@
 // Hands photos to the thumbnail worker through the PostgreSQL-backed queue (pg-boss).
 import { createQueueOnce, queue } from '../jobs/queue.ts';
+import { logger } from '../logger.ts';
 
 export const THUMBNAIL_QUEUE = 'photo-thumbnail';
 let created: Promise<void> | null = null;
@@ -27,6 +28,6 @@ export async function requestThumbnails(photoIds: string[]) {
     await boss.insert(photoIds.map((photoId) => ({ name: THUMBNAIL_QUEUE, data: { photoId } })));
     for (const workerId of localWorkers) boss.notifyWorker(workerId);
   } catch (error) {
-    console.error('thumbnail jobs not queued:', (error as Error).message);
+    logger.error({ err: error }, 'thumbnail jobs not queued');
   }
 }

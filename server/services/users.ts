@@ -12,6 +12,7 @@ import { consumeToken, issueToken } from './user-tokens.ts';
 import { sendInvitation, sendInvitationDeclined, sendPasswordReset } from './account-mail.ts';
 import { hashPassword } from '../auth/passwords.ts';
 import { passwordWeakness } from '../auth/password-strength.ts';
+import { logger } from '../logger.ts';
 
 /** The shape every API answer uses: never the password hash. */
 const toPublic = (user: users.UserRow): UserView => ({
@@ -61,7 +62,7 @@ export async function inviteUser(actor: Actor, input: z.infer<typeof inviteUserS
   if (existing) {
     await recordAudit(actor, 'invite-declined', 'user', null, { role: input.role });
     await sendInvitationDeclined(existing, actor.name, organisationName).catch((error) => {
-      console.error('declined-invitation mail failed', error);
+      logger.error({ err: error }, 'declined-invitation mail failed');
       throw invitationMailFailed(input.email);
     });
     return answer;
@@ -146,5 +147,5 @@ export async function requestPasswordReset(email: string) {
   const user = await users.findUserByEmail(email);
   if (!user || !user.active) return;
   const token = await issueToken(user.id, 'reset');
-  await sendPasswordReset(user, token).catch((error) => console.error('password reset mail failed', error));
+  await sendPasswordReset(user, token).catch((error) => logger.error({ err: error }, 'password reset mail failed'));
 }
