@@ -197,10 +197,12 @@ describe('the field page in the browser', () => {
       expect(await notice.getAttribute('data-notice-state')).toBe('draft');
       expect(await notice.textContent()).toContain('draft');
 
-      // What needs attention on this field: the sighting no check has seen yet.
+      // What needs attention on this field: the stop no check has seen yet, a sighting, named as a stop with its pest.
       const attention = page.getByRole('list', { name: 'Needs attention on this field' });
       await attention.waitFor();
-      const unchecked = attention.getByRole('link', { name: /^1 .* sighting in Heron flats added or changed since the last pattern check\.$/ });
+      const unchecked = attention.getByRole('link', {
+        name: /^1 stop for .* in Heron flats added or changed since the last pattern check: 1 with .*, 0 empty\.$/,
+      });
       expect(await unchecked.count()).toBe(1);
 
       await zoneLink.click();
