@@ -7,7 +7,7 @@ import { badRequest, conflict, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { visibleFieldIds } from './scope.ts';
 import { writableField, writableWalk } from './ingest-access.ts';
-import { listRestorableSightingsOfWalk, listSightings } from './sightings.ts';
+import { listRestorableSightingsOfWalk, listSightingsOfWalk } from './sightings.ts';
 import * as walks from '../queries/walks.ts';
 
 export async function listWalks(actor: Actor, filter: { fieldId?: string } = {}) {
@@ -24,7 +24,7 @@ export async function findVisibleWalk(actor: Actor, id: string, transaction?: Tr
 
 export async function getWalk(actor: Actor, id: string) {
   const walk = await findVisibleWalk(actor, id);
-  const [sightings, removed] = await Promise.all([listSightings(actor, { walkId: id }), listRestorableSightingsOfWalk(actor, id)]);
+  const [sightings, removed] = await Promise.all([listSightingsOfWalk(actor, id), listRestorableSightingsOfWalk(actor, id)]);
   return { walk, sightings, removed };
 }
 

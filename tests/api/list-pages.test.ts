@@ -1,0 +1,124 @@
+// The lists that grow with a season read a page at a time (limit + an opaque keyset cursor): the sightings of a field,
+// its walks and its checks. Joined, the pages give the whole list once, in order; a forged cursor or an oversized page
+// is refused with a sentence; a cursor carried to another field or organisation reads nothing of the first.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { sequelize } from '../../server/db.ts';
+import { stopQueue } from '../../server/jobs/queue.ts';
+import { SIGHTING_PAGE } from '../../shared/schemas/sightings.ts';
+import { signedIn, type Client } from '../helpers/http.ts';
+import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
+import { addSightings, makeField, makePest, makeWalk, stopsFrom, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
+
+let org: TestOrganisation;
+let adviser: Client;
+let outsider: Client;
+
+/** Every row of a paged list, page by page at `limit`, with the number of pages it took. */
+async function readPages<Row>(client: Client, path: string, key: string, limit: number) {
+  const rows: Row[] = [];
+  let cursor: string | null = null;
+  let pages = 0;
+  do {
+    const separator = path.includes('?') ? '&' : '?';
+    const res = await client.get(`${path}${separator}limit=${limit}${cursor ? `&cursor=${cursor}` : ''}`).expect(200);
+    const page = res.body as Record<string, Row[]> & { limit: number; nextCursor: string | null };
+    expect(page.limit).toBe(limit);
+    expect(page[key].length).toBeLessThanOrEqual(limit);
+    rows.push(...page[key]);
+    cursor = page.nextCursor;
+    pages++;
+  } while (cursor && pages < 50);
+  return { rows, pages };
+}
+
+const forgedCursors = [
+  Buffer.from("['x'; DROP TABLE sightings]").toString('base64url'),
+  'not base64 at all!',
+  // The right shape, but no such day.
+  Buffer.from(JSON.stringify(['2026-02-30', 'infinity', '2026-07-01 10:00:00+00', '00000000-0000-4000-8000-000000000000'])).toString('base64url'),
+];
+
+beforeAll(async () => {
+  org = await makeOrganisation('List pages');
+  const other = await makeOrganisation('List pages other');
+  adviser = await signedIn(org.users.adviser.email);
+  outsider = await signedIn(other.users.admin.email);
+});
+
+afterAll(async () => {
+  await stopQueue();
+});
+
+describe('sightings of a field', () => {
+  interface Listed {
+    id: string;
+    walkedOn: string;
+    observedAt: string | null;
+  }
+  let fieldId: string;
+  let otherFieldId: string;
+  const made: string[] = [];
+
+  beforeAll(async () => {
+    const field = await makeField(org);
+    const pest = await makePest(org);
+    fieldId = field.id;
+    // Two walks; each insert shares one observed time (the statement's), so the ties fall to the later parts of the key.
+    const points = (n: number) =>
+      stopsFrom(
+        Array.from({ length: n }, (_, i) => TEST_FIELD_CORNER.lon + 0.0004 * (i + 1)),
+        Array(n).fill(TEST_FIELD_CORNER.lat + 0.001),
+        Array(n).fill(1),
+      );
+    const later = await makeWalk(org, field.id, '2026-07-08');
+    const earlier = await makeWalk(org, field.id, '2026-07-01');
+    made.push(...(await addSightings(org, { fieldId, walkId: later, pestId: pest.id }, points(5))));
+    made.push(...(await addSightings(org, { fieldId, walkId: earlier, pestId: pest.id }, points(6))));
+    // A sighting without a time sorts after the timed ones of its walk day.
+    await sequelize.query('UPDATE sightings SET observed_at = NULL WHERE id = :id', { replacements: { id: made[6] } });
+    const other = await makeField(org);
+    otherFieldId = other.id;
+    await addSightings(org, { fieldId: other.id, walkId: await makeWalk(org, other.id, '2026-07-02'), pestId: pest.id }, points(3));
+  });
+
+  it('joins its pages into the whole list once each, in walk-day then time order', async () => {
+    const whole = (await adviser.get(`/api/sightings?fieldId=${fieldId}&limit=${SIGHTING_PAGE.max}`).expect(200)).body;
+    expect(whole.nextCursor).toBeNull();
+    const { rows, pages } = await readPages<Listed>(adviser, `/api/sightings?fieldId=${fieldId}`, 'sightings', 4);
+    expect(pages).toBe(3);
+    expect(rows.map((s) => s.id)).toEqual(whole.sightings.map((s: Listed) => s.id));
+    expect(new Set(rows.map((s) => s.id)).size).toBe(made.length);
+    expect([...rows.map((s) => s.id)].sort()).toEqual([...made].sort());
+    expect(rows.map((s) => s.walkedOn)).toEqual([...Array(6).fill('2026-07-01'), ...Array(5).fill('2026-07-08')]);
+    expect(rows[5].id).toBe(made[6]);
+    expect(rows[5].observedAt).toBeNull();
+  });
+
+  it('answers a page of the default size without a limit', async () => {
+    const res = await adviser.get(`/api/sightings?fieldId=${fieldId}`).expect(200);
+    expect(res.body.limit).toBe(SIGHTING_PAGE.default);
+  });
+
+  it(`refuses a page larger than ${SIGHTING_PAGE.max}, an empty one and a forged cursor, each with a sentence`, async () => {
+    const large = await adviser.get(`/api/sightings?fieldId=${fieldId}&limit=${SIGHTING_PAGE.max + 1}`);
+    expect(large.status).toBe(400);
+    expect(large.body.error.message).toContain(`at most ${SIGHTING_PAGE.max} sightings`);
+    expect((await adviser.get(`/api/sightings?fieldId=${fieldId}&limit=0`)).status).toBe(400);
+    expect((await adviser.get(`/api/sightings?fieldId=${fieldId}&limit=two`)).status).toBe(400);
+    for (const cursor of forgedCursors) {
+      const forged = await adviser.get(`/api/sightings?fieldId=${fieldId}&cursor=${encodeURIComponent(cursor)}`);
+      expect(forged.status).toBe(400);
+      expect(forged.body.error.message).toMatch(/start again from the first page/);
+    }
+  });
+
+  it('reads nothing of this field through its cursor on another field or in another organisation', async () => {
+    const first = (await adviser.get(`/api/sightings?fieldId=${fieldId}&limit=2`).expect(200)).body;
+    const elsewhere = (await adviser.get(`/api/sightings?fieldId=${otherFieldId}&cursor=${first.nextCursor}`).expect(200)).body;
+    expect(elsewhere.sightings.length).toBeGreaterThan(0);
+    expect(elsewhere.sightings.every((s: { fieldId: string }) => s.fieldId === otherFieldId)).toBe(true);
+    const theirs = (await outsider.get(`/api/sightings?fieldId=${fieldId}&cursor=${first.nextCursor}`).expect(200)).body;
+    expect(theirs.sightings).toEqual([]);
+    expect(theirs.nextCursor).toBeNull();
+  });
+});
