@@ -2,9 +2,11 @@
 // its walks and its checks. Joined, the pages give the whole list once, in order; a forged cursor or an oversized page
 // is refused with a sentence; a cursor carried to another field or organisation reads nothing of the first.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { QueryTypes } from 'sequelize';
 import { sequelize } from '../../server/db.ts';
 import { stopQueue } from '../../server/jobs/queue.ts';
 import { SIGHTING_PAGE } from '../../shared/schemas/sightings.ts';
+import { WALK_PAGE } from '../../shared/schemas/walks.ts';
 import { signedIn, type Client } from '../helpers/http.ts';
 import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
 import { addSightings, makeField, makePest, makeWalk, stopsFrom, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
@@ -120,5 +122,59 @@ describe('sightings of a field', () => {
     const theirs = (await outsider.get(`/api/sightings?fieldId=${fieldId}&cursor=${first.nextCursor}`).expect(200)).body;
     expect(theirs.sightings).toEqual([]);
     expect(theirs.nextCursor).toBeNull();
+  });
+});
+
+describe('walks of a field', () => {
+  interface Listed {
+    id: string;
+    fieldId: string;
+    walkedOn: string;
+  }
+  let fieldId: string;
+  let otherFieldId: string;
+  const made: string[] = [];
+
+  beforeAll(async () => {
+    fieldId = (await makeField(org)).id;
+    for (const day of ['2026-06-03', '2026-06-17', '2026-06-10', '2026-07-01', '2026-06-24']) made.push(await makeWalk(org, fieldId, day));
+    // Three people on one day in one statement: one day and one creation time, so only the id orders them.
+    const sameDay = await sequelize.query<{ id: string }>(
+      `INSERT INTO walks (organisation_id, field_id, scout_id, walked_on) SELECT :org, :fieldId, unnest(CAST(:people AS uuid[])), '2026-06-10' RETURNING id`,
+      { replacements: { org: org.id, fieldId, people: `{${[org.users.adviser.id, org.users.admin.id].join(',')}}` }, type: QueryTypes.SELECT },
+    );
+    made.push(...sameDay.map((r) => r.id));
+    otherFieldId = (await makeField(org)).id;
+    await makeWalk(org, otherFieldId, '2026-06-05');
+  });
+
+  it('joins its pages into the whole list once each, newest day first', async () => {
+    const whole = (await adviser.get(`/api/walks?fieldId=${fieldId}&limit=${WALK_PAGE.max}`).expect(200)).body;
+    expect(whole.nextCursor).toBeNull();
+    const { rows, pages } = await readPages<Listed>(adviser, `/api/walks?fieldId=${fieldId}`, 'walks', 2);
+    expect(pages).toBe(4);
+    expect(rows.map((w) => w.id)).toEqual(whole.walks.map((w: Listed) => w.id));
+    expect([...rows.map((w) => w.id)].sort()).toEqual([...made].sort());
+    expect(rows.map((w) => w.walkedOn)).toEqual(['2026-07-01', '2026-06-24', '2026-06-17', '2026-06-10', '2026-06-10', '2026-06-10', '2026-06-03']);
+  });
+
+  it(`refuses a page larger than ${WALK_PAGE.max} and a forged cursor, each with a sentence`, async () => {
+    const large = await adviser.get(`/api/walks?fieldId=${fieldId}&limit=${WALK_PAGE.max + 1}`);
+    expect(large.status).toBe(400);
+    expect(large.body.error.message).toContain(`at most ${WALK_PAGE.max} walks`);
+    const forged = await adviser.get(`/api/walks?fieldId=${fieldId}&cursor=${encodeURIComponent(forgedCursors[0])}`);
+    expect(forged.status).toBe(400);
+    expect(forged.body.error.message).toMatch(/start again from the first page/);
+    // A sightings cursor has four parts; a walk's has three.
+    const sightingsCursor = Buffer.from(JSON.stringify(['2026-06-10', 'infinity', '2026-07-01 10:00:00+00', made[0]])).toString('base64url');
+    expect((await adviser.get(`/api/walks?fieldId=${fieldId}&cursor=${sightingsCursor}`)).status).toBe(400);
+  });
+
+  it('reads nothing of this field through its cursor on another field or in another organisation', async () => {
+    const first = (await adviser.get(`/api/walks?fieldId=${fieldId}&limit=1`).expect(200)).body;
+    const elsewhere = (await adviser.get(`/api/walks?fieldId=${otherFieldId}&cursor=${first.nextCursor}`).expect(200)).body;
+    expect(elsewhere.walks.map((w: Listed) => w.fieldId)).toEqual([otherFieldId]);
+    const theirs = (await outsider.get(`/api/walks?fieldId=${fieldId}&cursor=${first.nextCursor}`).expect(200)).body;
+    expect(theirs.walks).toEqual([]);
   });
 });
