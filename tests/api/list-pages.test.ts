@@ -7,6 +7,7 @@ import { sequelize } from '../../server/db.ts';
 import { stopQueue } from '../../server/jobs/queue.ts';
 import { SIGHTING_PAGE } from '../../shared/schemas/sightings.ts';
 import { WALK_PAGE } from '../../shared/schemas/walks.ts';
+import { CHECK_PAGE } from '../../shared/schemas/checks.ts';
 import { signedIn, type Client } from '../helpers/http.ts';
 import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
 import { addSightings, makeField, makePest, makeWalk, stopsFrom, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
@@ -176,5 +177,81 @@ describe('walks of a field', () => {
     expect(elsewhere.walks.map((w: Listed) => w.fieldId)).toEqual([otherFieldId]);
     const theirs = (await outsider.get(`/api/walks?fieldId=${fieldId}&cursor=${first.nextCursor}`).expect(200)).body;
     expect(theirs.walks).toEqual([]);
+  });
+});
+
+describe('checks of a field', () => {
+  interface Listed {
+    id: string;
+    fieldId: string;
+    pestId: string;
+    createdAt: string;
+  }
+  let fieldId: string;
+  let otherFieldId: string;
+  let aphid: string;
+  let mite: string;
+  const made: string[] = [];
+
+  /** Queued checks written straight into the table (no run needed to be listed), `at` the creation time of each. */
+  async function storeChecks(field: string, pestId: string, at: string[]) {
+    const rows = await sequelize.query<{ id: string }>(
+      `INSERT INTO pattern_checks (organisation_id, field_id, pest_id, options, options_hash, sighting_ids, sightings_hash, engine_version, created_by, created_at)
+       SELECT :org, :field, :pestId, CAST('{"simulations": 99}' AS jsonb), encode(sha256(convert_to(t.at || t.k || :field || :pestId, 'UTF8')), 'hex'), '{}',
+              repeat('0', 64), 'test', :adviser, CAST(t.at AS timestamptz)
+         FROM unnest(CAST(:at AS text[])) WITH ORDINALITY AS t(at, k)
+       RETURNING id`,
+      { replacements: { org: org.id, field, pestId, adviser: org.users.adviser.id, at: `{${at.map((a) => `"${a}"`).join(',')}}` }, type: QueryTypes.SELECT },
+    );
+    return rows.map((r) => r.id);
+  }
+
+  beforeAll(async () => {
+    fieldId = (await makeField(org)).id;
+    aphid = (await makePest(org)).id;
+    mite = (await makePest(org)).id;
+    made.push(...(await storeChecks(fieldId, aphid, ['2026-07-01 08:00:00+00', '2026-07-03 08:00:00+00', '2026-07-05 08:00:00.000001+00'])));
+    // Two run in the same instant: only their ids order them.
+    made.push(...(await storeChecks(fieldId, mite, ['2026-07-04 08:00:00+00', '2026-07-04 08:00:00+00', '2026-07-05 08:00:00+00'])));
+    otherFieldId = (await makeField(org)).id;
+    await storeChecks(otherFieldId, aphid, ['2026-07-02 08:00:00+00']);
+  });
+
+  it('joins its pages into the whole list once each, newest first', async () => {
+    const whole = (await adviser.get(`/api/fields/${fieldId}/checks?limit=${CHECK_PAGE.max}`).expect(200)).body;
+    expect(whole.nextCursor).toBeNull();
+    const { rows, pages } = await readPages<Listed>(adviser, `/api/fields/${fieldId}/checks`, 'checks', 4);
+    expect(pages).toBe(2);
+    expect(rows.map((c) => c.id)).toEqual(whole.checks.map((c: Listed) => c.id));
+    expect([...rows.map((c) => c.id)].sort()).toEqual([...made].sort());
+    // Microseconds count: the check at .000001 comes before the one at the whole second.
+    expect(rows[0].id).toBe(made[2]);
+    expect(rows[1].id).toBe(made[5]);
+    const times = rows.map((c) => Date.parse(c.createdAt));
+    expect(times).toEqual([...times].sort((a, b) => b - a));
+  });
+
+  it('pages one pest’s checks alone', async () => {
+    const { rows } = await readPages<Listed>(adviser, `/api/fields/${fieldId}/checks?pestId=${mite}`, 'checks', 1);
+    expect([...rows.map((c) => c.id)].sort()).toEqual([...made.slice(3)].sort());
+    expect(rows.every((c) => c.pestId === mite)).toBe(true);
+  });
+
+  it(`refuses a page larger than ${CHECK_PAGE.max} and a forged cursor, each with a sentence`, async () => {
+    const large = await adviser.get(`/api/fields/${fieldId}/checks?limit=${CHECK_PAGE.max + 1}`);
+    expect(large.status).toBe(400);
+    expect(large.body.error.message).toContain(`at most ${CHECK_PAGE.max} checks`);
+    for (const cursor of forgedCursors) {
+      const forged = await adviser.get(`/api/fields/${fieldId}/checks?cursor=${encodeURIComponent(cursor)}`);
+      expect(forged.status).toBe(400);
+      expect(forged.body.error.message).toMatch(/start again from the first page/);
+    }
+  });
+
+  it('reads nothing of this field through its cursor on another field, and refuses another organisation', async () => {
+    const first = (await adviser.get(`/api/fields/${fieldId}/checks?limit=1`).expect(200)).body;
+    const elsewhere = (await adviser.get(`/api/fields/${otherFieldId}/checks?cursor=${first.nextCursor}`).expect(200)).body;
+    expect(elsewhere.checks.map((c: Listed) => c.fieldId)).toEqual([otherFieldId]);
+    expect((await outsider.get(`/api/fields/${fieldId}/checks?cursor=${first.nextCursor}`)).status).toBe(404);
   });
 });
