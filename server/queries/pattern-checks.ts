@@ -240,9 +240,21 @@ export interface CheckSummaryRow {
 
 const resultNumber = (path: string) => `CAST(c.result #>> '{${path}}' AS float8)`;
 
-/** A field's checks in the organisation, newest first (one pest's when given), without their (large) results. */
-export const listCheckSummariesOfField = (organisationId: string, fieldId: string, pestId?: string) =>
-  selectRows<CheckSummaryRow>(
+/** Where a page of a field's checks starts and how long it is: strictly after the sort key (creation time, id), newest first. */
+export interface CheckSummaryPage {
+  after?: string[];
+  limit: number;
+}
+
+/**
+ * A field's checks in the organisation, newest first (one pest's when given), without their (large) results; one page
+ * of them when `page` is given, each row with its sort key.
+ */
+export function listCheckSummariesOfField(organisationId: string, fieldId: string, pestId?: string, page?: CheckSummaryPage) {
+  const where = ['c.organisation_id = :org', 'c.field_id = :fieldId'];
+  if (pestId) where.push('c.pest_id = :pestId');
+  if (page?.after) where.push('(c.created_at, c.id) < (CAST(:afterCreated AS timestamptz), CAST(:afterId AS uuid))');
+  return selectRows<CheckSummaryRow & { pageKey: string[] }>(
     `SELECT c.id, c.field_id AS "fieldId", c.pest_id AS "pestId", p.name AS "pestName", to_char(c.window_from, 'YYYY-MM-DD') AS "windowFrom",
             to_char(c.window_to, 'YYYY-MM-DD') AS "windowTo", c.status, c.progress, c.engine_version AS "engineVersion", c.options, c.design,
             c.created_by AS "createdBy", c.created_at AS "createdAt", c.finished_at AS "finishedAt",
@@ -259,12 +271,14 @@ export const listCheckSummariesOfField = (organisationId: string, fieldId: strin
             c.not_scouted_m2 AS "notScoutedM2",
             (SELECT array_agg(s.count ORDER BY s.id) FROM sightings s WHERE s.id = ANY(c.sighting_ids) AND s.deleted_at IS NULL) AS counts,
             p.count_unit AS "countUnit", p.action_threshold AS "actionThreshold", p.threshold_basis AS "thresholdBasis",
-            p.threshold_source AS "thresholdSource", p.threshold_confirmed AS "thresholdConfirmed"
+            p.threshold_source AS "thresholdSource", p.threshold_confirmed AS "thresholdConfirmed",
+            ARRAY[c.created_at::text, c.id::text] AS "pageKey"
        FROM pattern_checks c JOIN pests p ON p.id = c.pest_id
-      WHERE c.organisation_id = :org AND c.field_id = :fieldId${pestId ? ' AND c.pest_id = :pestId' : ''}
-      ORDER BY c.created_at DESC, c.id`,
-    { org: organisationId, fieldId, pestId },
+      WHERE ${where.join(' AND ')}
+      ORDER BY c.created_at DESC, c.id DESC${page ? ' LIMIT :limit' : ''}`,
+    { org: organisationId, fieldId, pestId, afterCreated: page?.after?.[0], afterId: page?.after?.[1], limit: page?.limit },
   );
+}
 
 export const findCheckDensityState = (organisationId: string, checkId: string) =>
   selectRow<{ status: string; hasDensity: boolean }>(

@@ -1,11 +1,16 @@
 import type { Transaction } from 'sequelize';
-import type { SightingListQuery, SightingView } from '../../shared/schemas/sightings.ts';
+import type { SightingFilter, SightingView } from '../../shared/schemas/sightings.ts';
 import type { ThresholdBasis } from '../../shared/schemas/pests.ts';
 import { execute, selectRow, selectRows, type InTransaction } from './sql.ts';
 
 // The one statement of what a live sighting is: not deleted and placed on the map (a photo still waiting for its pin
 // has no position). Every query that reads sightings for checks, zones, notices or lists of found pests uses it.
 export const liveSighting = (alias: string) => `${alias}.deleted_at IS NULL AND ${alias}.status = 'placed'`;
+
+// The lists' one order: walk day, then time seen (none last), then upload, then id so ties still fall one way. As a row
+// value it is the page key; PostgreSQL's own text of each part keeps the microseconds a JavaScript date would drop.
+const SIGHTING_ORDER = `w.walked_on, COALESCE(s.observed_at, CAST('infinity' AS timestamptz)), s.created_at, s.id`;
+const SIGHTING_KEY = `ARRAY[to_char(w.walked_on, 'YYYY-MM-DD'), COALESCE(s.observed_at, CAST('infinity' AS timestamptz))::text, s.created_at::text, s.id::text]`;
 
 const sightingSelect = `
   SELECT s.id, s.field_id AS "fieldId", s.walk_id AS "walkId", to_char(w.walked_on, 'YYYY-MM-DD') AS "walkedOn",
@@ -14,7 +19,8 @@ const sightingSelect = `
          s.position_source AS "positionSource", s.accuracy_m AS "accuracyM", s.altitude_m AS "altitudeM",
          s.direction_deg AS "directionDeg", s.observed_at AS "observedAt", s.time_flag AS "timeFlag", s.status,
          s.photo_id AS "photoId", ph.thumbnail_status AS "thumbnailStatus", s.created_by AS "scoutId", u.name AS "scoutName",
-         (s.photo_id IS NULL AND s.count = 0) AS "isEmptyStop", s.created_at AS "createdAt", s.deleted_at AS "deletedAt"
+         (s.photo_id IS NULL AND s.count = 0) AS "isEmptyStop", s.created_at AS "createdAt", s.deleted_at AS "deletedAt",
+         ${SIGHTING_KEY} AS "pageKey"
     FROM sightings s
     JOIN walks w ON w.id = s.walk_id
     JOIN pests p ON p.id = s.pest_id
@@ -29,14 +35,30 @@ export type SightingRow = Omit<SightingView, 'position' | 'observedAt' | 'create
   deletedAt: Date | null;
 };
 
-async function querySightings(where: string[], replacements: Record<string, unknown>, transaction?: Transaction) {
-  return selectRows<SightingRow>(`${sightingSelect} WHERE ${where.join(' AND ')} ORDER BY w.walked_on, s.observed_at NULLS LAST, s.created_at`, replacements, {
-    transaction,
-  });
+async function querySightings(where: string[], replacements: Record<string, unknown>, transaction?: Transaction, limit?: number) {
+  return selectRows<SightingRow>(
+    `${sightingSelect} WHERE ${where.join(' AND ')} ORDER BY ${SIGHTING_ORDER}${limit ? ' LIMIT :limit' : ''}`,
+    { ...replacements, limit },
+    { transaction },
+  );
 }
 
-/** The organisation's sightings not deleted (placed or waiting for a pin) matching the query; only on the fields in `ids` when given. */
-export function listSightingsOfOrganisation(organisationId: string, ids: string[] | null, query: SightingListQuery) {
+/** Strictly after this sort key (walk day, time seen or infinity, upload time, id), at most `limit` rows. */
+export interface SightingPage {
+  after?: string[];
+  limit: number;
+}
+
+/**
+ * The organisation's sightings not deleted (placed or waiting for a pin) matching the query; only on the fields in `ids`
+ * when given; one page of them when `page` is given, each row with its sort key.
+ */
+export function listSightingsOfOrganisation(
+  organisationId: string,
+  ids: string[] | null,
+  query: SightingFilter,
+  page?: SightingPage,
+): Promise<Array<SightingRow & { pageKey: string[] }>> {
   const where = ['s.organisation_id = :org', 's.deleted_at IS NULL'];
   if (ids) where.push(ids.length ? 's.field_id IN (:ids)' : 'false');
   if (query.fieldId) where.push('s.field_id = :fieldId');
@@ -46,7 +68,15 @@ export function listSightingsOfOrganisation(organisationId: string, ids: string[
   if (query.from) where.push('w.walked_on >= CAST(:from AS date)');
   if (query.to) where.push('w.walked_on <= CAST(:to AS date)');
   if (query.status) where.push('s.status = :status');
-  return querySightings(where, { org: organisationId, ids, ...query });
+  const after = page?.after;
+  if (after)
+    where.push(`(${SIGHTING_ORDER}) > (CAST(:afterDay AS date), CAST(:afterSeen AS timestamptz), CAST(:afterCreated AS timestamptz), CAST(:afterId AS uuid))`);
+  return querySightings(
+    where,
+    { org: organisationId, ids, ...query, afterDay: after?.[0], afterSeen: after?.[1], afterCreated: after?.[2], afterId: after?.[3] },
+    undefined,
+    page?.limit,
+  ) as Promise<Array<SightingRow & { pageKey: string[] }>>;
 }
 
 /** A walk's sightings deleted since the cutoff (still restorable), most recently deleted first. */

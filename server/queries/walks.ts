@@ -2,36 +2,50 @@ import type { WalkView } from '../../shared/schemas/walks.ts';
 import { execute, selectRow, selectRows, type InTransaction } from './sql.ts';
 import { liveSighting } from './sightings.ts';
 
+// Counts per walk from a lateral read of its own sightings, so a page of walks is chosen (and limited) before any counting.
 const walkSelect = `
   SELECT w.id, w.field_id AS "fieldId", f.name AS "fieldName", w.scout_id AS "scoutId", u.name AS "scoutName",
-         to_char(w.walked_on, 'YYYY-MM-DD') AS "walkedOn", w.notes,
-         count(s.id) FILTER (WHERE NOT (s.photo_id IS NULL AND s.count = 0))::int AS "sightingCount",
-         count(s.id) FILTER (WHERE s.photo_id IS NULL AND s.count = 0)::int AS "stopCount",
-         w.created_at AS "createdAt", w.finished_at AS "finishedAt"
+         to_char(w.walked_on, 'YYYY-MM-DD') AS "walkedOn", w.notes, c."sightingCount", c."stopCount", w.created_at AS "createdAt",
+         w.finished_at AS "finishedAt", ARRAY[to_char(w.walked_on, 'YYYY-MM-DD'), w.created_at::text, w.id::text] AS "pageKey"
     FROM walks w
     JOIN fields f ON f.id = w.field_id
     JOIN users u ON u.id = w.scout_id
-    LEFT JOIN sightings s ON s.walk_id = w.id AND s.deleted_at IS NULL`;
+    CROSS JOIN LATERAL (
+      SELECT count(*) FILTER (WHERE NOT (s.photo_id IS NULL AND s.count = 0))::int AS "sightingCount",
+             count(*) FILTER (WHERE s.photo_id IS NULL AND s.count = 0)::int AS "stopCount"
+        FROM sightings s WHERE s.walk_id = w.id AND s.deleted_at IS NULL) c`;
 
-async function queryWalks(where: string, replacements: Record<string, unknown>, options: InTransaction = {}): Promise<WalkView[]> {
-  const rows = await selectRows<WalkView & { createdAt: Date; finishedAt: Date | null }>(
-    `${walkSelect} WHERE ${where} GROUP BY w.id, f.name, u.name ORDER BY w.walked_on DESC, w.created_at DESC`,
-    replacements,
+/** A walk with its sort key (day, creation time, id), the lists' page key. */
+export type KeyedWalk = WalkView & { pageKey: string[] };
+
+async function queryWalks(where: string, replacements: Record<string, unknown>, options: InTransaction & { limit?: number } = {}): Promise<KeyedWalk[]> {
+  const rows = await selectRows<KeyedWalk & { createdAt: Date; finishedAt: Date | null }>(
+    `${walkSelect} WHERE ${where} ORDER BY w.walked_on DESC, w.created_at DESC, w.id DESC${options.limit ? ' LIMIT :limit' : ''}`,
+    { ...replacements, limit: options.limit },
     options,
   );
   return rows.map((r) => ({ ...r, createdAt: new Date(r.createdAt).toISOString(), finishedAt: r.finishedAt && new Date(r.finishedAt).toISOString() }));
 }
 
-/** The organisation's walks, newest first: only on the fields in `ids` when given, only on one field when `fieldId` is. */
-export function listWalksOfOrganisation(organisationId: string, ids: string[] | null, fieldId?: string) {
+/**
+ * One page of the organisation's walks, newest first: only on the fields in `ids` when given, only on one field when
+ * `fieldId` is, strictly after the sort key `after` (day, creation time, id) when given.
+ */
+export function listWalksOfOrganisation(organisationId: string, ids: string[] | null, page: { fieldId?: string; after?: string[]; limit: number }) {
   const conditions = ['w.organisation_id = :org'];
   if (ids) conditions.push(ids.length ? 'w.field_id IN (:ids)' : 'false');
-  if (fieldId) conditions.push('w.field_id = :fieldId');
-  return queryWalks(conditions.join(' AND '), { org: organisationId, ids, fieldId });
+  if (page.fieldId) conditions.push('w.field_id = :fieldId');
+  if (page.after) conditions.push('(w.walked_on, w.created_at, w.id) < (CAST(:afterDay AS date), CAST(:afterCreated AS timestamptz), CAST(:afterId AS uuid))');
+  const [afterDay, afterCreated, afterId] = page.after ?? [];
+  return queryWalks(conditions.join(' AND '), { org: organisationId, ids, fieldId: page.fieldId, afterDay, afterCreated, afterId }, { limit: page.limit });
 }
 
-export const findWalkInOrganisation = async (organisationId: string, id: string, options: InTransaction = {}) =>
-  (await queryWalks('w.id = :id AND w.organisation_id = :org', { id, org: organisationId }, options))[0] as WalkView | undefined;
+export async function findWalkInOrganisation(organisationId: string, id: string, options: InTransaction = {}): Promise<WalkView | undefined> {
+  const [found] = await queryWalks('w.id = :id AND w.organisation_id = :org', { id, org: organisationId }, options);
+  if (!found) return undefined;
+  const { pageKey: _key, ...walk } = found;
+  return walk;
+}
 
 export interface WalkRef {
   id: string;

@@ -12,8 +12,7 @@ export const fieldInsightsRouter = Router();
 const idParam = z.object({ id: z.uuid({ error: 'That field id is not valid.' }) });
 
 fieldInsightsRouter.get('/:id/checks', requireRole('adviser', 'admin'), async (req, res) => {
-  const { pestId } = parse(fieldChecksQuerySchema, req.query);
-  res.json({ checks: await listFieldChecks(actor(req), parse(idParam, req.params).id, pestId) });
+  res.json(await listFieldChecks(actor(req), parse(idParam, req.params).id, parse(fieldChecksQuerySchema, req.query)));
 });
 
 fieldInsightsRouter.get('/:id/threshold-status', requireRole('adviser', 'admin'), async (req, res) => {

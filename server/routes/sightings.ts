@@ -9,7 +9,7 @@ export const sightingsRouter = Router();
 const idParam = z.object({ id: z.uuid({ error: 'That sighting id is not valid.' }) });
 
 sightingsRouter.get('/', requireSignedIn, async (req, res) => {
-  res.json({ sightings: await listSightings(actor(req), parse(sightingListQuerySchema, req.query)) });
+  res.json(await listSightings(actor(req), parse(sightingListQuerySchema, req.query)));
 });
 
 sightingsRouter.get('/:id', requireSignedIn, async (req, res) => {

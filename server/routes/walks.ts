@@ -11,7 +11,7 @@ export const walksRouter = Router();
 const idParam = z.object({ id: z.uuid({ error: 'That walk id is not valid.' }) });
 
 walksRouter.get('/', requireSignedIn, async (req, res) => {
-  res.json({ walks: await listWalks(actor(req), parse(walkListQuerySchema, req.query)) });
+  res.json(await listWalks(actor(req), parse(walkListQuerySchema, req.query)));
 });
 
 walksRouter.post('/', requireSignedIn, async (req, res) => {

@@ -7,12 +7,13 @@ import type { Actor } from '../auth/passport.ts';
 import { badRequest, notFound } from '../errors.ts';
 import { findVisibleField } from './fields.ts';
 import { findPest } from './pests.ts';
+import { decodePageCursor, pageOf, type CursorPart } from './page-cursor.ts';
 import { recordAudit } from './audit.ts';
 import { checkWork, INLINE_WORK_LIMIT, optionsHash, runStoredCheck, sightingsHash, sightingsInWindow } from './check-runner.ts';
 import { enqueueCheck } from '../jobs/check-worker.ts';
 import { ENGINE_VERSION } from '../../shared/analysis/version.ts';
 import type { AnalysisOptions } from '../../shared/analysis/options.ts';
-import type { CheckFigures, CheckRequest, CheckSummary, CheckView } from '../../shared/schemas/checks.ts';
+import type { CheckFigures, CheckRequest, CheckSummary, CheckView, FieldChecksQuery, FieldChecksResponse } from '../../shared/schemas/checks.ts';
 import type { SpreadVerdict } from '../../shared/analysis/spread.ts';
 import { cachedAnswer, serialise, type SerialisedAnswer } from './check-answer-cache.ts';
 import { assertCheckWithinBudget, fieldExtent, INLINE_WORK_UNITS } from './check-budget.ts';
@@ -212,7 +213,14 @@ export async function fieldCheckSummaries(organisationId: string, fieldId: strin
   return summarise(await checks.listCheckSummariesOfField(organisationId, fieldId, pestId));
 }
 
-export async function listFieldChecks(actor: Actor, fieldId: string, pestId?: string): Promise<CheckSummary[]> {
+/** A check's page key: creation time, id. */
+const CHECK_KEY_PARTS: CursorPart[] = ['timestamp', 'uuid'];
+
+/** One page of a field's checks the actor may see, newest first (one pest's when asked). */
+export async function listFieldChecks(actor: Actor, fieldId: string, query: FieldChecksQuery): Promise<FieldChecksResponse> {
+  const after = query.cursor ? decodePageCursor(query.cursor, CHECK_KEY_PARTS) : undefined;
   await findVisibleField(actor, fieldId);
-  return fieldCheckSummaries(actor.organisationId, fieldId, pestId);
+  const rows = await checks.listCheckSummariesOfField(actor.organisationId, fieldId, query.pestId, { after, limit: query.limit + 1 });
+  const { page, nextCursor } = pageOf(rows, query.limit, (row) => row.pageKey);
+  return { checks: await summarise(page), limit: query.limit, nextCursor };
 }

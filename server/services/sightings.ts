@@ -6,11 +6,18 @@ import { markPhotoDeleted, markPhotoRestored } from '../queries/photos.ts';
 import { findPestInOrganisation } from '../queries/pests.ts';
 import { findFieldName } from '../queries/fields.ts';
 import type { Actor } from '../auth/passport.ts';
-import { SIGHTING_RECOVERABLE_DAYS, type SightingListQuery, type SightingUpdateInput, type SightingView } from '../../shared/schemas/sightings.ts';
+import {
+  SIGHTING_RECOVERABLE_DAYS,
+  type SightingListQuery,
+  type SightingListResponse,
+  type SightingUpdateInput,
+  type SightingView,
+} from '../../shared/schemas/sightings.ts';
 import type { WalkStopInput } from '../../shared/schemas/walks.ts';
 import { AppError, badRequest, conflict, forbidden, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { visibleFieldIds } from './scope.ts';
+import { decodePageCursor, pageOf, type CursorPart } from './page-cursor.ts';
 import { writableWalk } from './ingest-access.ts';
 import { fieldContains } from './ingest-fields.ts';
 
@@ -19,6 +26,9 @@ export const RECOVERABLE_DAYS = SIGHTING_RECOVERABLE_DAYS;
 
 // Spelled out key by key, in the answer's order (the row's columns, then position): rest/spread copies of
 // thousands of rows cost more than the query that read them.
+/** A sighting's page key: walk day, time seen (infinity when none), upload time, id. */
+const SIGHTING_KEY_PARTS: CursorPart[] = ['date', 'timestamp', 'timestamp', 'uuid'];
+
 function present(row: sightings.SightingRow): SightingView {
   return {
     id: row.id,
@@ -45,12 +55,22 @@ function present(row: sightings.SightingRow): SightingView {
   };
 }
 
-export async function listSightings(actor: Actor, query: SightingListQuery): Promise<SightingView[]> {
-  if ((actor.role === 'adviser' || actor.role === 'admin') && !query.fieldId && !query.walkId) {
+/** One page of the sightings the actor may see that match the query, in the lists' order (walk day, time seen, upload). */
+export async function listSightings(actor: Actor, query: SightingListQuery): Promise<SightingListResponse> {
+  const { limit, cursor, ...filter } = query;
+  if ((actor.role === 'adviser' || actor.role === 'admin') && !filter.fieldId && !filter.walkId) {
     throw badRequest('Choose a field (or a walk) to list its sightings.', { fieldId: 'Choose a field.' });
   }
+  const after = cursor ? decodePageCursor(cursor, SIGHTING_KEY_PARTS) : undefined;
   const ids = await visibleFieldIds(actor);
-  const rows = await sightings.listSightingsOfOrganisation(actor.organisationId, ids, query);
+  const rows = await sightings.listSightingsOfOrganisation(actor.organisationId, ids, filter, { after, limit: limit + 1 });
+  const { page, nextCursor } = pageOf(rows, limit, (row) => row.pageKey);
+  return { sightings: page.map(present), limit, nextCursor };
+}
+
+/** Every live sighting of a walk the caller has already been allowed to see, in the lists' order. */
+export async function listSightingsOfWalk(actor: Actor, walkId: string): Promise<SightingView[]> {
+  const rows = await sightings.listSightingsOfOrganisation(actor.organisationId, await visibleFieldIds(actor), { walkId });
   return rows.map(present);
 }
 

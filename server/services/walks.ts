@@ -2,17 +2,25 @@
 import type { Transaction } from 'sequelize';
 import { sequelize } from '../db.ts';
 import type { Actor } from '../auth/passport.ts';
-import type { WalkCreateInput, WalkUpdateInput, WalkView } from '../../shared/schemas/walks.ts';
+import type { WalkCreateInput, WalkListQuery, WalkListResponse, WalkUpdateInput, WalkView } from '../../shared/schemas/walks.ts';
 import { badRequest, conflict, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { visibleFieldIds } from './scope.ts';
+import { decodePageCursor, pageOf, type CursorPart } from './page-cursor.ts';
 import { writableField, writableWalk } from './ingest-access.ts';
-import { listRestorableSightingsOfWalk, listSightings } from './sightings.ts';
+import { listRestorableSightingsOfWalk, listSightingsOfWalk } from './sightings.ts';
 import * as walks from '../queries/walks.ts';
 
-export async function listWalks(actor: Actor, filter: { fieldId?: string } = {}) {
+/** A walk's page key: day, creation time, id. */
+const WALK_KEY_PARTS: CursorPart[] = ['date', 'timestamp', 'uuid'];
+
+/** One page of the walks the actor may see (of one field when asked), newest first. */
+export async function listWalks(actor: Actor, query: WalkListQuery): Promise<WalkListResponse> {
+  const after = query.cursor ? decodePageCursor(query.cursor, WALK_KEY_PARTS) : undefined;
   const ids = await visibleFieldIds(actor);
-  return walks.listWalksOfOrganisation(actor.organisationId, ids, filter.fieldId);
+  const rows = await walks.listWalksOfOrganisation(actor.organisationId, ids, { fieldId: query.fieldId, after, limit: query.limit + 1 });
+  const { page, nextCursor } = pageOf(rows, query.limit, (walk) => walk.pageKey);
+  return { walks: page.map(({ pageKey: _key, ...walk }) => walk), limit: query.limit, nextCursor };
 }
 
 export async function findVisibleWalk(actor: Actor, id: string, transaction?: Transaction): Promise<WalkView> {
@@ -24,7 +32,7 @@ export async function findVisibleWalk(actor: Actor, id: string, transaction?: Tr
 
 export async function getWalk(actor: Actor, id: string) {
   const walk = await findVisibleWalk(actor, id);
-  const [sightings, removed] = await Promise.all([listSightings(actor, { walkId: id }), listRestorableSightingsOfWalk(actor, id)]);
+  const [sightings, removed] = await Promise.all([listSightingsOfWalk(actor, id), listRestorableSightingsOfWalk(actor, id)]);
   return { walk, sightings, removed };
 }
 

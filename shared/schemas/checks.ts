@@ -9,6 +9,7 @@ import type { StopsQuadratResult } from '../analysis/stops-quadrat.ts';
 import type { StopMerge } from '../analysis/stops.ts';
 import type { SpreadVerdict } from '../analysis/spread.ts';
 import { calendarDateSchema } from './calendar-date.ts';
+import { pageQueryFields, type PageInfo } from './page.ts';
 import type { ThresholdStatus } from '../thresholds/threshold-status.ts';
 import type { UnacknowledgedNotice } from './notices.ts';
 import type { WaitingGrowerQuestion } from './notice-questions.ts';
@@ -39,7 +40,13 @@ export type CheckRequestInput = z.input<typeof checkRequestSchema>;
 export const SENSITIVITY_SIMULATIONS = 199;
 export const sensitivityRequestSchema = checkRequestSchema;
 
-export const fieldChecksQuerySchema = z.object({ pestId: z.uuid({ error: 'That pest id is not valid.' }).optional() });
+/** Checks per page of GET /api/fields/:id/checks, newest first. */
+export const CHECK_PAGE = { default: 20, max: 100 };
+export const fieldChecksQuerySchema = z.object({
+  pestId: z.uuid({ error: 'That pest id is not valid.' }).optional(),
+  ...pageQueryFields('checks', CHECK_PAGE),
+});
+export type FieldChecksQuery = z.infer<typeof fieldChecksQuerySchema>;
 export const thresholdStatusQuerySchema = z.object({
   pestId: z.uuid({ error: 'That pest id is not valid.' }).optional(),
   walkId: z.uuid({ error: 'That walk id is not valid.' }).optional(),
@@ -178,7 +185,7 @@ export interface CheckSummaryThreshold {
 export interface CheckResponse {
   check: CheckView;
 }
-export interface FieldChecksResponse {
+export interface FieldChecksResponse extends PageInfo {
   checks: CheckSummary[];
 }
 

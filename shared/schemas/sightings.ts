@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import { calendarDateSchema } from './calendar-date.ts';
 import type { WalkView } from './walks.ts';
+import { pageQueryFields, type PageInfo } from './page.ts';
 
 export const positionSources = ['exif', 'pin', 'device'] as const;
 export type PositionSource = (typeof positionSources)[number];
@@ -92,6 +93,9 @@ export interface PhotoUploadResponse {
 
 const isoDate = calendarDateSchema({ shape: 'Dates must be YYYY-MM-DD.', notADay: 'That date is not a real calendar date; pick a day that exists.' });
 
+/** Sightings per page of GET /api/sightings: the review reads every page of a field at the largest size. */
+export const SIGHTING_PAGE = { default: 250, max: 1000 };
+
 export const sightingListQuerySchema = z.object({
   fieldId: z.uuid({ error: 'That field id is not valid.' }).optional(),
   pestId: z.uuid({ error: 'That pest id is not valid.' }).optional(),
@@ -100,8 +104,11 @@ export const sightingListQuerySchema = z.object({
   from: isoDate.optional(),
   to: isoDate.optional(),
   status: z.enum(sightingStatuses, { error: 'Status must be placed or needs-pin.' }).optional(),
+  ...pageQueryFields('sightings', SIGHTING_PAGE),
 });
 export type SightingListQuery = z.infer<typeof sightingListQuerySchema>;
+/** The filters of a list of sightings, without its page. */
+export type SightingFilter = Omit<SightingListQuery, 'limit' | 'cursor'>;
 
 export const sightingUpdateSchema = z
   .object({
@@ -139,7 +146,7 @@ export interface SightingView {
   createdAt: string;
 }
 
-export interface SightingListResponse {
+export interface SightingListResponse extends PageInfo {
   sightings: SightingView[];
 }
 

@@ -1,6 +1,7 @@
 // The walk API's contract, shared by the server routes and the scout's screens.
 import { z } from 'zod';
 import { calendarDateSchema } from './calendar-date.ts';
+import { pageQueryFields, type PageInfo } from './page.ts';
 
 const isoDate = calendarDateSchema({ shape: 'Enter the walk date as YYYY-MM-DD.', notADay: 'That walk date is not a real calendar date.' });
 
@@ -26,9 +27,14 @@ export type WalkUpdateInput = z.infer<typeof walkUpdateSchema>;
 /** Finishing takes no choices: the server's clock records when. */
 export const walkFinishSchema = z.strictObject({}, { error: 'Finishing a walk takes no fields; send an empty body.' });
 
+/** Walks per page of GET /api/walks, newest first. */
+export const WALK_PAGE = { default: 25, max: 100 };
+
 export const walkListQuerySchema = z.object({
   fieldId: z.uuid({ error: 'That field id is not valid.' }).optional(),
+  ...pageQueryFields('walks', WALK_PAGE),
 });
+export type WalkListQuery = z.infer<typeof walkListQuerySchema>;
 
 /** A phone's clock may run a little ahead of the server's. */
 const STOP_CLOCK_SLACK_MS = 10 * 60_000;
@@ -70,7 +76,7 @@ export interface WalkView {
   finishedAt: string | null;
 }
 
-export interface WalkListResponse {
+export interface WalkListResponse extends PageInfo {
   walks: WalkView[];
 }
 

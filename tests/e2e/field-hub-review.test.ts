@@ -7,7 +7,7 @@ import { mean } from 'simple-statistics';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
 import { signedIn, type Client } from '../helpers/http.ts';
 import { makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
-import { addSightings, TEST_FIELD_CORNER, TEST_FIELD_SIZE } from '../helpers/sightings.ts';
+import { addSightings, makeField, makeWalk, TEST_FIELD_CORNER, TEST_FIELD_SIZE } from '../helpers/sightings.ts';
 import { acceptProposedZones, makeCheckedField, type ScoutedCheck } from '../helpers/zones.ts';
 import type { CheckView } from '../../shared/schemas/checks.ts';
 import type { AnalysisResult } from '../../shared/analysis/analyse.ts';
@@ -217,6 +217,27 @@ describe('the field page in the browser', () => {
       await page.goBack();
       await unchecked.click();
       await page.waitForURL((url) => url.pathname === `/fields/${scouted.field.id}/review` && url.searchParams.get('pest') === scouted.pest.id);
+    } finally {
+      await page.close();
+    }
+  });
+
+  it('shows the first page of walks and loads the next ones on “Show more walks”', async () => {
+    const field = await makeField(org, undefined, 'Long meadow');
+    const days = ['2026-06-01', '2026-06-04', '2026-06-08', '2026-06-11', '2026-06-15', '2026-06-18', '2026-06-22', '2026-06-25'];
+    for (const day of days) await makeWalk(org, field.id, day);
+    const page = await adviserPage();
+    try {
+      await page.goto(`${server.url}/fields/${field.id}`);
+      const walks = page.getByRole('table', { name: 'Recent walks' }).locator('tbody tr');
+      await walks.first().waitFor();
+      // en-GB, CLDR "d MMMM y"; newest first.
+      const shown = () => walks.evaluateAll((rows) => rows.map((r) => r.querySelector('td')?.textContent));
+      expect(await shown()).toEqual(['25 June 2026', '22 June 2026', '18 June 2026', '15 June 2026', '11 June 2026', '8 June 2026']);
+      await page.getByRole('button', { name: 'Show more walks' }).click();
+      await expect.poll(() => walks.count()).toBe(days.length);
+      expect((await shown()).slice(6)).toEqual(['4 June 2026', '1 June 2026']);
+      expect(await page.getByRole('button', { name: 'Show more walks' }).count()).toBe(0);
     } finally {
       await page.close();
     }

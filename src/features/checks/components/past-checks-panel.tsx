@@ -1,10 +1,12 @@
-// The field's stored checks, newest first: each opens in the review (its id in the address, so it can be
+// The field's stored checks, newest first, a page at a time: each opens in the review (its id in the address, so it can be
 // shared), and any two can be chosen for a side-by-side comparison.
 import { useState } from 'react';
 import { Link } from 'react-router';
 import type { CheckSummary } from '@shared/schemas/checks.ts';
 import { Panel } from '../../../components/page-frame.tsx';
 import { Button } from '../../../components/button.tsx';
+import { FormMessage } from '../../../components/form-field.tsx';
+import { errorMessage } from '../../../lib/form-errors.ts';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import type { useFieldChecks } from '../../../lib/api/get-field-checks.ts';
 import { useDates } from '../../../lib/dates.ts';
@@ -32,13 +34,15 @@ export function PastChecksPanel({
         <LoadingState label="Loading the field’s checks…" />
       </Panel>
     );
-  if (checks.isError)
+  // A failed next page keeps the checks already shown; only a failed first page takes the panel.
+  if (checks.isError && !checks.isFetchNextPageError)
     return (
       <Panel title="Past checks">
         <ErrorState error={checks.error} onRetry={() => checks.refetch()} />
       </Panel>
     );
-  if (checks.data.length === 0)
+  const rows = checks.data ?? [];
+  if (rows.length === 0)
     return (
       <Panel title="Past checks">
         <EmptyState title="No checks on this field yet">Every check you run is stored here with its window and options.</EmptyState>
@@ -47,7 +51,7 @@ export function PastChecksPanel({
 
   // Choosing a third drops the oldest choice, so two stay chosen.
   const toggle = (id: string) => setChosen((now) => (now.includes(id) ? now.filter((c) => c !== id) : [...now, id].slice(-2)));
-  const pair = chosen.map((id) => checks.data.find((c) => c.id === id)).filter((c): c is CheckSummary => Boolean(c));
+  const pair = chosen.map((id) => rows.find((c) => c.id === id)).filter((c): c is CheckSummary => Boolean(c));
   return (
     <Panel title="Past checks">
       <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-soil-300/60">
@@ -81,7 +85,7 @@ export function PastChecksPanel({
             </tr>
           </thead>
           <tbody className="divide-y divide-straw-200">
-            {checks.data.map((c) => {
+            {rows.map((c) => {
               const opened = c.id === openedId || c.id === comparedId;
               return (
                 <tr key={c.id} data-check-row={c.id} aria-current={c.id === openedId ? 'true' : undefined} className={opened ? 'bg-field-50' : undefined}>
@@ -117,6 +121,16 @@ export function PastChecksPanel({
           </tbody>
         </table>
       </div>
+      {checks.hasNextPage && (
+        <Button variant="secondary" size="sm" className="mt-3" onClick={() => checks.fetchNextPage()} busy={checks.isFetchingNextPage}>
+          Show more checks
+        </Button>
+      )}
+      {checks.isFetchNextPageError && (
+        <div className="mt-2">
+          <FormMessage>{errorMessage(checks.error)}</FormMessage>
+        </div>
+      )}
       <div className="mt-3 flex flex-wrap items-center gap-3">
         <Button variant="secondary" size="sm" disabled={pair.length !== 2} onClick={() => onCompare(pair[0], pair[1])}>
           Compare the two chosen

@@ -48,7 +48,7 @@ export function FieldWalksPage() {
       </PageFrame>
     );
 
-  const todaysOnServer = walks.data?.walks.find((w) => w.walkedOn === today && w.scoutId === me.id)?.id;
+  const todaysOnServer = walks.data?.find((w) => w.walkedOn === today && w.scoutId === me.id)?.id;
   const todaysOnPhone = startedOffline.find((w) => w.fieldId === fieldId && w.walkedOn === today);
   const todays = todaysOnServer ?? todaysOnPhone?.serverId ?? todaysOnPhone?.id;
   const start = () =>
@@ -78,11 +78,11 @@ export function FieldWalksPage() {
 
       <Panel title="Walks on this field">
         {walks.isPending && <LoadingState />}
-        {walks.isError && <ErrorState error={walks.error} onRetry={() => walks.refetch()} />}
-        {walks.data && walks.data.walks.length === 0 && <EmptyState title="No walks yet">Start one above when you are at the field.</EmptyState>}
-        {walks.data && walks.data.walks.length > 0 && (
+        {walks.isError && !walks.isFetchNextPageError && <ErrorState error={walks.error} onRetry={() => walks.refetch()} />}
+        {walks.data && walks.data.length === 0 && <EmptyState title="No walks yet">Start one above when you are at the field.</EmptyState>}
+        {walks.data && walks.data.length > 0 && (
           <ul className="divide-y divide-straw-200">
-            {walks.data.walks.map((w) => (
+            {walks.data.map((w) => (
               <li key={w.id}>
                 <Link to={scoutPaths.walk(w.id)} className="flex min-h-14 items-center justify-between gap-3 py-3 hover:bg-field-50">
                   <span>
@@ -99,6 +99,16 @@ export function FieldWalksPage() {
               </li>
             ))}
           </ul>
+        )}
+        {walks.hasNextPage && (
+          <Button variant="secondary" className="mt-3 w-full min-h-12" onClick={() => walks.fetchNextPage()} busy={walks.isFetchingNextPage}>
+            Show more walks
+          </Button>
+        )}
+        {walks.isFetchNextPageError && (
+          <div className="mt-2">
+            <FormMessage>{errorMessage(walks.error)}</FormMessage>
+          </div>
         )}
       </Panel>
     </PageFrame>

@@ -4,10 +4,14 @@ import type { Role } from '@shared/schemas/roles.ts';
 import type { WalkView } from '@shared/schemas/walks.ts';
 import { Panel } from '../../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../../components/query-states.tsx';
+import { Button } from '../../../../components/button.tsx';
+import { FormMessage } from '../../../../components/form-field.tsx';
+import { errorMessage } from '../../../../lib/form-errors.ts';
 import { useWalks } from '../../../../lib/api/get-walks.ts';
 import { useDates } from '../../../../lib/dates.ts';
 import { reviewWindowPath } from '@shared/attention-links.ts';
 
+/** Walks on the first page; "Show more" loads as many again. */
 const RECENT = 6;
 
 /** Scouts open their own walk page; advisers and admins the review on that day's sightings; growers read only. */
@@ -19,20 +23,21 @@ function walkHref(role: Role, walk: WalkView): string | null {
 
 export function FieldWalksPanel({ fieldId, role }: { fieldId: string; role: Role }) {
   const dates = useDates();
-  const walks = useWalks(fieldId);
+  const walks = useWalks(fieldId, RECENT);
   if (walks.isPending)
     return (
       <Panel title="Recent walks">
         <LoadingState label="Loading walks…" />
       </Panel>
     );
-  if (walks.isError)
+  // A failed next page keeps the walks already shown; only a failed first page takes the panel.
+  if (walks.isError && !walks.isFetchNextPageError)
     return (
       <Panel title="Recent walks">
         <ErrorState error={walks.error} onRetry={() => walks.refetch()} />
       </Panel>
     );
-  const recent = [...walks.data.walks].sort((a, b) => (a.walkedOn < b.walkedOn ? 1 : a.walkedOn > b.walkedOn ? -1 : 0)).slice(0, RECENT);
+  const recent = walks.data ?? [];
   return (
     <Panel title="Recent walks">
       {recent.length === 0 ? (
@@ -82,10 +87,15 @@ export function FieldWalksPanel({ fieldId, role }: { fieldId: string; role: Role
           </tbody>
         </table>
       )}
-      {walks.data.walks.length > RECENT && (
-        <p className="mt-2 text-xs text-soil-600">
-          The {RECENT} most recent of {walks.data.walks.length} walks.
-        </p>
+      {walks.hasNextPage && (
+        <Button variant="secondary" size="sm" className="mt-3" onClick={() => walks.fetchNextPage()} busy={walks.isFetchingNextPage}>
+          Show more walks
+        </Button>
+      )}
+      {walks.isFetchNextPageError && (
+        <div className="mt-2">
+          <FormMessage>{errorMessage(walks.error)}</FormMessage>
+        </div>
       )}
     </Panel>
   );

@@ -63,8 +63,12 @@ export function LatestCheckPanel({ fieldId }: { fieldId: string }) {
         {!t.thresholdConfirmed && <NeedsConfirmingMark />}
         {checks.data.length > 1 && (
           <p className="text-xs text-soil-600">
-            {checks.data.length === 2 ? 'One earlier check is' : `${checks.data.length - 1} earlier checks are`} listed in the review, where any two can be
-            compared.
+            {checks.hasNextPage
+              ? 'More earlier checks are'
+              : checks.data.length === 2
+                ? 'One earlier check is'
+                : `${checks.data.length - 1} earlier checks are`}{' '}
+            listed in the review, where any two can be compared.
           </p>
         )}
       </div>
