@@ -27,7 +27,8 @@ export function WalkHistoryChart({ rows }: { rows: WalkHistoryRow[] }) {
         <YAxis yAxisId="mean" orientation="right" tick={{ fontSize: 11 }} width={36} />
         <Tooltip labelFormatter={day} />
         <Legend verticalAlign="top" height={22} iconSize={10} wrapperStyle={{ fontSize: 11 }} />
-        <Bar yAxisId="sightings" dataKey="sightings" name="Sightings" fill={field[400]} isAnimationActive={false} />
+        {/* A season of one or two walks would otherwise draw bars as wide as the chart. */}
+        <Bar yAxisId="sightings" dataKey="sightings" name="Sightings" fill={field[400]} maxBarSize={40} isAnimationActive={false} />
         <Line yAxisId="mean" dataKey="meanCount" name="Mean count per stop" stroke={patch[600]} strokeWidth={2} isAnimationActive={false} connectNulls />
       </ComposedChart>
     </ResponsiveContainer>
