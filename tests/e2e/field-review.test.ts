@@ -70,6 +70,15 @@ afterAll(async () => {
   await server?.close();
 });
 
+async function signInAsAdviser(page: Page) {
+  const adviser = demoUsers.find((u) => u.role === 'adviser')!;
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail address').fill(adviser.email);
+  await page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: 'Needs your attention' }).waitFor();
+}
+
 const figure = (page: Page, name: string) => page.locator(`[data-figure="${name}"]`).first();
 
 async function storedCheck(page: Page): Promise<AnalysisResult> {
@@ -113,17 +122,12 @@ function parseCsv(text: string): string[][] {
 
 describe('field review in the browser', () => {
   it('shows a Clustered verdict with its figures and chart, changes with the area basis, and exports the filtered rows', async () => {
-    const adviser = demoUsers.find((u) => u.role === 'adviser')!;
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 }, acceptDownloads: true });
     const gridRequests: string[] = [];
     page.on('request', (request) => {
       if (/\/api\/checks\/[^/]+\/density$/.test(new URL(request.url()).pathname)) gridRequests.push(request.url());
     });
-    await page.goto(`${server.url}/sign-in`);
-    await page.getByLabel('E-mail address').fill(adviser.email);
-    await page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('heading', { name: 'Needs your attention' }).waitFor();
+    await signInAsAdviser(page);
 
     await page.goto(`${server.url}/fields/${demo.fields.patchy}/review?pest=${demo.pests[PEST]}`);
     await page.getByRole('heading', { name: /review/ }).waitFor();
@@ -189,17 +193,12 @@ describe('field review in the browser', () => {
   });
 
   it("fetches each stop's Gi* figures only when their table is opened, hot stops first, and points at a stop on the map", async () => {
-    const adviser = demoUsers.find((u) => u.role === 'adviser')!;
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
     const stopRequests: string[] = [];
     page.on('request', (request) => {
       if (/\/api\/checks\/[^/]+\/stops$/.test(new URL(request.url()).pathname)) stopRequests.push(request.url());
     });
-    await page.goto(`${server.url}/sign-in`);
-    await page.getByLabel('E-mail address').fill(adviser.email);
-    await page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('heading', { name: 'Needs your attention' }).waitFor();
+    await signInAsAdviser(page);
     // The field's latest check (the one the journey above ran) opens by itself.
     await page.goto(`${server.url}/fields/${demo.fields.patchy}/review?pest=${demo.pests[PEST]}`);
     await page.locator('[data-verdict]').waitFor({ timeout: 60_000 });

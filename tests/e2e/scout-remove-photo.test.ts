@@ -2,9 +2,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { signedIn } from '../helpers/http.ts';
-import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
-import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
-import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
+import type { TestOrganisation } from '../helpers/org.ts';
+import { organisationWithAssignedField } from '../helpers/assigned-field.ts';
+import { TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { makeJpeg, uploadPhotos } from '../helpers/photos.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
 import { scoutPhone, signInOnPhone } from '../helpers/scout-phone.ts';
@@ -17,17 +17,11 @@ let server: TestServer;
 let browser: Browser;
 let org: TestOrganisation;
 let pest: { id: string; name: string };
-let fieldId: string;
 
 beforeAll(async () => {
   server = await startTestServer();
   browser = await launchBrowser();
-  org = await makeOrganisation('Scout removal');
-  const admin = await signedIn(org.users.admin.email);
-  pest = await createPest(admin, { countUnit: 'aphids per plant' });
-  const farm = await createFarm(admin);
-  fieldId = (await createField(admin, farm.id, rectangleBoundary(), { name: 'Mill Strip' })).id;
-  await admin.post(`/api/fields/${fieldId}/scouts`, { userId: org.users.scout.id }).expect(204);
+  ({ org, pest } = await organisationWithAssignedField('Scout removal', 'Mill Strip'));
 });
 
 afterAll(async () => {

@@ -13,9 +13,9 @@ const outage = await vi.hoisted(async () => {
 
 import type { Browser } from 'playwright-core';
 import { signedIn } from '../helpers/http.ts';
-import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
-import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
-import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
+import type { TestOrganisation } from '../helpers/org.ts';
+import { organisationWithAssignedField } from '../helpers/assigned-field.ts';
+import { TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { makeJpeg } from '../helpers/photos.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
 import { scoutPhone, signInOnPhone, startTodaysWalk, uploadRows, uploadStates as rowStates } from '../helpers/scout-phone.ts';
@@ -32,12 +32,7 @@ let fieldId: string;
 beforeAll(async () => {
   server = await startTestServer();
   browser = await launchBrowser();
-  org = await makeOrganisation('Scout storage outage');
-  const admin = await signedIn(org.users.admin.email);
-  pest = await createPest(admin, { countUnit: 'aphids per plant' });
-  const farm = await createFarm(admin);
-  fieldId = (await createField(admin, farm.id, rectangleBoundary(), { name: 'Sluice Meadow' })).id;
-  await admin.post(`/api/fields/${fieldId}/scouts`, { userId: org.users.scout.id }).expect(204);
+  ({ org, pest, fieldId } = await organisationWithAssignedField('Scout storage outage', 'Sluice Meadow'));
 });
 
 afterAll(async () => {

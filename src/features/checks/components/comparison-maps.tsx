@@ -6,7 +6,7 @@ import type { SightingView } from '@shared/schemas/sightings.ts';
 import { MapFrame } from '../../../components/map-frame.tsx';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { useCheck } from '../../../lib/api/get-check.ts';
-import { useCheckSightingIds } from '../../../lib/api/get-check-sighting-ids.ts';
+import { useCheckSightingIds } from '../../../lib/api/get-check-parts.ts';
 import { useSightings } from '../../../lib/api/get-sightings.ts';
 import palette from '../../../../tailwind.config.ts';
 import { windowText } from '../check-comparison.ts';

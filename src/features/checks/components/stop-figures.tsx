@@ -6,7 +6,7 @@ import { Button } from '../../../components/button.tsx';
 import { ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import { TableFrame } from '../../../components/table-frame.tsx';
 import { useDates } from '../../../lib/dates.ts';
-import { useCheckStops } from '../api/get-check-stops.ts';
+import { useCheckStops } from '../../../lib/api/get-check-parts.ts';
 import { fixed, pText } from '../utils/figures.ts';
 import { stopReading, stopsInReadingOrder, type StopFigure, type StopReading } from '../utils/stop-readings.ts';
 

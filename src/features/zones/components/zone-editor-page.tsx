@@ -14,7 +14,7 @@ import { EmptyState, ErrorState, LoadingState } from '../../../components/query-
 import { errorMessage } from '../../../lib/form-errors.ts';
 import { useField } from '../../../lib/api/get-field.ts';
 import { useCheck } from '../../../lib/api/get-check.ts';
-import { useCheckSightingIds } from '../../../lib/api/get-check-sighting-ids.ts';
+import { useCheckSightingIds } from '../../../lib/api/get-check-parts.ts';
 import { useZoneSet, zoneSetQueryOptions } from '../../../lib/api/get-zone-set.ts';
 import { usePests } from '../../../lib/api/get-pests.ts';
 import { useSightings } from '../../../lib/api/get-sightings.ts';

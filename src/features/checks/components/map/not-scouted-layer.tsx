@@ -1,7 +1,7 @@
 // The part of the field no stop speaks for, fetched apart from the check's figures while this layer is on.
 import { GeoJSON } from 'react-leaflet';
 import palette from '../../../../../tailwind.config.ts';
-import { useCheckNotScoutedArea } from '../../api/get-check-not-scouted-area.ts';
+import { useCheckNotScoutedArea } from '../../../../lib/api/get-check-parts.ts';
 
 const { soil } = palette.theme.extend.colors;
 

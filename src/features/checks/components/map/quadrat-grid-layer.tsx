@@ -8,7 +8,7 @@ import { featureCollection, intersect, polygon as turfPolygon } from '@turf/turf
 import type { QuadratCell, QuadratResult } from '@shared/analysis/quadrat.ts';
 import palette from '../../../../../tailwind.config.ts';
 import type { ToLonLat } from '../../utils/planar-to-lonlat.ts';
-import { useCheckQuadrats } from '../../api/get-check-quadrats.ts';
+import { useCheckQuadrats } from '../../../../lib/api/get-check-parts.ts';
 
 const { field, straw } = palette.theme.extend.colors;
 /** Above this many cells the labels would overlap at any useful zoom; the cells are still drawn. */
