@@ -16,12 +16,7 @@ import { useKeepForNoSignal } from '../hooks/use-keep-for-no-signal.ts';
 import { useWalksStartedOffline } from '../outbox/use-outbox.ts';
 import { scoutPaths } from '../paths.ts';
 import { useDates } from '../../../lib/dates.ts';
-
-/** Today's date on the phone's own calendar, as YYYY-MM-DD. */
-export function localToday() {
-  const now = new Date();
-  return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
-}
+import { localToday } from '../../../lib/local-today.ts';
 
 export function FieldWalksPage() {
   const dates = useDates();
