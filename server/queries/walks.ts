@@ -29,15 +29,26 @@ async function queryWalks(where: string, replacements: Record<string, unknown>, 
 
 /**
  * One page of the organisation's walks, newest first: only on the fields in `ids` when given, only on one field when
- * `fieldId` is, strictly after the sort key `after` (day, creation time, id) when given.
+ * `fieldId` is, walked from `from` to `to` (YYYY-MM-DD, both included, either open) when given, strictly after the
+ * sort key `after` (day, creation time, id) when given.
  */
-export function listWalksOfOrganisation(organisationId: string, ids: string[] | null, page: { fieldId?: string; after?: string[]; limit: number }) {
+export function listWalksOfOrganisation(
+  organisationId: string,
+  ids: string[] | null,
+  page: { fieldId?: string; from?: string; to?: string; after?: string[]; limit: number },
+) {
   const conditions = ['w.organisation_id = :org'];
   if (ids) conditions.push(ids.length ? 'w.field_id IN (:ids)' : 'false');
   if (page.fieldId) conditions.push('w.field_id = :fieldId');
+  if (page.from) conditions.push('w.walked_on >= CAST(:from AS date)');
+  if (page.to) conditions.push('w.walked_on <= CAST(:to AS date)');
   if (page.after) conditions.push('(w.walked_on, w.created_at, w.id) < (CAST(:afterDay AS date), CAST(:afterCreated AS timestamptz), CAST(:afterId AS uuid))');
   const [afterDay, afterCreated, afterId] = page.after ?? [];
-  return queryWalks(conditions.join(' AND '), { org: organisationId, ids, fieldId: page.fieldId, afterDay, afterCreated, afterId }, { limit: page.limit });
+  return queryWalks(
+    conditions.join(' AND '),
+    { org: organisationId, ids, fieldId: page.fieldId, from: page.from, to: page.to, afterDay, afterCreated, afterId },
+    { limit: page.limit },
+  );
 }
 
 export async function findWalkInOrganisation(organisationId: string, id: string, options: InTransaction = {}): Promise<WalkView | undefined> {

@@ -14,11 +14,12 @@ import * as walks from '../queries/walks.ts';
 /** A walk's page key: day, creation time, id. */
 const WALK_KEY_PARTS: CursorPart[] = ['date', 'timestamp', 'uuid'];
 
-/** One page of the walks the actor may see (of one field when asked), newest first. */
+/** One page of the walks the actor may see (of one field, one day or a window of days when asked), newest first. */
 export async function listWalks(actor: Actor, query: WalkListQuery): Promise<WalkListResponse> {
   const after = query.cursor ? decodePageCursor(query.cursor, WALK_KEY_PARTS) : undefined;
   const ids = await visibleFieldIds(actor);
-  const rows = await walks.listWalksOfOrganisation(actor.organisationId, ids, { fieldId: query.fieldId, after, limit: query.limit + 1 });
+  const days = query.walkedOn ? { from: query.walkedOn, to: query.walkedOn } : { from: query.from, to: query.to };
+  const rows = await walks.listWalksOfOrganisation(actor.organisationId, ids, { fieldId: query.fieldId, ...days, after, limit: query.limit + 1 });
   const { page, nextCursor } = pageOf(rows, query.limit, (walk) => walk.pageKey);
   return { walks: page.map(({ pageKey: _key, ...walk }) => walk), limit: query.limit, nextCursor };
 }

@@ -30,10 +30,29 @@ export const walkFinishSchema = z.strictObject({}, { error: 'Finishing a walk ta
 /** Walks per page of GET /api/walks, newest first. */
 export const WALK_PAGE = { default: 25, max: 100 };
 
-export const walkListQuerySchema = z.object({
-  fieldId: z.uuid({ error: 'That field id is not valid.' }).optional(),
-  ...pageQueryFields('walks', WALK_PAGE),
+const listDay = calendarDateSchema({
+  shape: 'Give the day of the walks as YYYY-MM-DD.',
+  notADay: 'That day is not a real calendar date; pick a day that exists.',
 });
+
+/** One field's walks or every visible one, of one day (`walkedOn`) or a window of days (`from`, `to`, either end open). */
+export const walkListQuerySchema = z
+  .object({
+    fieldId: z.uuid({ error: 'That field id is not valid.' }).optional(),
+    walkedOn: listDay.optional(),
+    from: listDay.optional(),
+    to: listDay.optional(),
+    ...pageQueryFields('walks', WALK_PAGE),
+  })
+  .refine((q) => q.walkedOn === undefined || (q.from === undefined && q.to === undefined), {
+    error: 'Ask for the walks of one day (walkedOn) or of a window (from, to), not both.',
+    path: ['walkedOn'],
+  })
+  // YYYY-MM-DD compares as text in calendar order.
+  .refine((q) => q.from === undefined || q.to === undefined || q.from <= q.to, {
+    error: 'The first day of the window comes after its last day.',
+    path: ['to'],
+  });
 export type WalkListQuery = z.infer<typeof walkListQuerySchema>;
 
 /** A phone's clock may run a little ahead of the server's. */

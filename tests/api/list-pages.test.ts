@@ -180,6 +180,84 @@ describe('walks of a field', () => {
   });
 });
 
+describe('walks of one day or a window of days', () => {
+  interface Listed {
+    id: string;
+    fieldId: string;
+    walkedOn: string;
+  }
+  const day = '2026-08-12';
+  let assigned: string;
+  let unassigned: string;
+  let dayOnAssigned: string[];
+  let dayOnUnassigned: string;
+  let scout: Client;
+  const ids = (walks: Listed[]) => walks.map((w) => w.id).sort();
+
+  beforeAll(async () => {
+    assigned = (await makeField(org)).id;
+    unassigned = (await makeField(org)).id;
+    const admin = await signedIn(org.users.admin.email);
+    await admin.post(`/api/fields/${assigned}/scouts`, { userId: org.users.scout.id }).expect(204);
+    scout = await signedIn(org.users.scout.email);
+    // The day's walks on the scout's field: theirs and two desk users' in one statement (one creation time, ids order them).
+    const sameDay = await sequelize.query<{ id: string }>(
+      `INSERT INTO walks (organisation_id, field_id, scout_id, walked_on) SELECT :org, :fieldId, unnest(CAST(:people AS uuid[])), :day RETURNING id`,
+      { replacements: { org: org.id, fieldId: assigned, day, people: `{${[org.users.adviser.id, org.users.admin.id].join(',')}}` }, type: QueryTypes.SELECT },
+    );
+    dayOnAssigned = [await makeWalk(org, assigned, day), ...sameDay.map((r) => r.id)];
+    dayOnUnassigned = await makeWalk(org, unassigned, day);
+    // The days either side, and the same day in another organisation.
+    await makeWalk(org, assigned, '2026-08-11');
+    await makeWalk(org, assigned, '2026-08-13');
+    const elsewhere = await makeOrganisation('List pages one day elsewhere');
+    await makeWalk(elsewhere, (await makeField(elsewhere)).id, day);
+  });
+
+  it('gives a scout exactly that day’s walks on the fields assigned to them', async () => {
+    const res = (await scout.get(`/api/walks?walkedOn=${day}`).expect(200)).body;
+    expect(ids(res.walks)).toEqual([...dayOnAssigned].sort());
+    expect(res.nextCursor).toBeNull();
+  });
+
+  it('gives a desk user that day’s walks on every field of their organisation, and nothing of another organisation’s', async () => {
+    const res = (await adviser.get(`/api/walks?walkedOn=${day}&limit=${WALK_PAGE.max}`).expect(200)).body;
+    expect(ids(res.walks)).toEqual([...dayOnAssigned, dayOnUnassigned].sort());
+    expect(res.walks.every((w: Listed) => w.walkedOn === day)).toBe(true);
+    expect((await outsider.get(`/api/walks?walkedOn=${day}`).expect(200)).body.walks).toEqual([]);
+  });
+
+  it('pages through one day with the cursor, each walk once, newest first', async () => {
+    const whole = (await adviser.get(`/api/walks?fieldId=${assigned}&walkedOn=${day}`).expect(200)).body.walks as Listed[];
+    const { rows, pages } = await readPages<Listed>(adviser, `/api/walks?fieldId=${assigned}&walkedOn=${day}`, 'walks', 1);
+    expect(pages).toBe(3);
+    expect(rows.map((w) => w.id)).toEqual(whole.map((w) => w.id));
+    expect(ids(rows)).toEqual([...dayOnAssigned].sort());
+  });
+
+  it('reads a window of days with both ends included, and with one end open', async () => {
+    const window = (await adviser.get(`/api/walks?fieldId=${assigned}&from=2026-08-12&to=2026-08-13`).expect(200)).body.walks as Listed[];
+    expect(window.map((w) => w.walkedOn)).toEqual(['2026-08-13', day, day, day]);
+    const until = (await adviser.get(`/api/walks?fieldId=${assigned}&to=2026-08-11`).expect(200)).body.walks as Listed[];
+    expect(until.map((w) => w.walkedOn)).toEqual(['2026-08-11']);
+  });
+
+  it('refuses a day that is not YYYY-MM-DD or does not exist, both a day and a window, and a window run backwards, each with a sentence', async () => {
+    const shape = await adviser.get('/api/walks?walkedOn=today');
+    expect(shape.status).toBe(400);
+    expect(shape.body.error.message).toMatch(/YYYY-MM-DD/);
+    const missing = await adviser.get('/api/walks?walkedOn=2026-02-30');
+    expect(missing.status).toBe(400);
+    expect(missing.body.error.message).toMatch(/not a real calendar date/);
+    const both = await adviser.get(`/api/walks?walkedOn=${day}&from=${day}`);
+    expect(both.status).toBe(400);
+    expect(both.body.error.message).toMatch(/one day .* or of a window/);
+    const backwards = await adviser.get('/api/walks?from=2026-08-13&to=2026-08-12');
+    expect(backwards.status).toBe(400);
+    expect(backwards.body.error.message).toMatch(/comes after its last day/);
+  });
+});
+
 describe('checks of a field', () => {
   interface Listed {
     id: string;

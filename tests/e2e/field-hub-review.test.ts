@@ -242,4 +242,27 @@ describe('the field page in the browser', () => {
       await page.close();
     }
   });
+
+  it('names the finished walk in the review’s walk filter with its time, and an older open walk by its day and scout alone', async () => {
+    const walks = (await adviser.get(`/api/walks?fieldId=${scouted.field.id}`).expect(200)).body.walks as Array<{
+      id: string;
+      walkedOn: string;
+      scoutName: string;
+    }>;
+    const later = walks.find((w) => w.walkedOn === '2026-07-03')!;
+    const earlier = walks.find((w) => w.walkedOn === '2026-07-01')!;
+    const { finishedAt } = (await adviser.post(`/api/walks/${later.id}/finish`, {}).expect(200)).body.walk as { finishedAt: string };
+    // The organisation's default way of writing dates and times (en-GB, Europe/London): CLDR "d MMMM y" and the short time, ECMA-402.
+    const time = new Intl.DateTimeFormat('en-GB', { timeStyle: 'short', timeZone: 'Europe/London' }).format(new Date(finishedAt));
+    const page = await adviserPage();
+    try {
+      await page.goto(`${server.url}/fields/${scouted.field.id}/review?pest=${scouted.pest.id}`);
+      const walkFilter = page.locator('select', { has: page.locator('option', { hasText: 'Every walk' }) });
+      await expect
+        .poll(() => walkFilter.locator('option').allTextContents(), { timeout: 15_000 })
+        .toEqual(['Every walk', `3 July 2026 · ${later.scoutName} · Finished at ${time}`, `1 July 2026 · ${earlier.scoutName}`]);
+    } finally {
+      await page.close();
+    }
+  });
 });

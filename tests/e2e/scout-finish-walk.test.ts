@@ -1,12 +1,12 @@
-// A scout on a phone finishes a walk and sees its summary (stops, found, empty and the route walked), and the field
-// list marks the field whose walk today is finished.
+// A scout on a phone finishes a walk and sees its summary (stops, found, empty and the route walked), the field
+// list marks the field whose walk today is finished, and every list of walks (the field hub's, the scout's) marks it.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { length, lineString } from '@turf/turf';
 import { signedIn, type Client } from '../helpers/http.ts';
-import { makeOrganisation, type TestOrganisation } from '../helpers/org.ts';
+import { addUser, makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
 import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
-import { rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
+import { makeWalk, rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { makeJpeg, uploadPhotos } from '../helpers/photos.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
 import { scoutPhone, signInOnPhone, startTodaysWalk } from '../helpers/scout-phone.ts';
@@ -71,6 +71,19 @@ async function openWalk(context: BrowserContext, walkId: string): Promise<Page> 
 
 const phone = () => scoutPhone(browser);
 
+// The organisation's default way of writing times (en-GB, Europe/London), through the browser's own Intl (ECMA-402).
+const shortTime = (iso: string) => new Intl.DateTimeFormat('en-GB', { timeStyle: 'short', timeZone: 'Europe/London' }).format(new Date(iso));
+
+async function adviserPage(): Promise<Page> {
+  const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail address').fill(org.users.adviser.email);
+  await page.getByLabel('Password').fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: 'Needs your attention' }).waitFor();
+  return page;
+}
+
 describe('scout finishing a walk', () => {
   it('sees stops, found, empty and the route length of the walk', async () => {
     const walkId = await recordedWalk(await signedIn(org.users.scout.email), '2026-11-18');
@@ -111,13 +124,49 @@ describe('scout finishing a walk', () => {
       const scout = await signedIn(org.users.scout.email);
       const { finishedAt } = (await scout.get(`/api/walks/${walkId}`).expect(200)).body.walk as { finishedAt: string };
       expect(finishedAt).not.toBeNull();
-      // The organisation's default way of writing times (en-GB, Europe/London), through the browser's own Intl (ECMA-402).
-      const time = new Intl.DateTimeFormat('en-GB', { timeStyle: 'short', timeZone: 'Europe/London' }).format(new Date(finishedAt));
+      const time = shortTime(finishedAt);
 
       await page.goto(`${server.url}/scout/fields`);
       const field = page.getByRole('link', { name: /Creek Bottom/ });
       await expect.poll(() => field.locator('[data-field-finished]').textContent(), settle).toBe(`Finished at ${time}`);
     } finally {
+      await context.close();
+    }
+  });
+
+  it('marks the walk the scout finished with its time on the field hub and the scout’s walk list, today’s open walk as in progress, an older open one not at all', async () => {
+    const admin = await signedIn(org.users.admin.email);
+    const acre = (await createField(admin, (await createFarm(admin)).id, rectangleBoundary(), { name: 'Long Acre' })).id;
+    const otherScout = await addUser(org, 'scout');
+    for (const userId of [org.users.scout.id, otherScout.id]) await admin.post(`/api/fields/${acre}/scouts`, { userId }).expect(204);
+    const older = await makeWalk(org, acre, '2026-11-10');
+
+    const context = await phone();
+    const desk = await adviserPage();
+    try {
+      const page = await signInOnPhone(context, server.url, org.users.scout.email);
+      const walkId = await startTodaysWalk(page, server.url, acre);
+      await page.getByRole('button', { name: 'Finish walk' }).tap();
+      await page.locator('[data-walk-finished]').waitFor();
+      const scout = await signedIn(org.users.scout.email);
+      const { finishedAt, walkedOn } = (await scout.get(`/api/walks/${walkId}`).expect(200)).body.walk as { finishedAt: string; walkedOn: string };
+      // Another scout on the same field the same day (the phone's day), not finished.
+      const open = (await (await signedIn(otherScout.email)).post('/api/walks', { fieldId: acre, walkedOn }).expect(201)).body.walk.id as string;
+
+      await desk.goto(`${server.url}/fields/${acre}`);
+      const mark = (id: string) => desk.locator(`[data-walk="${id}"] [data-walk-finished]`);
+      await expect.poll(() => mark(walkId).textContent(), settle).toBe(`Finished at ${shortTime(finishedAt)}`);
+      expect(await mark(open).textContent()).toBe('In progress');
+      expect(await mark(older).textContent()).toBe('');
+
+      await page.goto(`${server.url}/scout/fields/${acre}`);
+      const listed = (id: string) => page.locator(`a[href="/scout/walks/${id}"]`);
+      await expect.poll(() => listed(walkId).locator('[data-walk-finish]').textContent(), settle).toBe(`Finished at ${shortTime(finishedAt)}`);
+      expect(await listed(open).locator('[data-walk-finish]').textContent()).toBe('In progress');
+      await listed(older).waitFor();
+      expect(await listed(older).locator('[data-walk-finish]').count()).toBe(0);
+    } finally {
+      await desk.close();
       await context.close();
     }
   });

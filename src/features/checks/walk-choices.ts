@@ -5,11 +5,22 @@ import type { Dates } from '@shared/dates/format-dates.ts';
 
 type WalkOf = Pick<SightingView, 'walkId' | 'walkedOn' | 'scoutName'>;
 
-export function walkChoices(sightings: readonly WalkOf[], dates: Dates): Array<readonly [string, string]> {
+/**
+ * `markOf` gives a walk's finish mark ("Finished at 10:42", "In progress") when it is known; a walk without one is
+ * named by its day and scout alone.
+ */
+export function walkChoices(
+  sightings: readonly WalkOf[],
+  dates: Dates,
+  markOf: (walkId: string) => string | null = () => null,
+): Array<readonly [string, string]> {
   const walks = new Map<string, WalkOf>();
   for (const s of sightings) if (!walks.has(s.walkId)) walks.set(s.walkId, s);
   // Sorted on the YYYY-MM-DD day itself: written out, "9 July" would sort after "10 July".
   return [...walks.values()]
     .sort((a, b) => b.walkedOn.localeCompare(a.walkedOn) || a.scoutName.localeCompare(b.scoutName))
-    .map((w) => [w.walkId, `${dates.calendarDate(w.walkedOn)} · ${w.scoutName}`] as const);
+    .map((w) => {
+      const mark = markOf(w.walkId);
+      return [w.walkId, `${dates.calendarDate(w.walkedOn)} · ${w.scoutName}${mark ? ` · ${mark}` : ''}`] as const;
+    });
 }

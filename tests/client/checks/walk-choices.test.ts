@@ -22,4 +22,13 @@ describe('walk filter choices', () => {
     expect(walkChoices(sightings, datesIn({ locale: 'en-US', timeZone: 'America/Chicago' }))).toEqual([['w1', 'July 1, 2026 · Ann']]);
     expect(walkChoices(sightings, datesIn({ locale: 'en-GB', timeZone: 'Pacific/Kiritimati' }))).toEqual([['w1', '1 July 2026 · Ann']]);
   });
+
+  it('adds the finish mark a walk has, and names a walk without one by its day and scout alone', () => {
+    const sightings = [walk('w9', '2026-07-09', 'Ann'), walk('w10', '2026-07-10', 'Ben')];
+    const marks = new Map([['w10', 'Finished at 10:42']]);
+    expect(walkChoices(sightings, datesIn({ locale: 'en-GB', timeZone: 'Europe/London' }), (id) => marks.get(id) ?? null)).toEqual([
+      ['w10', '10 July 2026 · Ben · Finished at 10:42'],
+      ['w9', '9 July 2026 · Ann'],
+    ]);
+  });
 });

@@ -3,6 +3,9 @@ import { useMemo } from 'react';
 import type { SightingView } from '@shared/schemas/sightings.ts';
 import type { PestView as Pest } from '@shared/schemas/pests.ts';
 import { useDates } from '../../../lib/dates.ts';
+import { useWalksOfDays } from '../../../lib/api/get-walks.ts';
+import { localToday } from '../../../lib/local-today.ts';
+import { walkFinishMark } from '../../../lib/walk-finish-mark.ts';
 import { walkChoices } from '../walk-choices.ts';
 
 export interface TableFilters {
@@ -44,6 +47,26 @@ function ChoiceFilter({
   );
 }
 
+/** The finish mark of each walk among the sightings, from that field's walks over the days the sightings span. */
+function useWalkFinishMarks(sightings: readonly SightingView[]) {
+  const dates = useDates();
+  const fieldId = sightings[0]?.fieldId;
+  let from: string | undefined;
+  let to: string | undefined;
+  for (const s of sightings) {
+    // YYYY-MM-DD compares as text in calendar order.
+    if (!from || s.walkedOn < from) from = s.walkedOn;
+    if (!to || s.walkedOn > to) to = s.walkedOn;
+  }
+  const walks = useWalksOfDays({ fieldId, from, to }, Boolean(fieldId));
+  return useMemo(() => {
+    // The device's calendar day, as the scout's phone gave the walk its day.
+    const today = localToday();
+    const marks = new Map((walks.data ?? []).map((w) => [w.id, walkFinishMark(w, today, dates)]));
+    return (walkId: string) => marks.get(walkId) ?? null;
+  }, [walks.data, dates]);
+}
+
 export function SightingsTableFilters({
   sightings,
   pests,
@@ -56,6 +79,7 @@ export function SightingsTableFilters({
   onChange: (filters: TableFilters) => void;
 }) {
   const dates = useDates();
+  const finishMarkOf = useWalkFinishMarks(sightings);
   const choices = useMemo(() => {
     const scouts = new Map<string, string>();
     const pestNames = new Map<string, string>(pests.map((p) => [p.id, p.name]));
@@ -68,10 +92,10 @@ export function SightingsTableFilters({
     const sorted = (m: Map<string, string>) => [...m.entries()].sort((a, b) => a[1].localeCompare(b[1]));
     return {
       scouts: sorted(scouts),
-      walks: walkChoices(sightings, dates),
+      walks: walkChoices(sightings, dates, finishMarkOf),
       pests: [...pestIds].map((id) => [id, pestNames.get(id)!] as const).sort((a, b) => a[1].localeCompare(b[1])),
     };
-  }, [sightings, pests, dates]);
+  }, [sightings, pests, dates, finishMarkOf]);
   const set = (key: keyof TableFilters, value: string) => onChange({ ...filters, [key]: value || undefined });
   return (
     <fieldset className="grid grid-cols-2 gap-2 sm:grid-cols-5">

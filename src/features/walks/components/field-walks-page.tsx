@@ -6,6 +6,7 @@ import { PageFrame, Panel } from '../../../components/page-frame.tsx';
 import { Button, ButtonLink } from '../../../components/button.tsx';
 import { FormMessage } from '../../../components/form-field.tsx';
 import { AreaText } from '../../../components/area-text.tsx';
+import { WalkFinishMark } from '../../../components/walk-finish-mark.tsx';
 import { ErrorState, LoadingState, EmptyState } from '../../../components/query-states.tsx';
 import { errorMessage } from '../../../lib/form-errors.ts';
 import { useSignedInUser } from '../../../lib/auth.ts';
@@ -16,12 +17,7 @@ import { useKeepForNoSignal } from '../hooks/use-keep-for-no-signal.ts';
 import { useWalksStartedOffline } from '../outbox/use-outbox.ts';
 import { scoutPaths } from '../paths.ts';
 import { useDates } from '../../../lib/dates.ts';
-
-/** Today's date on the phone's own calendar, as YYYY-MM-DD. */
-export function localToday() {
-  const now = new Date();
-  return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
-}
+import { localToday } from '../../../lib/local-today.ts';
 
 export function FieldWalksPage() {
   const dates = useDates();
@@ -88,6 +84,7 @@ export function FieldWalksPage() {
                   <span>
                     <span className="block font-semibold text-soil-900">{dates.calendarDate(w.walkedOn)}</span>
                     <span className="block text-sm text-soil-700">{w.scoutName}</span>
+                    <WalkFinishMark walk={w} className="mt-1" />
                   </span>
                   <span className="text-right text-sm text-soil-700">
                     {w.sightingCount} {w.sightingCount === 1 ? 'sighting' : 'sightings'}

@@ -11,21 +11,23 @@ import { useWatchedPosition } from '../../../lib/use-watched-position.ts';
 import { orderFieldsForScout, type PlacedField } from '../field-order.ts';
 import { scoutPaths } from '../paths.ts';
 import { useKeepForNoSignal } from '../hooks/use-keep-for-no-signal.ts';
-import { useAllWalks } from '../../../lib/api/get-walks.ts';
+import { useWalksOfDays } from '../../../lib/api/get-walks.ts';
 import { useSignedInUser } from '../../../lib/auth.ts';
 import { useDates } from '../../../lib/dates.ts';
-import { localToday } from './field-walks-page.tsx';
+import { localToday } from '../../../lib/local-today.ts';
 
 const distance = (m: number) => (m < 1000 ? `${Math.round(m)} m away` : `${(m / 1000).toFixed(1)} km away`);
 
-/** When the scout finished today's walk on each field, by field id. */
+/**
+ * When the scout finished today's walk on each field, by field id. Today is the phone's calendar day, the day a walk
+ * started on this phone is given, so only that day's walks are asked for.
+ */
 function useFinishedToday(): ReadonlyMap<string, string> {
   const me = useSignedInUser();
-  const walks = useAllWalks();
-  const today = localToday();
+  const walks = useWalksOfDays({ walkedOn: localToday() });
   const finished = new Map<string, string>();
-  for (const walk of walks.data?.walks ?? []) {
-    if (walk.scoutId === me.id && walk.walkedOn === today && walk.finishedAt) finished.set(walk.fieldId, walk.finishedAt);
+  for (const walk of walks.data ?? []) {
+    if (walk.scoutId === me.id && walk.finishedAt) finished.set(walk.fieldId, walk.finishedAt);
   }
   return finished;
 }

@@ -5,6 +5,7 @@ import type { WalkView } from '@shared/schemas/walks.ts';
 import { Panel } from '../../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../../components/query-states.tsx';
 import { Button } from '../../../../components/button.tsx';
+import { WalkFinishMark } from '../../../../components/walk-finish-mark.tsx';
 import { FormMessage } from '../../../../components/form-field.tsx';
 import { errorMessage } from '../../../../lib/form-errors.ts';
 import { useWalks } from '../../../../lib/api/get-walks.ts';
@@ -52,6 +53,9 @@ export function FieldWalksPanel({ fieldId, role }: { fieldId: string; role: Role
               <th scope="col" className="py-1 pr-2">
                 Scout
               </th>
+              <th scope="col" className="py-1 pr-2">
+                Finished
+              </th>
               <th scope="col" className="py-1 pr-2 text-right">
                 Sightings
               </th>
@@ -75,6 +79,9 @@ export function FieldWalksPanel({ fieldId, role }: { fieldId: string; role: Role
                     )}
                   </td>
                   <td className="py-1.5 pr-2">{walk.scoutName}</td>
+                  <td className="py-1.5 pr-2" data-walk-finished>
+                    <WalkFinishMark walk={walk} />
+                  </td>
                   <td className="py-1.5 pr-2 text-right" data-walk-sightings>
                     {walk.sightingCount}
                   </td>
