@@ -4,8 +4,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { length, lineString } from '@turf/turf';
 import { signedIn, type Client } from '../helpers/http.ts';
-import { addUser, makeOrganisation, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
-import { createFarm, createField, createPest } from '../helpers/farm-records.ts';
+import { addUser, TEST_PASSWORD, type TestOrganisation } from '../helpers/org.ts';
+import { organisationWithAssignedField } from '../helpers/assigned-field.ts';
+import { createFarm, createField } from '../helpers/farm-records.ts';
 import { makeWalk, rectangleBoundary, TEST_FIELD_CORNER } from '../helpers/sightings.ts';
 import { makeJpeg, uploadPhotos } from '../helpers/photos.ts';
 import { launchBrowser, startTestServer, type TestServer } from '../helpers/browser.ts';
@@ -31,12 +32,7 @@ let fieldId: string;
 beforeAll(async () => {
   server = await startTestServer();
   browser = await launchBrowser();
-  org = await makeOrganisation('Scout finish');
-  const admin = await signedIn(org.users.admin.email);
-  pest = await createPest(admin, { countUnit: 'aphids per plant' });
-  const farm = await createFarm(admin);
-  fieldId = (await createField(admin, farm.id, rectangleBoundary(), { name: 'Creek Bottom' })).id;
-  await admin.post(`/api/fields/${fieldId}/scouts`, { userId: org.users.scout.id }).expect(204);
+  ({ org, pest, fieldId } = await organisationWithAssignedField('Scout finish', 'Creek Bottom'));
 });
 
 afterAll(async () => {
