@@ -256,7 +256,8 @@ describe('the field page in the browser', () => {
     const time = new Intl.DateTimeFormat('en-GB', { timeStyle: 'short', timeZone: 'Europe/London' }).format(new Date(finishedAt));
     const page = await adviserPage();
     try {
-      await page.goto(`${server.url}/fields/${scouted.field.id}/review?pest=${scouted.pest.id}`);
+      // A window of both walk days: without one the page opens the field's latest check, whose window may hold one walk.
+      await page.goto(`${server.url}/fields/${scouted.field.id}/review?pest=${scouted.pest.id}&from=2026-07-01&to=2026-07-03`);
       const walkFilter = page.locator('select', { has: page.locator('option', { hasText: 'Every walk' }) });
       await expect
         .poll(() => walkFilter.locator('option').allTextContents(), { timeout: 15_000 })

@@ -5,13 +5,12 @@ import { Link } from 'react-router';
 import type { CheckSummary } from '@shared/schemas/checks.ts';
 import { Panel } from '../../../components/page-frame.tsx';
 import { Button } from '../../../components/button.tsx';
-import { FormMessage } from '../../../components/form-field.tsx';
-import { errorMessage } from '../../../lib/form-errors.ts';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/query-states.tsx';
 import type { useFieldChecks } from '../../../lib/api/get-field-checks.ts';
 import { useDates } from '../../../lib/dates.ts';
 import { spreadLabels } from '../../../lib/spread-labels.ts';
 import { optionsText, windowText, zonesAreaText } from '../check-comparison.ts';
+import { ShowMore } from '../../../components/show-more.tsx';
 
 export function PastChecksPanel({
   checks,
@@ -121,16 +120,7 @@ export function PastChecksPanel({
           </tbody>
         </table>
       </div>
-      {checks.hasNextPage && (
-        <Button variant="secondary" size="sm" className="mt-3" onClick={() => checks.fetchNextPage()} busy={checks.isFetchingNextPage}>
-          Show more checks
-        </Button>
-      )}
-      {checks.isFetchNextPageError && (
-        <div className="mt-2">
-          <FormMessage>{errorMessage(checks.error)}</FormMessage>
-        </div>
-      )}
+      <ShowMore query={checks} label="Show more checks" />
       <div className="mt-3 flex flex-wrap items-center gap-3">
         <Button variant="secondary" size="sm" disabled={pair.length !== 2} onClick={() => onCompare(pair[0], pair[1])}>
           Compare the two chosen

@@ -18,6 +18,7 @@ import { useWalksStartedOffline } from '../outbox/use-outbox.ts';
 import { scoutPaths } from '../paths.ts';
 import { useDates } from '../../../lib/dates.ts';
 import { localToday } from '../../../lib/local-today.ts';
+import { ShowMore } from '../../../components/show-more.tsx';
 
 export function FieldWalksPage() {
   const dates = useDates();
@@ -97,16 +98,7 @@ export function FieldWalksPage() {
             ))}
           </ul>
         )}
-        {walks.hasNextPage && (
-          <Button variant="secondary" className="mt-3 w-full min-h-12" onClick={() => walks.fetchNextPage()} busy={walks.isFetchingNextPage}>
-            Show more walks
-          </Button>
-        )}
-        {walks.isFetchNextPageError && (
-          <div className="mt-2">
-            <FormMessage>{errorMessage(walks.error)}</FormMessage>
-          </div>
-        )}
+        <ShowMore query={walks} label="Show more walks" size="md" className="mt-3 w-full min-h-12" />
       </Panel>
     </PageFrame>
   );

@@ -4,13 +4,11 @@ import type { Role } from '@shared/schemas/roles.ts';
 import type { WalkView } from '@shared/schemas/walks.ts';
 import { Panel } from '../../../../components/page-frame.tsx';
 import { EmptyState, ErrorState, LoadingState } from '../../../../components/query-states.tsx';
-import { Button } from '../../../../components/button.tsx';
 import { WalkFinishMark } from '../../../../components/walk-finish-mark.tsx';
-import { FormMessage } from '../../../../components/form-field.tsx';
-import { errorMessage } from '../../../../lib/form-errors.ts';
 import { useWalks } from '../../../../lib/api/get-walks.ts';
 import { useDates } from '../../../../lib/dates.ts';
 import { reviewWindowPath } from '@shared/attention-links.ts';
+import { ShowMore } from '../../../../components/show-more.tsx';
 
 /** Walks on the first page; "Show more" loads as many again. */
 const RECENT = 6;
@@ -94,16 +92,7 @@ export function FieldWalksPanel({ fieldId, role }: { fieldId: string; role: Role
           </tbody>
         </table>
       )}
-      {walks.hasNextPage && (
-        <Button variant="secondary" size="sm" className="mt-3" onClick={() => walks.fetchNextPage()} busy={walks.isFetchingNextPage}>
-          Show more walks
-        </Button>
-      )}
-      {walks.isFetchNextPageError && (
-        <div className="mt-2">
-          <FormMessage>{errorMessage(walks.error)}</FormMessage>
-        </div>
-      )}
+      <ShowMore query={walks} label="Show more walks" />
     </Panel>
   );
 }
