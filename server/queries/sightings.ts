@@ -9,17 +9,25 @@ export const liveSighting = (alias: string) => `${alias}.deleted_at IS NULL AND 
 
 // The lists' one order: walk day, then time seen (none last), then upload, then id so ties still fall one way. As a row
 // value it is the page key; PostgreSQL's own text of each part keeps the microseconds a JavaScript date would drop.
+// The key comes back as one text joined by commas (no part holds one) and is split only for a page's last row:
+// parsing a text[] on every row cost more than building the row.
 const SIGHTING_ORDER = `w.walked_on, COALESCE(s.observed_at, CAST('infinity' AS timestamptz)), s.created_at, s.id`;
-const SIGHTING_KEY = `ARRAY[to_char(w.walked_on, 'YYYY-MM-DD'), COALESCE(s.observed_at, CAST('infinity' AS timestamptz))::text, s.created_at::text, s.id::text]`;
+const SIGHTING_KEY = `concat_ws(',', to_char(w.walked_on, 'YYYY-MM-DD'), COALESCE(s.observed_at, CAST('infinity' AS timestamptz))::text, s.created_at::text, s.id::text)`;
+/** A page key's parts from the joined text the list query returns. */
+export const sightingPageKeyParts = (pageKey: string) => pageKey.split(',');
+
+// A timestamptz as the answer spells it (an ISO 8601 instant in UTC with milliseconds, as Date#toISOString does),
+// written by PostgreSQL so the rows need no date parsing and formatting in JavaScript.
+const isoInstant = (column: string) => `to_char(${column} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
 
 const sightingSelect = `
   SELECT s.id, s.field_id AS "fieldId", s.walk_id AS "walkId", to_char(w.walked_on, 'YYYY-MM-DD') AS "walkedOn",
          s.pest_id AS "pestId", p.name AS "pestName", s.count,
          ST_X(s.position) AS lon, ST_Y(s.position) AS lat,
          s.position_source AS "positionSource", s.accuracy_m AS "accuracyM", s.altitude_m AS "altitudeM",
-         s.direction_deg AS "directionDeg", s.observed_at AS "observedAt", s.time_flag AS "timeFlag", s.status,
+         s.direction_deg AS "directionDeg", ${isoInstant('s.observed_at')} AS "observedAt", s.time_flag AS "timeFlag", s.status,
          s.photo_id AS "photoId", ph.thumbnail_status AS "thumbnailStatus", s.created_by AS "scoutId", u.name AS "scoutName",
-         (s.photo_id IS NULL AND s.count = 0) AS "isEmptyStop", s.created_at AS "createdAt", s.deleted_at AS "deletedAt",
+         (s.photo_id IS NULL AND s.count = 0) AS "isEmptyStop", ${isoInstant('s.created_at')} AS "createdAt", s.deleted_at AS "deletedAt",
          ${SIGHTING_KEY} AS "pageKey"
     FROM sightings s
     JOIN walks w ON w.id = s.walk_id
@@ -27,11 +35,10 @@ const sightingSelect = `
     JOIN users u ON u.id = s.created_by
     LEFT JOIN photos ph ON ph.id = s.photo_id`;
 
-export type SightingRow = Omit<SightingView, 'position' | 'observedAt' | 'createdAt'> & {
+/** `observedAt` and `createdAt` come already written as the answer gives them (ISO 8601, UTC, milliseconds). */
+export type SightingRow = Omit<SightingView, 'position'> & {
   lon: number | null;
   lat: number | null;
-  observedAt: Date | null;
-  createdAt: Date;
   deletedAt: Date | null;
 };
 
@@ -58,7 +65,7 @@ export function listSightingsOfOrganisation(
   ids: string[] | null,
   query: SightingFilter,
   page?: SightingPage,
-): Promise<Array<SightingRow & { pageKey: string[] }>> {
+): Promise<Array<SightingRow & { pageKey: string }>> {
   const where = ['s.organisation_id = :org', 's.deleted_at IS NULL'];
   if (ids) where.push(ids.length ? 's.field_id IN (:ids)' : 'false');
   if (query.fieldId) where.push('s.field_id = :fieldId');
@@ -76,7 +83,7 @@ export function listSightingsOfOrganisation(
     { org: organisationId, ids, ...query, afterDay: after?.[0], afterSeen: after?.[1], afterCreated: after?.[2], afterId: after?.[3] },
     undefined,
     page?.limit,
-  ) as Promise<Array<SightingRow & { pageKey: string[] }>>;
+  ) as Promise<Array<SightingRow & { pageKey: string }>>;
 }
 
 /** A walk's sightings deleted since the cutoff (still restorable), most recently deleted first. */

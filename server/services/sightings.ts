@@ -42,7 +42,7 @@ function present(row: sightings.SightingRow): SightingView {
     accuracyM: row.accuracyM,
     altitudeM: row.altitudeM,
     directionDeg: row.directionDeg,
-    observedAt: row.observedAt ? new Date(row.observedAt).toISOString() : null,
+    observedAt: row.observedAt,
     timeFlag: row.timeFlag,
     status: row.status,
     photoId: row.photoId,
@@ -50,7 +50,7 @@ function present(row: sightings.SightingRow): SightingView {
     scoutId: row.scoutId,
     scoutName: row.scoutName,
     isEmptyStop: row.isEmptyStop,
-    createdAt: new Date(row.createdAt).toISOString(),
+    createdAt: row.createdAt,
     position: row.lon === null || row.lat === null ? null : { lon: row.lon, lat: row.lat },
   };
 }
@@ -64,7 +64,7 @@ export async function listSightings(actor: Actor, query: SightingListQuery): Pro
   const after = cursor ? decodePageCursor(cursor, SIGHTING_KEY_PARTS) : undefined;
   const ids = await visibleFieldIds(actor);
   const rows = await sightings.listSightingsOfOrganisation(actor.organisationId, ids, filter, { after, limit: limit + 1 });
-  const { page, nextCursor } = pageOf(rows, limit, (row) => row.pageKey);
+  const { page, nextCursor } = pageOf(rows, limit, (row) => sightings.sightingPageKeyParts(row.pageKey));
   return { sightings: page.map(present), limit, nextCursor };
 }
 
