@@ -78,6 +78,13 @@ export function formatDateWindow(from: string | null | undefined, to: string | n
   return 'all dates';
 }
 
+/** The calendar day (YYYY-MM-DD) an instant falls on in a time zone: "today" as the organisation means it. */
+export function calendarDayIn(timeZone: string, now: Date = new Date()): string {
+  const parts = new Intl.DateTimeFormat('en', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).formatToParts(now);
+  const part = (type: Intl.DateTimeFormatPartTypes) => parts.find((p) => p.type === type)?.value ?? '';
+  return `${part('year')}-${part('month')}-${part('day')}`;
+}
+
 /** Binds the functions above to one organisation's format, for code that writes many dates. */
 export function datesIn(format: DateFormat = DEFAULT_DATE_FORMAT) {
   return {
@@ -87,6 +94,8 @@ export function datesIn(format: DateFormat = DEFAULT_DATE_FORMAT) {
     time: (value: string | Date) => formatTime(value, format),
     calendarDate: (isoDay: string) => formatCalendarDate(isoDay, format),
     dateWindow: (from: string | null | undefined, to: string | null | undefined) => formatDateWindow(from, to, format),
+    /** Today's calendar day in the organisation's zone (YYYY-MM-DD). */
+    today: () => calendarDayIn(format.timeZone),
   };
 }
 export type Dates = ReturnType<typeof datesIn>;

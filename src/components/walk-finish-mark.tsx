@@ -3,9 +3,13 @@ import { useDates } from '../lib/dates.ts';
 import { localToday } from '../lib/local-today.ts';
 import { walkFinishMark, type WalkFinishState } from '../lib/walk-finish-mark.ts';
 
-export function WalkFinishMark({ walk, className = '' }: { walk: WalkFinishState; className?: string }) {
+/**
+ * `today` says which calendar day "in progress" means: the scout's own screens use the phone's day (the day a walk
+ * started on it is given, the default); desk pages pass the organisation's (`useDates().today()`).
+ */
+export function WalkFinishMark({ walk, today, className = '' }: { walk: WalkFinishState; today?: string; className?: string }) {
   const dates = useDates();
-  const mark = walkFinishMark(walk, localToday(), dates);
+  const mark = walkFinishMark(walk, today ?? localToday(), dates);
   if (!mark) return null;
   const finished = Boolean(walk.finishedAt);
   return (

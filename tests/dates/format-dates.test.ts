@@ -2,7 +2,7 @@
 // with Node's ICU): long date en-GB "d MMMM y", en-US "MMMM d, y", de "d. MMMM y"; short time en-GB/de "HH:mm", en-US "h:mm a".
 // Zone offsets come from the IANA tz database rules for the dates used, stated beside each case.
 import { describe, expect, it } from 'vitest';
-import { formatCalendarDate, formatDate, formatDateTime, formatDateWindow, formatTime } from '../../shared/dates/format-dates.ts';
+import { calendarDayIn, formatCalendarDate, formatDate, formatDateTime, formatDateWindow, formatTime } from '../../shared/dates/format-dates.ts';
 import { dateFormatSchema } from '../../shared/schemas/date-format.ts';
 
 // ICU writes a narrow no-break space (U+202F) before AM/PM in some versions and a plain one in others: compare with spaces folded.
@@ -120,5 +120,15 @@ describe('the organisation’s date format setting', () => {
     const result = dateFormatSchema.safeParse({ locale: 'en-GB', timeZone: 'Europe/Atlantis' });
     expect(result.success).toBe(false);
     expect(result.error?.issues[0].path).toEqual(['timeZone']);
+  });
+});
+
+describe('calendarDayIn', () => {
+  // IANA tz database rules for 2026: Pacific/Auckland is UTC+12 (NZST) on 1 July, America/Chicago UTC−5 (CDT).
+  it('gives the day an instant falls on in each zone', () => {
+    const instant = new Date('2026-07-01T13:00:00Z');
+    expect(calendarDayIn('Pacific/Auckland', instant)).toBe('2026-07-02'); // 01:00 on 2 July
+    expect(calendarDayIn('America/Chicago', instant)).toBe('2026-07-01'); // 08:00 on 1 July
+    expect(calendarDayIn('UTC', new Date('2026-12-31T23:59:59Z'))).toBe('2026-12-31');
   });
 });

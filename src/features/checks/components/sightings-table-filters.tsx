@@ -4,7 +4,6 @@ import type { SightingView } from '@shared/schemas/sightings.ts';
 import type { PestView as Pest } from '@shared/schemas/pests.ts';
 import { useDates } from '../../../lib/dates.ts';
 import { useWalksOfDays } from '../../../lib/api/get-walks.ts';
-import { localToday } from '../../../lib/local-today.ts';
 import { walkFinishMark } from '../../../lib/walk-finish-mark.ts';
 import { walkChoices } from '../walk-choices.ts';
 
@@ -60,8 +59,8 @@ function useWalkFinishMarks(sightings: readonly SightingView[]) {
   }
   const walks = useWalksOfDays({ fieldId, from, to }, Boolean(fieldId));
   return useMemo(() => {
-    // The device's calendar day, as the scout's phone gave the walk its day.
-    const today = localToday();
+    // The organisation's calendar day: a desk page reads walks as the business's day, wherever the viewer sits.
+    const today = dates.today();
     const marks = new Map((walks.data ?? []).map((w) => [w.id, walkFinishMark(w, today, dates)]));
     return (walkId: string) => marks.get(walkId) ?? null;
   }, [walks.data, dates]);

@@ -78,7 +78,7 @@ export function FieldWalksPanel({ fieldId, role }: { fieldId: string; role: Role
                   </td>
                   <td className="py-1.5 pr-2">{walk.scoutName}</td>
                   <td className="py-1.5 pr-2" data-walk-finished>
-                    <WalkFinishMark walk={walk} />
+                    <WalkFinishMark walk={walk} today={dates.today()} />
                   </td>
                   <td className="py-1.5 pr-2 text-right" data-walk-sightings>
                     {walk.sightingCount}
