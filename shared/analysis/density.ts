@@ -18,7 +18,12 @@ export type BandwidthRule = 'given' | 'normal-reference' | 'field-cap';
 export interface DensityResult {
   kernel: Kernel;
   bandwidthM: number;
-  bandwidthRule: BandwidthRule;
+  /** How the bandwidth was chosen, in words (kept as stored results and exports have always carried it). */
+  bandwidthRule: string;
+  /** What the bandwidth means on the ground, as a phrase (kept beside the sentence for the same reason). */
+  bandwidthMeaning: string;
+  /** How the bandwidth was chosen, as a code. */
+  bandwidthChoice: BandwidthRule;
   /** The bandwidth in one plain sentence: how far each sighting counts, and the rule that chose that distance. */
   bandwidthSentence: string;
   cellSizeM: number;
@@ -45,6 +50,11 @@ export const MAX_DENSITY_CELLS = 4_000_000;
  * of the coordinates' robust spreads (Silverman 1986, eq. 4.14); for the quartic kernel the radius with
  * the same variance, √8 times that. Capped at a quarter of the field's shorter side.
  */
+export function defaultBandwidthM(field: PlanarField, xy: Float64Array, kernel: Kernel): number {
+  return defaultBandwidth(field, xy, kernel).bandwidthM;
+}
+
+/** The default bandwidth and whether the field's size capped it. */
 export function defaultBandwidth(field: PlanarField, xy: Float64Array, kernel: Kernel): { bandwidthM: number; rule: 'normal-reference' | 'field-cap' } {
   const n = xy.length / 2;
   const spreadOf = (axis: number): number => {
@@ -185,7 +195,12 @@ export function densitySurface(field: PlanarField, xy: Float64Array, options: De
   return {
     kernel,
     bandwidthM: h,
-    bandwidthRule: chosen.rule,
+    bandwidthRule: ruleWords[chosen.rule](kernel),
+    bandwidthMeaning:
+      kernel === 'quartic'
+        ? `search radius: each sighting counts within ${metresText(h)} and not at all beyond it`
+        : `standard deviation: each sighting's weight halves at about ${metresText(h * Math.sqrt(2 * Math.LN2))} and fades out by ${metresText(3 * h)}`,
+    bandwidthChoice: chosen.rule,
     bandwidthSentence: bandwidthSentence(kernel, h, chosen.rule),
     cellSizeM: cell,
     originX,

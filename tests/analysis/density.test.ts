@@ -89,7 +89,7 @@ describe('kernel density estimate', () => {
 
     it('gives the quartic bandwidth as the distance each sighting counts within (the kernel is 0 beyond h: Silverman 1986, Table 3.1)', () => {
       const surface = densitySurface(square, new Float64Array([100, 100, 300, 300]), { bandwidthM: 50, cellSizeM: 10 });
-      expect(surface.bandwidthRule).toBe('given');
+      expect(surface.bandwidthChoice).toBe('given');
       expect(surface.bandwidthSentence).toMatch(oneSentence);
       expect(surface.bandwidthSentence).toMatch(/^Each sighting counts within 50 m of it, .*not at all beyond \(the bandwidth set for this check\)\.$/);
     });
@@ -106,12 +106,12 @@ describe('kernel density estimate', () => {
       const random = createRandom('bandwidth-rule');
       const xy = Float64Array.from({ length: 400 }, () => 160 + 80 * random());
       const chosen = densitySurface(square, xy, { cellSizeM: 10 });
-      expect(chosen.bandwidthRule).toBe('normal-reference');
+      expect(chosen.bandwidthChoice).toBe('normal-reference');
       expect(chosen.bandwidthSentence).toMatch(oneSentence);
       expect(chosen.bandwidthSentence).toContain("Silverman's normal-reference rule");
       // Two sightings at opposite corners: the rule asks for more than a quarter of the 400 m side, the cap of 100 m.
       const capped = densitySurface(square, new Float64Array([20, 20, 380, 380]), { cellSizeM: 10 });
-      expect(capped.bandwidthRule).toBe('field-cap');
+      expect(capped.bandwidthChoice).toBe('field-cap');
       expect(capped.bandwidthM).toBe(100);
       expect(capped.bandwidthSentence).toMatch(/^Each sighting counts within 100 m of it, .*\(a quarter of the field's shorter side/);
     });

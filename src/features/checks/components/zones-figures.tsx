@@ -7,9 +7,9 @@ import { ButtonLink } from '../../../components/button.tsx';
 type Density = NonNullable<CheckFigures['density']>;
 
 /** The engine's bandwidth sentence; a check stored before it wrote one keeps its two phrases, joined into one. */
-function bandwidthText(density: Density & { bandwidthMeaning?: string }): string {
+function bandwidthText(density: Density): string {
   if (density.bandwidthSentence) return density.bandwidthSentence;
-  const meaning = density.bandwidthMeaning ?? '';
+  const meaning = density.bandwidthMeaning;
   return `${meaning.charAt(0).toUpperCase()}${meaning.slice(1)} (${density.bandwidthRule}).`;
 }
 
