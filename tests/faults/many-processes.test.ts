@@ -206,17 +206,20 @@ describe('many web and worker processes on one database', () => {
     expect(files.sort()).toEqual(stored.thumbnails.flatMap((t) => [t.storage_key, t.thumbnail_key!]).sort());
     // One stored check per set of inputs, however many processes were asked and whichever died.
     expect(stored.checks).toHaveLength(2);
-    // Exactly one e-mail per recipient at the mail catcher, carrying the Message-ID fixed when the copy was queued.
-    const copies = await one<{ email: string; message_id: string }>('SELECT email, message_id FROM notice_recipients WHERE notice_id = :noticeId', {
-      noticeId,
-    });
+    // One e-mail per recipient at the mail catcher, carrying the Message-ID fixed when the copy was queued. The one
+    // window deliverNoticeCopy leaves (server/services/notice-mail.ts): a worker killed after the SMTP server accepted
+    // a copy and before that was recorded. A random kill can land there; then the retry sends the same message again,
+    // with the same Message-ID, so a mail system that de-duplicates by Message-ID shows one. A second copy is allowed
+    // only with that Message-ID and only after a retried attempt; never a third, never another Message-ID.
+    const copies = await one<{ email: string; message_id: string; attempts: number }>(
+      'SELECT email, message_id, attempts FROM notice_recipients WHERE notice_id = :noticeId',
+      { noticeId },
+    );
     expect(copies.map((c) => c.email).sort()).toEqual(recipients.map((r) => r.email).sort());
     for (const copy of copies) {
-      const received = await messagesTo(copy.email);
-      expect(
-        received.map((m) => m.messageId),
-        copy.email,
-      ).toEqual([copy.message_id]);
+      const received = (await messagesTo(copy.email)).map((m) => m.messageId);
+      expect(new Set(received), copy.email).toEqual(new Set([copy.message_id]));
+      expect(received.length, copy.email).toBeLessThanOrEqual(copy.attempts > 1 ? 2 : 1);
     }
     // Both web processes took connections before the kill.
     expect(balancer.connections().every((n) => n > 0)).toBe(true);
