@@ -13,7 +13,8 @@ import { signInForBench, type BenchSession } from './lib/bench-session.ts';
 import { startLoadServer, type LoadServer, type ServerMemory } from './lib/load-server-process.ts';
 import { memoryTrend } from './lib/memory-trend.ts';
 import { webProcessScaling } from './lib/load-scale.ts';
-import { loadRoutes, type BenchRoute, type RouteFigures } from './lib/route-load.ts';
+import { loadOneRoute, loadRoutes, type BenchRoute, type RouteFigures } from './lib/route-load.ts';
+import { startCeilingProcess } from './lib/stack-ceiling.ts';
 import { recordAnswer, startFloorProcess, type RecordedAnswer } from './lib/floor-server.ts';
 import type { BenchTable } from './table.ts';
 
@@ -149,6 +150,50 @@ async function besideTheFloor(server: LoadServer, routes: BenchRoute[], headers:
   };
 }
 
+/**
+ * GET /api/config on four servers in turn, each in its own process, at SOLO_CONNECTIONS connections: the floor, the
+ * app's framework answering the same bytes with nothing else, the framework with only the session and user read,
+ * and the app. Where the app sits between them says how much of its cost is its own middleware and how much the
+ * stack it is built on.
+ */
+async function beneathTheApp(server: LoadServer, headers: Record<string, string>): Promise<BenchTable> {
+  const seconds = Number(process.env.BENCH_SOLO_SECONDS ?? 5);
+  const route = { label: 'GET /api/config', path: '/api/config' };
+  const answer = await recordAnswer(server.baseUrl, route.path, headers);
+  const options = { seconds, connections: SOLO_CONNECTIONS, headers };
+  const measured: Array<{ server: string; figures: RouteFigures }> = [];
+  const floor = await startFloorProcess(new Map([[route.path, answer]]));
+  try {
+    measured.push({ server: 'floor: bare node:http, same bytes', figures: await loadOneRoute(floor.baseUrl, route, options) });
+  } finally {
+    await floor.stop();
+  }
+  for (const [mode, label] of [
+    ['express', 'Express alone, same bytes'],
+    ['express-session', 'Express + express-session (app store) + passport.session()'],
+  ] as const) {
+    const ceiling = await startCeilingProcess(mode, answer);
+    try {
+      measured.push({ server: label, figures: await loadOneRoute(ceiling.baseUrl, route, options) });
+    } finally {
+      await ceiling.stop();
+    }
+  }
+  measured.push({ server: 'the app', figures: await loadOneRoute(server.baseUrl, route, options) });
+  const floorRate = measured[0].figures.reqPerSec;
+  return {
+    title: `Beneath the app: GET /api/config (signed in) on each server alone, ${SOLO_CONNECTIONS} connections, ${seconds} s, each in its own process`,
+    rows: measured.map(({ server: label, figures }) => ({
+      server: label,
+      'req/s': fixed(figures.reqPerSec),
+      'p50 ms': ms(figures.p50),
+      'p95 ms': ms(figures.p95),
+      'of floor %': fixed((100 * figures.reqPerSec) / floorRate),
+      'errors + non-2xx': figures.errors + figures.non2xx,
+    })),
+  };
+}
+
 export async function run(): Promise<BenchTable[]> {
   const seconds = Number(process.env.BENCH_LOAD_SECONDS ?? 60);
   if (!Number.isFinite(seconds) || seconds <= 0) throw new Error('BENCH_LOAD_SECONDS must be a positive number of seconds.');
@@ -206,6 +251,7 @@ export async function run(): Promise<BenchTable[]> {
       cookie: adviser.cookie,
       'accept-encoding': 'gzip',
     });
+    const beneath = await beneathTheApp(server, { cookie: adviser.cookie, 'accept-encoding': 'gzip' });
     const loads: RouteLoad[] = [];
     const start = (label: string, options: Omit<LoadOptions, 'url'>) => {
       const load: RouteLoad = { label, latencies: [], outcomes: new Map() };
@@ -338,7 +384,7 @@ export async function run(): Promise<BenchTable[]> {
       adviser.cookie,
       Math.min(seconds, 20),
     );
-    return [solo, latency, memory, verdict, scaling];
+    return [solo, beneath, latency, memory, verdict, scaling];
   } finally {
     await server?.stop();
     database.dispose();
