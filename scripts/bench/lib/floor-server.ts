@@ -62,29 +62,8 @@ if (process.argv[2] === '--child' && process.send) {
 
 /** Starts the floor in a child process; stop() ends it. */
 export async function startFloorProcess(answers: Map<string, RecordedAnswer>) {
-  const { fork } = await import('node:child_process');
   const { fileURLToPath } = await import('node:url');
-  const fs = await import('node:fs');
-  const os = await import('node:os');
-  const path = await import('node:path');
-  // A file, not the environment: one environment string holds at most 128 KB and a check's answer is larger.
-  const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'patchwise-floor-')), 'answers.json');
-  fs.writeFileSync(file, JSON.stringify([...answers].map(([p, a]) => [p, { ...a, body: a.body.toString('base64') }])));
-  const child = fork(fileURLToPath(import.meta.url), ['--child', file], {
-    execArgv: ['--import', 'tsx'],
-    stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
-  });
-  const baseUrl = await new Promise<string>((resolve, reject) => {
-    child.once('exit', (code) => reject(new Error(`the floor server exited before listening (code ${code})`)));
-    child.on('message', (m: { type: string; baseUrl: string }) => m.type === 'listening' && resolve(m.baseUrl));
-  });
-  return {
-    baseUrl,
-    stop: async () => {
-      const exited = new Promise((resolve) => child.once('exit', resolve));
-      child.disconnect();
-      await exited;
-      fs.rmSync(path.dirname(file), { recursive: true, force: true });
-    },
-  };
+  const { startBenchChild } = await import('./bench-child.ts');
+  const payload = [...answers].map(([p, a]) => [p, { ...a, body: a.body.toString('base64') }]);
+  return startBenchChild('floor', fileURLToPath(import.meta.url), ['--child'], payload);
 }

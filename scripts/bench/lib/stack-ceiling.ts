@@ -39,29 +39,8 @@ if (process.argv[2] === '--ceiling-child' && process.send) {
 
 /** Starts one ceiling server in a child process (with this process's environment: the bench's database and secret). */
 export async function startCeilingProcess(mode: CeilingMode, answer: RecordedAnswer) {
-  const { fork } = await import('node:child_process');
   const { fileURLToPath } = await import('node:url');
-  const fs = await import('node:fs');
-  const os = await import('node:os');
-  const path = await import('node:path');
-  const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'patchwise-ceiling-')), 'answer.json');
-  fs.writeFileSync(file, JSON.stringify({ ...answer, body: answer.body.toString('base64') }));
-  const child = fork(fileURLToPath(import.meta.url), ['--ceiling-child', mode, file], {
-    execArgv: ['--import', 'tsx'],
-    env: { ...process.env, LOG_LEVEL: 'silent' },
-    stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
-  });
-  const baseUrl = await new Promise<string>((resolve, reject) => {
-    child.once('exit', (code) => reject(new Error(`the ${mode} ceiling server exited before listening (code ${code})`)));
-    child.on('message', (m: { type: string; baseUrl: string }) => m.type === 'listening' && resolve(m.baseUrl));
-  });
-  return {
-    baseUrl,
-    stop: async () => {
-      const exited = new Promise((resolve) => child.once('exit', resolve));
-      child.disconnect();
-      await exited;
-      fs.rmSync(path.dirname(file), { recursive: true, force: true });
-    },
-  };
+  const { startBenchChild } = await import('./bench-child.ts');
+  const payload = { ...answer, body: answer.body.toString('base64') };
+  return startBenchChild(`${mode} ceiling`, fileURLToPath(import.meta.url), ['--ceiling-child', mode], payload, { ...process.env, LOG_LEVEL: 'silent' });
 }
