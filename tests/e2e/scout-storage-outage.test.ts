@@ -11,7 +11,7 @@ const outage = await vi.hoisted(async () => {
   return made;
 });
 
-import type { Browser } from 'playwright-core';
+import type { Browser, Request } from 'playwright-core';
 import { signedIn } from '../helpers/http.ts';
 import type { TestOrganisation } from '../helpers/org.ts';
 import { organisationWithAssignedField } from '../helpers/assigned-field.ts';
@@ -48,10 +48,14 @@ describe('scout sending a photo while storage is down', () => {
     try {
       const page = await signInOnPhone(context, server.url, org.users.scout.email);
       const walkId = await startTodaysWalk(page, server.url, fieldId);
-      let uploads = 0;
-      page.on('request', (request) => {
-        if (request.method() === 'POST' && new URL(request.url()).pathname === '/api/photos') uploads++;
-      });
+      // Counted once each attempt's answer is back: while a request is still out the row says "sending", so reading the
+      // row between attempts needs the attempt to have ended, not merely begun.
+      let uploadsAnswered = 0;
+      const countAnswered = (request: Request) => {
+        if (request.method() === 'POST' && new URL(request.url()).pathname === '/api/photos') uploadsAnswered++;
+      };
+      page.on('requestfinished', countAnswered);
+      page.on('requestfailed', countAnswered);
 
       await page.getByLabel('Pest').selectOption(pest.id);
       await page
@@ -61,8 +65,8 @@ describe('scout sending a photo while storage is down', () => {
       await expect.poll(() => uploadRows(page).textContent(), settle).toMatch(/could not save this photo just now/);
       expect(await rowStates(page)).toEqual(['waiting']);
       // The phone tries again by itself; the photo still waits, never marked refused.
-      await expect.poll(() => uploads, settle).toBeGreaterThanOrEqual(2);
-      expect(await rowStates(page)).toEqual(['waiting']);
+      await expect.poll(() => uploadsAnswered, settle).toBeGreaterThanOrEqual(2);
+      await expect.poll(() => rowStates(page), settle).toEqual(['waiting']);
       const scout = await signedIn(org.users.scout.email);
       expect((await scout.get(`/api/walks/${walkId}`).expect(200)).body.sightings).toHaveLength(0);
 
