@@ -63,7 +63,7 @@ describe('scout sending a photo while storage is down', () => {
         .setInputFiles([{ name: 'sluice.jpg', mimeType: 'image/jpeg', buffer: await makeJpeg({ gps: inside, markSeed: 151 }) }]);
       await page.getByRole('button', { name: 'Send 1 photo' }).tap();
       await expect.poll(() => uploadRows(page).textContent(), settle).toMatch(/could not save this photo just now/);
-      expect(await rowStates(page)).toEqual(['waiting']);
+      await expect.poll(() => rowStates(page), settle).toEqual(['waiting']);
       // The phone tries again by itself; the photo still waits, never marked refused.
       await expect.poll(() => uploadsAnswered, settle).toBeGreaterThanOrEqual(2);
       await expect.poll(() => rowStates(page), settle).toEqual(['waiting']);
